@@ -1,0 +1,97 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { casterCheck, maxShelfSpan, shelfSag } from './checks';
+import { toInches, toMm } from './units';
+
+const PSI_TO_MPA = 0.00689476; // 1 psi = 6894.76 Pa
+const PSF_TO_KPA = 0.0478803; // 1 lb/ft2 = 47.8803 Pa
+
+describe('maxShelfSpan', () => {
+  // Architectural Woodwork Standards, 1st ed. (2009), section 4.4.14.10, adjustable-shelf spans for
+  // sag of no more than span/144 (../shared/bench/shelf-spans.md; the table rounds down to whole inches)
+  const rows: [string, number, number, number, number][] = [
+    ['fir plywood', 950_000, 0.75, 40, 37],
+    ['fir plywood', 950_000, 1, 53, 49],
+    ['hardwood-faced plywood', 1_800_000, 0.75, 49, 46],
+    ['hardwood-faced plywood', 1_800_000, 1, 66, 61],
+    ['red oak', 1_820_000, 0.75, 49, 46],
+    ['red oak', 1_820_000, 1, 66, 61],
+  ];
+  it('reproduces all twelve rows of the AWS 1st ed. 4.4.14.10 span table within 1 in', () => {
+    let checked = 0;
+    for (const [, psi, tIn, at40, at50] of rows) {
+      for (const [psf, table] of [[40, at40], [50, at50]] as const) {
+        const span = toInches(maxShelfSpan({ thicknessMm: toMm(tIn), modulusMPa: psi * PSI_TO_MPA, loadKPa: psf * PSF_TO_KPA, limitRatio: 144 }));
+        expect(Math.abs(span - table), `${psi} psi, ${tIn} in, ${psf} lb/ft2: ${span.toFixed(2)} in vs ${table} in`).toBeLessThan(1);
+        checked++;
+      }
+    }
+    expect(checked).toBe(12);
+  });
+  it('uses the same table as the shared benchmark file states', () => {
+    const md = readFileSync(new URL('../../../../shared/bench/shelf-spans.md', import.meta.url), 'utf8');
+    expect(md).toContain('| veneer core (Douglas fir) plywood | 950,000 | 3/4 | 40 | 37 |');
+  });
+  it('shortens the span by the cube root of the creep factor', () => {
+    const base = { thicknessMm: 19.05, modulusMPa: 12400, loadKPa: 1.915, limitRatio: 600 };
+    expect(maxShelfSpan({ ...base, creepFactor: 2 })).toBeCloseTo(maxShelfSpan(base) / Math.cbrt(2), 9);
+  });
+  describe('invalid input', () => {
+    it('refuses a zero thickness', () => {
+      expect(() => maxShelfSpan({ thicknessMm: 0, modulusMPa: 1, loadKPa: 1, limitRatio: 144 })).toThrow(RangeError);
+    });
+  });
+});
+
+describe('shelfSag', () => {
+  // American Wood Council, Design Aid No. 6 (Beam design formulas), Figure 1, simple beam with a uniformly
+  // distributed load: max deflection = 5 w l^4 / (384 E I). Worked here in inches and pounds:
+  // 3/4 x 12 in shelf, 36 in span, E = 1,800,000 psi, 40 lb/ft2 -> w = 40 lb/ft = 3.333 lb/in,
+  // I = 12 x 0.75^3 / 12 = 0.421875 in4, deflection = 5 x 3.333 x 36^4 / (384 x 1.8e6 x 0.421875) = 0.0960 in
+  it('matches AWC Design Aid No. 6 Figure 1 worked in imperial units', () => {
+    const w = 40 / 12;
+    const I = (12 * 0.75 ** 3) / 12;
+    const expectedIn = (5 * w * 36 ** 4) / (384 * 1.8e6 * I);
+    expect(expectedIn).toBeCloseTo(0.096, 3);
+    const r = shelfSag({ spanMm: toMm(36), depthMm: toMm(12), thicknessMm: toMm(0.75), modulusMPa: 1.8e6 * PSI_TO_MPA, loadKPa: 40 * PSF_TO_KPA });
+    expect(toInches(r.sagMm)).toBeCloseTo(expectedIn, 4);
+  });
+  it('returns an allowable of span/600 by default (0.02 in per foot, Fine Woodworking)', () => {
+    const r = shelfSag({ spanMm: toMm(36), depthMm: 300, thicknessMm: 19, modulusMPa: 12400, loadKPa: 1 });
+    expect(toInches(r.allowableMm)).toBeCloseTo(0.06, 9);
+  });
+  it('says what to change when the shelf sags too much', () => {
+    const r = shelfSag({ spanMm: toMm(40), depthMm: 280, thicknessMm: 18.26, modulusMPa: 6550, loadKPa: 1.915, creepFactor: 1.5 });
+    expect(r.ok).toBe(false);
+    expect(r.message).toMatch(/thicker shelf/);
+    expect(r.message).toMatch(/centre support/);
+    expect(r.message).toMatch(/edge strip/);
+  });
+  it('multiplies the sag by the creep factor (AWC NDS 3.5.2: 1.5 for seasoned lumber)', () => {
+    const base = { spanMm: 800, depthMm: 280, thicknessMm: 18, modulusMPa: 9000, loadKPa: 1.915 };
+    expect(shelfSag({ ...base, creepFactor: 1.5 }).sagMm).toBeCloseTo(1.5 * shelfSag(base).sagMm, 9);
+  });
+  it('agrees with maxShelfSpan at the limit', () => {
+    const span = maxShelfSpan({ thicknessMm: 18, modulusMPa: 9000, loadKPa: 1.915, limitRatio: 300 });
+    const r = shelfSag({ spanMm: span, depthMm: 250, thicknessMm: 18, modulusMPa: 9000, loadKPa: 1.915, limitRatio: 300 });
+    expect(r.sagMm).toBeCloseTo(r.allowableMm, 9);
+  });
+  describe('invalid input', () => {
+    it('refuses a negative span', () => {
+      expect(() => shelfSag({ spanMm: -1, depthMm: 1, thicknessMm: 1, modulusMPa: 1, loadKPa: 1 })).toThrow(/spanMm/);
+    });
+  });
+});
+
+describe('casterCheck', () => {
+  it('shares the load among one caster fewer than fitted (common practice)', () => {
+    const r = casterCheck({ pieceKg: 100, workingLoadKg: 200, casters: 4, ratedLoadKg: 100 });
+    expect(r.perCasterKg).toBe(100);
+    expect(r.ok).toBe(true);
+  });
+  it('says which casters to fit when they are overloaded', () => {
+    const r = casterCheck({ pieceKg: 150, workingLoadKg: 300, casters: 4, ratedLoadKg: 100 });
+    expect(r.ok).toBe(false);
+    expect(r.message).toMatch(/rated 150 kg or more/);
+  });
+});

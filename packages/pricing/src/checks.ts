@@ -1,0 +1,155 @@
+import type { CutList, CutPart } from './cut-list';
+import type { PriceBook, ShopSettings } from './price-book';
+import { toInches, toMm } from './units';
+
+export interface ShelfSagInput {
+  spanMm: number;
+  depthMm: number;
+  thicknessMm: number;
+  modulusMPa: number;
+  /** uniform load over the shelf's area; 1.915 kPa is 40 lb/ft2 */
+  loadKPa: number;
+  /** long-term over initial sag (1 for none; 1.5 for seasoned wood under sustained load) */
+  creepFactor?: number;
+  /** allowable sag is span / limitRatio; 600 is 0.02 in per foot */
+  limitRatio?: number;
+}
+
+export interface ShelfSagResult {
+  sagMm: number;
+  allowableMm: number;
+  ok: boolean;
+  message: string;
+}
+
+/**
+ * Sag at mid-span of a simply supported shelf under a uniform load:
+ * delta = 5 w L^4 / (384 E I) x creep, with w the load per length
+ * (pressure x depth) and I = depth x thickness^3 / 12.
+ *
+ * @example
+ * shelfSag({ spanMm: 762, depthMm: 280, thicknessMm: 18.3, modulusMPa: 12400, loadKPa: 1.915 })
+ */
+export function shelfSag(input: ShelfSagInput): ShelfSagResult {
+  const { spanMm: L, depthMm: b, thicknessMm: t, modulusMPa: E, loadKPa } = input;
+  const creep = input.creepFactor ?? 1;
+  const ratio = input.limitRatio ?? 600;
+  for (const [k, v] of Object.entries({ spanMm: L, depthMm: b, thicknessMm: t, modulusMPa: E, limitRatio: ratio, creepFactor: creep })) {
+    if (!(v > 0) || !Number.isFinite(v)) throw new RangeError(`${k} must be a positive number, got ${v}`);
+  }
+  if (!(loadKPa >= 0)) throw new RangeError(`loadKPa must be zero or more, got ${loadKPa}`);
+  const w = loadKPa * 1e-3 * b; // N/mm
+  const I = (b * t ** 3) / 12; // mm^4
+  const sagMm = ((5 * w * L ** 4) / (384 * E * I)) * creep;
+  const allowableMm = L / ratio;
+  const ok = sagMm <= allowableMm + 1e-9;
+  const spanIn = toInches(L).toFixed(1);
+  const message = ok
+    ? `A ${spanIn} in shelf sags about ${sagMm.toFixed(1)} mm under the design load, within the ${allowableMm.toFixed(1)} mm allowed.`
+    : `A ${spanIn} in shelf would sag about ${sagMm.toFixed(1)} mm under the design load, more than the ${allowableMm.toFixed(1)} mm allowed: use a thicker shelf, add a centre support or partition to shorten the span (to ${toInches(maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio: ratio, creepFactor: creep })).toFixed(0)} in or less), or glue a solid-wood edge strip under the front edge.`;
+  return { sagMm, allowableMm, ok, message };
+}
+
+/**
+ * The longest span whose sag equals span / limitRatio: from
+ * 5 q L^3 / (384 E (t^3 / 12)) x creep = 1 / ratio (depth cancels out).
+ *
+ * @example maxShelfSpan({ thicknessMm: 19.05, modulusMPa: 6550, loadKPa: 1.915, limitRatio: 144 }) // about 1017 mm (40 in)
+ */
+export function maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio, creepFactor = 1 }: { thicknessMm: number; modulusMPa: number; loadKPa: number; limitRatio: number; creepFactor?: number }): number {
+  if (!(t > 0 && E > 0 && loadKPa > 0 && limitRatio > 0 && creepFactor > 0)) throw new RangeError('thickness, modulus, load, limit ratio and creep factor must all be positive');
+  const q = loadKPa * 1e-3; // N/mm2
+  return Math.cbrt((384 * E * t ** 3) / (12 * 5 * q * creepFactor * limitRatio));
+}
+
+export interface CasterCheckInput {
+  pieceKg: number;
+  workingLoadKg: number;
+  casters: number;
+  ratedLoadKg: number;
+}
+
+/**
+ * Casters carry the piece and its working load with one caster assumed off
+ * the floor (uneven floors, common practice).
+ * @example casterCheck({ pieceKg: 120, workingLoadKg: 200, casters: 8, ratedLoadKg: 100 }).ok // true
+ */
+export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: CasterCheckInput): { perCasterKg: number; ok: boolean; message: string } {
+  if (casters < 2) throw new RangeError('a caster check needs at least two casters');
+  const perCasterKg = (pieceKg + workingLoadKg) / (casters - 1);
+  const ok = perCasterKg <= ratedLoadKg;
+  return {
+    perCasterKg,
+    ok,
+    message: ok
+      ? `Each caster carries up to ${perCasterKg.toFixed(0)} kg (one assumed off the floor), within its ${ratedLoadKg} kg rating.`
+      : `Each caster would carry ${perCasterKg.toFixed(0)} kg with one off the floor, more than its ${ratedLoadKg} kg rating: fit casters rated ${Math.ceil(perCasterKg)} kg or more, add casters, or lower the working load.`,
+  };
+}
+
+/** Tip-over rule height: 27 in, from the US rule for clothing storage units (16 CFR part 1261, adopting ASTM F2057-23). */
+export const TIP_OVER_HEIGHT_MM = toMm(27);
+
+export type CheckLevel = 'error' | 'warning' | 'caution';
+export interface Check {
+  code: string;
+  level: CheckLevel;
+  message: string;
+  /** field the check is about, when there is one */
+  path?: string;
+}
+
+/** Mass of the parts from their volumes and the materials' densities, plus hardware. */
+export function partsMassKg(parts: readonly CutPart[], book: PriceBook): number {
+  let kg = 0;
+  for (const p of parts) {
+    const density = p.stock === 'lumber' ? book.lumber.find((l) => l.id === p.materialId)?.densityKgM3 : book.sheetGoods.find((s) => s.id === p.materialId)?.densityKgM3;
+    kg += (p.quantity * p.lengthMm * p.widthMm * p.thicknessMm * 1e-9 * (density ?? 0));
+  }
+  return kg;
+}
+
+/**
+ * The structural and safety checks of one piece: shelf sag under the design
+ * load with creep (a warning past the shop's allowable sag; an error past
+ * span/144, the limit of the Architectural Woodwork Standards' shelf table),
+ * caster load, tip-over, and the usual cautions. Each message says what to do.
+ */
+export function pieceChecks(list: CutList, book: PriceBook, settings: ShopSettings, hardwareMassKg = 0): { checks: Check[]; massKg: number; needsAntiTip: boolean } {
+  const g = list.geometry;
+  const checks: Check[] = [];
+  const massKg = partsMassKg(list.parts, book) + hardwareMassKg;
+  const seen = new Set<string>();
+  for (const s of g.shelfSpans) {
+    const key = `${s.spanMm.toFixed(1)}-${s.materialId}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    const mat = book.sheetGoods.find((m) => m.id === s.materialId);
+    if (!mat) continue;
+    const base = { spanMm: s.spanMm, depthMm: s.depthMm, thicknessMm: s.thicknessMm, modulusMPa: mat.modulusMPa, loadKPa: settings.shelfLoadKPa, creepFactor: settings.shelfCreepFactor };
+    const hard = shelfSag({ ...base, limitRatio: 144 });
+    const soft = shelfSag({ ...base, limitRatio: settings.shelfSagRatio });
+    if (!hard.ok) checks.push({ code: 'shelf_span', level: 'error', path: 'bays', message: `${mat.name} cannot carry this span: ${hard.message}` });
+    else if (!soft.ok) checks.push({ code: 'shelf_sag', level: 'warning', path: 'bays', message: soft.message });
+  }
+  if (g.casters > 0 && g.casterId) {
+    const caster = book.hardware.find((h) => h.id === g.casterId);
+    if (caster?.ratedLoadKg) {
+      const c = casterCheck({ pieceKg: massKg, workingLoadKg: g.workingLoadKg, casters: g.casters, ratedLoadKg: caster.ratedLoadKg });
+      checks.push({ code: 'caster_load', level: c.ok ? 'caution' : 'error', path: 'casterId', message: c.message });
+    }
+    checks.push({ code: 'casters_locked', level: 'caution', message: 'Lock the casters before working at the bench, and never stand on it.' });
+  }
+  const hasFronts = g.doors.length > 0 || g.drawers.length > 0;
+  let needsAntiTip = false;
+  if (g.freeStanding && !g.mobile && g.heightMm >= TIP_OVER_HEIGHT_MM) {
+    if (hasFronts) {
+      needsAntiTip = true;
+      checks.push({ code: 'tip_over', level: 'warning', message: `At ${toInches(g.heightMm).toFixed(0)} in tall with drawers or doors, this piece must be anchored to the wall: an anti-tip kit is included. Anchor into a stud or with fasteners suited to the wall, as the kit's instructions and local codes require.` });
+    } else {
+      checks.push({ code: 'anchor', level: 'caution', message: `Tall furniture can tip over: anchor this ${toInches(g.heightMm).toFixed(0)} in piece to the wall, load the lowest shelves first, and do not let children climb it.` });
+    }
+  }
+  if (g.wallHung) checks.push({ code: 'wall_hung', level: 'caution', message: 'Hang wall cabinets from the rail with screws into studs or fasteners rated for the wall; have built-ins and anything electrical installed by licensed trades under local code.' });
+  return { checks, massKg, needsAntiTip };
+}

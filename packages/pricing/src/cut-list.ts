@@ -1,0 +1,477 @@
+import type { BuildSpec, Compartment } from './designs';
+import { dividerCount } from './designs';
+import { byId, type PriceBook, type SheetGood, type ShopSettings } from './price-book';
+import { toMm } from './units';
+
+export type Grain = 'fixed' | 'free';
+
+/** One line of the cut list: `quantity` identical parts. Length runs along the grain. */
+export interface CutPart {
+  id: string;
+  name: string;
+  /** a sheet good's id, or a lumber id for solid-wood parts */
+  materialId: string;
+  stock: 'sheet' | 'lumber';
+  quantity: number;
+  lengthMm: number;
+  widthMm: number;
+  thicknessMm: number;
+  grain: Grain;
+  /** edges banded: how many of the two long edges, how many of the two short edges */
+  bandedEdges: { long: 0 | 1 | 2; short: 0 | 1 | 2 };
+  bandingId: string | null;
+  pocketHoles: number;
+  dados: number;
+  /** faces that take finish: 0, 1 or 2 */
+  finishFaces: 0 | 1 | 2;
+}
+
+/** A front as drawn on the elevation, in mm from the piece's left edge and the floor. */
+export interface FrontRect {
+  kind: 'door' | 'drawer';
+  xMm: number;
+  yMm: number;
+  widthMm: number;
+  heightMm: number;
+  /** doors: which side the hinges are on */
+  hinge?: 'left' | 'right';
+}
+
+export interface DrawerFeature {
+  frontWidthMm: number;
+  slideLengthIn: number;
+  box: DrawerBox;
+}
+
+export interface CaseOutline {
+  xMm: number;
+  yMm: number;
+  widthMm: number;
+  heightMm: number;
+  toeKickMm: number;
+  partitionsXMm: number[];
+  /** dividers and fixed shelves seen in open compartments, as [x, y, width] */
+  shelvesMm: [number, number, number][];
+}
+
+export interface PieceGeometry {
+  widthMm: number;
+  heightMm: number;
+  depthMm: number;
+  cases: CaseOutline[];
+  fronts: FrontRect[];
+  top: { xMm: number; yMm: number; widthMm: number; heightMm: number; kind: string } | null;
+  mobility: { kind: 'caster' | 'foot'; xMm: number; heightMm: number }[];
+  drawers: DrawerFeature[];
+  doors: { widthMm: number; heightMm: number }[];
+  adjustableShelves: number;
+  shelfSpans: { spanMm: number; depthMm: number; materialId: string; thicknessMm: number }[];
+  caseCount: number;
+  torsionTops: number;
+  trimPieces: number;
+  casters: number;
+  feet: number;
+  casterId: string | null;
+  footId: string | null;
+  hangingRailWidthMm: number | null;
+  wallHung: boolean;
+  freeStanding: boolean;
+  mobile: boolean;
+  workingLoadKg: number;
+  pullId: string;
+}
+
+export interface CutList {
+  parts: CutPart[];
+  geometry: PieceGeometry;
+}
+
+// ---------------------------------------------------------------------------
+// Drawer boxes (all common practice): side-mount slides take 1/2 in a side;
+// slides come in 10 to 28 in, 2 in apart; the slide needs the inside depth
+// less 1/2 in; the box is 1 in lower than its opening; the bottom sits in a
+// 1/4 in dado.
+
+export const SLIDE_SIDE_CLEARANCE_MM = toMm(0.5);
+export const SLIDE_LENGTHS_IN = [10, 12, 14, 16, 18, 20, 22, 24, 26, 28] as const;
+const SLIDE_REAR_CLEARANCE_MM = toMm(0.5);
+export const DRAWER_BOTTOM_DADO_MM = toMm(0.25);
+/** carcass dados: 1/4 in deep (common practice: about a third of 3/4 in stock) */
+const DADO_MM = toMm(0.25);
+/** grooved backs sit this far in from the back edge, to leave room to scribe (common practice) */
+const BACK_SETBACK_MM = toMm(0.5);
+const SHELF_SIDE_CLEARANCE_MM = toMm(1 / 16);
+const SHELF_FRONT_SETBACK_MM = toMm(1 / 4);
+const STRETCHER_WIDTH_MM = toMm(4);
+const RAIL_WIDTH_MM = toMm(3);
+
+export interface DrawerBox {
+  boxWidthMm: number;
+  boxHeightMm: number;
+  boxDepthMm: number;
+  slideLengthMm: number;
+  slideLengthIn: number;
+}
+
+export interface DrawerRules {
+  /** opening height less box height; default 1 in */
+  heightClearanceMm?: number;
+  /** per side; default 1/2 in (side-mount slides) */
+  sideClearanceMm?: number;
+}
+
+/**
+ * The drawer box for an opening (its depth being the case's inside depth):
+ * the longest standard slide that fits the depth less 1/2 in, the box as
+ * deep as the slide, narrower by the slide clearance each side, lower than
+ * the opening by the height clearance.
+ *
+ * @example
+ * drawerBox({ widthMm: 500, heightMm: 150, depthMm: 560 })
+ * // { boxWidthMm: 474.6, boxHeightMm: 124.6, boxDepthMm: 508, slideLengthMm: 508, slideLengthIn: 20 }
+ * @throws RangeError when no slide fits, naming the least depth
+ */
+export function drawerBox(opening: { widthMm: number; heightMm: number; depthMm: number }, rules: DrawerRules = {}): DrawerBox {
+  const hc = rules.heightClearanceMm ?? toMm(1);
+  const sc = rules.sideClearanceMm ?? SLIDE_SIDE_CLEARANCE_MM;
+  const room = opening.depthMm - SLIDE_REAR_CLEARANCE_MM;
+  const fits = SLIDE_LENGTHS_IN.filter((l) => toMm(l) <= room + 1e-9);
+  if (!fits.length) {
+    throw new RangeError(`no drawer slide fits ${round(opening.depthMm)} mm of inside depth; the shortest (10 in) needs at least ${round(toMm(10) + SLIDE_REAR_CLEARANCE_MM)} mm`);
+  }
+  const slideIn = fits[fits.length - 1];
+  const boxWidthMm = opening.widthMm - 2 * sc;
+  const boxHeightMm = opening.heightMm - hc;
+  if (boxWidthMm < toMm(4)) throw new RangeError(`a ${round(opening.widthMm)} mm opening is too narrow for a drawer box`);
+  if (boxHeightMm < toMm(1.5)) throw new RangeError(`a ${round(opening.heightMm)} mm opening is too low for a drawer box`);
+  return { boxWidthMm, boxHeightMm, boxDepthMm: toMm(slideIn), slideLengthMm: toMm(slideIn), slideLengthIn: slideIn };
+}
+
+function round(v: number): number {
+  return Math.round(v * 10) / 10;
+}
+
+// ---------------------------------------------------------------------------
+
+interface CaseInput {
+  key: string;
+  xMm: number;
+  yMm: number;
+  widthMm: number;
+  heightMm: number;
+  depthMm: number;
+  toeKickMm: number;
+  topKind: 'stretchers' | 'panel';
+  hangingRail: boolean;
+  trimmed: boolean;
+}
+
+class PartList {
+  readonly parts: CutPart[] = [];
+  add(p: Omit<CutPart, 'stock' | 'bandingId'> & { stock?: 'sheet' | 'lumber'; bandingId?: string | null }): void {
+    if (p.quantity <= 0) return;
+    if (!(p.lengthMm > 0 && p.widthMm > 0)) throw new RangeError(`part "${p.name}" comes out ${round(p.lengthMm)} x ${round(p.widthMm)} mm: the piece is too small for its layout`);
+    const banded = p.bandedEdges.long + p.bandedEdges.short > 0;
+    const part: CutPart = { stock: 'sheet', ...p, bandingId: banded ? (p.bandingId ?? null) : null };
+    const same = this.parts.find((q) => q.id === part.id);
+    if (same) same.quantity += part.quantity;
+    else this.parts.push(part);
+  }
+}
+
+function grainOf(m: SheetGood, visible: boolean): 'fixed' | 'free' {
+  return visible && m.grain === 'lengthwise' ? 'fixed' : 'free';
+}
+
+/** Splits `total` among entries with null sizes after the set ones. */
+function share(sizes: (number | null)[], total: number): number[] {
+  const set = sizes.reduce<number>((s, v) => s + (v ?? 0), 0);
+  const open = sizes.filter((v) => v === null).length;
+  const each = open ? (total - set) / open : 0;
+  const out = sizes.map((v) => v ?? each);
+  if (!open && out.length) out[out.length - 1] += total - set; // the top compartment takes what is left
+  return out;
+}
+
+/**
+ * The cut list of a build spec: every part with its size from the actual
+ * material thickness, grain rule, banded edges and joinery; frameless full
+ * overlay fronts with the shop's reveal and overlay; drawer boxes from their
+ * openings; a torsion-box top of skins, frame and grid; mitred solid trim.
+ * Also returns the geometry the drawing, hardware and checks are made from.
+ *
+ * @example
+ * cutList(designs['base-cabinet'].defaults, demoPriceBook, demoSettings).parts.find((p) => p.name === 'side')
+ */
+export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings): CutList {
+  const carcass = byId(book.sheetGoods, spec.carcassMaterialId, 'carcass material');
+  const back = byId(book.sheetGoods, spec.backMaterialId, 'back material');
+  const front = byId(book.sheetGoods, spec.frontMaterialId, 'front material');
+  const drawerMat = byId(book.sheetGoods, spec.drawerMaterialId, 'drawer material');
+  const drawerBottom = byId(book.sheetGoods, spec.drawerBottomMaterialId, 'drawer bottom material');
+  byId(book.edgeBanding, spec.bandingId, 'edge banding');
+  byId(book.hardware, spec.pullId, 'pull');
+  if (spec.finishId) byId(book.finishes, spec.finishId, 'finish');
+  if (spec.trim) byId(book.lumber, spec.trim.lumberId, 'trim lumber');
+
+  const t = carcass.thicknessMm;
+  const list = new PartList();
+  const geo: PieceGeometry = {
+    widthMm: spec.widthMm,
+    heightMm: spec.heightMm,
+    depthMm: spec.depthMm,
+    cases: [],
+    fronts: [],
+    top: null,
+    mobility: [],
+    drawers: [],
+    doors: [],
+    adjustableShelves: 0,
+    shelfSpans: [],
+    caseCount: 0,
+    torsionTops: 0,
+    trimPieces: 0,
+    casters: 0,
+    feet: 0,
+    casterId: null,
+    footId: null,
+    hangingRailWidthMm: null,
+    wallHung: spec.design === 'wall-cabinet',
+    freeStanding: spec.design === 'assembly-bench' || ((spec.design === 'bookcase' || spec.design === 'base-cabinet') && spec.installation === 'free-standing'),
+    mobile: false,
+    workingLoadKg: 0,
+    pullId: spec.pullId,
+  };
+  const band = spec.bandingId;
+  const trimmed = spec.trim !== null && spec.design !== 'assembly-bench';
+
+  const cases: CaseInput[] = [];
+  if (spec.design === 'assembly-bench') {
+    const caster = spec.mobility !== 'leveling-feet' ? byId(book.hardware, spec.casterId, 'caster') : null;
+    const foot = spec.mobility !== 'locking-casters' ? byId(book.hardware, spec.footId, 'leveling foot') : null;
+    const under = Math.max(caster?.heightMm ?? 0, foot?.heightMm ?? 0);
+    const caseWidth = (spec.widthMm - 2 * spec.overhangSidesMm) / spec.caseCount;
+    const caseDepth = spec.depthMm - spec.overhangFrontMm;
+    const topT = spec.top.kind === 'laminated' ? 2 * t : spec.top.thicknessMm;
+    const caseHeight = spec.heightMm - topT - under;
+    for (let c = 0; c < spec.caseCount; c++) {
+      cases.push({ key: `c${c + 1}`, xMm: spec.overhangSidesMm + c * caseWidth, yMm: under, widthMm: caseWidth, heightMm: caseHeight, depthMm: caseDepth, toeKickMm: 0, topKind: 'stretchers', hangingRail: false, trimmed: false });
+    }
+    geo.top = { xMm: 0, yMm: spec.heightMm - topT, widthMm: spec.widthMm, heightMm: topT, kind: spec.top.kind };
+    benchTop(spec, book, list, geo, topT);
+    const perCase = 4;
+    if (caster) {
+      geo.casters = perCase * spec.caseCount;
+      geo.casterId = caster.id;
+    }
+    if (foot) {
+      geo.feet = perCase * spec.caseCount;
+      geo.footId = foot.id;
+    }
+    for (const cs of cases) {
+      for (const x of [cs.xMm + 40, cs.xMm + cs.widthMm - 40]) geo.mobility.push({ kind: caster ? 'caster' : 'foot', xMm: x, heightMm: under });
+    }
+    geo.mobile = caster !== null;
+    geo.workingLoadKg = spec.workingLoadKg;
+  } else {
+    const toe = spec.design === 'wall-cabinet' ? 0 : spec.toeKickMm;
+    cases.push({
+      key: 'c1',
+      xMm: 0,
+      yMm: 0,
+      widthMm: spec.widthMm,
+      heightMm: spec.heightMm,
+      depthMm: spec.depthMm,
+      toeKickMm: toe,
+      topKind: spec.design === 'base-cabinet' ? 'stretchers' : 'panel',
+      hangingRail: spec.design === 'wall-cabinet' && spec.hangingRail,
+      trimmed,
+    });
+    if (spec.design === 'base-cabinet' && spec.mobility === 'leveling-feet') {
+      const foot = book.hardware.find((h) => h.kind === 'leveling_foot');
+      if (foot) {
+        geo.feet = 4;
+        geo.footId = foot.id;
+      }
+    }
+  }
+
+  for (const cs of cases) buildCase(cs, spec, { carcass, back, front, drawerMat, drawerBottom }, settings, list, geo, band);
+  geo.caseCount = cases.length;
+
+  if (spec.trim) {
+    const lumber = byId(book.lumber, spec.trim.lumberId, 'trim lumber');
+    const tt = spec.trim.thicknessMm;
+    const tw = spec.trim.widthMm;
+    const common = { materialId: lumber.id, stock: 'lumber' as const, thicknessMm: tt, widthMm: tw, grain: 'fixed' as const, bandedEdges: { long: 0, short: 0 } as const, pocketHoles: 0, dados: 0, finishFaces: 2 as const };
+    if (spec.design === 'assembly-bench' && geo.top) {
+      // solid edging round the top, mitred at the corners (lengths are long-point)
+      list.add({ ...common, id: 'trim-top-long', name: 'trim, top edge (long)', quantity: 2, lengthMm: spec.widthMm + 2 * tt, widthMm: geo.top.heightMm });
+      list.add({ ...common, id: 'trim-top-short', name: 'trim, top edge (end)', quantity: 2, lengthMm: spec.depthMm + 2 * tt, widthMm: geo.top.heightMm });
+    } else {
+      const cs = cases[0];
+      // a mitred face frame of solid trim over the case's front edges
+      list.add({ ...common, id: 'trim-stile', name: 'trim, stile', quantity: 2, lengthMm: cs.heightMm - cs.toeKickMm });
+      list.add({ ...common, id: 'trim-rail', name: 'trim, rail', quantity: 2, lengthMm: cs.widthMm });
+    }
+    geo.trimPieces = 4;
+  }
+  return { parts: list.parts, geometry: geo };
+}
+
+interface Mats {
+  carcass: SheetGood;
+  back: SheetGood;
+  front: SheetGood;
+  drawerMat: SheetGood;
+  drawerBottom: SheetGood;
+}
+
+function buildCase(cs: CaseInput, spec: BuildSpec, m: Mats, settings: ShopSettings, list: PartList, geo: PieceGeometry, band: string): void {
+  const t = m.carcass.thicknessMm;
+  const bt = m.back.thicknessMm;
+  const k = cs.key;
+  const grooved = spec.backConstruction === 'grooved';
+  const panelDepth = grooved ? cs.depthMm : cs.depthMm - bt; // sides, bottom, top
+  const insideDepth = grooved ? cs.depthMm - BACK_SETBACK_MM - bt : cs.depthMm - bt;
+  const insideWidth = cs.widthMm - 2 * t;
+  const insideHeight = cs.heightMm - cs.toeKickMm - 2 * t;
+  if (insideWidth <= 0 || insideHeight <= 0 || insideDepth <= 0) throw new RangeError(`the case (${round(cs.widthMm)} x ${round(cs.heightMm)} x ${round(cs.depthMm)} mm) has no room inside`);
+  const faceBand = cs.trimmed ? 0 : 1;
+  const carcassGrain = (visible: boolean) => grainOf(m.carcass, visible);
+  const horizontals = cs.topKind === 'panel' ? 2 : 1; // bottom and a top panel dadoed into the sides
+
+  const bays = spec.bays;
+  const dividersPerBay = bays.map((b) => dividerCount(b.compartments) + b.compartments.reduce((s, c) => s + (c.kind === 'drawer' ? 0 : c.fixedShelves), 0));
+  const bayWidths = share(
+    bays.map((b) => b.widthMm),
+    insideWidth - (bays.length - 1) * t,
+  );
+  if (bayWidths.some((w) => w < 100)) throw new RangeError('the bays do not fit the case: make them narrower or the case wider');
+
+  // sides: full height (notched for the toe kick), dadoes for bottom, top panel and the outer bays' dividers, and the back groove
+  const sideDados = [0, bays.length - 1].map((b) => horizontals + dividersPerBay[b] + (grooved ? 1 : 0));
+  list.add({ id: `${k}-side`, name: 'side', materialId: m.carcass.id, quantity: 2, lengthMm: cs.heightMm, widthMm: panelDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: Math.max(...sideDados), finishFaces: 2 });
+  list.add({ id: `${k}-bottom`, name: 'bottom', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth + 2 * DADO_MM, widthMm: panelDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: (bays.length - 1) + (grooved ? 1 : 0), finishFaces: 1 });
+  if (cs.topKind === 'panel') {
+    list.add({ id: `${k}-top`, name: 'top', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth + 2 * DADO_MM, widthMm: panelDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: (bays.length - 1) + (grooved ? 1 : 0), finishFaces: 2 });
+  } else {
+    list.add({ id: `${k}-stretcher`, name: 'stretcher', materialId: m.carcass.id, quantity: 2, lengthMm: insideWidth, widthMm: STRETCHER_WIDTH_MM, thicknessMm: t, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 4, dados: 0, finishFaces: 0 });
+  }
+  if (cs.toeKickMm > 0) {
+    list.add({ id: `${k}-toe-kick`, name: 'toe kick', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth, widthMm: cs.toeKickMm, thicknessMm: t, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+  }
+  if (cs.hangingRail) {
+    list.add({ id: `${k}-hanging-rail`, name: 'hanging rail', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth, widthMm: RAIL_WIDTH_MM, thicknessMm: t, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 4, dados: 0, finishFaces: 0 });
+    geo.hangingRailWidthMm = cs.widthMm;
+  }
+  if (grooved) {
+    list.add({ id: `${k}-back`, name: 'back', materialId: m.back.id, quantity: 1, lengthMm: insideHeight + 2 * DADO_MM, widthMm: insideWidth + 2 * DADO_MM, thicknessMm: bt, grain: grainOf(m.back, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+  } else {
+    list.add({ id: `${k}-back`, name: 'back', materialId: m.back.id, quantity: 1, lengthMm: cs.heightMm - cs.toeKickMm, widthMm: cs.widthMm, thicknessMm: bt, grain: grainOf(m.back, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+  }
+  if (bays.length > 1) {
+    list.add({ id: `${k}-partition`, name: 'partition', materialId: m.carcass.id, quantity: bays.length - 1, lengthMm: insideHeight + 2 * DADO_MM, widthMm: insideDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: Math.max(...dividersPerBay), finishFaces: 2 });
+  }
+
+  const outline: CaseOutline = { xMm: cs.xMm, yMm: cs.yMm, widthMm: cs.widthMm, heightMm: cs.heightMm, toeKickMm: cs.toeKickMm, partitionsXMm: [], shelvesMm: [] };
+  geo.cases.push(outline);
+  const outerInset = Math.max(0, t - settings.overlayMm) + settings.revealMm / 2;
+  const half = settings.revealMm / 2;
+  const insideBottom = cs.yMm + cs.toeKickMm + t; // from the floor
+
+  let x = cs.xMm + t;
+  bays.forEach((bay, b) => {
+    const bw = bayWidths[b];
+    const bk = `${k}-b${b + 1}`;
+    const dividers = dividerCount(bay.compartments);
+    const heights = share(
+      bay.compartments.map((c) => c.heightMm),
+      insideHeight - dividers * t,
+    );
+    if (heights.some((h) => h < 50)) throw new RangeError(`the compartments of bay ${b + 1} do not fit the case: make them shorter or the case taller`);
+    if (dividers > 0) {
+      list.add({ id: `${bk}-divider`, name: 'fixed shelf', materialId: m.carcass.id, quantity: dividers, lengthMm: bw + 2 * DADO_MM, widthMm: insideDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+    }
+    // the face boundaries of this bay (centre of partitions, case edge less the overlay)
+    const left = b === 0 ? cs.xMm + outerInset : x - t / 2 + half;
+    const right = b === bays.length - 1 ? cs.xMm + cs.widthMm - outerInset : x + bw + t / 2 - half;
+    let y = insideBottom;
+    bay.compartments.forEach((c: Compartment, j) => {
+      const h = heights[j];
+      const ck = `${bk}-k${j + 1}`;
+      const below = j === 0 ? 'edge' : bay.compartments[j - 1].kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
+      const above = j === bay.compartments.length - 1 ? 'edge' : bay.compartments[j + 1].kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
+      const bottom = below === 'edge' ? cs.yMm + cs.toeKickMm + outerInset : below === 'divider' ? y - t / 2 + half : y + half;
+      const top = above === 'edge' ? cs.yMm + cs.heightMm - outerInset : above === 'divider' ? y + h + t / 2 - half : y + h - half;
+      if (above === 'divider') outline.shelvesMm.push([x, y + h, bw]);
+      const shelfDepth = insideDepth - SHELF_FRONT_SETBACK_MM;
+      if (c.kind !== 'drawer') {
+        if (c.adjustableShelves > 0) {
+          list.add({ id: `${ck}-shelf`, name: 'shelf', materialId: m.carcass.id, quantity: c.adjustableShelves, lengthMm: bw - 2 * SHELF_SIDE_CLEARANCE_MM, widthMm: shelfDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+          geo.adjustableShelves += c.adjustableShelves;
+          geo.shelfSpans.push({ spanMm: bw, depthMm: shelfDepth, materialId: m.carcass.id, thicknessMm: t });
+        }
+        if (c.fixedShelves > 0) {
+          list.add({ id: `${ck}-fixed-shelf`, name: 'fixed shelf', materialId: m.carcass.id, quantity: c.fixedShelves, lengthMm: bw + 2 * DADO_MM, widthMm: insideDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+          const gap = (h - c.fixedShelves * t) / (c.fixedShelves + 1);
+          for (let i = 1; i <= c.fixedShelves; i++) outline.shelvesMm.push([x, y + i * gap + (i - 1) * t, bw]);
+        }
+        if (c.adjustableShelves > 0 || c.fixedShelves > 0 || dividers > 0) geo.shelfSpans.push({ spanMm: bw, depthMm: insideDepth, materialId: m.carcass.id, thicknessMm: t });
+      }
+      if (c.kind === 'door') {
+        const doors = c.doors;
+        const fw = (right - left - (doors - 1) * settings.revealMm) / doors;
+        for (let d = 0; d < doors; d++) {
+          const fx = left + d * (fw + settings.revealMm);
+          geo.fronts.push({ kind: 'door', xMm: fx, yMm: bottom, widthMm: fw, heightMm: top - bottom, hinge: doors === 2 ? (d === 0 ? 'left' : 'right') : 'left' });
+          geo.doors.push({ widthMm: fw, heightMm: top - bottom });
+        }
+        list.add({ id: `${ck}-door`, name: 'door', materialId: m.front.id, quantity: doors, lengthMm: top - bottom, widthMm: fw, thicknessMm: m.front.thicknessMm, grain: grainOf(m.front, true), bandedEdges: { long: 2, short: 2 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+      } else if (c.kind === 'drawer') {
+        const box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth });
+        const fw = right - left;
+        geo.fronts.push({ kind: 'drawer', xMm: left, yMm: bottom, widthMm: fw, heightMm: top - bottom });
+        geo.drawers.push({ frontWidthMm: fw, slideLengthIn: box.slideLengthIn, box });
+        list.add({ id: `${ck}-drawer-front`, name: 'drawer front', materialId: m.front.id, quantity: 1, lengthMm: fw, widthMm: top - bottom, thicknessMm: m.front.thicknessMm, grain: grainOf(m.front, true), bandedEdges: { long: 2, short: 2 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+        const st = m.drawerMat.thicknessMm;
+        list.add({ id: `${ck}-drawer-side`, name: 'drawer side', materialId: m.drawerMat.id, quantity: 2, lengthMm: box.boxDepthMm, widthMm: box.boxHeightMm, thicknessMm: st, grain: 'free', bandedEdges: { long: 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 1, finishFaces: 0 });
+        list.add({ id: `${ck}-drawer-end`, name: 'drawer box front and back', materialId: m.drawerMat.id, quantity: 2, lengthMm: box.boxWidthMm - 2 * st, widthMm: box.boxHeightMm, thicknessMm: st, grain: 'free', bandedEdges: { long: 1, short: 0 }, bandingId: band, pocketHoles: 4, dados: 1, finishFaces: 0 });
+        list.add({ id: `${ck}-drawer-bottom`, name: 'drawer bottom', materialId: m.drawerBottom.id, quantity: 1, lengthMm: box.boxWidthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM, widthMm: box.boxDepthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM, thicknessMm: m.drawerBottom.thicknessMm, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+      }
+      y += h + (above === 'divider' ? t : 0);
+    });
+    x += bw + t;
+    if (b < bays.length - 1) outline.partitionsXMm.push(x - t);
+  });
+}
+
+function benchTop(spec: Extract<BuildSpec, { design: 'assembly-bench' }>, book: PriceBook, list: PartList, geo: PieceGeometry, topT: number): void {
+  const L = spec.widthMm;
+  const D = spec.depthMm;
+  if (spec.top.kind === 'laminated') {
+    const m = byId(book.sheetGoods, spec.carcassMaterialId, 'top material');
+    list.add({ id: 'top-layer', name: 'top layer', materialId: m.id, quantity: 2, lengthMm: L, widthMm: D, thicknessMm: m.thicknessMm, grain: grainOf(m, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+    return;
+  }
+  const skin = byId(book.sheetGoods, spec.top.skinMaterialId, 'top skin material');
+  const core = byId(book.sheetGoods, spec.top.coreMaterialId, 'top core material');
+  const ct = core.thicknessMm;
+  const coreH = topT - 2 * skin.thicknessMm;
+  if (coreH < ct) throw new RangeError(`the top is too thin for two ${round(skin.thicknessMm)} mm skins and a core`);
+  const spacing = spec.top.gridSpacingMm;
+  list.add({ id: 'top-skin', name: 'skin', materialId: skin.id, quantity: 2, lengthMm: L, widthMm: D, thicknessMm: skin.thicknessMm, grain: grainOf(skin, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+  list.add({ id: 'top-frame-long', name: 'frame, long', materialId: core.id, quantity: 2, lengthMm: L, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+  list.add({ id: 'top-frame-end', name: 'frame, end', materialId: core.id, quantity: 2, lengthMm: D - 2 * ct, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+  // cross ribs run front to back between the long frame members; long ribs are cut into segments between them
+  const innerL = L - 2 * ct;
+  const innerD = D - 2 * ct;
+  const cross = Math.max(0, Math.ceil(innerL / spacing) - 1);
+  const longRows = Math.max(0, Math.ceil(innerD / spacing) - 1);
+  if (cross > 0) list.add({ id: 'top-rib-cross', name: 'grid rib, cross', materialId: core.id, quantity: cross, lengthMm: innerD, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+  if (longRows > 0) {
+    const seg = (innerL - cross * ct) / (cross + 1);
+    list.add({ id: 'top-rib-long', name: 'grid rib, long', materialId: core.id, quantity: longRows * (cross + 1), lengthMm: seg, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+  }
+  geo.torsionTops = 1;
+}

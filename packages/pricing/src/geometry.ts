@@ -1,0 +1,15 @@
+/**
+ * The engine's geometry, for the browser: designs, validation, cut list,
+ * checks, drawings and units, without money. Prices come from the server.
+ */
+export * from './units';
+export * from './designs';
+export { cutList, drawerBox, SLIDE_LENGTHS_IN } from './cut-list';
+export type { CutList, CutPart, DrawerBox, FrontRect, PieceGeometry } from './cut-list';
+export { shelfSag, maxShelfSpan, casterCheck, pieceChecks, TIP_OVER_HEIGHT_MM } from './checks';
+export type { Check, CheckLevel } from './checks';
+export { hingesPerDoor } from './hardware';
+export { elevationDrawing, sheetLayoutDrawing, toSvg } from './drawings';
+export type { Drawing, Shape, ShapeStyle } from './drawings';
+export { validateSpec } from './validate';
+export { PriceBook, ShopSettings, STAGE_KEYS, StageKey } from './price-book';

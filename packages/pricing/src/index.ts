@@ -1,0 +1,12 @@
+export * from './geometry';
+export { nest, nestByMaterial, nestLowerBound } from './nesting';
+export type { Cut, NestOptions, NestPart, NestResult, Offcut, Placement, SheetLayout, StockSheet, UnplacedPart } from './nesting';
+export { validateLayout } from './validate-layout';
+export { finishCoverage, finishGallons, FT2_MIL_PER_GALLON } from './finish';
+export { hardwareFor, TWO_PULL_WIDTH_MM } from './hardware';
+export type { HardwareLine } from './hardware';
+export { labourHours, bandingMetres } from './labour';
+export { estimate, budgetRange, rangeOf, totalsFor, splitDeposit, times, LINE_GROUPS } from './costing';
+export type { Estimate, EstimateItem, EstimateLine, EstimateOptions, LineGroup, MaterialLayout, PieceResult, Totals } from './costing';
+export { demoPriceBook, demoSettings } from './demo-data';
+export { LABOUR_OPERATION_KEYS, HardwareKind, SheetGood, Lumber, EdgeBanding, HardwareItem, Finish, LabourOperation } from './price-book';
