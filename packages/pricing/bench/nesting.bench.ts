@@ -8,6 +8,7 @@
  *   pnpm bench:nesting                 # both variants, effort 'thorough'
  *   BENCH_FILTER=cl02 pnpm bench:nesting
  *   BENCH_NESTING_FILE=/path/instances.txt pnpm bench:nesting
+ *   BENCH_VARIANT=fixed pnpm bench:nesting        # or rotating: one variant only
  *
  * Every layout of ours goes through validateLayout; a failure is printed and
  * makes the run exit non-zero.
@@ -162,8 +163,10 @@ function quickTiming(): void {
 }
 
 console.log(`# Sheet-layout benchmark: ${instances.length} instances, kerf 0, trim 0, effort 'thorough'`);
-const fixed = print('fixed orientation (grain-bound)', run(false));
-const rot = print('rotation allowed', run(true));
+const variant = process.env.BENCH_VARIANT; // 'fixed' or 'rotating' runs one variant only
+const none = { ours: 0, peer: 0, best: 0, oursWithBest: 0, maxMs: 0 };
+const fixed = variant === 'rotating' ? none : print('fixed orientation (grain-bound)', run(false));
+const rot = variant === 'fixed' ? none : print('rotation allowed', run(true));
 quickTiming();
 console.log(`\nvalidation failures: ${invalid}`);
 console.log(

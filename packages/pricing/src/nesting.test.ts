@@ -175,3 +175,22 @@ describe('nestByMaterial', () => {
     expect(r.unknown.unplaced[0].reason).toMatch(/no stock sheet/);
   });
 });
+
+describe('nest regressions', () => {
+  it('lays out parts whose sizes carry floating-point noise (found by the estimate properties)', () => {
+    const w = 63.49999999999999;
+    const parts: NestPart[] = [
+      { id: 'frame-long', lengthMm: 1285.5, widthMm: w, quantity: 6, canRotate: true },
+      { id: 'frame-end', lengthMm: 606.23, widthMm: w, quantity: 6, canRotate: true },
+      { id: 'rib-cross', lengthMm: 606.23, widthMm: w, quantity: 18, canRotate: true },
+      { id: 'rib-long', lengthMm: 162.77428571428572, widthMm: w, quantity: 42, canRotate: true },
+      { id: 'side', lengthMm: 489.30000000000007, widthMm: 566.55, quantity: 12, canRotate: false },
+      { id: 'bottom', lengthMm: 542.73, widthMm: 566.55, quantity: 6, canRotate: false },
+      { id: 'stretcher', lengthMm: 530.03, widthMm: 101.6, quantity: 12, canRotate: true },
+      { id: 'door', lengthMm: 485.7800000000001, widthMm: 563.03, quantity: 6, canRotate: false },
+    ];
+    const opts = { kerfMm: 3.2, trimMm: 6, effort: 'quick' as const };
+    const r = nest(parts, SHEET, opts);
+    expect(validateLayout(r, parts, SHEET, opts).errors).toEqual([]);
+  });
+});

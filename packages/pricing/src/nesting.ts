@@ -348,16 +348,16 @@ function fillBinBySpace(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest:
 
 /** Tries to pack every item into one bin with several configs and orders. */
 function packAllInOne(items: Item[], ctx: Ctx, configs: Config[], rand?: () => number, tries = 0): Bin | null {
-  for (const cfg of SPACE_CONFIGS) {
-    const { bin, rest } = fillBin(items, cfg, ctx);
-    if (rest.length === 0) return bin;
-  }
   const orders = [sortItems(items, 'area'), sortItems(items, 'long'), sortItems(items, 'width'), sortItems(items, 'length')];
   for (const order of orders) {
     for (const cfg of configs) {
       const { bin, rest } = fillBin(order, cfg, ctx);
       if (rest.length === 0) return bin;
     }
+  }
+  for (const cfg of SPACE_CONFIGS) {
+    const { bin, rest } = fillBin(items, cfg, ctx);
+    if (rest.length === 0) return bin;
   }
   // random orders, for the moves that would empty the last sheet above the bound
   for (let t = 0; rand && t < tries && ctx.spent < ctx.limit; t++) {
@@ -429,7 +429,8 @@ function bestFillGreedy(items: Item[], configs: Config[], trials: number, rand: 
   while (rest.length) {
     let best: { bin: Bin; rest: Item[] } | null = null;
     const candidates: Item[][] = [rest, sortItems(rest, 'long'), sortItems(rest, 'width')];
-    for (let t = 0; t < trials; t++) candidates.push(perturb(rest, rand, 0.35));
+    // past the work limit, finish the solution with the plain orders only
+    for (let t = 0; t < trials && ctx.spent < ctx.limit; t++) candidates.push(perturb(rest, rand, 0.35));
     for (const order of candidates) {
       for (const cfg of configs) {
         const r = fillBin(order, cfg, ctx);
@@ -453,14 +454,14 @@ function perturb(items: Item[], rand: () => number, noise: number): Item[] {
  * Local search: move items of the least-filled bin into other bins (repacking
  * each receiving bin whole), until the bin empties or nothing moves.
  */
-function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: number, rand?: () => number): Solution {
+function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: number, budget: { n: number }, rand?: () => number): Solution {
   let bins = sol.bins.slice();
   let progress = true;
-  while (progress && bins.length > lowerBound && ctx.spent < ctx.limit) {
+  while (progress && bins.length > lowerBound && budget.n > 0 && ctx.spent < ctx.limit) {
     progress = false;
     const order = bins.map((b, i) => ({ b, i })).sort((a, b) => a.b.used - b.b.used);
     for (const { i: weakIdx } of order) {
-      if (ctx.spent >= ctx.limit) break;
+      if (budget.n <= 0 || ctx.spent >= ctx.limit) break;
       const weak = bins[weakIdx];
       const remaining = sortItems(weak.placed.map((p) => p.item), 'area');
       const others = bins
@@ -472,10 +473,10 @@ function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: n
       for (const it of remaining) {
         let moved = false;
         for (const o of others) {
+          budget.n--;
           const cur = replaced.get(o.i) ?? o.b;
           if (cur.used + it.area > ctx.L * ctx.W + EPS) continue;
-          const lastOne = rand && bins.length === lowerBound + 1;
-          const packed = packAllInOne([...cur.placed.map((p) => p.item), it], ctx, configs, rand, lastOne ? 40 : 0);
+          const packed = packAllInOne([...cur.placed.map((p) => p.item), it], ctx, configs, rand, rand && bins.length === lowerBound + 1 ? 40 : 0);
           if (packed) {
             replaced.set(o.i, packed);
             moved = true;
@@ -561,8 +562,8 @@ function splitRegion(r: Region, dir: 'rip' | 'crosscut', k: number, cuts: Omit<C
     .sort((a, b) => a[0] - b[0]);
   const positions: number[] = [];
   // a leading gap is cut off so that the kerf ends where the first part starts
-  const first = spans[0][0] - k;
-  if (first > lo + EPS) positions.push(first);
+  // (a gap narrower than the kerf is trimmed with the blade partly past the edge)
+  if (spans[0][0] > lo + EPS) positions.push(spans[0][0] - k);
   let reach = -Infinity;
   for (let i = 0; i < spans.length; i++) {
     reach = Math.max(reach, spans[i][1]);
@@ -573,11 +574,12 @@ function splitRegion(r: Region, dir: 'rip' | 'crosscut', k: number, cuts: Omit<C
   if (!positions.length) return null;
   const pieces: Omit<Region, 'stage' | 'dir'>[] = [];
   let start = lo;
-  for (const c of positions) {
+  for (const pos of positions) {
+    const c = Math.max(pos, lo);
     if (rip) cuts.push({ stage: r.stage, direction: 'rip', x1Mm: r.x, y1Mm: c, x2Mm: r.x + r.l, y2Mm: c });
     else cuts.push({ stage: r.stage, direction: 'crosscut', x1Mm: c, y1Mm: r.y, x2Mm: c, y2Mm: r.y + r.w });
-    pieces.push(piece(r, rip, start, c));
-    start = Math.min(c + k, hi);
+    if (c - start > EPS) pieces.push(piece(r, rip, start, c));
+    start = Math.min(pos + k, hi);
   }
   if (hi - start > EPS) pieces.push(piece(r, rip, start, hi));
   return pieces;
@@ -689,28 +691,28 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
 
   if (items.length) {
     const thorough = options.effort === 'thorough';
-    // part visits allowed (deterministic, unlike a clock): bounds the largest jobs to a second or so
-    ctx.limit = thorough ? 2_500_000 : 25_000;
+    // part visits allowed (deterministic, unlike a clock): bounds the hardest instances to about a second and a half
+    ctx.limit = thorough ? 4_000_000 : 30_000;
     const keys: SortKey[] = thorough ? ['area', 'long', 'width', 'length', 'perimeter', 'short'] : ['area', 'long', 'width'];
-    for (const cfg of thorough ? SPACE_CONFIGS : SPACE_CONFIGS.slice(0, 1)) consider(greedy(items, cfg, ctx));
     for (const key of keys) {
-      if (done()) break;
       const order = sortItems(items, key);
       for (const cfg of thorough ? ALL_CONFIGS : QUICK_CONFIGS) {
         consider(greedy(order, cfg, ctx));
         if (done()) break;
       }
+      if (done()) break;
     }
-    if (!done()) consider(eliminateBins(best!, ctx, QUICK_CONFIGS, lowerBound));
+    for (const cfg of thorough ? SPACE_CONFIGS : []) if (!done()) consider(greedy(items, cfg, ctx));
+    const rand = seededRandom(options.seed ?? 20261201);
+    if (!done()) consider(eliminateBins(best!, ctx, QUICK_CONFIGS, lowerBound, { n: thorough ? 4000 : 60 }));
     if (thorough) {
-      const rand = seededRandom(options.seed ?? 20261201);
       const n = items.length;
       const trials = Math.max(2, Math.min(12, Math.floor(6000 / n)));
       const rounds = Math.max(2, Math.min(8, Math.floor(20000 / n)));
       for (let r = 0; r < rounds && !done() && ctx.spent < ctx.limit; r++) {
         const s = bestFillGreedy(items, QUICK_CONFIGS, trials, rand, ctx);
         consider(s);
-        if (!done()) consider(eliminateBins(s, ctx, QUICK_CONFIGS, lowerBound, rand));
+        if (!done()) consider(eliminateBins(s, ctx, QUICK_CONFIGS, lowerBound, { n: Math.floor(200000 / n) }));
       }
     }
   }

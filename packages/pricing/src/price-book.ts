@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 
 const id = z.string().min(1).max(64).regex(/^[a-z0-9][a-z0-9-]*$/, 'use lower-case letters, digits and hyphens');
 const cents = z.number().int().nonnegative();

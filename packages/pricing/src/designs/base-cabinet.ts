@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { toMm } from '../units';
 import { caseFields, checkInterior, mm, NOMINAL_CARCASS_MM, type CaseLimits } from './case-model';
 

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { assemblyBenchDefaults, assemblyBenchLimits, assemblyBenchSchema } from './assembly-bench';
 import { baseCabinetDefaults, baseCabinetLimits, baseCabinetSchema } from './base-cabinet';
 import { bookcaseDefaults, bookcaseLimits, bookcaseSchema } from './bookcase';

@@ -1,0 +1,68 @@
+import express from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import { createLucia } from './auth/lucia';
+import { migrationLevel, type Db } from './db/client';
+import { appOrigins, type Env } from './env';
+import { errorHandler, notFoundRoute } from './middleware/errors';
+import { originCheck } from './middleware/origin';
+import { requireRole, sessionMiddleware } from './middleware/session';
+import { authRoutes } from './modules/auth/auth.routes';
+import { createAuthService } from './modules/auth/auth.service';
+import { designsRoutes } from './modules/designs/designs.routes';
+import { createProjectsService } from './modules/projects/projects.service';
+import { projectsRoutes } from './modules/projects/projects.routes';
+import { quotesRoutes } from './modules/quotes/quotes.routes';
+import { usersRoutes } from './modules/users/users.routes';
+import { loadPricing } from './lib/engine';
+
+export const VERSION = '0.1.0';
+
+export interface AppDeps {
+  db: Db;
+  env: Env;
+  log: Logger;
+  /** true once migrations and the seed are done */
+  ready: () => boolean;
+}
+
+/** Builds the API (no listen). */
+export function createApp({ db, env, log, ready }: AppDeps) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  const secure = env.PORTAL_URL.startsWith('https:');
+  const lucia = createLucia(db, secure);
+  const auth = createAuthService({ db, shopName: () => loadPricing(db).shopName, portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL });
+
+  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(helmet());
+  // the Stripe webhook (raw body, signed) is mounted here, before JSON parsing and the origin check
+  app.use(express.json({ limit: env.JSON_LIMIT }));
+  app.use(originCheck(appOrigins(env)));
+  app.use(sessionMiddleware(lucia));
+
+  app.get('/api/health', (_req, res) => {
+    let database = 'ok';
+    let migrations = 0;
+    try {
+      db.$client.prepare('select 1').get();
+      migrations = migrationLevel(db);
+    } catch {
+      database = 'unreachable';
+    }
+    const ok = database === 'ok' && ready();
+    res.status(ok ? 200 : 503).json({ health: { status: ok ? 'ok' : 'starting', database, migrations, version: VERSION } });
+  });
+
+  const limits = { enabled: env.RATE_LIMITS, signInFailsPerEmail: env.SIGNIN_FAILS_PER_EMAIL, signInAttemptsPerIp: env.SIGNIN_ATTEMPTS_PER_IP, signUpsPerIp: env.SIGNUPS_PER_IP };
+  app.use('/api/auth', authRoutes(auth, lucia, limits));
+  app.use('/api/users', requireRole('owner'), usersRoutes(auth));
+  app.use('/api/designs', designsRoutes());
+  app.use('/api/quotes', quotesRoutes(db, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
+  app.use('/api/projects', requireRole('client', 'owner', 'builder'), projectsRoutes(createProjectsService(db)));
+  app.use('/api', notFoundRoute);
+  app.use(errorHandler(log));
+  return app;
+}

@@ -1,0 +1,36 @@
+import Database from 'better-sqlite3';
+import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { mkdirSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import * as schema from './schema';
+
+export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
+
+export const MIGRATIONS_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../../../drizzle');
+
+/** Opens SQLite (WAL, foreign keys on) through Drizzle; ':memory:' for tests. */
+export function openDb(path: string): Db {
+  if (path !== ':memory:') mkdirSync(dirname(resolve(path)), { recursive: true });
+  const sqlite = new Database(path);
+  sqlite.pragma('journal_mode = WAL');
+  sqlite.pragma('foreign_keys = ON');
+  sqlite.pragma('busy_timeout = 5000');
+  return drizzle(sqlite, { schema, casing: 'snake_case' }) as Db;
+}
+
+/** Applies the committed migrations in drizzle/. */
+export function applyMigrations(db: Db): void {
+  migrate(db, { migrationsFolder: MIGRATIONS_DIR });
+}
+
+/** How many migrations have been applied. */
+export function migrationLevel(db: Db): number {
+  try {
+    const row = db.$client.prepare('select count(*) as n from __drizzle_migrations').get() as { n: number };
+    return row.n;
+  } catch {
+    return 0;
+  }
+}

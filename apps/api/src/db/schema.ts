@@ -1,0 +1,265 @@
+import { sql } from 'drizzle-orm';
+import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import type { PriceBook, ShopSettings, StageKey } from '@benchwright/pricing';
+
+const now = sql`(unixepoch() * 1000)`;
+const createdAt = () => integer({ mode: 'timestamp_ms' }).notNull().default(now);
+
+export const users = sqliteTable('users', {
+  id: text().primaryKey(),
+  email: text().notNull().unique(),
+  name: text().notNull(),
+  role: text({ enum: ['client', 'owner', 'builder'] }).notNull(),
+  /** null for a builder who has not yet accepted the invitation */
+  passwordHash: text(),
+  emailVerifiedAt: integer({ mode: 'timestamp_ms' }),
+  createdAt: createdAt(),
+});
+
+/** Lucia's session table: expires_at is an integer of seconds. */
+export const sessions = sqliteTable('sessions', {
+  id: text().primaryKey(),
+  userId: text()
+    .notNull()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  expiresAt: integer().notNull(),
+});
+
+/** Single-use, expiring tokens, stored as SHA-256 hashes only. */
+export const tokens = sqliteTable(
+  'tokens',
+  {
+    id: text().primaryKey(),
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    kind: text({ enum: ['verify_email', 'reset_password', 'invitation'] }).notNull(),
+    tokenHash: text().notNull().unique(),
+    expiresAt: integer({ mode: 'timestamp_ms' }).notNull(),
+    usedAt: integer({ mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('tokens_user_kind').on(t.userId, t.kind)],
+);
+
+/** One row: the shop's profile and the engine's ShopSettings (validated by its zod schema). */
+export const shopSettings = sqliteTable('shop_settings', {
+  id: integer().primaryKey(),
+  shopName: text().notNull(),
+  address: text().notNull().default(''),
+  email: text().notNull().default(''),
+  phone: text().notNull().default(''),
+  settings: text({ mode: 'json' }).$type<ShopSettings>().notNull(),
+  updatedAt: createdAt(),
+});
+
+/** One row: the engine's PriceBook document (validated by its zod schema on every write and read). */
+export const priceBooks = sqliteTable('price_books', {
+  id: integer().primaryKey(),
+  book: text({ mode: 'json' }).$type<PriceBook>().notNull(),
+  updatedAt: createdAt(),
+});
+
+export const PROJECT_STATUS = ['requested', 'estimating', 'estimate_sent', 'accepted', 'deposit_paid', 'in_production', 'ready', 'delivered', 'closed', 'declined', 'expired', 'cancelled'] as const;
+
+export const projects = sqliteTable(
+  'projects',
+  {
+    id: text().primaryKey(),
+    clientId: text()
+      .notNull()
+      .references(() => users.id),
+    status: text({ enum: PROJECT_STATUS }).notNull().default('requested'),
+    notes: text().notNull().default(''),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+  },
+  (t) => [index('projects_client').on(t.clientId), index('projects_status').on(t.status)],
+);
+
+export const projectItems = sqliteTable('project_items', {
+  id: text().primaryKey(),
+  projectId: text()
+    .notNull()
+    .references(() => projects.id, { onDelete: 'cascade' }),
+  position: integer().notNull(),
+  spec: text({ mode: 'json' }).notNull(),
+  quantity: integer().notNull(),
+});
+
+export const uploads = sqliteTable('uploads', {
+  id: text().primaryKey(),
+  projectId: text()
+    .notNull()
+    .references(() => projects.id, { onDelete: 'cascade' }),
+  uploaderId: text()
+    .notNull()
+    .references(() => users.id),
+  fileName: text().notNull(),
+  mimeType: text().notNull(),
+  sizeBytes: integer().notNull(),
+  storagePath: text().notNull(),
+  createdAt: createdAt(),
+});
+
+export const estimates = sqliteTable(
+  'estimates',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    revision: integer().notNull(),
+    status: text({ enum: ['draft', 'sent', 'accepted', 'superseded', 'expired'] }).notNull().default('draft'),
+    /** optimistic locking: every edit must name the version it read */
+    version: integer().notNull().default(1),
+    subtotalCents: integer().notNull().default(0),
+    discountCents: integer().notNull().default(0),
+    taxCents: integer().notNull().default(0),
+    totalCents: integer().notNull().default(0),
+    depositCents: integer().notNull().default(0),
+    balanceCents: integer().notNull().default(0),
+    hoursByStage: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
+    /** the engine's layouts, drawings and checks, kept with the revision */
+    engine: text({ mode: 'json' }),
+    validUntil: integer({ mode: 'timestamp_ms' }),
+    sentAt: integer({ mode: 'timestamp_ms' }),
+    acceptedAt: integer({ mode: 'timestamp_ms' }),
+    acceptedName: text(),
+    acceptedIp: text(),
+    acceptedUserAgent: text(),
+    pdfPath: text(),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+  },
+  (t) => [uniqueIndex('estimates_project_revision').on(t.projectId, t.revision)],
+);
+
+export const estimateLines = sqliteTable('estimate_lines', {
+  id: text().primaryKey(),
+  estimateId: text()
+    .notNull()
+    .references(() => estimates.id, { onDelete: 'cascade' }),
+  position: integer().notNull(),
+  group: text({ enum: ['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables', 'labour', 'delivery', 'other'] }).notNull(),
+  description: text().notNull(),
+  quantity: real().notNull(),
+  unit: text().notNull(),
+  unitPriceCents: integer().notNull(),
+  amountCents: integer().notNull(),
+  costCents: integer().notNull(),
+  source: text({ enum: ['computed', 'manual'] }).notNull(),
+  overrideReason: text(),
+});
+
+export const payments = sqliteTable('payments', {
+  id: text().primaryKey(),
+  projectId: text()
+    .notNull()
+    .references(() => projects.id),
+  estimateId: text().references(() => estimates.id),
+  kind: text({ enum: ['deposit', 'balance'] }).notNull(),
+  status: text({ enum: ['open', 'paid', 'expired', 'refunded', 'partially_refunded'] }).notNull().default('open'),
+  amountCents: integer().notNull(),
+  refundedCents: integer().notNull().default(0),
+  attempt: integer().notNull().default(1),
+  stripeSessionId: text().unique(),
+  stripePaymentIntentId: text(),
+  checkoutUrl: text(),
+  createdAt: createdAt(),
+  updatedAt: createdAt(),
+});
+
+/** Every Stripe event id once: a redelivered event is recognised and ignored. */
+export const stripeEvents = sqliteTable('stripe_events', {
+  id: text().primaryKey(),
+  type: text().notNull(),
+  receivedAt: createdAt(),
+});
+
+export const stages = sqliteTable('stages', {
+  key: text({ enum: ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] }).primaryKey(),
+  label: text().notNull(),
+  position: integer().notNull(),
+});
+
+export const jobs = sqliteTable('jobs', {
+  id: text().primaryKey(),
+  projectId: text()
+    .notNull()
+    .unique()
+    .references(() => projects.id),
+  stageKey: text()
+    .notNull()
+    .references(() => stages.key),
+  position: integer().notNull().default(0),
+  builderId: text().references(() => users.id),
+  dueDate: text(),
+  hoursBudget: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
+  createdAt: createdAt(),
+  updatedAt: createdAt(),
+});
+
+export const timeEntries = sqliteTable('time_entries', {
+  id: text().primaryKey(),
+  jobId: text()
+    .notNull()
+    .references(() => jobs.id, { onDelete: 'cascade' }),
+  userId: text()
+    .notNull()
+    .references(() => users.id),
+  stageKey: text().notNull(),
+  hours: real().notNull(),
+  note: text().notNull().default(''),
+  loggedAt: createdAt(),
+});
+
+/** The project's timeline. */
+export const projectEvents = sqliteTable(
+  'project_events',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    kind: text().notNull(),
+    message: text().notNull(),
+    actorId: text().references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [index('project_events_project').on(t.projectId)],
+);
+
+export const comments = sqliteTable('comments', {
+  id: text().primaryKey(),
+  projectId: text()
+    .notNull()
+    .references(() => projects.id, { onDelete: 'cascade' }),
+  authorId: text()
+    .notNull()
+    .references(() => users.id),
+  body: text().notNull(),
+  createdAt: createdAt(),
+});
+
+/** Mail waits here, written in the same transaction as the change that causes it; a worker sends it. */
+export const outbox = sqliteTable(
+  'outbox',
+  {
+    id: text().primaryKey(),
+    /** the same Message-ID on every attempt, so a relay or client can drop a duplicate */
+    messageId: text().notNull().unique(),
+    to: text().notNull(),
+    subject: text().notNull(),
+    text: text().notNull(),
+    html: text().notNull(),
+    attachments: text({ mode: 'json' }).$type<{ filename: string; path: string; contentType: string }[]>().notNull().default([]),
+    status: text({ enum: ['pending', 'sent'] }).notNull().default('pending'),
+    attempts: integer().notNull().default(0),
+    nextAttemptAt: integer({ mode: 'timestamp_ms' }).notNull().default(now),
+    lastError: text(),
+    createdAt: createdAt(),
+    sentAt: integer({ mode: 'timestamp_ms' }),
+  },
+  (t) => [index('outbox_pending').on(t.status, t.nextAttemptAt)],
+);

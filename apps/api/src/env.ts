@@ -1,0 +1,47 @@
+import { isAbsolute, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import * as z from 'zod';
+
+/** The repository root: relative data paths are taken from here, whatever the working directory. */
+export const REPO_ROOT = resolve(fileURLToPath(new URL('../../../', import.meta.url)));
+const fromRoot = (p: string) => (p === ':memory:' || isAbsolute(p) ? p : resolve(REPO_ROOT, p));
+
+const bool = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((v) => v === 'true' || v === '1');
+
+const Env = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATABASE_PATH: z.string().default('data/benchwright.db').transform(fromRoot),
+  UPLOADS_DIR: z.string().default('data/uploads').transform(fromRoot),
+  APP_ORIGINS: z.string().default('http://127.0.0.1:5173,http://localhost:5173,http://127.0.0.1:5174,http://localhost:5174'),
+  PORTAL_URL: z.url().default('http://127.0.0.1:5173'),
+  SHOP_URL: z.url().default('http://127.0.0.1:5174'),
+  SMTP_URL: z.string().default('smtp://127.0.0.1:1025'),
+  MAIL_FROM: z.string().default('Fernhill Joinery <shop@fernhill.example>'),
+  RATE_LIMITS: bool.default(true),
+  SIGNIN_FAILS_PER_EMAIL: z.coerce.number().int().positive().default(10),
+  SIGNIN_ATTEMPTS_PER_IP: z.coerce.number().int().positive().default(50),
+  SIGNUPS_PER_IP: z.coerce.number().int().positive().default(20),
+  PREVIEWS_PER_MINUTE: z.coerce.number().int().positive().default(120),
+  JSON_LIMIT: z.string().default('100kb'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  SEED_DEMO: bool.default(true),
+});
+export type Env = z.infer<typeof Env>;
+
+/** Reads and checks the environment; the only reader of process.env. */
+export function loadEnv(source: Record<string, string | undefined> = process.env): Env {
+  const r = Env.safeParse(source);
+  if (!r.success) {
+    const lines = r.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    throw new Error(`The environment is not valid:\n${lines}`);
+  }
+  return r.data;
+}
+
+export function appOrigins(env: Env): string[] {
+  return env.APP_ORIGINS.split(',').map((s) => s.trim()).filter(Boolean);
+}

@@ -1,0 +1,42 @@
+import { pino } from 'pino';
+import { createApp } from './app';
+import { applyMigrations, openDb } from './db/client';
+import { seedDemo, seedShop } from './db/seed';
+import { loadEnv } from './env';
+import { createMailWorker } from './lib/mailer';
+
+const env = loadEnv();
+const log = pino({ level: env.LOG_LEVEL });
+const db = openDb(env.DATABASE_PATH);
+let ready = false;
+const app = createApp({ db, env, log, ready: () => ready });
+const worker = createMailWorker(db, env.SMTP_URL, env.MAIL_FROM, log);
+
+const server = app.listen(env.PORT, env.HOST, () => log.info(`API listening on http://${env.HOST}:${env.PORT}/api`));
+
+async function boot() {
+  applyMigrations(db);
+  if (env.SEED_DEMO) await seedDemo(db);
+  else seedShop(db);
+  worker.start();
+  ready = true;
+  log.info('migrations and seed done; ready');
+}
+boot().catch((err) => {
+  log.fatal({ err }, 'start-up failed');
+  process.exit(1);
+});
+
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  log.info(`${signal}: shutting down`);
+  server.close();
+  server.closeIdleConnections();
+  await worker.stop();
+  db.$client.close();
+  process.exit(0);
+}
+process.on('SIGINT', () => void shutdown('SIGINT'));
+process.on('SIGTERM', () => void shutdown('SIGTERM'));

@@ -1,0 +1,90 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import * as z from 'zod';
+import type { ApiIssue, ErrorCode } from '@benchwright/contracts';
+import { formatPath } from '@benchwright/pricing/geometry';
+
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ErrorCode,
+    message: string,
+    readonly issues?: ApiIssue[],
+  ) {
+    super(message);
+  }
+}
+export class Invalid extends AppError {
+  constructor(message: string, issues?: ApiIssue[]) {
+    super(400, 'invalid_input', message, issues);
+  }
+}
+export class Unauthenticated extends AppError {
+  constructor(message = 'Sign in to continue.') {
+    super(401, 'unauthenticated', message);
+  }
+}
+export class Forbidden extends AppError {
+  constructor(message = 'Your role does not allow this.') {
+    super(403, 'forbidden', message);
+  }
+}
+export class NotFound extends AppError {
+  constructor(what = 'That') {
+    super(404, 'not_found', `${what} was not found.`);
+  }
+}
+export class Conflict extends AppError {
+  constructor(message: string) {
+    super(409, 'conflict', message);
+  }
+}
+export class RateLimited extends AppError {
+  constructor(message = 'Too many attempts; wait a few minutes and try again.') {
+    super(429, 'rate_limited', message);
+  }
+}
+
+/** zod issues as the API lists them: `{ path: 'items[0].spec.widthMm', message }`. */
+export function zodIssues(err: z.ZodError): ApiIssue[] {
+  return err.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));
+}
+
+/** Parses with a zod schema, throwing Invalid with the issues listed. */
+export function parse<S extends z.ZodType>(schema: S, input: unknown): z.infer<S> {
+  const r = schema.safeParse(input);
+  if (!r.success) throw new Invalid('Some fields need attention.', zodIssues(r.error));
+  return r.data;
+}
+
+export const notFoundRoute: RequestHandler = (req) => {
+  throw new NotFound(`${req.method} ${req.path}`);
+};
+
+interface HttpishError {
+  type?: string;
+  status?: number;
+  statusCode?: number;
+}
+
+/** The one place that writes error responses; no stack trace ever leaves the server. */
+export function errorHandler(log: { error: (o: object, msg: string) => void }): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    let e: AppError;
+    if (err instanceof AppError) e = err;
+    else if (err instanceof z.ZodError) e = new Invalid('Some fields need attention.', zodIssues(err));
+    else {
+      const h = err as HttpishError;
+      const status = h.status ?? h.statusCode;
+      if (h.type === 'entity.too.large' || status === 413) e = new AppError(413, 'payload_too_large', 'The request body is too large.');
+      else if (h.type === 'entity.parse.failed') e = new Invalid('The request body is not valid JSON.');
+      else if (h.type === 'encoding.unsupported' || h.type === 'charset.unsupported' || status === 415) e = new AppError(415, 'unsupported_media_type', 'That content type or encoding is not supported.');
+      else if (status && status >= 400 && status < 500) e = new Invalid('The request could not be read.');
+      else {
+        log.error({ err, path: req.path }, 'unhandled error');
+        e = new AppError(500, 'internal', 'Something went wrong on our side; it has been logged.');
+      }
+    }
+    if (res.headersSent) return;
+    res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.issues ? { issues: e.issues } : {}) } });
+  };
+}

@@ -1,0 +1,95 @@
+import { Router, type Request } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { AcceptInvitationBody, ForgotPasswordBody, ResetPasswordBody, SignInBody, SignUpBody, VerifyEmailBody } from '@benchwright/contracts';
+import type { AppLucia } from '../../auth/lucia';
+import { parse, RateLimited } from '../../middleware/errors';
+import { currentUser, requireRole } from '../../middleware/session';
+import type { AuthService } from './auth.service';
+
+export interface Limits {
+  enabled: boolean;
+  signInFailsPerEmail: number;
+  signInAttemptsPerIp: number;
+  signUpsPerIp: number;
+}
+
+const limited = () => {
+  throw new RateLimited();
+};
+
+function emailKey(req: Request): string {
+  const e = (req.body as { email?: unknown } | undefined)?.email;
+  return typeof e === 'string' ? e.trim().toLowerCase() : '(none)';
+}
+
+export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits): Router {
+  const r = Router();
+  const skip = () => !limits.enabled;
+  const window15 = 15 * 60_000;
+  // failed sign-ins only (successful ones are not counted), per e-mail and per IP
+  const perEmail = rateLimit({ windowMs: window15, limit: limits.signInFailsPerEmail, keyGenerator: emailKey, skipSuccessfulRequests: true, skip, handler: limited, standardHeaders: 'draft-8', legacyHeaders: false, validate: false });
+  const perIp = rateLimit({ windowMs: window15, limit: limits.signInAttemptsPerIp, skipSuccessfulRequests: true, skip, handler: limited, standardHeaders: 'draft-8', legacyHeaders: false });
+  const signUps = rateLimit({ windowMs: 60 * 60_000, limit: limits.signUpsPerIp, skip, handler: limited, standardHeaders: 'draft-8', legacyHeaders: false });
+
+  const startSession = async (res: import('express').Response, userId: string) => {
+    const session = await lucia.createSession(userId, {});
+    res.append('Set-Cookie', lucia.createSessionCookie(session.id).serialize());
+  };
+
+  r.post('/sign-up', signUps, async (req, res) => {
+    const body = parse(SignUpBody, req.body);
+    const user = await service.signUp(body);
+    await startSession(res, user.id);
+    res.status(201).json({ user });
+  });
+
+  r.post('/sign-in', perIp, perEmail, async (req, res) => {
+    const body = parse(SignInBody, req.body);
+    const user = await service.signIn(body);
+    await startSession(res, user.id);
+    res.json({ user });
+  });
+
+  r.post('/sign-out', requireRole(), async (_req, res) => {
+    if (res.locals.sessionId) await lucia.invalidateSession(res.locals.sessionId);
+    res.append('Set-Cookie', lucia.createBlankSessionCookie().serialize());
+    res.status(204).end();
+  });
+
+  r.get('/me', requireRole(), (_req, res) => {
+    res.json({ user: currentUser(res) });
+  });
+
+  r.post('/verify-email', (req, res) => {
+    const { token } = parse(VerifyEmailBody, req.body);
+    res.json({ user: service.verifyEmail(token) });
+  });
+
+  r.post('/resend-verification', requireRole(), (_req, res) => {
+    service.resendVerification(currentUser(res));
+    res.status(202).json({ sent: true });
+  });
+
+  r.post('/forgot-password', perIp, (req, res) => {
+    const { email } = parse(ForgotPasswordBody, req.body);
+    service.forgotPassword(email);
+    res.status(202).json({ sent: true });
+  });
+
+  r.post('/reset-password', async (req, res) => {
+    const { token, password } = parse(ResetPasswordBody, req.body);
+    const user = await service.resetPassword(token, password);
+    await lucia.invalidateUserSessions(user.id);
+    await startSession(res, user.id);
+    res.json({ user });
+  });
+
+  r.post('/accept-invitation', async (req, res) => {
+    const { token, password } = parse(AcceptInvitationBody, req.body);
+    const user = await service.acceptInvitation(token, password);
+    await startSession(res, user.id);
+    res.json({ user });
+  });
+
+  return r;
+}

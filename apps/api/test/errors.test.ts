@@ -1,0 +1,86 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { testApp } from './helpers';
+
+const ROUTES: [string, string][] = [
+  ['post', '/api/auth/sign-up'],
+  ['post', '/api/auth/sign-in'],
+  ['post', '/api/auth/sign-out'],
+  ['get', '/api/auth/me'],
+  ['post', '/api/auth/verify-email'],
+  ['post', '/api/auth/resend-verification'],
+  ['post', '/api/auth/forgot-password'],
+  ['post', '/api/auth/reset-password'],
+  ['post', '/api/auth/accept-invitation'],
+  ['get', '/api/users'],
+  ['post', '/api/users/invitations'],
+  ['get', '/api/designs'],
+  ['get', '/api/designs/bookcase'],
+  ['post', '/api/quotes/preview'],
+  ['get', '/api/projects'],
+  ['get', '/api/projects/nope'],
+  ['post', '/api/projects'],
+  ['get', '/api/health'],
+];
+const CODES = ['invalid_input', 'unauthenticated', 'forbidden', 'not_found', 'conflict', 'payload_too_large', 'unsupported_media_type', 'rate_limited'];
+
+function checkShape(status: number, body: unknown) {
+  expect(status).toBeLessThan(500);
+  if (status >= 400) {
+    const e = (body as { error: { code: string; message: string; issues?: { path: string; message: string }[] } }).error;
+    expect(CODES).toContain(e.code);
+    expect(typeof e.message).toBe('string');
+    expect(JSON.stringify(body)).not.toMatch(/at .*\.ts:\d+|node_modules|stack/i);
+    for (const i of e.issues ?? []) expect(Object.keys(i).sort()).toEqual(['message', 'path']);
+  }
+}
+
+describe('bad input on every route', () => {
+  it('never answers 500 or a stack trace, signed in as each role or not at all', async () => {
+    const t = await testApp();
+    const agents = [t.agent(), await t.signIn('priya@example.com'), await t.signIn('maren@fernhill.example'), await t.signIn('idris@fernhill.example')];
+    const bodies: unknown[] = [null, 0, 'text', [], {}, { email: 5 }, { email: 'a@b.c', password: ['x'] }, { items: 'x' }, { items: [{}] }, { items: [{ spec: { design: 'bookcase', widthMm: 'wide' }, quantity: -1 }] }, { items: [{ spec: { design: '__proto__' }, quantity: 1 }] }, { token: 'x'.repeat(300) }, { __proto__: { admin: true } }];
+    for (const a of agents) {
+      for (const [method, path] of ROUTES) {
+        for (const body of bodies) {
+          const r = await (a as never as Record<string, (p: string) => { send: (b: unknown) => Promise<{ status: number; body: unknown }> }>)[method](path).send(body as object);
+          checkShape(r.status, r.body);
+        }
+      }
+    }
+  });
+  it('answers random JSON on every POST route without a 500 (fast-check)', async () => {
+    const t = await testApp();
+    const a = await t.signIn('maren@fernhill.example');
+    const posts = ROUTES.filter(([m]) => m === 'post').map(([, p]) => p);
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...posts), fc.jsonValue(), async (path, body) => {
+        const r = await a.post(path).set('Content-Type', 'application/json').send(JSON.stringify(body));
+        checkShape(r.status, r.body);
+      }),
+      { numRuns: 150, seed: 3 },
+    );
+  });
+  it('answers malformed JSON with 400, an oversized body with 413, an unknown route with 404', async () => {
+    const t = await testApp();
+    const bad = await t.agent().post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email":');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error).toEqual({ code: 'invalid_input', message: 'The request body is not valid JSON.' });
+    const big = await t.agent().post('/api/quotes/preview').set('Content-Type', 'application/json').send(JSON.stringify({ items: [], pad: 'x'.repeat(200_000) }));
+    expect(big.status).toBe(413);
+    expect(big.body.error.code).toBe('payload_too_large');
+    const none = await t.agent().get('/api/nothing-here');
+    expect(none.status).toBe(404);
+    expect(none.body.error.code).toBe('not_found');
+  });
+});
+
+describe('GET /api/health', () => {
+  it('answers 200 with the database, migration level and version once ready', async () => {
+    const t = await testApp();
+    const r = await t.agent().get('/api/health');
+    expect(r.status).toBe(200);
+    expect(r.body.health).toMatchObject({ status: 'ok', database: 'ok', version: '0.1.0' });
+    expect(r.body.health.migrations).toBeGreaterThanOrEqual(1);
+  });
+});

@@ -1,0 +1,107 @@
+import { designs } from '@benchwright/pricing';
+import { describe, expect, it } from 'vitest';
+import { testApp } from './helpers';
+
+describe('GET /api/projects', () => {
+  it('gives a client only their own projects, the owner all, and a builder none not yet in the shop', async () => {
+    const t = await testApp();
+    const priya = await t.signIn('priya@example.com');
+    const own = (await priya.get('/api/projects')).body.projects;
+    expect(own).toHaveLength(1);
+    expect(own[0]).toMatchObject({ status: 'requested', client: { name: 'Priya Natarajan' } });
+    expect(own[0].timeline[0].kind).toBe('requested');
+    expect(own[0].estimates).toEqual([]);
+    const owner = await t.signIn('maren@fernhill.example');
+    expect((await owner.get('/api/projects')).body.projects).toHaveLength(3);
+    const builder = await t.signIn('idris@fernhill.example');
+    expect((await builder.get('/api/projects')).body.projects).toEqual([]);
+  });
+  it('answers 401 when not signed in', async () => {
+    const t = await testApp();
+    const r = await t.agent().get('/api/projects');
+    expect(r.status).toBe(401);
+    expect(r.body).toEqual({ error: { code: 'unauthenticated', message: 'Sign in to continue.' } });
+  });
+});
+
+describe('GET /api/projects/:id', () => {
+  it("answers 404 for another client's project, never the data", async () => {
+    const t = await testApp();
+    const tomasz = await t.signIn('tomasz@example.com');
+    const owner = await t.signIn('maren@fernhill.example');
+    const priyas = (await owner.get('/api/projects')).body.projects.find((p: { client: { name: string } }) => p.client.name === 'Priya Natarajan');
+    const r = await tomasz.get(`/api/projects/${priyas.id}`);
+    expect(r.status).toBe(404);
+    expect(r.body.error.code).toBe('not_found');
+    expect(JSON.stringify(r.body)).not.toContain('Priya');
+    expect((await owner.get(`/api/projects/${priyas.id}`)).body.project.id).toBe(priyas.id);
+    expect((await (await t.signIn('idris@fernhill.example')).get(`/api/projects/${priyas.id}`)).status).toBe(404);
+  });
+});
+
+describe('POST /api/projects', () => {
+  it('when every item is valid, records the request (201, requested)', async () => {
+    const t = await testApp();
+    const a = await t.signIn('guild@example.com');
+    const r = await a.post('/api/projects').send({ items: [{ spec: designs['base-cabinet'].defaults, quantity: 3 }], notes: 'For the corner' });
+    expect(r.status).toBe(201);
+    expect(r.body.project).toMatchObject({ status: 'requested', notes: 'For the corner', items: [{ quantity: 3 }] });
+    expect((await a.get('/api/projects')).body.projects).toHaveLength(2);
+  });
+  it('when an item breaks its design limits, answers 400 naming the field and the limit', async () => {
+    const t = await testApp();
+    const a = await t.signIn('guild@example.com');
+    const r = await a.post('/api/projects').send({ items: [{ spec: { ...designs.bookcase.defaults, widthMm: 100 }, quantity: 1 }] });
+    expect(r.status).toBe(400);
+    expect(r.body.error.issues).toContainEqual({ path: 'items[0].spec.widthMm', message: '100 mm is below the 305 mm minimum' });
+  });
+  it('when a shelf span is more than its material can carry, answers 400 and says what to change', async () => {
+    const t = await testApp();
+    const a = await t.signIn('guild@example.com');
+    const spec = { ...designs.bookcase.defaults, widthMm: 1067, carcassMaterialId: 'mdf-18' };
+    const r = await a.post('/api/projects').send({ items: [{ spec, quantity: 1 }] });
+    expect(r.status).toBe(400);
+    expect(r.body.error.issues[0].message).toMatch(/cannot carry this span.*thicker shelf/);
+  });
+  it('refuses the owner (403): only a client requests an estimate', async () => {
+    const t = await testApp();
+    const r = await (await t.signIn('maren@fernhill.example')).post('/api/projects').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    expect(r.status).toBe(403);
+  });
+});
+
+describe('GET /api/designs', () => {
+  it('lists the four designs with defaults and limits, to anyone', async () => {
+    const t = await testApp();
+    const r = await t.agent().get('/api/designs');
+    expect(r.body.designs.map((d: { slug: string }) => d.slug)).toEqual(['assembly-bench', 'base-cabinet', 'wall-cabinet', 'bookcase']);
+    expect((await t.agent().get('/api/designs/bookcase')).body.design.limits.widthMm).toEqual([305, 1067]);
+    expect((await t.agent().get('/api/designs/sofa')).status).toBe(404);
+  });
+});
+
+describe('POST /api/quotes/preview', () => {
+  it('gives anyone the budget range, checks and drawing, and no cost lines', async () => {
+    const t = await testApp();
+    const r = await t.agent().post('/api/quotes/preview').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    expect(r.status).toBe(200);
+    const q = r.body.quote;
+    expect(q.budget.lowCents).toBeLessThan(q.budget.highCents);
+    expect(q.items[0].drawingSvg).toMatch(/^<svg/);
+    expect(q.checks.some((c: { code: string }) => c.code === 'anchor')).toBe(true);
+    expect(q.lines).toBeUndefined();
+    expect(JSON.stringify(r.body)).not.toMatch(/costCents|marginCents/);
+  });
+  it('gives the owner the lines and totals as well', async () => {
+    const t = await testApp();
+    const r = await (await t.signIn('maren@fernhill.example')).post('/api/quotes/preview').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    expect(r.body.quote.lines.length).toBeGreaterThan(3);
+    expect(r.body.quote.totals.totalCents).toBeGreaterThanOrEqual(r.body.quote.budget.lowCents);
+    expect(r.body.quote.totals.totalCents).toBeLessThanOrEqual(r.body.quote.budget.highCents);
+  });
+  it('gives a client no lines either', async () => {
+    const t = await testApp();
+    const r = await (await t.signIn('priya@example.com')).post('/api/quotes/preview').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    expect(r.body.quote.lines).toBeUndefined();
+  });
+});

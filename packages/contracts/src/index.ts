@@ -1,0 +1,94 @@
+import * as z from 'zod';
+import { BuildSpec } from '@benchwright/pricing/geometry';
+
+/** Every error the API answers with (DESIGN.md section 10). */
+export const ERROR_CODES = ['invalid_input', 'unauthenticated', 'forbidden', 'not_found', 'conflict', 'payload_too_large', 'unsupported_media_type', 'rate_limited', 'internal'] as const;
+export type ErrorCode = (typeof ERROR_CODES)[number];
+export interface ApiIssue {
+  path: string;
+  message: string;
+}
+export interface ApiError {
+  error: { code: ErrorCode; message: string; issues?: ApiIssue[] };
+}
+
+export const ROLES = ['client', 'owner', 'builder'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const PASSWORD_MIN = 10;
+const email = z.email('enter a valid e-mail address').max(254).transform((v) => v.trim().toLowerCase());
+const password = z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(200, 'use at most 200 characters');
+const name = z.string().trim().min(1, 'enter your name').max(120, 'use at most 120 characters');
+const token = z.string().min(16, 'this link is not valid').max(200, 'this link is not valid');
+
+export const SignUpBody = z.object({ email, password, name });
+export type SignUpBody = z.input<typeof SignUpBody>;
+export const SignInBody = z.object({ email, password: z.string().min(1, 'enter your password').max(200) });
+export type SignInBody = z.input<typeof SignInBody>;
+export const VerifyEmailBody = z.object({ token });
+export const ForgotPasswordBody = z.object({ email });
+export type ForgotPasswordBody = z.input<typeof ForgotPasswordBody>;
+export const ResetPasswordBody = z.object({ token, password });
+export type ResetPasswordBody = z.input<typeof ResetPasswordBody>;
+export const InvitationBody = z.object({ email, name });
+export type InvitationBody = z.input<typeof InvitationBody>;
+export const AcceptInvitationBody = z.object({ token, password });
+export type AcceptInvitationBody = z.input<typeof AcceptInvitationBody>;
+
+export const User = z.object({ id: z.string(), email: z.string(), name: z.string(), role: z.enum(ROLES), emailVerified: z.boolean() });
+export type User = z.infer<typeof User>;
+
+export const ItemInput = z.object({
+  spec: BuildSpec,
+  quantity: z.number().int('enter a whole number').min(1, 'at least 1').max(50, 'at most 50'),
+});
+export const QuotePreviewBody = z.object({ items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items') });
+export type QuotePreviewBody = z.input<typeof QuotePreviewBody>;
+export const CreateProjectBody = z.object({
+  items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items'),
+  notes: z.string().max(4000, 'use at most 4000 characters').default(''),
+});
+export type CreateProjectBody = z.input<typeof CreateProjectBody>;
+
+export const PROJECT_STATUSES = ['requested', 'estimating', 'estimate_sent', 'accepted', 'deposit_paid', 'in_production', 'ready', 'delivered', 'closed', 'declined', 'expired', 'cancelled'] as const;
+export type ProjectStatus = (typeof PROJECT_STATUSES)[number];
+export const ESTIMATE_STATUSES = ['draft', 'sent', 'accepted', 'superseded', 'expired'] as const;
+export type EstimateStatus = (typeof ESTIMATE_STATUSES)[number];
+
+export interface EstimateSummary {
+  id: string;
+  revision: number;
+  status: EstimateStatus;
+  totals: { subtotalCents: number; discountCents: number; taxCents: number; totalCents: number; depositCents: number; balanceCents: number };
+}
+export interface TimelineEvent {
+  id: string;
+  kind: string;
+  message: string;
+  at: string;
+}
+export interface Project {
+  id: string;
+  status: ProjectStatus;
+  notes: string;
+  client: { id: string; name: string };
+  items: { id: string; spec: unknown; quantity: number }[];
+  estimates: EstimateSummary[];
+  timeline: TimelineEvent[];
+  createdAt: string;
+}
+export interface Design {
+  slug: string;
+  name: string;
+  summary: string;
+  defaults: unknown;
+  limits: Record<string, [number, number]>;
+}
+export interface QuotePreview {
+  budget: { lowCents: number; highCents: number };
+  checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string }[];
+  items: { drawingSvg: string; massKg: number }[];
+  /** owner only */
+  lines?: unknown[];
+  totals?: EstimateSummary['totals'];
+}

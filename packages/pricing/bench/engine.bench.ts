@@ -1,0 +1,50 @@
+/**
+ * Engine benchmark: `estimate` timings and the browser bundle of the geometry.
+ *
+ *   pnpm bench:engine
+ *
+ * - estimate of the assembly-bench defaults at effort 'quick' (median of 50 runs after warm-up)
+ * - a 12-cabinet kitchen run (test/fixtures/kitchen-run.json) at 'quick' (median of 15 runs)
+ * - src/geometry.ts (designs, validation, cut list, checks, drawings, units) bundled by esbuild,
+ *   minified, for the browser, then gzipped
+ */
+import { readFileSync } from 'node:fs';
+import { gzipSync } from 'node:zlib';
+import { build } from 'esbuild';
+import { designs, estimate, demoPriceBook, demoSettings, type EstimateItem } from '../src/index';
+
+function median(f: () => void, runs: number, warm = 5): number {
+  for (let i = 0; i < warm; i++) f();
+  const t: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    f();
+    t.push(performance.now() - t0);
+  }
+  t.sort((a, b) => a - b);
+  return t[Math.floor(runs / 2)];
+}
+
+const bench: EstimateItem[] = [{ spec: designs['assembly-bench'].defaults, quantity: 1 }];
+const kitchen: EstimateItem[] = JSON.parse(readFileSync(new URL('../test/fixtures/kitchen-run.json', import.meta.url), 'utf8'));
+const benchMs = median(() => estimate(bench, demoPriceBook, demoSettings, { effort: 'quick' }), 50);
+const kitchenMs = median(() => estimate(kitchen, demoPriceBook, demoSettings, { effort: 'quick' }), 15, 2);
+const thoroughKitchenMs = median(() => estimate(kitchen, demoPriceBook, demoSettings, { effort: 'thorough' }), 3, 1);
+
+const out = await build({
+  entryPoints: [new URL('../src/geometry.ts', import.meta.url).pathname],
+  bundle: true,
+  minify: true,
+  format: 'esm',
+  platform: 'browser',
+  write: false,
+  treeShaking: true,
+});
+const js = out.outputFiles[0].contents;
+const gz = gzipSync(js, { level: 9 }).length;
+
+const pieces = kitchen.reduce((s, i) => s + i.quantity, 0);
+console.log(`estimate, assembly-bench defaults, quick: median ${benchMs.toFixed(1)} ms (target <= 20 ms)`);
+console.log(`estimate, kitchen run of ${pieces} cabinets, quick: median ${kitchenMs.toFixed(1)} ms (target <= 300 ms)`);
+console.log(`estimate, kitchen run, thorough: median ${thoroughKitchenMs.toFixed(0)} ms`);
+console.log(`geometry bundle: ${(js.length / 1024).toFixed(1)} KB minified, ${(gz / 1024).toFixed(1)} KB gzipped (target <= 60 KB)`);
