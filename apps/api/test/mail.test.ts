@@ -16,7 +16,7 @@ async function startMaildev() {
   await maildev.start();
 }
 async function inbox(): Promise<{ subject: string; to: { address: string }[]; headers: Record<string, string> }[]> {
-  return (await fetch(`http://127.0.0.1:${WEB}/api/email`)).json();
+  return (await (await fetch(`http://127.0.0.1:${WEB}/api/email`)).json()) as never;
 }
 afterEach(async () => {
   await maildev?.stop();
