@@ -1,6 +1,9 @@
 #!/usr/bin/env bash
-# The start command. The API, the apps, maildev and the Stripe stand-in are not
-# built yet (the platform issue); until they are, say so and stop.
-echo "Benchwright's product stack (API, client portal, shop app, maildev, Stripe stand-in) is not built yet."
-echo "What exists is the engine in packages/pricing; run 'bash scripts/test.sh' to test it."
-exit 1
+# The start command: installs what is needed, then runs the whole product with
+# demo data (the API applies the migrations and seeds on start). Ctrl-C stops it.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+. scripts/lib.sh
+ensure_pnpm
+install_packages
+exec pnpm exec tsx scripts/stack.ts "$@"

@@ -1,34 +1,63 @@
 #!/usr/bin/env bash
-# Installs what the tests need and runs every test there is: typecheck, then
-# the unit tests of each package. Ends with one line: "N passed, N failed".
+# The test command: installs what is needed (Debian's Chromium included) and runs
+# every test: typecheck, unit and API tests of each package, then the end-to-end
+# specs against the stack as the start command runs it. Ends with one line:
+# "N passed, N failed".
 set -uo pipefail
 cd "$(dirname "$0")/.."
-
-# pnpm, exactly the version package.json names (nested pnpm calls refuse another)
-want=$(node -p "require('./package.json').packageManager.split('@')[1]")
-if [ "$(pnpm -v 2>/dev/null)" != "$want" ]; then
-  npm i -g "pnpm@$want" >/dev/null 2>&1 || { echo "could not install pnpm@$want"; exit 1; }
+. scripts/lib.sh
+ensure_pnpm || { echo "0 passed, 1 failed"; exit 1; }
+install_packages || { echo "0 passed, 1 failed"; exit 1; }
+if [ ! -x /usr/bin/chromium ]; then
+  echo "installing Debian's chromium"
+  (apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null) || { echo "could not install chromium"; echo "0 passed, 1 failed"; exit 1; }
 fi
-# native addons build against the machine's own Node headers (no download)
-[ -d /usr/include/node ] && export npm_config_nodedir=/usr
-pnpm install --frozen-lockfile || { echo "0 passed, 1 failed"; exit 1; }
 
 status=0
-echo "== typecheck"
-if ! pnpm -r typecheck; then status=1; fi
-
-echo "== unit tests"
+passed=0
+failed=0
 reports=$(mktemp -d)
 export REPORT_DIR="$reports"
-if ! pnpm -r --workspace-concurrency=1 exec sh -c 'vitest run --reporter=default --reporter=json --outputFile.json="$REPORT_DIR/$(basename "$PWD").json"' 2>&1; then status=1; fi
-passed=0; failed=0
+
+echo "== typecheck"
+if ! pnpm -r typecheck; then status=1; failed=$((failed + 1)); fi
+
+echo "== unit and API tests"
+if ! pnpm -r --workspace-concurrency=1 exec sh -c 'vitest run --reporter=default --reporter=json --outputFile.json="$REPORT_DIR/$(basename "$PWD").json"'; then status=1; fi
 for f in "$reports"/*.json; do
   [ -f "$f" ] || continue
-  p=$(node -p "JSON.parse(require('fs').readFileSync('$f','utf8')).numPassedTests")
-  q=$(node -p "JSON.parse(require('fs').readFileSync('$f','utf8')).numFailedTests")
-  passed=$((passed + p)); failed=$((failed + q))
+  passed=$((passed + $(node -p "JSON.parse(require('fs').readFileSync('$f','utf8')).numPassedTests")))
+  failed=$((failed + $(node -p "JSON.parse(require('fs').readFileSync('$f','utf8')).numFailedTests")))
 done
-rm -rf "$reports"
+
+echo "== end-to-end (Chromium against the running stack)"
+stack_log=$(mktemp)
+STACK_DATA=data/e2e setsid pnpm exec tsx scripts/stack.ts --fresh >"$stack_log" 2>&1 &
+stack_pid=$!
+stop_stack() { kill -TERM -- "-$stack_pid" 2>/dev/null; wait "$stack_pid" 2>/dev/null; }
+trap stop_stack EXIT
+for _ in $(seq 1 240); do
+  grep -q '^READY' "$stack_log" && break
+  kill -0 "$stack_pid" 2>/dev/null || break
+  sleep 1
+done
+if grep -q '^READY' "$stack_log"; then
+  if ! PW_JSON="$reports/e2e.json" pnpm exec playwright test -c e2e/playwright.config.ts; then status=1; fi
+  if [ -f "$reports/e2e.json" ]; then
+    passed=$((passed + $(node -p "const s=JSON.parse(require('fs').readFileSync('$reports/e2e.json','utf8')).stats; s.expected + s.flaky")))
+    failed=$((failed + $(node -p "JSON.parse(require('fs').readFileSync('$reports/e2e.json','utf8')).stats.unexpected")))
+  else
+    failed=$((failed + 1))
+  fi
+else
+  echo "the stack did not start; its log:"
+  tail -n 60 "$stack_log"
+  status=1
+  failed=$((failed + 1))
+fi
+stop_stack
+trap - EXIT
+rm -rf "$reports" "$stack_log"
 [ "$status" -ne 0 ] && [ "$failed" -eq 0 ] && failed=1
 echo "$passed passed, $failed failed"
 exit $status

@@ -16,7 +16,7 @@ export const ROLES = ['client', 'owner', 'builder'] as const;
 export type Role = (typeof ROLES)[number];
 
 export const PASSWORD_MIN = 10;
-const email = z.email('enter a valid e-mail address').max(254).transform((v) => v.trim().toLowerCase());
+const email = z.string({ error: 'enter your e-mail address' }).trim().toLowerCase().pipe(z.email('enter a valid e-mail address').max(254, 'use at most 254 characters'));
 const password = z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(200, 'use at most 200 characters');
 const name = z.string().trim().min(1, 'enter your name').max(120, 'use at most 120 characters');
 const token = z.string().min(16, 'this link is not valid').max(200, 'this link is not valid');

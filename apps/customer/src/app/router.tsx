@@ -1,0 +1,28 @@
+import { createBrowserRouter, createMemoryRouter, type RouteObject } from 'react-router-dom';
+import { Layout } from '../components/layout';
+import { paths } from '../config/paths';
+import { ForgotPasswordRoute } from './routes/forgot-password';
+import { HomeRoute } from './routes/home';
+import { ProjectsRoute } from './routes/projects';
+import { ResetPasswordRoute } from './routes/reset-password';
+import { SignInRoute } from './routes/sign-in';
+import { SignUpRoute } from './routes/sign-up';
+import { VerifyEmailRoute } from './routes/verify-email';
+
+export const routes: RouteObject[] = [
+  {
+    element: <Layout />,
+    children: [
+      { path: paths.home.path, element: <HomeRoute /> },
+      { path: paths.signUp.path, element: <SignUpRoute /> },
+      { path: paths.signIn.path, element: <SignInRoute /> },
+      { path: paths.verifyEmail.path, element: <VerifyEmailRoute /> },
+      { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
+      { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
+      { path: paths.projects.path, element: <ProjectsRoute /> },
+    ],
+  },
+];
+
+export const createRouter = () => createBrowserRouter(routes);
+export const createTestRouter = (url: string) => createMemoryRouter(routes, { initialEntries: [url] });

@@ -1,0 +1,11 @@
+import { Panel } from '@benchwright/ui';
+import { ForgotPasswordForm } from '../../features/auth/components/password-forms';
+
+export function ForgotPasswordRoute() {
+  return (
+    <Panel title="Forgot your password?">
+      <p className="mb-4 text-ink-soft">Give the e-mail you signed up with and we will send a link to choose a new password.</p>
+      <ForgotPasswordForm />
+    </Panel>
+  );
+}

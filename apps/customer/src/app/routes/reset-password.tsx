@@ -1,0 +1,15 @@
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { Notice, Panel } from '@benchwright/ui';
+import { paths } from '../../config/paths';
+import { ResetPasswordForm } from '../../features/auth/components/password-forms';
+
+export function ResetPasswordRoute() {
+  const [params] = useSearchParams();
+  const navigate = useNavigate();
+  const token = params.get('token') ?? '';
+  return (
+    <Panel title="Choose a new password">
+      {token ? <ResetPasswordForm token={token} onDone={() => navigate(paths.projects.getHref())} /> : <Notice tone="error">This link has no reset code. Open the link from the e-mail again.</Notice>}
+    </Panel>
+  );
+}

@@ -1,0 +1,47 @@
+import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { Button } from '@benchwright/ui';
+import { paths } from '../config/paths';
+import { useMe } from '../features/auth/api/get-me';
+import { useSignOut } from '../features/auth/api/sign-out';
+
+export function Layout() {
+  const me = useMe();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <div className="min-h-screen">
+      <header className="border-b-4 border-wood bg-paper-deep">
+        <div className="mx-auto flex max-w-4xl items-center justify-between px-6 py-4">
+          <Link to={paths.home.getHref()} className="text-xl font-bold tracking-wide text-ink no-underline">
+            Fernhill Joinery <span className="font-normal text-ink-soft">· client portal</span>
+          </Link>
+          <nav aria-label="Main" className="flex items-center gap-4">
+            {me.data ? (
+              <>
+                <NavLink to={paths.projects.getHref()} className="font-semibold text-wood">
+                  My projects
+                </NavLink>
+                <span className="text-ink-soft">{me.data.name}</span>
+                <Button variant="quiet" onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref()) })}>
+                  Sign out
+                </Button>
+              </>
+            ) : (
+              <>
+                <NavLink to={paths.signIn.getHref()} className="font-semibold text-wood">
+                  Sign in
+                </NavLink>
+                <NavLink to={paths.signUp.getHref()} className="font-semibold text-wood">
+                  Create an account
+                </NavLink>
+              </>
+            )}
+          </nav>
+        </div>
+      </header>
+      <main className="mx-auto max-w-4xl px-6 py-8">
+        <Outlet />
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,53 @@
+import type { Project, ProjectStatus } from '@benchwright/contracts';
+import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
+import { Money, Notice } from '@benchwright/ui';
+import { useProjects } from '../api/get-projects';
+
+const STATUS_WORDS: Record<ProjectStatus, string> = {
+  requested: 'Estimate requested',
+  estimating: 'Being estimated',
+  estimate_sent: 'Estimate ready to review',
+  accepted: 'Accepted, deposit due',
+  deposit_paid: 'Deposit paid',
+  in_production: 'In the shop',
+  ready: 'Ready, balance due',
+  delivered: 'Delivered',
+  closed: 'Closed',
+  declined: 'Declined',
+  expired: 'Estimate expired',
+  cancelled: 'Cancelled',
+};
+
+function itemName(spec: unknown): string {
+  const slug = (spec as { design?: string }).design;
+  return slug && slug in designs ? designs[slug as DesignSlug].name : 'Custom piece';
+}
+
+function ProjectRow({ p }: { p: Project }) {
+  const latest = p.estimates.at(-1);
+  return (
+    <li className="border-b border-rule py-4 last:border-0">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h3 className="text-lg font-semibold">{p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${itemName(i.spec)}`).join(', ')}</h3>
+        <span className="rounded bg-sage-light px-2 py-0.5 text-sm">{STATUS_WORDS[p.status]}</span>
+      </div>
+      {p.notes ? <p className="text-ink-soft">{p.notes}</p> : null}
+      <p className="text-sm text-ink-soft">
+        Asked on {new Date(p.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })}
+        {latest ? (
+          <>
+            {' '}· estimate revision {latest.revision}: <Money cents={latest.totals.totalCents} />
+          </>
+        ) : null}
+      </p>
+    </li>
+  );
+}
+
+export function ProjectList() {
+  const q = useProjects();
+  if (q.isPending) return <p>Loading your projects…</p>;
+  if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
+  if (!q.data.length) return <p className="text-ink-soft">No projects yet. When you ask the shop for an estimate, it appears here with every step that follows.</p>;
+  return <ul aria-label="My projects">{q.data.map((p) => <ProjectRow key={p.id} p={p} />)}</ul>;
+}

@@ -1,0 +1,33 @@
+import { createBrowserRouter, createMemoryRouter, type RouteObject } from 'react-router-dom';
+import { PublicLayout, ShopLayout } from '../components/layout';
+import { paths } from '../config/paths';
+import { AcceptInvitationRoute } from './routes/accept-invitation';
+import { BoardRoute } from './routes/board';
+import { ForgotPasswordRoute, ResetPasswordRoute } from './routes/password';
+import { RequestsRoute } from './routes/requests';
+import { SignInRoute } from './routes/sign-in';
+import { TeamRoute } from './routes/team';
+
+export const routes: RouteObject[] = [
+  {
+    element: <PublicLayout />,
+    children: [
+      { path: paths.signIn.path, element: <SignInRoute /> },
+      { path: paths.acceptInvitation.path, element: <AcceptInvitationRoute /> },
+      { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
+      { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
+    ],
+  },
+  {
+    path: paths.home.path,
+    element: <ShopLayout />,
+    children: [
+      { path: paths.board.path, element: <BoardRoute /> },
+      { path: paths.requests.path, element: <RequestsRoute /> },
+      { path: paths.team.path, element: <TeamRoute /> },
+    ],
+  },
+];
+
+export const createRouter = () => createBrowserRouter(routes);
+export const createTestRouter = (url: string) => createMemoryRouter(routes, { initialEntries: [url] });

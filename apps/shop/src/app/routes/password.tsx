@@ -1,0 +1,23 @@
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { Notice, Panel } from '@benchwright/ui';
+import { paths } from '../../config/paths';
+import { ForgotPasswordForm, ResetPasswordForm } from '../../features/auth/components/password-forms';
+
+export function ForgotPasswordRoute() {
+  return (
+    <Panel title="Forgot your password?">
+      <ForgotPasswordForm />
+    </Panel>
+  );
+}
+
+export function ResetPasswordRoute() {
+  const [params] = useSearchParams();
+  const navigate = useNavigate();
+  const token = params.get('token') ?? '';
+  return (
+    <Panel title="Choose a new password">
+      {token ? <ResetPasswordForm token={token} onDone={() => navigate(paths.home.getHref())} /> : <Notice tone="error">This link has no reset code.</Notice>}
+    </Panel>
+  );
+}

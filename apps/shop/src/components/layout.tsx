@@ -1,0 +1,84 @@
+import type { ReactNode } from 'react';
+import { NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
+import { Button, Notice, Panel } from '@benchwright/ui';
+import { paths, PORTAL_URL } from '../config/paths';
+import { useMe } from '../features/auth/api/get-me';
+import { useSignOut } from '../features/auth/api/sign-out';
+import { canInviteBuilders, canSeeBoard, canSeeRequests, isStaff } from '../lib/policies';
+
+function Frame({ nav, children }: { nav?: ReactNode; children: ReactNode }) {
+  return (
+    <div className="min-h-screen">
+      <header className="border-b-4 border-wood bg-ink text-paper">
+        <div className="mx-auto flex max-w-6xl items-center justify-between px-6 py-3">
+          <span className="text-lg font-bold tracking-wide">Fernhill Joinery · shop</span>
+          {nav}
+        </div>
+      </header>
+      <main className="mx-auto max-w-6xl px-6 py-8">{children}</main>
+    </div>
+  );
+}
+
+/** Pages anyone may open (sign-in, invitations, password reset). */
+export function PublicLayout() {
+  return (
+    <Frame>
+      <Outlet />
+    </Frame>
+  );
+}
+
+/** The signed-in shop: navigation follows the role; clients are told this app is not theirs. */
+export function ShopLayout() {
+  const me = useMe();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const location = useLocation();
+  if (me.isPending) return <Frame>Loading…</Frame>;
+  if (!me.data) return <Navigate to={paths.signIn.getHref()} replace />;
+  const user = me.data;
+  const out = () => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref()) });
+  if (!isStaff(user)) {
+    return (
+      <Frame>
+        <Panel title="This app is for the shop">
+          <Notice>
+            You are signed in as {user.name}, a client of the shop. The shop app is only for its owner and builders; your projects, estimates and payments are in the client portal.
+          </Notice>
+          <p className="mb-4">
+            <a href={PORTAL_URL} className="text-wood underline">Go to the client portal</a>
+          </p>
+          <Button variant="quiet" onClick={out}>
+            Sign out
+          </Button>
+        </Panel>
+      </Frame>
+    );
+  }
+  const link = 'rounded px-3 py-1 font-semibold text-paper hover:bg-wood aria-[current=page]:bg-wood';
+  const nav = (
+    <nav aria-label="Shop" className="flex items-center gap-2">
+      {canSeeRequests(user) ? <NavLink to={paths.requests.getHref()} className={link}>Requests</NavLink> : null}
+      {canSeeBoard(user) ? <NavLink to={paths.board.getHref()} className={link}>Board</NavLink> : null}
+      {canInviteBuilders(user) ? <NavLink to={paths.team.getHref()} className={link}>Team</NavLink> : null}
+      <span className="ml-4 text-sm text-wood-light">{user.name}</span>
+      <Button variant="quiet" className="text-wood-light" onClick={out}>
+        Sign out
+      </Button>
+    </nav>
+  );
+  if (location.pathname === '/') return <Navigate to={canSeeRequests(user) ? paths.requests.getHref() : paths.board.getHref()} replace />;
+  return (
+    <Frame nav={nav}>
+      <Outlet context={user} />
+    </Frame>
+  );
+}
+
+/** Keeps a page to the roles that may see it. */
+export function RoleGate({ allow, children }: { allow: (u: ReturnType<typeof useMe>['data']) => boolean; children: ReactNode }) {
+  const me = useMe();
+  if (!allow(me.data)) return <Notice tone="error">Your role does not include this page.</Notice>;
+  return <>{children}</>;
+}

@@ -1,0 +1,13 @@
+/** Every URL of the shop app, in one place. */
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  signIn: { path: '/sign-in', getHref: () => '/sign-in' },
+  acceptInvitation: { path: '/accept-invitation', getHref: () => '/accept-invitation' },
+  forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+  resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
+  board: { path: '/board', getHref: () => '/board' },
+  requests: { path: '/requests', getHref: () => '/requests' },
+  team: { path: '/team', getHref: () => '/team' },
+} as const;
+
+export const PORTAL_URL = import.meta.env.VITE_PORTAL_URL ?? 'http://127.0.0.1:5173';

@@ -1,0 +1,50 @@
+import type { Project, ProjectStatus } from '@benchwright/contracts';
+import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
+import { Money, Notice } from '@benchwright/ui';
+import { useProjects } from '../api/get-projects';
+
+const IN_SHOP: ProjectStatus[] = ['deposit_paid', 'in_production', 'ready', 'delivered'];
+
+function what(p: Project): string {
+  return p.items
+    .map((i) => {
+      const slug = (i.spec as { design?: string }).design;
+      const name = slug && slug in designs ? designs[slug as DesignSlug].name : 'Custom piece';
+      return i.quantity > 1 ? `${i.quantity} x ${name}` : name;
+    })
+    .join(', ');
+}
+
+/** Projects as a table: requests for the owner, jobs in the shop for the board. */
+export function ProjectTable({ inShop, empty }: { inShop: boolean; empty: string }) {
+  const q = useProjects();
+  if (q.isPending) return <p>Loading…</p>;
+  if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
+  const rows = q.data.filter((p) => IN_SHOP.includes(p.status) === inShop);
+  if (!rows.length) return <p className="text-ink-soft">{empty}</p>;
+  return (
+    <table className="w-full border-collapse text-left">
+      <thead>
+        <tr className="border-b-2 border-rule">
+          <th className="py-2">Client</th>
+          <th className="py-2">Piece</th>
+          <th className="py-2">Status</th>
+          <th className="py-2 text-right">Latest estimate</th>
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map((p) => {
+          const e = p.estimates.at(-1);
+          return (
+            <tr key={p.id} className="border-b border-rule">
+              <td className="py-2">{p.client.name}</td>
+              <td className="py-2">{what(p)}</td>
+              <td className="py-2">{p.status.replace(/_/g, ' ')}</td>
+              <td className="py-2 text-right">{e ? <Money cents={e.totals.totalCents} /> : '—'}</td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
+  );
+}

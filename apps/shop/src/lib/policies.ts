@@ -1,0 +1,7 @@
+import type { User } from '@benchwright/contracts';
+
+// Mirrors the server's checks for what to show; the server still decides.
+export const isStaff = (u: User | null | undefined) => u?.role === 'owner' || u?.role === 'builder';
+export const canSeeBoard = isStaff;
+export const canSeeRequests = (u: User | null | undefined) => u?.role === 'owner';
+export const canInviteBuilders = (u: User | null | undefined) => u?.role === 'owner';

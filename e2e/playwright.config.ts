@@ -1,0 +1,24 @@
+import { defineConfig } from '@playwright/test';
+
+/** E2E specs against the stack as the start command runs it (scripts/stack.ts), in Debian's Chromium. */
+export default defineConfig({
+  testDir: '.',
+  timeout: 45_000,
+  expect: { timeout: 10_000 },
+  workers: 1,
+  retries: 0,
+  reporter: [['list'], ['json', { outputFile: process.env.PW_JSON ?? 'test-results/e2e.json' }]],
+  use: {
+    launchOptions: {
+      executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    },
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+  },
+  projects: [
+    { name: 'setup', testMatch: /auth\.setup\.ts/ },
+    { name: 'customer', testMatch: /customer\/.*\.spec\.ts/, dependencies: ['setup'], use: { baseURL: 'http://127.0.0.1:5173' } },
+    { name: 'shop', testMatch: /shop\/.*\.spec\.ts/, dependencies: ['setup'], use: { baseURL: 'http://127.0.0.1:5174' } },
+  ],
+});

@@ -1,0 +1,48 @@
+import { expect, test } from '@playwright/test';
+import { authFile, linkIn, mailTo, signIn, SHOP } from '../support';
+
+test.describe('the owner', () => {
+  test.use({ storageState: authFile('owner') });
+
+  test('invites a builder, whose mail leads to a set-password page; the builder then sees only the board', async ({ page, browser }) => {
+    const email = `builder-${Date.now()}@fernhill.example`;
+    await page.goto('/team');
+    await page.getByLabel("Builder's name").fill('Sam Reed');
+    await page.getByLabel("Builder's e-mail").fill(email);
+    await page.getByRole('button', { name: 'Send invitation' }).click();
+    await expect(page.getByText(`Invitation sent to ${email}.`)).toBeVisible();
+    await expect(page.getByRole('cell', { name: email })).toBeVisible();
+
+    const mail = await mailTo(email, /invited to the Fernhill Joinery shop app/);
+    const builder = await browser.newPage();
+    await builder.goto(linkIn(mail));
+    await expect(builder.getByRole('heading', { name: 'Set your password' })).toBeVisible();
+    await builder.getByLabel('Password', { exact: true }).fill('sawdust-and-glue');
+    await builder.getByRole('button', { name: 'Set password and sign in' }).click();
+    const nav = builder.getByRole('navigation', { name: 'Shop' });
+    await expect(nav.getByRole('link')).toHaveText(['Board']);
+    await expect(builder.getByRole('heading', { name: 'Production board' })).toBeVisible();
+    await builder.goto(`${SHOP}/team`);
+    await expect(builder.getByText('Your role does not include this page.')).toBeVisible();
+    await builder.close();
+  });
+
+  test('sees the requests of every client', async ({ page }) => {
+    await page.goto('/requests');
+    for (const name of ['Priya Natarajan', 'Tomasz Wierzbicki', "Alder Cross Makers' Guild"]) await expect(page.getByRole('cell', { name })).toBeVisible();
+  });
+});
+
+test('the demo builder sees only the board', async ({ page }) => {
+  await signIn(page, SHOP, 'idris@fernhill.example');
+  await expect(page.getByRole('navigation', { name: 'Shop' }).getByRole('link')).toHaveText(['Board']);
+});
+
+test('a client who signs in to the shop app is told it is for the shop', async ({ page }) => {
+  await page.goto(`${SHOP}/sign-in`);
+  await page.getByLabel('E-mail').fill('tomasz@example.com');
+  await page.getByLabel('Password').fill('bench-demo-2026');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('heading', { name: 'This app is for the shop' })).toBeVisible();
+  await expect(page.getByRole('navigation', { name: 'Shop' })).toHaveCount(0);
+});

@@ -1,0 +1,41 @@
+import { expect, type Page } from '@playwright/test';
+
+export const PORTAL = 'http://127.0.0.1:5173';
+export const SHOP = 'http://127.0.0.1:5174';
+export const MAILDEV = 'http://127.0.0.1:1080';
+export const DEMO_PASSWORD = 'bench-demo-2026';
+
+export const authFile = (who: string) => `e2e/.auth/${who}.json`;
+
+interface Mail {
+  id: string;
+  subject: string;
+  text: string;
+  to: { address: string }[];
+}
+
+/** Waits for a mail to `to` whose subject matches, read from maildev's REST API. */
+export async function mailTo(to: string, subject: RegExp, timeoutMs = 15_000): Promise<Mail> {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    const mails = (await (await fetch(`${MAILDEV}/api/email`)).json()) as Mail[];
+    const found = mails.filter((m) => m.to.some((t) => t.address === to) && subject.test(m.subject)).at(-1);
+    if (found) return found;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`no mail to ${to} matching ${subject} within ${timeoutMs} ms`);
+}
+
+export function linkIn(mail: Mail): string {
+  const m = /(http:\/\/\S+token=[A-Za-z0-9_-]+)/.exec(mail.text);
+  if (!m) throw new Error(`no link in the mail "${mail.subject}"`);
+  return m[1];
+}
+
+export async function signIn(page: Page, base: string, email: string, password = DEMO_PASSWORD) {
+  await page.goto(`${base}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('button', { name: 'Sign out' })).toBeVisible();
+}

@@ -1,0 +1,30 @@
+import type { ApiIssue, ErrorCode } from '@benchwright/contracts';
+
+/** An error answer of the API, typed; the UI decides what to show. */
+export class ApiRequestError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ErrorCode,
+    message: string,
+    readonly issues: ApiIssue[] = [],
+  ) {
+    super(message);
+  }
+}
+
+/** fetch against the app's own origin (Vite proxies /api), with the session cookie. */
+export async function api<T>(path: string, init: { method?: string; body?: unknown } = {}): Promise<T> {
+  const res = await fetch(`/api${path}`, {
+    method: init.method ?? (init.body === undefined ? 'GET' : 'POST'),
+    credentials: 'include',
+    headers: init.body === undefined ? undefined : { 'Content-Type': 'application/json' },
+    body: init.body === undefined ? undefined : JSON.stringify(init.body),
+  });
+  if (res.status === 204) return undefined as T;
+  const data = await res.json().catch(() => null);
+  if (!res.ok) {
+    const e = (data as { error?: { code: ErrorCode; message: string; issues?: ApiIssue[] } } | null)?.error;
+    throw new ApiRequestError(res.status, e?.code ?? 'internal', e?.message ?? `The server answered ${res.status}.`, e?.issues ?? []);
+  }
+  return data as T;
+}

@@ -1,0 +1,76 @@
+import { forwardRef, useId, type ButtonHTMLAttributes, type InputHTMLAttributes, type ReactNode } from 'react';
+import { formatLength, toSvg, type Drawing as DrawingData, type LengthUnit } from '@benchwright/pricing/geometry';
+
+export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: 'primary' | 'quiet' }) {
+  const look =
+    variant === 'primary'
+      ? 'bg-wood text-paper hover:bg-wood-dark disabled:opacity-60'
+      : 'bg-transparent text-wood underline-offset-4 hover:underline';
+  return <button className={`rounded px-4 py-2 font-semibold focus:outline-2 focus:outline-offset-2 focus:outline-sage ${look} ${className}`} {...props} />;
+}
+
+type FieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; error?: string; hint?: string };
+
+/** A labelled input with its error beside it; keeps what was typed (uncontrolled, for react-hook-form). */
+export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field({ label, error, hint, id, ...props }, ref) {
+  const auto = useId();
+  const inputId = id ?? auto;
+  const errId = `${inputId}-error`;
+  return (
+    <div className="mb-4">
+      <label htmlFor={inputId} className="mb-1 block font-semibold">
+        {label}
+      </label>
+      <input
+        ref={ref}
+        id={inputId}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? errId : undefined}
+        className={`w-full rounded border bg-white px-3 py-2 text-ink ${error ? 'border-alert' : 'border-rule'} focus:outline-2 focus:outline-sage`}
+        {...props}
+      />
+      {hint && !error ? <p className="mt-1 text-sm text-ink-soft">{hint}</p> : null}
+      {error ? (
+        <p id={errId} role="alert" className="mt-1 text-sm text-alert">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+});
+
+export function Notice({ tone = 'info', children }: { tone?: 'info' | 'error' | 'ok'; children: ReactNode }) {
+  const look = tone === 'error' ? 'border-alert bg-alert-light' : tone === 'ok' ? 'border-sage bg-sage-light' : 'border-rule bg-paper-deep';
+  return (
+    <div role={tone === 'error' ? 'alert' : 'status'} className={`mb-4 rounded border-l-4 px-4 py-3 ${look}`}>
+      {children}
+    </div>
+  );
+}
+
+export function Panel({ title, children }: { title?: string; children: ReactNode }) {
+  return (
+    <section className="mb-6 rounded border border-rule bg-white/70 p-6">
+      {title ? <h2 className="mb-4 text-xl font-semibold">{title}</h2> : null}
+      {children}
+    </section>
+  );
+}
+
+const usd = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+/** Cents as dollars: $1,234.50. */
+export function Money({ cents }: { cents: number }) {
+  return <span className="tabular-nums">{usd.format(cents / 100)}</span>;
+}
+export function formatMoney(cents: number): string {
+  return usd.format(cents / 100);
+}
+
+export function Length({ mm, unit }: { mm: number; unit: LengthUnit }) {
+  return <span className="tabular-nums">{formatLength(mm, { unit })}</span>;
+}
+
+/** A drawing from the engine, rendered as SVG (the same data the PDF uses). */
+export function Drawing({ drawing, label }: { drawing: DrawingData; label?: string }) {
+  return <figure aria-label={label ?? drawing.title} className="w-full" dangerouslySetInnerHTML={{ __html: toSvg(drawing).replace(/ width="\d+" height="\d+"/, ' width="100%"') }} />;
+}
