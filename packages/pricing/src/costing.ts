@@ -151,7 +151,7 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
     const first = pieceChecks(list, book, settings);
     const hardware = hardwareFor(list, book, { antiTip: first.needsAntiTip });
     const { checks, massKg } = pieceChecks(list, book, settings, hardware.reduce((s, h) => s + h.massKg, 0));
-    return { index, spec: item.spec, quantity: item.quantity, parts: list.parts, hardware, checks, massKg, elevation: elevationDrawing(item.spec, list, { unit: settings.units }) };
+    return { index, spec: item.spec, quantity: item.quantity, parts: list.parts, hardware, checks, massKg, elevation: elevationDrawing(item.spec, { list, unit: settings.units }) };
   });
 
   // every unit of every piece, nested together per material

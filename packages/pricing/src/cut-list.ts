@@ -269,7 +269,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
       geo.footId = foot.id;
     }
     for (const cs of cases) {
-      for (const x of [cs.xMm + 40, cs.xMm + cs.widthMm - 40]) geo.mobility.push({ kind: caster ? 'caster' : 'foot', xMm: x, heightMm: under });
+      for (const x of [cs.xMm + 70, cs.xMm + cs.widthMm - 70]) geo.mobility.push({ kind: caster ? 'caster' : 'foot', xMm: x, heightMm: under });
     }
     geo.mobile = caster !== null;
     geo.workingLoadKg = spec.workingLoadKg;

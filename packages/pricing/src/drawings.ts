@@ -1,5 +1,7 @@
 import type { BuildSpec } from './designs';
-import type { CutList, PieceGeometry } from './cut-list';
+import { cutList, type CutList, type PieceGeometry } from './cut-list';
+import { demoPriceBook, demoSettings } from './demo-data';
+import type { PriceBook, ShopSettings } from './price-book';
 import type { NestPart, SheetLayout } from './nesting';
 import { formatLength, type LengthUnit } from './units';
 
@@ -30,10 +32,13 @@ function fmt(mm: number, unit: LengthUnit): string {
  * partitions, doors (with hinge-side marks), drawer fronts, top, toe kick,
  * casters or feet, and overall dimensions.
  *
- * @example toSvg(elevationDrawing(spec, cutList(spec, book, settings)))
+ * @example toSvg(elevationDrawing(designs.bookcase.defaults)) // to scale with the demo book's thicknesses
+ * @example elevationDrawing(spec, { book, settings }) // with the shop's own materials
  */
-export function elevationDrawing(spec: BuildSpec, list: CutList, options: { unit?: LengthUnit } = {}): Drawing {
-  const unit = options.unit ?? 'in';
+export function elevationDrawing(spec: BuildSpec, options: { list?: CutList; book?: PriceBook; settings?: ShopSettings; unit?: LengthUnit } = {}): Drawing {
+  const unit = options.unit ?? options.settings?.units ?? 'in';
+  // thicknesses come from the shop's price book; without one, from the demo book (the drawing is to scale, not priced)
+  const list = options.list ?? cutList(spec, options.book ?? demoPriceBook, options.settings ?? demoSettings);
   const g: PieceGeometry = list.geometry;
   const H = g.heightMm;
   const W = g.widthMm;
@@ -60,7 +65,12 @@ export function elevationDrawing(spec: BuildSpec, list: CutList, options: { unit
     }
   }
   for (const m of g.mobility) {
-    if (m.kind === 'caster') shapes.push({ type: 'circle', cx: m.xMm, cy: Y(m.heightMm / 2), r: m.heightMm / 2, style: 'hardware' });
+    if (m.kind === 'caster') {
+      // a wheel under a short stem, drawn smaller than its height so neighbours never touch
+      const r = Math.min(m.heightMm / 2.6, 45);
+      shapes.push({ type: 'line', x1: m.xMm, y1: Y(m.heightMm), x2: m.xMm, y2: Y(2 * r), style: 'hardware' });
+      shapes.push({ type: 'circle', cx: m.xMm, cy: Y(r), r, style: 'hardware' });
+    }
     else shapes.push({ type: 'rect', x: m.xMm - 20, y: Y(m.heightMm), width: 40, height: m.heightMm, style: 'hardware' });
   }
   const gap = size * 1.6;
@@ -100,12 +110,15 @@ export function sheetLayoutDrawing(sheet: SheetLayout, parts: readonly NestPart[
     shapes.push({ type: 'rect', x: p.xMm, y: p.yMm, width: p.lengthMm, height: p.widthMm, style: 'part' });
     const cx = p.xMm + p.lengthMm / 2;
     const cy = p.yMm + p.widthMm / 2;
-    const fits = p.lengthMm > size * 5 && p.widthMm > size * 2.4;
     const name = part?.name ?? p.partId;
     const sizeText = `${fmt(part?.lengthMm ?? p.lengthMm, unit)} x ${fmt(part?.widthMm ?? p.widthMm, unit)}`;
-    const s = fits ? size : Math.max(size * 0.5, Math.min(p.lengthMm / 9, p.widthMm / 2.6, size));
-    shapes.push({ type: 'text', x: cx, y: cy - s * 0.15, text: name, size: s, anchor: 'middle', weight: 'bold' });
-    shapes.push({ type: 'text', x: cx, y: cy + s * 1.05, text: sizeText, size: s * 0.85, anchor: 'middle' });
+    // text shrinks to fit the part (about 0.55 em a character); a part too small for legible text is left to the cut list
+    const longest = Math.max(name.length, sizeText.length);
+    const s = Math.min(size, p.lengthMm / (longest * 0.55 + 1), p.widthMm / 2.6);
+    if (s >= size * 0.45) {
+      shapes.push({ type: 'text', x: cx, y: cy - s * 0.15, text: name, size: s, anchor: 'middle', weight: 'bold' });
+      shapes.push({ type: 'text', x: cx, y: cy + s * 1.05, text: sizeText, size: s * 0.85, anchor: 'middle' });
+    }
     if (part && !part.canRotate) {
       // grain runs along the part's length, which is along the sheet's length when unrotated
       const len = Math.min(p.lengthMm * 0.5, size * 6);
@@ -116,7 +129,7 @@ export function sheetLayoutDrawing(sheet: SheetLayout, parts: readonly NestPart[
   for (const c of sheet.cuts) {
     shapes.push({ type: 'line', x1: c.x1Mm, y1: c.y1Mm, x2: c.x2Mm, y2: c.y2Mm, style: 'cut' });
     // the cut's number sits at its start, where the saw enters
-    const r = size * 0.75;
+    const r = size * 0.55;
     const cx = c.direction === 'rip' ? c.x1Mm + r * 1.3 : c.x1Mm;
     const cy = c.direction === 'rip' ? c.y1Mm : c.y1Mm + r * 1.3;
     shapes.push({ type: 'circle', cx, cy, r, style: 'cut' });
