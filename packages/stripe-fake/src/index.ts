@@ -1,0 +1,1 @@
+export { createStripeFake, signPayload, API_VERSION, type FakeOptions } from './server';
