@@ -16,6 +16,13 @@ import { projectsRoutes } from './modules/projects/projects.routes';
 import { quotesRoutes } from './modules/quotes/quotes.routes';
 import { usersRoutes } from './modules/users/users.routes';
 import { loadPricing } from './lib/engine';
+import { createStripe } from './lib/stripe';
+import { createEstimatesService } from './modules/estimates/estimates.service';
+import { estimatesRoutes, projectMoneyRoutes } from './modules/estimates/estimates.routes';
+import { createJobsService } from './modules/jobs/jobs.service';
+import { jobsRoutes } from './modules/jobs/jobs.routes';
+import { createPaymentsService } from './modules/payments/payments.service';
+import { paymentsRoutes, webhookRoute } from './modules/payments/payments.routes';
 
 export const VERSION = '0.1.0';
 
@@ -36,9 +43,14 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   const lucia = createLucia(db, secure);
   const auth = createAuthService({ db, shopName: () => loadPricing(db).shopName, portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL });
 
+  const estimatesService = createEstimatesService({ db, pdfDir: env.PDF_DIR, portalUrl: env.PORTAL_URL });
+  const paymentsService = createPaymentsService({ db, stripe: createStripe(env), webhookSecret: env.STRIPE_WEBHOOK_SECRET, portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL });
+  const jobsService = createJobsService(db, env.PORTAL_URL);
+
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(helmet());
-  // the Stripe webhook (raw body, signed) is mounted here, before JSON parsing and the origin check
+  // the Stripe webhook (raw body, signed) comes before JSON parsing and the origin check
+  app.use('/api/webhooks/stripe', webhookRoute(paymentsService));
   app.use(express.json({ limit: env.JSON_LIMIT }));
   app.use(originCheck(appOrigins(env)));
   app.use(sessionMiddleware(lucia));
@@ -61,8 +73,11 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
   app.use('/api/quotes', quotesRoutes(db, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
-  app.use('/api/projects', requireRole('client', 'owner', 'builder'), projectsRoutes(createProjectsService(db)));
+  app.use('/api/projects', requireRole('client', 'owner', 'builder'), projectMoneyRoutes(estimatesService, paymentsService), projectsRoutes(createProjectsService(db)));
+  app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
+  app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));
+  app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
-  return app;
+  return Object.assign(app, { services: { estimates: estimatesService, payments: paymentsService, jobs: jobsService, auth } });
 }

@@ -29,6 +29,11 @@ const Env = z.object({
   JSON_LIMIT: z.string().default('100kb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: bool.default(true),
+  PDF_DIR: z.string().default('data/estimates').transform(fromRoot),
+  // Stripe: the local stand-in by default; real Stripe is only a matter of these three
+  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_\w+$/, 'a Stripe secret key (sk_test_... or sk_live_...)').default('sk_test_local_benchwright'),
+  STRIPE_API_BASE: z.url().default('http://127.0.0.1:12111'),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).default('whsec_local_benchwright'),
 });
 export type Env = z.infer<typeof Env>;
 

@@ -92,3 +92,34 @@ export interface QuotePreview {
   lines?: unknown[];
   totals?: EstimateSummary['totals'];
 }
+
+export const CreateEstimateBody = z.object({ source: z.enum(['engine', 'copy']).default('engine') });
+export const LINE_GROUPS = ['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables', 'labour', 'delivery', 'other'] as const;
+export const EstimateLineInput = z.object({
+  id: z.string().max(64).optional(),
+  group: z.enum(LINE_GROUPS),
+  description: z.string().trim().min(1, 'describe the line').max(300),
+  quantity: z.number().min(0, 'at least 0').max(100000),
+  unit: z.string().trim().min(1).max(20),
+  unitPriceCents: z.number().int('whole cents').min(-10_000_000).max(100_000_000),
+  costCents: z.number().int().min(0).max(100_000_000).optional(),
+  overrideReason: z.string().trim().max(500).nullable().optional(),
+});
+export const UpdateEstimateBody = z.object({
+  version: z.number().int().min(1),
+  lines: z.array(EstimateLineInput).max(300).optional(),
+  discountCents: z.number().int().min(0).max(100_000_000).optional(),
+});
+export type UpdateEstimateBody = z.input<typeof UpdateEstimateBody>;
+export const AcceptEstimateBody = z.object({ acceptedName: z.string().trim().min(2, 'type your full name to accept').max(120) });
+export const RefundBody = z.object({ amountCents: z.number().int().min(1, 'at least 1 cent').max(100_000_000).optional() });
+export const STAGE_KEYS = ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] as const;
+export const UpdateJobBody = z
+  .object({
+    stageKey: z.enum(STAGE_KEYS).optional(),
+    position: z.number().int().min(0).max(10000).optional(),
+    builderId: z.string().max(64).nullable().optional(),
+    dueDate: z.iso.date('use a date like 2026-12-24').nullable().optional(),
+  })
+  .refine((v) => Object.keys(v).length > 0, 'change at least one of stageKey, position, builderId, dueDate');
+export const LogTimeBody = z.object({ stageKey: z.enum(STAGE_KEYS), hours: z.number().gt(0, 'more than 0 hours').max(24, 'at most 24 hours at a time'), note: z.string().max(500).default('') });

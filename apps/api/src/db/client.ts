@@ -34,3 +34,6 @@ export function migrationLevel(db: Db): number {
     return 0;
   }
 }
+
+/** What a transaction callback receives; services that write inside one take this. */
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];

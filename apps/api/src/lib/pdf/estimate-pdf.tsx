@@ -1,0 +1,227 @@
+import { createRequire } from 'node:module';
+import { Circle, Document, Font, Line, Page, Rect, renderToBuffer, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
+import { designs, formatLength, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing';
+import { dollars } from '../mail-templates';
+
+const require = createRequire(import.meta.url);
+const font = (w: number) => require.resolve(`@fontsource/source-sans-3/files/source-sans-3-latin-${w}-normal.woff`);
+// the .woff files (fontkit cannot read woff2), shipped with the app: no font service
+Font.register({ family: 'Source Sans 3', fonts: [{ src: font(400) }, { src: font(600), fontWeight: 600 }, { src: font(700), fontWeight: 700 }] });
+Font.registerHyphenationCallback((word) => [word]);
+
+const INK = '#231c15';
+const WOOD = '#7a4a24';
+const s = StyleSheet.create({
+  page: { fontFamily: 'Source Sans 3', fontSize: 10, color: INK, padding: 40, paddingBottom: 56 },
+  head: { flexDirection: 'row', justifyContent: 'space-between', borderBottomWidth: 2, borderBottomColor: WOOD, paddingBottom: 8, marginBottom: 14 },
+  shop: { fontSize: 16, fontWeight: 700 },
+  muted: { color: '#5b5148' },
+  h2: { fontSize: 12, fontWeight: 700, marginTop: 12, marginBottom: 6 },
+  row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: '#d8ccb8', paddingVertical: 3 },
+  groupRow: { flexDirection: 'row', paddingTop: 7, paddingBottom: 2 },
+  cDesc: { flex: 1 },
+  cQty: { width: 70, textAlign: 'right' },
+  cUnit: { width: 70, textAlign: 'right' },
+  cAmt: { width: 80, textAlign: 'right' },
+  totals: { marginTop: 10, marginLeft: 'auto', width: 240 },
+  totalRow: { flexDirection: 'row', justifyContent: 'space-between', paddingVertical: 2 },
+  grand: { fontWeight: 700, fontSize: 12, borderTopWidth: 1, borderTopColor: INK, marginTop: 3, paddingTop: 4 },
+  footer: { position: 'absolute', bottom: 24, left: 40, right: 40, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: '#5b5148' },
+  caution: { marginBottom: 3 },
+});
+
+export interface EstimatePdfInput {
+  shop: { name: string; address: string; email: string; phone: string };
+  client: { name: string; email: string };
+  number: string;
+  revision: number;
+  date: Date;
+  validUntil: Date;
+  items: { spec: { design: string; widthMm: number; heightMm: number; depthMm: number }; quantity: number; materials: string[]; finish: string | null; drawing: Drawing }[];
+  lines: { group: LineGroup; description: string; quantity: number; unit: string; unitPriceCents: number; amountCents: number }[];
+  totals: { subtotalCents: number; discountCents: number; taxCents: number; totalCents: number; depositCents: number; balanceCents: number };
+  depositRate: number;
+}
+
+const GROUP_NAMES: Record<LineGroup, string> = { sheet_goods: 'Sheet goods', solid_wood: 'Solid wood', edge_banding: 'Edge banding', hardware: 'Hardware', finish: 'Finish', consumables: 'Shop supplies', labour: 'Shop time', delivery: 'Delivery', other: 'Other' };
+
+export const CAUTIONS = [
+  'Tall pieces must be anchored to the wall with the supplied anchor kit or fasteners suited to the wall; do not let children climb furniture.',
+  'Lock the casters of mobile pieces before use; respect the load limits stated here, and do not stand on benches or cabinets.',
+  'Built-ins, and anything electrical or plumbed, are to be installed by licensed trades under local code.',
+];
+
+/** The engine's drawing data drawn with react-pdf's SVG primitives. */
+function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number }) {
+  const vb = drawing.viewBox;
+  const k = vb.width / 500;
+  const height = (width * vb.height) / vb.width;
+  return (
+    <Svg width={width} height={height} viewBox={`${vb.x} ${vb.y} ${vb.width} ${vb.height}`}>
+      {drawing.shapes.map((sh, i) => {
+        switch (sh.type) {
+          case 'rect':
+            return <Rect key={i} x={sh.x} y={sh.y} width={sh.width} height={sh.height} stroke={INK} strokeWidth={1.2 * k} fill={sh.style === 'top' ? '#e3d6c1' : sh.style === 'kick' ? '#d9d2c7' : sh.style === 'case' ? '#f1ebe0' : '#ffffff'} />;
+          case 'line':
+          case 'arrow':
+            return <Line key={i} x1={sh.x1} y1={sh.y1} x2={sh.x2} y2={sh.y2} stroke={INK} strokeWidth={(sh.style === 'guide' ? 0.6 : 1) * k} strokeDasharray={sh.style === 'guide' ? `${6 * k} ${4 * k}` : undefined} />;
+          case 'circle':
+            return <Circle key={i} cx={sh.cx} cy={sh.cy} r={sh.r} stroke={INK} strokeWidth={1.2 * k} fill="#ffffff" />;
+          case 'text':
+            return (
+              <Text key={i} x={sh.x} y={sh.y} style={{ fontSize: sh.size, fontFamily: 'Source Sans 3', fontWeight: sh.weight === 'bold' ? 700 : 400 }} textAnchor={sh.anchor}>
+                {sh.text}
+              </Text>
+            );
+          case 'dimension': {
+            const horizontal = Math.abs(sh.y1 - sh.y2) < 1e-6;
+            const [ax, ay, bx, by] = horizontal ? [sh.x1, sh.y1 + sh.offset, sh.x2, sh.y2 + sh.offset] : [sh.x1 + sh.offset, sh.y1, sh.x2 + sh.offset, sh.y2];
+            return (
+              <View key={i}>
+                <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={INK} strokeWidth={0.8 * k} />
+                <Text x={horizontal ? (ax + bx) / 2 : ax + sh.size * 0.6} y={horizontal ? ay + sh.size * 1.2 : (ay + by) / 2} style={{ fontSize: sh.size, fontFamily: 'Source Sans 3' }} textAnchor={horizontal ? 'middle' : 'start'}>
+                  {sh.text}
+                </Text>
+              </View>
+            );
+          }
+        }
+      })}
+    </Svg>
+  );
+}
+
+function EstimateDocument({ d }: { d: EstimatePdfInput }) {
+  const fmtDate = (x: Date) => x.toLocaleDateString('en-US', { dateStyle: 'long' });
+  const groups = LINE_GROUPS.filter((g) => d.lines.some((l) => l.group === g));
+  const qty = (q: number) => (Number.isInteger(q) ? String(q) : q.toFixed(2));
+  return (
+    <Document title={`Estimate ${d.number} revision ${d.revision}`} author={d.shop.name}>
+      <Page size="LETTER" style={s.page}>
+        <View style={s.head}>
+          <View>
+            <Text style={s.shop}>{d.shop.name}</Text>
+            <Text style={s.muted}>{d.shop.address}</Text>
+            <Text style={s.muted}>
+              {d.shop.email} · {d.shop.phone}
+            </Text>
+          </View>
+          <View style={{ alignItems: 'flex-end' }}>
+            <Text style={{ fontSize: 14, fontWeight: 700 }}>Estimate {d.number}</Text>
+            <Text>Revision {d.revision}</Text>
+            <Text>Dated {fmtDate(d.date)}</Text>
+            <Text>Valid until {fmtDate(d.validUntil)}</Text>
+          </View>
+        </View>
+        <Text style={{ fontWeight: 600 }}>For {d.client.name}</Text>
+        <Text style={s.muted}>{d.client.email}</Text>
+
+        <Text style={s.h2}>The work</Text>
+        {d.items.map((it, i) => {
+          const name = (designs as Record<string, { name: string }>)[it.spec.design]?.name ?? it.spec.design;
+          const size = `${formatLength(it.spec.widthMm, { unit: 'in' })} W x ${formatLength(it.spec.heightMm, { unit: 'in' })} H x ${formatLength(it.spec.depthMm, { unit: 'in' })} D`;
+          return (
+            <View key={i} wrap={false} style={{ flexDirection: 'row', marginBottom: 8 }}>
+              <View style={{ width: 250 }}>
+                <PdfDrawing drawing={it.drawing} width={240} />
+              </View>
+              <View style={{ flex: 1, paddingLeft: 10 }}>
+                <Text style={{ fontWeight: 700 }}>
+                  {it.quantity > 1 ? `${it.quantity} x ` : ''}
+                  {name}
+                </Text>
+                <Text>{size}</Text>
+                <Text>Materials: {it.materials.join(', ')}</Text>
+                <Text>Finish: {it.finish ?? 'none (unfinished)'}</Text>
+              </View>
+            </View>
+          );
+        })}
+
+        <Text style={s.h2}>Priced items</Text>
+        <View style={[s.row, { borderBottomColor: INK }]}>
+          <Text style={[s.cDesc, { fontWeight: 700 }]}>Item</Text>
+          <Text style={[s.cQty, { fontWeight: 700 }]}>Quantity</Text>
+          <Text style={[s.cUnit, { fontWeight: 700 }]}>Unit price</Text>
+          <Text style={[s.cAmt, { fontWeight: 700 }]}>Amount</Text>
+        </View>
+        {groups.map((g) => {
+          const lines = d.lines.filter((l) => l.group === g);
+          const sub = lines.reduce((a, l) => a + l.amountCents, 0);
+          return (
+            <View key={g}>
+              <View style={s.groupRow} wrap={false}>
+                <Text style={[s.cDesc, { fontWeight: 700 }]}>{GROUP_NAMES[g]}</Text>
+                <Text style={[s.cAmt, { fontWeight: 600 }]}>{dollars(sub)}</Text>
+              </View>
+              {lines.map((l, i) => (
+                <View key={i} style={s.row} wrap={false}>
+                  <Text style={s.cDesc}>{l.description}</Text>
+                  <Text style={s.cQty}>
+                    {qty(l.quantity)} {l.unit}
+                  </Text>
+                  <Text style={s.cUnit}>{dollars(l.unitPriceCents)}</Text>
+                  <Text style={s.cAmt}>{dollars(l.amountCents)}</Text>
+                </View>
+              ))}
+            </View>
+          );
+        })}
+        <View style={s.totals} wrap={false}>
+          <View style={s.totalRow}>
+            <Text>Subtotal</Text>
+            <Text>{dollars(d.totals.subtotalCents)}</Text>
+          </View>
+          {d.totals.discountCents ? (
+            <View style={s.totalRow}>
+              <Text>Discount</Text>
+              <Text>-{dollars(d.totals.discountCents)}</Text>
+            </View>
+          ) : null}
+          <View style={s.totalRow}>
+            <Text>Tax</Text>
+            <Text>{dollars(d.totals.taxCents)}</Text>
+          </View>
+          <View style={[s.totalRow, s.grand]}>
+            <Text>Total</Text>
+            <Text>{dollars(d.totals.totalCents)}</Text>
+          </View>
+          <View style={s.totalRow}>
+            <Text>Deposit ({Math.round(d.depositRate * 100)} %)</Text>
+            <Text>{dollars(d.totals.depositCents)}</Text>
+          </View>
+          <View style={s.totalRow}>
+            <Text>Balance on completion</Text>
+            <Text>{dollars(d.totals.balanceCents)}</Text>
+          </View>
+        </View>
+
+        <View wrap={false}>
+          <Text style={s.h2}>Payment terms</Text>
+          <Text>
+            Accept this estimate in the client portal before {fmtDate(d.validUntil)}. The deposit of {dollars(d.totals.depositCents)} is paid online when you accept, and we order material once it arrives. The balance of {dollars(d.totals.balanceCents)} is due when the piece is ready, before delivery.
+          </Text>
+        </View>
+        <View wrap={false}>
+          <Text style={s.h2}>Safety</Text>
+          {CAUTIONS.map((c) => (
+            <Text key={c} style={s.caution}>
+              · {c}
+            </Text>
+          ))}
+        </View>
+        <View style={s.footer} fixed>
+          <Text>
+            {d.shop.name} · Estimate {d.number}, revision {d.revision}
+          </Text>
+          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+        </View>
+      </Page>
+    </Document>
+  );
+}
+
+/** Renders the estimate's PDF. */
+export function renderEstimatePdf(input: EstimatePdfInput): Promise<Buffer> {
+  return renderToBuffer(<EstimateDocument d={input} />);
+}

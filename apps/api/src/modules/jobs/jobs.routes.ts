@@ -1,0 +1,23 @@
+import { Router } from 'express';
+import { LogTimeBody, UpdateJobBody } from '@benchwright/contracts';
+import { parse } from '../../middleware/errors';
+import { currentUser } from '../../middleware/session';
+import type { JobsService } from './jobs.service';
+
+/** Mounted behind requireRole('owner', 'builder'). */
+export function jobsRoutes(service: JobsService): Router {
+  const r = Router();
+  r.get('/', (_req, res) => {
+    res.json({ jobs: service.list() });
+  });
+  r.get('/:id', (req, res) => {
+    res.json({ job: service.get(req.params.id) });
+  });
+  r.patch('/:id', (req, res) => {
+    res.json({ job: service.update(currentUser(res), req.params.id, parse(UpdateJobBody, req.body)) });
+  });
+  r.post('/:id/time', (req, res) => {
+    res.status(201).json({ job: service.logTime(currentUser(res), req.params.id, parse(LogTimeBody, req.body)) });
+  });
+  return r;
+}

@@ -1,0 +1,98 @@
+import { randomUUID } from 'node:crypto';
+import { asc, eq } from 'drizzle-orm';
+import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
+import type { User } from '@benchwright/contracts';
+import type { Db, Tx } from '../../db/client';
+import { estimates, jobs, projects, stages, timeEntries, users } from '../../db/schema';
+import { loadPricing } from '../../lib/engine';
+import { queueMail } from '../../lib/mailer';
+import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
+import { addEvent, setStatus } from '../../lib/timeline';
+import { Invalid, NotFound } from '../../middleware/errors';
+
+export function createJobsService(db: Db, portalUrl: string) {
+  function view(j: typeof jobs.$inferSelect) {
+    const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
+    const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
+    const builder = j.builderId ? db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, j.builderId)).get() : null;
+    const entries = db.select().from(timeEntries).where(eq(timeEntries.jobId, j.id)).all();
+    const logged = Object.fromEntries(STAGE_KEYS.map((k) => [k, Math.round(entries.filter((e) => e.stageKey === k).reduce((s, e) => s + e.hours, 0) * 100) / 100]));
+    const budget = j.hoursBudget;
+    return {
+      id: j.id,
+      project: { id: project.id, status: project.status, notes: project.notes },
+      clientName: client.name,
+      stage: j.stageKey,
+      position: j.position,
+      builder: builder ?? null,
+      dueDate: j.dueDate,
+      hoursBudgeted: { ...budget, total: Math.round(Object.values(budget).reduce((s: number, h) => s + (h ?? 0), 0) * 100) / 100 },
+      hoursLogged: { ...logged, total: Math.round(entries.reduce((s, e) => s + e.hours, 0) * 100) / 100 },
+    };
+  }
+
+  function row(id: string) {
+    const j = db.select().from(jobs).where(eq(jobs.id, id)).get();
+    if (!j) throw new NotFound('The job');
+    return j;
+  }
+
+  /** The stage rules of the board (DESIGN.md section 3), applied in the caller's transaction. */
+  function onStageChange(tx: Tx, job: typeof jobs.$inferSelect, from: string, to: StageKey, actor: User): void {
+    const project = tx.select().from(projects).where(eq(projects.id, job.projectId)).get()!;
+    const client = tx.select().from(users).where(eq(users.id, project.clientId)).get()!;
+    const label = tx.select().from(stages).where(eq(stages.key, to)).get()?.label ?? to;
+    const shop = loadPricing(tx).shopName;
+    const url = `${portalUrl}/projects/${project.id}`;
+    addEvent(tx, project.id, 'stage', `Moved to ${label}.`, actor.id);
+    if (from === 'material' && to !== 'material' && project.status === 'deposit_paid') {
+      setStatus(tx, project.id, 'in_production');
+      queueMail(tx, client.email, stageMail(shop, client.name, 'Your material is in and your piece is now being built in the shop.', url));
+    }
+    if (to === 'ready' && project.status !== 'ready') {
+      setStatus(tx, project.id, 'ready');
+      const est = tx.select().from(estimates).where(eq(estimates.projectId, project.id)).all().find((e) => e.status === 'accepted');
+      queueMail(tx, client.email, balanceRequestMail(shop, client.name, est?.balanceCents ?? 0, url));
+    }
+    if (to === 'delivered' && project.status !== 'delivered') {
+      setStatus(tx, project.id, 'delivered');
+      queueMail(tx, client.email, stageMail(shop, client.name, 'Your piece has been delivered. Thank you for having us build it.', url));
+    }
+  }
+
+  return {
+    list() {
+      return db.select().from(jobs).orderBy(asc(jobs.position), asc(jobs.createdAt)).all().map(view);
+    },
+    get(id: string) {
+      return view(row(id));
+    },
+    update(actor: User, id: string, input: { stageKey?: StageKey; position?: number; builderId?: string | null; dueDate?: string | null }) {
+      const j = row(id);
+      if (input.builderId) {
+        const b = db.select().from(users).where(eq(users.id, input.builderId)).get();
+        if (!b || b.role === 'client') throw new Invalid('Choose a builder of the shop.', [{ path: 'builderId', message: 'not a member of the shop' }]);
+      }
+      db.transaction((tx) => {
+        tx.update(jobs)
+          .set({
+            ...(input.stageKey ? { stageKey: input.stageKey } : {}),
+            ...(input.position !== undefined ? { position: input.position } : {}),
+            ...(input.builderId !== undefined ? { builderId: input.builderId } : {}),
+            ...(input.dueDate !== undefined ? { dueDate: input.dueDate } : {}),
+            updatedAt: new Date(),
+          })
+          .where(eq(jobs.id, id))
+          .run();
+        if (input.stageKey && input.stageKey !== j.stageKey) onStageChange(tx, j, j.stageKey, input.stageKey, actor);
+      });
+      return view(row(id));
+    },
+    logTime(actor: User, id: string, input: { stageKey: StageKey; hours: number; note: string }) {
+      const j = row(id);
+      db.insert(timeEntries).values({ id: randomUUID(), jobId: j.id, userId: actor.id, stageKey: input.stageKey, hours: input.hours, note: input.note }).run();
+      return view(row(id));
+    },
+  };
+}
+export type JobsService = ReturnType<typeof createJobsService>;
