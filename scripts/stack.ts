@@ -1,6 +1,7 @@
 /**
  * Runs the whole product on this machine: maildev (SMTP :1025, inbox :1080),
- * the API (:3000, which applies the migrations and seeds the demo on start),
+ * the Stripe stand-in (:12111), the API (:3000, which applies the migrations
+ * and seeds the demo on start, its payments through the stand-in),
  * the client portal (:5173) and the shop app (:5174). Prints the URLs and the
  * demo sign-ins once everything answers; Ctrl-C stops everything.
  *
@@ -21,6 +22,8 @@ const env = {
   ...process.env,
   DATABASE_PATH: resolve(data, 'benchwright.db'),
   UPLOADS_DIR: resolve(data, 'uploads'),
+  PDF_DIR: resolve(data, 'estimates'),
+  STRIPE_FAKE_STATE: resolve(data, 'stripe-fake.json'),
   SMTP_URL: process.env.SMTP_URL ?? 'smtp://127.0.0.1:1025',
   FORCE_COLOR: '0',
 };
@@ -82,6 +85,11 @@ process.on('SIGTERM', () => void stop(0));
 
 maildev = new MailDev({ smtp: 1025, web: 1080, ip: '127.0.0.1', webIp: '127.0.0.1', mailDirectory: resolve(data, 'maildev'), silent: true });
 await maildev.start();
+run('stripe', ['--filter', '@benchwright/stripe-fake', 'start'], root);
+await waitFor('http://127.0.0.1:12111/__fake/events', 'the Stripe stand-in').catch(async (err) => {
+  console.error(String(err));
+  await stop(1);
+});
 run('api', ['--filter', '@benchwright/api', 'start'], root);
 run('portal', ['--filter', '@benchwright/customer', 'dev'], root);
 run('shop', ['--filter', '@benchwright/shop', 'dev'], root);
@@ -104,6 +112,7 @@ Benchwright is running (demo data: Fernhill Joinery, invented).
   shop app        http://127.0.0.1:5174
   API             http://127.0.0.1:3000/api  (health: /api/health)
   mail inbox      http://127.0.0.1:1080      (maildev; SMTP on 127.0.0.1:1025)
+  Stripe stand-in http://127.0.0.1:12111     (test cards: 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)
 
 Demo sign-ins, all with the password bench-demo-2026:
   maren@fernhill.example   owner (shop app)

@@ -8,9 +8,9 @@ cd "$(dirname "$0")/.."
 . scripts/lib.sh
 ensure_pnpm || { echo "0 passed, 1 failed"; exit 1; }
 install_packages || { echo "0 passed, 1 failed"; exit 1; }
-if [ ! -x /usr/bin/chromium ]; then
-  echo "installing Debian's chromium"
-  (apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null) || { echo "could not install chromium"; echo "0 passed, 1 failed"; exit 1; }
+if [ ! -x /usr/bin/chromium ] || ! command -v pdftotext >/dev/null; then
+  echo "installing Debian's chromium and poppler-utils (pdftotext, for the PDF tests)"
+  (apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium poppler-utils >/dev/null) || { echo "could not install chromium"; echo "0 passed, 1 failed"; exit 1; }
 fi
 
 status=0

@@ -7,7 +7,7 @@ test("a demo client sees her own request, and no one else's", async ({ page }) =
   await page.goto('/projects');
   const list = page.getByRole('list', { name: 'My projects' });
   await expect(list.getByRole('heading', { name: 'Rolling assembly bench' })).toBeVisible();
-  await expect(list.getByText('Estimate requested')).toBeVisible();
+  await expect(list.getByText('Estimate ready to review')).toBeVisible();
   await expect(list.getByRole('listitem')).toHaveCount(1);
   await expect(page.getByText('Bookcase')).toHaveCount(0);
 });

@@ -27,9 +27,13 @@ test.describe('the owner', () => {
     await builder.close();
   });
 
-  test('sees the requests of every client', async ({ page }) => {
+  test('sees the open requests, and the paid job on the board', async ({ page }) => {
     await page.goto('/requests');
-    for (const name of ['Priya Natarajan', 'Tomasz Wierzbicki', "Alder Cross Makers' Guild"]) await expect(page.getByRole('cell', { name })).toBeVisible();
+    for (const name of ['Priya Natarajan', "Alder Cross Makers' Guild"]) await expect(page.getByRole('cell', { name })).toBeVisible();
+    await expect(page.getByRole('cell', { name: 'estimate sent' })).toBeVisible();
+    await page.goto('/board');
+    await expect(page.getByRole('cell', { name: 'Tomasz Wierzbicki' })).toBeVisible();
+    await expect(page.getByRole('cell', { name: 'in production' })).toBeVisible();
   });
 });
 

@@ -2,6 +2,7 @@ import { pino } from 'pino';
 import { createApp } from './app';
 import { applyMigrations, openDb } from './db/client';
 import { seedDemo, seedShop } from './db/seed';
+import { seedDemoFlow } from './db/seed-flow';
 import { loadEnv } from './env';
 import { createMailWorker } from './lib/mailer';
 
@@ -19,6 +20,13 @@ async function boot() {
   if (env.SEED_DEMO) await seedDemo(db);
   else seedShop(db);
   worker.start();
+  if (env.SEED_DEMO) {
+    try {
+      await seedDemoFlow(db, app.services, log);
+    } catch (err) {
+      log.warn({ err: String(err) }, 'demo estimates and payments not seeded (is the Stripe stand-in running on STRIPE_API_BASE?)');
+    }
+  }
   ready = true;
   log.info('migrations and seed done; ready');
 }

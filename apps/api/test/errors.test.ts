@@ -21,6 +21,20 @@ const ROUTES: [string, string][] = [
   ['get', '/api/projects/nope'],
   ['post', '/api/projects'],
   ['get', '/api/health'],
+  ['post', '/api/projects/nope/estimates'],
+  ['post', '/api/projects/nope/balance-checkout'],
+  ['get', '/api/estimates/nope'],
+  ['patch', '/api/estimates/nope'],
+  ['post', '/api/estimates/nope/send'],
+  ['get', '/api/estimates/nope/pdf'],
+  ['post', '/api/estimates/nope/accept'],
+  ['post', '/api/estimates/nope/deposit-checkout'],
+  ['get', '/api/payments'],
+  ['post', '/api/payments/nope/refund'],
+  ['post', '/api/webhooks/stripe'],
+  ['get', '/api/jobs'],
+  ['patch', '/api/jobs/nope'],
+  ['post', '/api/jobs/nope/time'],
 ];
 const CODES = ['invalid_input', 'unauthenticated', 'forbidden', 'not_found', 'conflict', 'payload_too_large', 'unsupported_media_type', 'rate_limited'];
 
@@ -52,7 +66,7 @@ describe('bad input on every route', () => {
   it('answers random JSON on every POST route without a 500 (fast-check)', async () => {
     const t = await testApp();
     const a = await t.signIn('maren@fernhill.example');
-    const posts = ROUTES.filter(([m]) => m === 'post').map(([, p]) => p);
+    const posts = ROUTES.filter(([m]) => m === 'post' || m === 'patch').map(([, p]) => p);
     await fc.assert(
       fc.asyncProperty(fc.constantFrom(...posts), fc.jsonValue(), async (path, body) => {
         const r = await a.post(path).set('Content-Type', 'application/json').send(JSON.stringify(body));
@@ -82,5 +96,25 @@ describe('GET /api/health', () => {
     expect(r.status).toBe(200);
     expect(r.body.health).toMatchObject({ status: 'ok', database: 'ok', version: '0.1.0' });
     expect(r.body.health.migrations).toBeGreaterThanOrEqual(1);
+  });
+});
+
+describe('bad input on the money routes, with real ids', () => {
+  it('answers 400 with issues, never a 500, for malformed edits, acceptances and hour logs', async () => {
+    const t = await testApp();
+    const owner = await t.signIn('maren@fernhill.example');
+    const priya = await t.signIn('priya@example.com');
+    const projectId = (await priya.get('/api/projects')).body.projects[0].id;
+    const est = (await owner.post(`/api/projects/${projectId}/estimates`).send({ source: 'nonsense' }));
+    expect(est.status).toBe(400);
+    const draft = (await owner.post(`/api/projects/${projectId}/estimates`).send({})).body.estimate;
+    for (const body of [{}, { version: 'one' }, { version: 1, lines: [{ group: 'gold' }] }, { version: 1, lines: [{ group: 'other', description: '', quantity: -1, unit: '', unitPriceCents: 1.5 }] }, { version: 1, discountCents: -5 }]) {
+      const r = await owner.patch(`/api/estimates/${draft.id}`).send(body);
+      expect(r.status).toBe(400);
+      expect(r.body.error.issues.length).toBeGreaterThan(0);
+    }
+    expect((await owner.patch(`/api/estimates/${draft.id}`).send({ version: 99 })).status).toBe(409);
+    expect((await priya.post(`/api/estimates/${draft.id}/accept`).send({ acceptedName: 'Priya Natarajan' })).status).toBe(404);
+    expect((await owner.post(`/api/projects/${projectId}/estimates`).send({})).status).toBe(409);
   });
 });

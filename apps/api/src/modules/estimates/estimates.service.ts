@@ -208,7 +208,9 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         validUntil,
         items: items.map((it, i) => {
           const spec = it.spec as BuildSpec;
-          const mats = [...new Set([spec.carcassMaterialId, spec.frontMaterialId, spec.backMaterialId, ...(spec.trim ? [spec.trim.lumberId] : [])])].map(nameOf);
+          const hasDrawers = spec.bays.some((b) => b.compartments.some((c) => c.kind === 'drawer'));
+          const top = spec.design === 'assembly-bench' ? (spec.top.kind === 'torsion-box' ? [spec.top.skinMaterialId, spec.top.coreMaterialId] : []) : [];
+          const mats = [...new Set([spec.carcassMaterialId, spec.frontMaterialId, spec.backMaterialId, ...(hasDrawers ? [spec.drawerMaterialId] : []), ...top, ...(spec.trim ? [spec.trim.lumberId] : [])])].map(nameOf);
           return { spec, quantity: it.quantity, materials: mats, finish: spec.finishId ? (book.finishes.find((f) => f.id === spec.finishId)?.name ?? spec.finishId) : null, drawing: engine?.drawings[i] ?? { title: designs[spec.design].name, viewBox: { x: 0, y: 0, width: 1, height: 1 }, shapes: [] } };
         }),
         lines,
