@@ -476,7 +476,7 @@ function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: n
           budget.n--;
           const cur = replaced.get(o.i) ?? o.b;
           if (cur.used + it.area > ctx.L * ctx.W + EPS) continue;
-          const packed = packAllInOne([...cur.placed.map((p) => p.item), it], ctx, configs, rand, rand && bins.length === lowerBound + 1 ? 40 : 0);
+          const packed = packAllInOne([...cur.placed.map((p) => p.item), it], ctx, configs, rand, rand && bins.length === lowerBound + 1 ? 10 : 0);
           if (packed) {
             replaced.set(o.i, packed);
             moved = true;
@@ -692,7 +692,7 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
   if (items.length) {
     const thorough = options.effort === 'thorough';
     // part visits allowed (deterministic, unlike a clock): bounds the hardest instances to about a second and a half
-    ctx.limit = thorough ? 4_000_000 : 30_000;
+    ctx.limit = thorough ? 3_000_000 : 30_000;
     const keys: SortKey[] = thorough ? ['area', 'long', 'width', 'length', 'perimeter', 'short'] : ['area', 'long', 'width'];
     for (const key of keys) {
       const order = sortItems(items, key);

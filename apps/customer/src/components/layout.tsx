@@ -1,8 +1,8 @@
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { Button } from '@benchwright/ui';
 import { paths } from '../config/paths';
-import { useMe } from '../features/auth/api/get-me';
-import { useSignOut } from '../features/auth/api/sign-out';
+import { useMe } from '@benchwright/ui/auth';
+import { useSignOut } from '@benchwright/ui/auth';
 
 export function Layout() {
   const me = useMe();

@@ -2,8 +2,8 @@ import type { ReactNode } from 'react';
 import { NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import { Button, Notice, Panel } from '@benchwright/ui';
 import { paths, PORTAL_URL } from '../config/paths';
-import { useMe } from '../features/auth/api/get-me';
-import { useSignOut } from '../features/auth/api/sign-out';
+import { useMe } from '@benchwright/ui/auth';
+import { useSignOut } from '@benchwright/ui/auth';
 import { canInviteBuilders, canSeeBoard, canSeeRequests, isStaff } from '../lib/policies';
 
 function Frame({ nav, children }: { nav?: ReactNode; children: ReactNode }) {

@@ -1,5 +1,5 @@
 import { Panel } from '@benchwright/ui';
-import { ForgotPasswordForm } from '../../features/auth/components/password-forms';
+import { ForgotPasswordForm } from '@benchwright/ui/auth';
 
 export function ForgotPasswordRoute() {
   return (

@@ -1,7 +1,7 @@
 import { Navigate, useSearchParams } from 'react-router-dom';
 import { Notice, Panel } from '@benchwright/ui';
 import { paths } from '../../config/paths';
-import { useMe } from '../../features/auth/api/get-me';
+import { useMe } from '@benchwright/ui/auth';
 import { ProjectList } from '../../features/projects/components/project-list';
 
 export function ProjectsRoute() {

@@ -1,7 +1,7 @@
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Panel } from '@benchwright/ui';
 import { paths } from '../../config/paths';
-import { SignInForm } from '../../features/auth/components/sign-in-form';
+import { SignInForm } from '@benchwright/ui/auth';
 
 export function SignInRoute() {
   const navigate = useNavigate();

@@ -1,7 +1,7 @@
 import { useNavigate, useSearchParams } from 'react-router-dom';
 import { Notice, Panel } from '@benchwright/ui';
 import { paths } from '../../config/paths';
-import { ForgotPasswordForm, ResetPasswordForm } from '../../features/auth/components/password-forms';
+import { ForgotPasswordForm, ResetPasswordForm } from '@benchwright/ui/auth';
 
 export function ForgotPasswordRoute() {
   return (

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SignUpBody, User } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
-import { meQueryOptions } from './get-me';
+import { meQueryOptions } from '@benchwright/ui/auth';
 
 export const signUp = (body: SignUpBody) => api<{ user: User }>('/auth/sign-up', { body });
 export function useSignUp() {

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { User } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
-import { meQueryOptions } from './get-me';
+import { meQueryOptions } from '@benchwright/ui/auth';
 
 export const verifyEmail = (token: string) => api<{ user: User }>('/auth/verify-email', { body: { token } });
 export function useVerifyEmail() {

@@ -3,8 +3,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import * as z from 'zod';
 import { ForgotPasswordBody, PASSWORD_MIN } from '@benchwright/contracts';
-import { applyServerIssues, Button, Field, Notice } from '@benchwright/ui';
-import { useForgotPassword, useResetPassword } from '../api/password-reset';
+import { applyServerIssues, Button, Field, Notice } from '../index';
+import { useForgotPassword, useResetPassword } from './password-reset';
 
 export function ForgotPasswordForm() {
   const form = useForm({ resolver: zodResolver(ForgotPasswordBody), defaultValues: { email: '' } });

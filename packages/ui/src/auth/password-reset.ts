@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ForgotPasswordBody, ResetPasswordBody, User } from '@benchwright/contracts';
-import { api } from '@benchwright/ui';
+import { api } from '../index';
 import { meQueryOptions } from './get-me';
 
 export const forgotPassword = (body: ForgotPasswordBody) => api<{ sent: boolean }>('/auth/forgot-password', { body });

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '@benchwright/ui';
+import { api } from '../index';
 
 export const signOut = () => api<void>('/auth/sign-out', { method: 'POST' });
 export function useSignOut() {

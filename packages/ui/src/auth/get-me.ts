@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { User } from '@benchwright/contracts';
-import { api, ApiRequestError } from '@benchwright/ui';
+import { api, ApiRequestError } from '../index';
 
 /** The signed-in user, or null. */
 export async function getMe(): Promise<User | null> {

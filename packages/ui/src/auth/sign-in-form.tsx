@@ -2,8 +2,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { SignInBody } from '@benchwright/contracts';
-import { applyServerIssues, Button, Field, Notice } from '@benchwright/ui';
-import { useSignIn } from '../api/sign-in';
+import { applyServerIssues, Button, Field, Notice } from '../index';
+import { useSignIn } from './sign-in';
 
 export function SignInForm({ onDone }: { onDone: () => void }) {
   const form = useForm({ resolver: zodResolver(SignInBody), defaultValues: { email: '', password: '' } });

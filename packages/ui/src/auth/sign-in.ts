@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SignInBody, User } from '@benchwright/contracts';
-import { api } from '@benchwright/ui';
+import { api } from '../index';
 import { meQueryOptions } from './get-me';
 
 export const signIn = (body: SignInBody) => api<{ user: User }>('/auth/sign-in', { body });
