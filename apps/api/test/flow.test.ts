@@ -184,7 +184,13 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     const b = await priya.post(`/api/estimates/${estimateId}/deposit-checkout`);
     expect(a.status).toBe(200);
     expect(b.body.url).toBe(a.body.url);
-    const declined = await pay(a.body.url, '4000 0000 0000 0002');
+    // once the session expires, asking again gives a new one
+    const sdk = new Stripe('sk_test_flow', { host: '127.0.0.1', port: Number(new URL(stripeBase).port), protocol: 'http' });
+    await sdk.checkout.sessions.expire(a.body.url.split('/pay/')[1]);
+    const c = await priya.post(`/api/estimates/${estimateId}/deposit-checkout`);
+    expect(c.status).toBe(200);
+    expect(c.body.url).not.toBe(a.body.url);
+    const declined = await pay(c.body.url, '4000 0000 0000 0002');
     expect(declined.status).toBe(402);
     await new Promise((r) => setTimeout(r, 200));
     expect((await priya.get(`/api/projects/${projectId}`)).body.project.status).toBe('accepted');
