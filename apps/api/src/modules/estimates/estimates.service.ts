@@ -170,7 +170,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         const source = was && !changed ? was.source : 'manual';
         const reason = edit.overrideReason?.trim() || (was && !changed ? was.overrideReason : null);
         if (source === 'manual' && !reason) issues.push({ path: `lines[${i}].overrideReason`, message: was ? 'say why this computed line changed' : 'say why this line is added' });
-        const amountCents = Math.round(edit.quantity * edit.unitPriceCents);
+        // an unchanged line keeps the engine's amount (rounded half to even through dinero.js), so totals never drift by a cent
+        const amountCents = was && !changed ? was.amountCents : Math.round(edit.quantity * edit.unitPriceCents);
         const costCents = edit.costCents ?? (was ? Math.round((was.costCents * edit.quantity) / (was.quantity || 1)) : 0);
         return { group: edit.group, description: edit.description, quantity: edit.quantity, unit: edit.unit, unitPriceCents: edit.unitPriceCents, amountCents, costCents, source, overrideReason: reason ?? null };
       });
