@@ -71,6 +71,8 @@ export function Length({ mm, unit }: { mm: number; unit: LengthUnit }) {
 }
 
 /** A drawing from the engine, rendered as SVG (the same data the PDF uses). */
-export function Drawing({ drawing, label }: { drawing: DrawingData; label?: string }) {
-  return <figure aria-label={label ?? drawing.title} className="w-full" dangerouslySetInnerHTML={{ __html: toSvg(drawing).replace(/ width="\d+" height="\d+"/, ' width="100%"') }} />;
+export function Drawing({ drawing, label, maxHeight = '22rem' }: { drawing: DrawingData; label?: string; maxHeight?: string }) {
+  // scale to the column's width, but never taller than maxHeight (a tall bookcase stays on screen)
+  const svg = toSvg(drawing).replace(/ width="\d+" height="\d+"/, ` style="display:block;width:100%;height:auto;max-height:${maxHeight}"`);
+  return <figure aria-label={label ?? drawing.title} className="w-full" dangerouslySetInnerHTML={{ __html: svg }} />;
 }

@@ -3,6 +3,7 @@ import { Layout } from '../components/layout';
 import { paths } from '../config/paths';
 import { ForgotPasswordRoute } from './routes/forgot-password';
 import { HomeRoute } from './routes/home';
+import { ProjectRoute } from './routes/project';
 import { ProjectsRoute } from './routes/projects';
 import { ResetPasswordRoute } from './routes/reset-password';
 import { SignInRoute } from './routes/sign-in';
@@ -20,6 +21,7 @@ export const routes: RouteObject[] = [
       { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
       { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
       { path: paths.projects.path, element: <ProjectsRoute /> },
+      { path: paths.project.path, element: <ProjectRoute /> },
     ],
   },
 ];

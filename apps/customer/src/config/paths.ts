@@ -7,4 +7,7 @@ export const paths = {
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
   projects: { path: '/projects', getHref: () => '/projects' },
+  project: { path: '/projects/:id', getHref: (id: string) => `/projects/${encodeURIComponent(id)}` },
+  /** served by the API through the dev proxy; a plain link so the browser downloads it */
+  estimatePdf: { getHref: (id: string) => `/api/estimates/${encodeURIComponent(id)}/pdf` },
 } as const;

@@ -1,9 +1,11 @@
 import type { Project, ProjectStatus } from '@benchwright/contracts';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
+import { Link } from 'react-router-dom';
 import { Money, Notice } from '@benchwright/ui';
+import { paths } from '../../../config/paths';
 import { useProjects } from '../api/get-projects';
 
-const STATUS_WORDS: Record<ProjectStatus, string> = {
+export const STATUS_WORDS: Record<ProjectStatus, string> = {
   requested: 'Estimate requested',
   estimating: 'Being estimated',
   estimate_sent: 'Estimate ready to review',
@@ -18,7 +20,7 @@ const STATUS_WORDS: Record<ProjectStatus, string> = {
   cancelled: 'Cancelled',
 };
 
-function itemName(spec: unknown): string {
+export function itemName(spec: unknown): string {
   const slug = (spec as { design?: string }).design;
   return slug && slug in designs ? designs[slug as DesignSlug].name : 'Custom piece';
 }
@@ -28,7 +30,11 @@ function ProjectRow({ p }: { p: Project }) {
   return (
     <li className="border-b border-rule py-4 last:border-0">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h3 className="text-lg font-semibold">{p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${itemName(i.spec)}`).join(', ')}</h3>
+        <h3 className="text-lg font-semibold">
+          <Link to={paths.project.getHref(p.id)} className="text-ink underline-offset-4 hover:underline">
+            {p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${itemName(i.spec)}`).join(', ')}
+          </Link>
+        </h3>
         <span className="rounded bg-sage-light px-2 py-0.5 text-sm">{STATUS_WORDS[p.status]}</span>
       </div>
       {p.notes ? <p className="text-ink-soft">{p.notes}</p> : null}

@@ -1,0 +1,64 @@
+import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Button, Money, Notice, Panel } from '@benchwright/ui';
+import { useMe } from '@benchwright/ui/auth';
+import { paths } from '../../config/paths';
+import { useBalanceCheckout } from '../../features/estimates/api/checkout';
+import { EstimateView } from '../../features/estimates/components/estimate-view';
+import { useProject } from '../../features/projects/api/get-project';
+import { STATUS_WORDS, itemName } from '../../features/projects/components/project-list';
+
+export function ProjectRoute() {
+  const { id = '' } = useParams();
+  const [params] = useSearchParams();
+  const returning = params.has('session_id');
+  const me = useMe();
+  const q = useProject(id, { waitingForPayment: returning });
+  const balance = useBalanceCheckout();
+  if (me.isPending) return <p>Loading…</p>;
+  if (!me.data) return <Navigate to={paths.signIn.getHref(paths.project.getHref(id))} replace />;
+  if (q.isPending) return <p>Loading the project…</p>;
+  if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
+  const p = q.data;
+  const latest = p.estimates.at(-1);
+  const accepted = p.estimates.find((e) => e.status === 'accepted');
+  return (
+    <>
+      <p className="mb-2">
+        <Link to={paths.projects.getHref()} className="text-wood underline">
+          ← My projects
+        </Link>
+      </p>
+      <h1 className="mb-1 text-2xl font-bold">{p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${itemName(i.spec)}`).join(', ')}</h1>
+      <p className="mb-4">
+        <span className="rounded bg-sage-light px-2 py-0.5" aria-label="Status">
+          {STATUS_WORDS[p.status]}
+        </span>
+      </p>
+      {returning && (p.status === 'accepted' || p.status === 'ready') ? <Notice>Thank you: your payment is being recorded. This page updates by itself.</Notice> : null}
+      {returning && p.status === 'deposit_paid' ? <Notice tone="ok">Thank you: your deposit is paid and your piece is on our production board.</Notice> : null}
+      {p.status === 'ready' && accepted ? (
+        <Panel title="Your piece is ready">
+          <p className="mb-3">
+            The balance of <Money cents={accepted.totals.balanceCents} /> is due before delivery.
+          </p>
+          {balance.isError ? <Notice tone="error">{balance.error.message}</Notice> : null}
+          <Button onClick={() => balance.mutate(p.id)} disabled={balance.isPending}>
+            Pay the balance
+          </Button>
+        </Panel>
+      ) : null}
+      {latest ? <EstimateView estimateId={(accepted ?? latest).id} canAct={me.data.role === 'client'} depositDue={p.status === 'accepted'} /> : <Panel title="Estimate">We are working out your estimate; you will get an e-mail when it is ready.</Panel>}
+      <Panel title="Timeline">
+        <ol className="border-l-2 border-wood pl-4" aria-label="Timeline">
+          {p.timeline.map((t) => (
+            <li key={t.id} className="mb-2">
+              <span className="text-sm text-ink-soft">{new Date(t.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}</span>
+              <br />
+              {t.message}
+            </li>
+          ))}
+        </ol>
+      </Panel>
+    </>
+  );
+}
