@@ -4,6 +4,7 @@ import { paths } from '../config/paths';
 import { AcceptInvitationRoute } from './routes/accept-invitation';
 import { BoardRoute } from './routes/board';
 import { ForgotPasswordRoute, ResetPasswordRoute } from './routes/password';
+import { RequestRoute } from './routes/request';
 import { RequestsRoute } from './routes/requests';
 import { SignInRoute } from './routes/sign-in';
 import { TeamRoute } from './routes/team';
@@ -24,6 +25,7 @@ export const routes: RouteObject[] = [
     children: [
       { path: paths.board.path, element: <BoardRoute /> },
       { path: paths.requests.path, element: <RequestsRoute /> },
+      { path: paths.request.path, element: <RequestRoute /> },
       { path: paths.team.path, element: <TeamRoute /> },
     ],
   },

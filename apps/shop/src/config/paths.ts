@@ -7,6 +7,7 @@ export const paths = {
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
   board: { path: '/board', getHref: () => '/board' },
   requests: { path: '/requests', getHref: () => '/requests' },
+  request: { path: '/requests/:id', getHref: (id: string) => `/requests/${encodeURIComponent(id)}` },
   team: { path: '/team', getHref: () => '/team' },
 } as const;
 

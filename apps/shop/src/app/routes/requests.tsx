@@ -2,12 +2,13 @@ import { Panel } from '@benchwright/ui';
 import { ProjectTable } from '../../features/projects/components/project-table';
 import { RoleGate } from '../../components/layout';
 import { canSeeRequests } from '../../lib/policies';
+import { paths } from '../../config/paths';
 
 export function RequestsRoute() {
   return (
     <RoleGate allow={canSeeRequests}>
       <Panel title="Requests and estimates">
-        <ProjectTable inShop={false} empty="No requests yet." />
+        <ProjectTable inShop={false} empty="No requests yet." linkTo={paths.request.getHref} />
       </Panel>
     </RoleGate>
   );

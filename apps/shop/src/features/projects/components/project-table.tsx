@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import type { Project, ProjectStatus } from '@benchwright/contracts';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Money, Notice } from '@benchwright/ui';
@@ -16,7 +17,7 @@ function what(p: Project): string {
 }
 
 /** Projects as a table: requests for the owner, jobs in the shop for the board. */
-export function ProjectTable({ inShop, empty }: { inShop: boolean; empty: string }) {
+export function ProjectTable({ inShop, empty, linkTo }: { inShop: boolean; empty: string; linkTo?: (projectId: string) => string }) {
   const q = useProjects();
   if (q.isPending) return <p>Loading…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
@@ -37,7 +38,15 @@ export function ProjectTable({ inShop, empty }: { inShop: boolean; empty: string
           const e = p.estimates.at(-1);
           return (
             <tr key={p.id} className="border-b border-rule">
-              <td className="py-2">{p.client.name}</td>
+              <td className="py-2">
+                {linkTo ? (
+                  <Link to={linkTo(p.id)} className="text-wood underline">
+                    {p.client.name}
+                  </Link>
+                ) : (
+                  p.client.name
+                )}
+              </td>
               <td className="py-2">{what(p)}</td>
               <td className="py-2">{p.status.replace(/_/g, ' ')}</td>
               <td className="py-2 text-right">{e ? <Money cents={e.totals.totalCents} /> : '—'}</td>

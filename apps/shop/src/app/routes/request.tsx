@@ -1,0 +1,62 @@
+import { Link, useParams } from 'react-router-dom';
+import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
+import { Button, Notice, Panel } from '@benchwright/ui';
+import { RoleGate } from '../../components/layout';
+import { paths } from '../../config/paths';
+import { useCreateEstimate, useEstimate } from '../../features/estimates/api/estimates';
+import { EstimateEditor } from '../../features/estimates/components/estimate-editor';
+import { useProject } from '../../features/projects/api/get-project';
+import { canSeeRequests } from '../../lib/policies';
+
+function RequestPage({ id }: { id: string }) {
+  const q = useProject(id);
+  const latestId = q.data?.estimates.at(-1)?.id;
+  const estimate = useEstimate(latestId);
+  const create = useCreateEstimate();
+  if (q.isPending) return <p>Loading…</p>;
+  if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
+  const p = q.data;
+  const latest = p.estimates.at(-1);
+  const canStart = ['requested', 'estimating', 'estimate_sent', 'expired'].includes(p.status) && latest?.status !== 'draft';
+  return (
+    <>
+      <p className="mb-2">
+        <Link to={paths.requests.getHref()} className="text-wood underline">
+          ← Requests
+        </Link>
+      </p>
+      <Panel title={`${p.client.name}: ${p.status.replace(/_/g, ' ')}`}>
+        {p.notes ? <p className="mb-2">“{p.notes}”</p> : null}
+        <ul className="list-disc pl-6">
+          {p.items.map((i) => {
+            const s = i.spec as { design: DesignSlug };
+            return <li key={i.id}>{`${i.quantity} x ${designs[s.design]?.name ?? s.design}`}</li>;
+          })}
+        </ul>
+        {canStart ? (
+          <div className="mt-4 flex gap-3">
+            {create.isError ? <Notice tone="error">{create.error.message}</Notice> : null}
+            <Button onClick={() => create.mutate({ projectId: p.id, source: 'engine' })} disabled={create.isPending}>
+              {create.isPending ? 'Pricing the cut list and sheet layouts…' : latest ? 'Price a new revision' : 'Price an estimate'}
+            </Button>
+            {latest ? (
+              <Button variant="quiet" onClick={() => create.mutate({ projectId: p.id, source: 'copy' })}>
+                Start a revision from revision {latest.revision}
+              </Button>
+            ) : null}
+          </div>
+        ) : null}
+      </Panel>
+      {estimate.data ? <EstimateEditor key={estimate.data.id} estimate={estimate.data} /> : null}
+    </>
+  );
+}
+
+export function RequestRoute() {
+  const { id = '' } = useParams();
+  return (
+    <RoleGate allow={canSeeRequests}>
+      <RequestPage id={id} />
+    </RoleGate>
+  );
+}

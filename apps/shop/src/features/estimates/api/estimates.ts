@@ -1,0 +1,41 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { EstimateStatus, LINE_GROUPS, UpdateEstimateBody } from '@benchwright/contracts';
+import { api } from '@benchwright/ui';
+
+export type LineGroup = (typeof LINE_GROUPS)[number];
+export interface OwnerEstimate {
+  id: string;
+  projectId: string;
+  number: string;
+  revision: number;
+  status: EstimateStatus;
+  version: number;
+  validUntil: string | null;
+  lines: { id: string; group: LineGroup; description: string; quantity: number; unit: string; unitPriceCents: number; amountCents: number; costCents: number; source: 'computed' | 'manual'; overrideReason: string | null }[];
+  totals: { subtotalCents: number; discountCents: number; taxCents: number; totalCents: number; depositCents: number; balanceCents: number };
+  hoursByStage: Record<string, number>;
+  layouts: { materialId: string; materialName: string; sheetCount: number; lowerBound: number; yieldRatio: number }[];
+  checks: { code: string; level: string; message: string }[];
+  costCents: number;
+}
+
+const path = (id: string) => `/estimates/${encodeURIComponent(id)}`;
+export const getEstimate = async (id: string) => (await api<{ estimate: OwnerEstimate }>(path(id))).estimate;
+export const estimateQueryOptions = (id: string) => queryOptions({ queryKey: ['estimates', id], queryFn: () => getEstimate(id) });
+export const useEstimate = (id: string | undefined) => useQuery({ ...estimateQueryOptions(id ?? ''), enabled: Boolean(id) });
+
+function useEstimateMutation<A>(fn: (a: A) => Promise<{ estimate: OwnerEstimate }>) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: fn,
+    onSuccess: ({ estimate }) => {
+      qc.setQueryData(estimateQueryOptions(estimate.id).queryKey, estimate);
+      return qc.invalidateQueries({ queryKey: ['projects'] });
+    },
+  });
+}
+
+/** The next revision: priced by the engine, or a copy of the latest to edit. */
+export const useCreateEstimate = () => useEstimateMutation(({ projectId, source }: { projectId: string; source: 'engine' | 'copy' }) => api<{ estimate: OwnerEstimate }>(`/projects/${encodeURIComponent(projectId)}/estimates`, { body: { source } }));
+export const useUpdateEstimate = () => useEstimateMutation(({ id, body }: { id: string; body: UpdateEstimateBody }) => api<{ estimate: OwnerEstimate }>(path(id), { method: 'PATCH', body }));
+export const useSendEstimate = () => useEstimateMutation((id: string) => api<{ estimate: OwnerEstimate }>(`${path(id)}/send`, { method: 'POST' }));

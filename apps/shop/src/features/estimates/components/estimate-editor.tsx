@@ -1,0 +1,158 @@
+import { useEffect, useState } from 'react';
+import { useFieldArray, useForm } from 'react-hook-form';
+import { LINE_GROUPS } from '@benchwright/contracts';
+import { ApiRequestError, Button, Money, Notice, Panel } from '@benchwright/ui';
+import { useSendEstimate, useUpdateEstimate, type LineGroup, type OwnerEstimate } from '../api/estimates';
+
+const GROUP_NAMES: Record<LineGroup, string> = { sheet_goods: 'Sheet goods', solid_wood: 'Solid wood', edge_banding: 'Edge banding', hardware: 'Hardware', finish: 'Finish', consumables: 'Shop supplies', labour: 'Shop time', delivery: 'Delivery', other: 'Other' };
+
+interface LineForm {
+  id?: string;
+  group: LineGroup;
+  description: string;
+  quantity: string;
+  unit: string;
+  unitPrice: string;
+  costCents?: number;
+  overrideReason: string;
+}
+interface EditorForm {
+  lines: LineForm[];
+  discount: string;
+}
+
+const toDollars = (c: number) => (c / 100).toFixed(2);
+const toCents = (s: string) => Math.round(Number(s.replace(/[$,\s]/g, '')) * 100);
+
+function formOf(e: OwnerEstimate): EditorForm {
+  return {
+    lines: e.lines.map((l) => ({ id: l.id, group: l.group, description: l.description, quantity: String(l.quantity), unit: l.unit, unitPrice: toDollars(l.unitPriceCents), costCents: l.costCents, overrideReason: l.overrideReason ?? '' })),
+    discount: toDollars(e.totals.discountCents),
+  };
+}
+
+/** The owner's draft: quantities and prices editable, a reason for every change, manual lines, the discount, then send. */
+export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
+  const draft = estimate.status === 'draft';
+  const form = useForm<EditorForm>({ defaultValues: formOf(estimate) });
+  // every saved version becomes the form's new starting point (the page keeps the editor mounted, so its notices stay)
+  useEffect(() => {
+    form.reset(formOf(estimate));
+  }, [estimate.version]); // eslint-disable-line react-hooks/exhaustive-deps
+  const lines = useFieldArray({ control: form.control, name: 'lines' });
+  const update = useUpdateEstimate();
+  const send = useSendEstimate();
+  const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
+
+  const onSave = form.handleSubmit(async (v) => {
+    setMessage(null);
+    try {
+      await update.mutateAsync({
+        id: estimate.id,
+        body: {
+          version: estimate.version,
+          discountCents: toCents(v.discount || '0'),
+          lines: v.lines.map((l) => ({ id: l.id, group: l.group, description: l.description, quantity: Number(l.quantity), unit: l.unit, unitPriceCents: toCents(l.unitPrice), costCents: l.costCents, overrideReason: l.overrideReason.trim() || null })),
+        },
+      });
+      setMessage({ tone: 'ok', text: 'Saved.' });
+    } catch (err) {
+      if (err instanceof ApiRequestError) {
+        // the server names fields as lines[3].overrideReason; the form as lines.3.overrideReason
+        for (const i of err.issues) form.setError(i.path.replace(/\[(\d+)\]/g, '.$1') as never, { type: 'server', message: i.message });
+        setMessage({ tone: 'error', text: err.message });
+      } else setMessage({ tone: 'error', text: 'The server could not be reached.' });
+    }
+  });
+
+  const margin = estimate.totals.subtotalCents - estimate.totals.discountCents - estimate.costCents;
+  const input = 'w-full rounded border border-rule bg-white px-2 py-1 text-right';
+  return (
+    <Panel title={`Estimate ${estimate.number}, revision ${estimate.revision} (${estimate.status})`}>
+      {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
+      <p className="mb-3 text-ink-soft">
+        Sheets:{' '}
+        {estimate.layouts.map((l) => `${l.materialName} ${l.sheetCount} (least possible ${l.lowerBound}, yield ${Math.round(l.yieldRatio * 100)} %)`).join('; ')}
+      </p>
+      <form onSubmit={onSave} noValidate aria-label="Edit the estimate">
+        <table className="w-full border-collapse text-left" aria-label="Line items">
+          <thead>
+            <tr className="border-b-2 border-rule">
+              <th className="py-1">Item</th>
+              <th className="w-24 py-1 text-right">Quantity</th>
+              <th className="w-28 py-1 text-right">Unit price ($)</th>
+              <th className="w-28 py-1 text-right">Amount</th>
+              <th className="w-64 py-1 pl-4">Reason for a change</th>
+            </tr>
+          </thead>
+          <tbody>
+            {lines.fields.map((f, i) => {
+              const err = form.formState.errors.lines?.[i];
+              return (
+                <tr key={f.id} className="border-b border-rule align-top">
+                  <td className="py-1">
+                    <span className="mr-2 text-xs uppercase text-ink-soft">{GROUP_NAMES[f.group]}</span>
+                    {f.id ? f.description : <input aria-label={`Line ${i + 1} description`} className="w-full rounded border border-rule bg-white px-2 py-1" {...form.register(`lines.${i}.description`)} />}
+                  </td>
+                  <td className="py-1">
+                    <input aria-label={`Line ${i + 1} quantity`} className={input} disabled={!draft} {...form.register(`lines.${i}.quantity`)} />
+                  </td>
+                  <td className="py-1">
+                    <input aria-label={`Line ${i + 1} unit price`} className={input} disabled={!draft} {...form.register(`lines.${i}.unitPrice`)} />
+                  </td>
+                  <td className="py-1 text-right">{estimate.lines[i] ? <Money cents={estimate.lines[i].amountCents} /> : '—'}</td>
+                  <td className="py-1 pl-4">
+                    <input aria-label={`Line ${i + 1} reason`} aria-invalid={err?.overrideReason ? true : undefined} className="w-full rounded border border-rule bg-white px-2 py-1" disabled={!draft} {...form.register(`lines.${i}.overrideReason`)} />
+                    {err?.overrideReason ? (
+                      <p role="alert" className="text-sm text-alert">
+                        {err.overrideReason.message}
+                      </p>
+                    ) : null}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+        {draft ? (
+          <div className="mt-3 flex flex-wrap items-end gap-4">
+            <Button type="button" variant="quiet" onClick={() => lines.append({ group: 'other', description: '', quantity: '1', unit: 'each', unitPrice: '0.00', overrideReason: '' })}>
+              Add a line
+            </Button>
+            <label className="font-semibold">
+              Discount ($){' '}
+              <input aria-label="Discount" className="ml-2 w-28 rounded border border-rule bg-white px-2 py-1 text-right" {...form.register('discount')} />
+            </label>
+            <Button type="submit" disabled={update.isPending}>
+              Save changes
+            </Button>
+          </div>
+        ) : null}
+      </form>
+      <dl className="mt-4 grid max-w-md grid-cols-2 gap-y-1">
+        <dt>Subtotal</dt>
+        <dd className="text-right"><Money cents={estimate.totals.subtotalCents} /></dd>
+        <dt>Discount</dt>
+        <dd className="text-right">{estimate.totals.discountCents ? <Money cents={-estimate.totals.discountCents} /> : '—'}</dd>
+        <dt>Tax</dt>
+        <dd className="text-right"><Money cents={estimate.totals.taxCents} /></dd>
+        <dt className="font-bold">Total</dt>
+        <dd className="text-right font-bold" aria-label="Total"><Money cents={estimate.totals.totalCents} /></dd>
+        <dt>Deposit</dt>
+        <dd className="text-right"><Money cents={estimate.totals.depositCents} /></dd>
+        <dt>Our cost</dt>
+        <dd className="text-right"><Money cents={estimate.costCents} /></dd>
+        <dt>Margin</dt>
+        <dd className="text-right"><Money cents={margin} /></dd>
+      </dl>
+      {draft ? (
+        <div className="mt-4">
+          {send.isError ? <Notice tone="error">{send.error.message}</Notice> : null}
+          <Button onClick={() => send.mutate(estimate.id, { onSuccess: () => setMessage({ tone: 'ok', text: 'Sent to the client with the PDF attached.' }) })} disabled={send.isPending || form.formState.isDirty}>
+            {form.formState.isDirty ? 'Save before sending' : 'Send to the client'}
+          </Button>
+        </div>
+      ) : null}
+    </Panel>
+  );
+}
