@@ -273,6 +273,9 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     await until(() => db.select().from(payments).all().find((p) => p.id === deposit.id)!.status, (s) => s === 'partially_refunded', 'the refund');
     const mails = await until(inbox, (m) => m.some((x) => /Refund of \$25\.00/.test(x.subject)), 'the refund notice');
     expect(mails.filter((x) => /Refund of/.test(x.subject))).toHaveLength(1);
+    const job = (await owner.get('/api/jobs')).body.jobs[0];
+    expect((await owner.patch(`/api/jobs/${job.id}`).send({ stageKey: 'delivered' })).status).toBe(200);
+    expect((await owner.get(`/api/projects/${projectId}`)).body.project.status).toBe('closed');
     const timeline = (await owner.get(`/api/projects/${projectId}`)).body.project.timeline.map((e: { kind: string }) => e.kind);
     expect(timeline).toEqual(expect.arrayContaining(['estimate_sent', 'estimate_accepted', 'deposit_paid', 'stage', 'balance_paid', 'refund']));
   });

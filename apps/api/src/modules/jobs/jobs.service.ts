@@ -3,7 +3,7 @@ import { asc, eq } from 'drizzle-orm';
 import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
-import { estimates, jobs, projects, stages, timeEntries, users } from '../../db/schema';
+import { estimates, jobs, payments, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
@@ -55,7 +55,9 @@ export function createJobsService(db: Db, portalUrl: string) {
       queueMail(tx, client.email, balanceRequestMail(shop, client.name, est?.balanceCents ?? 0, url));
     }
     if (to === 'delivered' && project.status !== 'delivered') {
-      setStatus(tx, project.id, 'delivered');
+      // delivered with the balance paid closes the project; otherwise it waits for the balance
+      const balancePaid = tx.select().from(payments).where(eq(payments.projectId, project.id)).all().some((x) => x.kind === 'balance' && x.status === 'paid');
+      setStatus(tx, project.id, balancePaid ? 'closed' : 'delivered');
       queueMail(tx, client.email, stageMail(shop, client.name, 'Your piece has been delivered. Thank you for having us build it.', url));
     }
   }
