@@ -33,8 +33,7 @@ test.describe('the owner', () => {
     await expect(page.getByRole('cell', { name: "Alder Cross Makers' Guild" })).toBeVisible();
     await expect(page.getByRole('cell', { name: 'Tomasz Wierzbicki' })).toHaveCount(0);
     await page.goto('/board');
-    await expect(page.getByRole('cell', { name: 'Tomasz Wierzbicki' })).toBeVisible();
-    await expect(page.getByRole('cell', { name: 'in production' })).toBeVisible();
+    await expect(page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' })).toBeVisible();
   });
 });
 

@@ -5,7 +5,16 @@ import { createTestRouter } from './router';
 
 function signedInAs(role: 'owner' | 'builder' | 'client') {
   vi.stubGlobal('fetch', vi.fn(async (url: string) => {
-    const body = String(url).endsWith('/auth/me') ? { user: { id: 'u', email: 'x@example.com', name: `A ${role}`, role, emailVerified: true } } : String(url).endsWith('/users') ? { users: [] } : { projects: [] };
+    const u = String(url);
+    const body = u.endsWith('/auth/me')
+      ? { user: { id: 'u', email: 'x@example.com', name: `A ${role}`, role, emailVerified: true } }
+      : u.endsWith('/users')
+        ? { users: [] }
+        : u.endsWith('/jobs/stages')
+          ? { stages: [{ key: 'material', label: 'Material', position: 0 }, { key: 'cutting', label: 'Cutting', position: 1 }] }
+          : u.endsWith('/jobs')
+            ? { jobs: [{ id: 'j1', project: { id: 'p1', status: 'deposit_paid', notes: 'Walnut bookcase' }, clientName: 'Tomasz', stage: 'material', position: 0, builder: null, dueDate: null, hoursBudgeted: { material: 1, total: 8 }, hoursLogged: { total: 9 } }] }
+            : { projects: [] };
     return new Response(JSON.stringify(body), { status: 200, headers: { 'Content-Type': 'application/json' } });
   }));
 }
@@ -18,6 +27,10 @@ describe('the shop layout', () => {
     const nav = await screen.findByRole('navigation', { name: 'Shop' });
     expect(within(nav).getAllByRole('link').map((a) => a.textContent)).toEqual(['Board']);
     expect(screen.getByRole('heading', { name: 'Production board' })).toBeTruthy();
+    const material = await screen.findByRole('region', { name: 'Material' });
+    expect(within(material).getByRole('article', { name: 'Job for Tomasz' })).toBeTruthy();
+    // over budget is marked
+    expect(within(material).getByLabelText('Hours used').textContent).toBe('9.0 of 8.0 h used; this stage 0.0 of 1.0 h');
   });
   it('tells a builder plainly when a page is not theirs', async () => {
     signedInAs('builder');

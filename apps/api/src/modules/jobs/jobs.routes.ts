@@ -7,6 +7,9 @@ import type { JobsService } from './jobs.service';
 /** Mounted behind requireRole('owner', 'builder'). */
 export function jobsRoutes(service: JobsService): Router {
   const r = Router();
+  r.get('/stages', (_req, res) => {
+    res.json({ stages: service.stages() });
+  });
   r.get('/', (_req, res) => {
     res.json({ jobs: service.list() });
   });

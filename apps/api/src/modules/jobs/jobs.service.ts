@@ -63,6 +63,9 @@ export function createJobsService(db: Db, portalUrl: string) {
   }
 
   return {
+    stages() {
+      return db.select().from(stages).orderBy(asc(stages.position)).all();
+    },
     list() {
       return db.select().from(jobs).orderBy(asc(jobs.position), asc(jobs.createdAt)).all().map(view);
     },

@@ -8,7 +8,7 @@ export function RequestsRoute() {
   return (
     <RoleGate allow={canSeeRequests}>
       <Panel title="Requests and estimates">
-        <ProjectTable inShop={false} empty="No requests yet." linkTo={paths.request.getHref} />
+        <ProjectTable empty="No requests yet." linkTo={paths.request.getHref} />
       </Panel>
     </RoleGate>
   );

@@ -4,7 +4,8 @@ import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Money, Notice } from '@benchwright/ui';
 import { useProjects } from '../api/get-projects';
 
-const IN_SHOP: ProjectStatus[] = ['deposit_paid', 'in_production', 'ready', 'delivered'];
+// once the deposit is paid a project is a job on the board, and a closed one is done
+const PAST_REQUEST: ProjectStatus[] = ['deposit_paid', 'in_production', 'ready', 'delivered', 'closed'];
 
 function what(p: Project): string {
   return p.items
@@ -16,12 +17,12 @@ function what(p: Project): string {
     .join(', ');
 }
 
-/** Projects as a table: requests for the owner, jobs in the shop for the board. */
-export function ProjectTable({ inShop, empty, linkTo }: { inShop: boolean; empty: string; linkTo?: (projectId: string) => string }) {
+/** The requests not yet in the shop, as a table (jobs in the shop are on the board). */
+export function ProjectTable({ empty, linkTo }: { empty: string; linkTo?: (projectId: string) => string }) {
   const q = useProjects();
   if (q.isPending) return <p>Loading…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
-  const rows = q.data.filter((p) => IN_SHOP.includes(p.status) === inShop);
+  const rows = q.data.filter((p) => !PAST_REQUEST.includes(p.status));
   if (!rows.length) return <p className="text-ink-soft">{empty}</p>;
   return (
     <table className="w-full border-collapse text-left">

@@ -1,0 +1,52 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { STAGE_KEYS } from '@benchwright/contracts';
+import { api } from '@benchwright/ui';
+
+export type StageKey = (typeof STAGE_KEYS)[number];
+type Hours = Partial<Record<StageKey, number>> & { total: number };
+export interface Job {
+  id: string;
+  project: { id: string; status: string; notes: string };
+  clientName: string;
+  stage: StageKey;
+  position: number;
+  builder: { id: string; name: string } | null;
+  dueDate: string | null;
+  hoursBudgeted: Hours;
+  hoursLogged: Hours;
+}
+export interface Stage {
+  key: StageKey;
+  label: string;
+  position: number;
+}
+
+export const jobsQueryOptions = () => queryOptions({ queryKey: ['jobs'], queryFn: async () => (await api<{ jobs: Job[] }>('/jobs')).jobs, refetchInterval: 15_000 });
+export const useJobs = () => useQuery(jobsQueryOptions());
+export const stagesQueryOptions = () => queryOptions({ queryKey: ['stages'], queryFn: async () => (await api<{ stages: Stage[] }>('/jobs/stages')).stages, staleTime: 5 * 60_000 });
+export const useStages = () => useQuery(stagesQueryOptions());
+
+/** Moves a job; the board shows the move at once and takes it back if the server refuses. */
+export function useMoveJob() {
+  const qc = useQueryClient();
+  const key = jobsQueryOptions().queryKey;
+  return useMutation({
+    mutationFn: ({ id, stageKey }: { id: string; stageKey: StageKey }) => api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}`, { method: 'PATCH', body: { stageKey } }),
+    onMutate: async ({ id, stageKey }) => {
+      await qc.cancelQueries({ queryKey: key });
+      const before = qc.getQueryData(key);
+      qc.setQueryData(key, (jobs: Job[] | undefined) => jobs?.map((j) => (j.id === id ? { ...j, stage: stageKey } : j)));
+      return { before };
+    },
+    onError: (_e, _v, ctx) => qc.setQueryData(key, ctx?.before),
+    onSettled: () => qc.invalidateQueries({ queryKey: key }),
+  });
+}
+
+export function useLogTime() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, stageKey, hours, note }: { id: string; stageKey: StageKey; hours: number; note: string }) => api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}/time`, { body: { stageKey, hours, note } }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: jobsQueryOptions().queryKey }),
+  });
+}
