@@ -1,5 +1,7 @@
 import * as z from 'zod';
-import { BuildSpec } from '@benchwright/pricing/geometry';
+import { BuildSpec, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing/geometry';
+
+export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
 
 /** Every error the API answers with (DESIGN.md section 10). */
 export const ERROR_CODES = ['invalid_input', 'unauthenticated', 'forbidden', 'not_found', 'conflict', 'payload_too_large', 'unsupported_media_type', 'rate_limited', 'internal'] as const;
@@ -94,7 +96,6 @@ export interface QuotePreview {
 }
 
 export const CreateEstimateBody = z.object({ source: z.enum(['engine', 'copy']).default('engine') });
-export const LINE_GROUPS = ['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables', 'labour', 'delivery', 'other'] as const;
 export const EstimateLineInput = z.object({
   id: z.string().max(64).optional(),
   group: z.enum(LINE_GROUPS),
@@ -123,3 +124,27 @@ export const UpdateJobBody = z
   })
   .refine((v) => Object.keys(v).length > 0, 'change at least one of stageKey, position, builderId, dueDate');
 export const LogTimeBody = z.object({ stageKey: z.enum(STAGE_KEYS), hours: z.number().gt(0, 'more than 0 hours').max(24, 'at most 24 hours at a time'), note: z.string().max(500).default('') });
+
+/** `GET /api/estimates/:id`: what a client sees; the owner also gets the fields marked owner. */
+export interface EstimateView {
+  id: string;
+  projectId: string;
+  number: string;
+  revision: number;
+  status: EstimateStatus;
+  version: number;
+  validUntil: string | null;
+  sentAt: string | null;
+  acceptedAt: string | null;
+  acceptedName: string | null;
+  lines: { id: string; group: LineGroup; description: string; quantity: number; unit: string; unitPriceCents: number; amountCents: number; source: 'computed' | 'manual'; /** owner */ costCents?: number; /** owner */ overrideReason?: string | null }[];
+  totals: EstimateSummary['totals'];
+  drawings: Drawing[];
+  checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string }[];
+  /** owner */
+  hoursByStage?: Record<string, number>;
+  /** owner */
+  layouts?: { materialId: string; materialName: string; sheetCount: number; lowerBound: number; yieldRatio: number }[];
+  /** owner */
+  costCents?: number;
+}

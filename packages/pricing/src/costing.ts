@@ -10,8 +10,7 @@ import { nestByMaterial, type NestEffort, type NestPart, type NestResult } from 
 import { byId, STAGE_KEYS, type PriceBook, type ShopSettings, type StageKey } from './price-book';
 import { boardFeet, toInches } from './units';
 
-export const LINE_GROUPS = ['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables', 'labour', 'delivery', 'other'] as const;
-export type LineGroup = (typeof LINE_GROUPS)[number];
+import { LINE_GROUPS, type LineGroup } from './line-groups';
 const MATERIAL_GROUPS: ReadonlySet<LineGroup> = new Set(['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables']);
 
 export interface EstimateLine {

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import type { PriceBook, ShopSettings, StageKey } from '@benchwright/pricing';
+import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
 
 const now = sql`(unixepoch() * 1000)`;
 const createdAt = () => integer({ mode: 'timestamp_ms' }).notNull().default(now);
@@ -141,7 +141,7 @@ export const estimateLines = sqliteTable('estimate_lines', {
     .notNull()
     .references(() => estimates.id, { onDelete: 'cascade' }),
   position: integer().notNull(),
-  group: text({ enum: ['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables', 'labour', 'delivery', 'other'] }).notNull(),
+  group: text({ enum: LINE_GROUPS }).notNull(),
   description: text().notNull(),
   quantity: real().notNull(),
   unit: text().notNull(),

@@ -1,6 +1,6 @@
 import { createRequire } from 'node:module';
 import { Circle, Document, Font, Line, Page, Rect, renderToBuffer, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
-import { designs, formatLength, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing';
+import { designs, formatLength, LINE_GROUP_LABELS, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing';
 import { dollars } from '../mail-templates';
 
 const require = createRequire(import.meta.url);
@@ -43,7 +43,6 @@ export interface EstimatePdfInput {
   depositRate: number;
 }
 
-const GROUP_NAMES: Record<LineGroup, string> = { sheet_goods: 'Sheet goods', solid_wood: 'Solid wood', edge_banding: 'Edge banding', hardware: 'Hardware', finish: 'Finish', consumables: 'Shop supplies', labour: 'Shop time', delivery: 'Delivery', other: 'Other' };
 
 export const CAUTIONS = [
   'Tall pieces must be anchored to the wall with the supplied anchor kit or fasteners suited to the wall; do not let children climb furniture.',
@@ -151,7 +150,7 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
           return (
             <View key={g}>
               <View style={s.groupRow} wrap={false}>
-                <Text style={[s.cDesc, { fontWeight: 700 }]}>{GROUP_NAMES[g]}</Text>
+                <Text style={[s.cDesc, { fontWeight: 700 }]}>{LINE_GROUP_LABELS[g]}</Text>
                 <Text style={[s.cAmt, { fontWeight: 600 }]}>{dollars(sub)}</Text>
               </View>
               {lines.map((l, i) => (

@@ -143,7 +143,7 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
       } catch (err) {
         const e = err as { type?: string; message?: string };
         if (e.type === 'StripeInvalidRequestError') throw new Conflict(`The card processor refused the refund: ${e.message}`);
-        throw new AppError(502 as never, 'internal', 'The card processor could not be reached; try again.');
+        throw new AppError(502, 'internal', 'The card processor could not be reached; try again.');
       }
     },
 

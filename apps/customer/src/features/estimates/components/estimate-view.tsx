@@ -1,14 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { AcceptEstimateBody, LINE_GROUPS } from '@benchwright/contracts';
+import { AcceptEstimateBody, LINE_GROUP_LABELS, LINE_GROUPS } from '@benchwright/contracts';
 import { applyServerIssues, Button, Drawing, Field, Money, Notice, Panel } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useAcceptEstimate } from '../api/accept-estimate';
 import { useDepositCheckout } from '../api/checkout';
 import { useEstimate, type ClientEstimate } from '../api/get-estimate';
-
-const GROUP_NAMES: Record<(typeof LINE_GROUPS)[number], string> = { sheet_goods: 'Sheet goods', solid_wood: 'Solid wood', edge_banding: 'Edge banding', hardware: 'Hardware', finish: 'Finish', consumables: 'Shop supplies', labour: 'Shop time', delivery: 'Delivery', other: 'Other' };
 
 function Lines({ e }: { e: ClientEstimate }) {
   const qty = (q: number) => (Number.isInteger(q) ? String(q) : q.toFixed(2));
@@ -25,7 +23,7 @@ function Lines({ e }: { e: ClientEstimate }) {
         <tbody key={g}>
           <tr>
             <th colSpan={3} className="pt-3 font-semibold">
-              {GROUP_NAMES[g]}
+              {LINE_GROUP_LABELS[g]}
             </th>
           </tr>
           {e.lines

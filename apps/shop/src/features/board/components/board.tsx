@@ -5,6 +5,18 @@ import { useJobs, useLogTime, useMoveJob, useStages, type Job, type Stage, type 
 
 const h = (v: number | undefined) => (v ?? 0).toFixed(1);
 
+function StageSelect({ stages, value, onChange, label }: { stages: Stage[]; value: StageKey; onChange: (k: StageKey) => void; label?: string }) {
+  return (
+    <select aria-label={label} className="ml-1 rounded border border-rule bg-white" value={value} onChange={(e) => onChange(e.target.value as StageKey)}>
+      {stages.map((s) => (
+        <option key={s.key} value={s.key}>
+          {s.label}
+        </option>
+      ))}
+    </select>
+  );
+}
+
 function LogHours({ job, stages }: { job: Job; stages: Stage[] }) {
   const log = useLogTime();
   const [hours, setHours] = useState('');
@@ -28,13 +40,7 @@ function LogHours({ job, stages }: { job: Job; stages: Stage[] }) {
       </label>
       <label className="text-sm">
         on
-        <select className="ml-1 rounded border border-rule bg-white" value={stage} onChange={(e) => setStage(e.target.value as StageKey)}>
-          {stages.map((s) => (
-            <option key={s.key} value={s.key}>
-              {s.label}
-            </option>
-          ))}
-        </select>
+        <StageSelect stages={stages} value={stage} onChange={setStage} />
       </label>
       <Button type="submit" variant="quiet" className="px-1 py-0 text-sm">
         Log
@@ -72,13 +78,7 @@ function Card({ job, stages }: { job: Job; stages: Stage[] }) {
       </p>
       <label className="mt-2 block text-sm">
         Move to{' '}
-        <select aria-label={`Move ${job.clientName} to`} className="rounded border border-rule bg-white" value={job.stage} onChange={(e) => move.mutate({ id: job.id, stageKey: e.target.value as StageKey })}>
-          {stages.map((s) => (
-            <option key={s.key} value={s.key}>
-              {s.label}
-            </option>
-          ))}
-        </select>
+        <StageSelect stages={stages} label={`Move ${job.clientName} to`} value={job.stage} onChange={(stageKey) => move.mutate({ id: job.id, stageKey })} />
       </label>
       <LogHours job={job} stages={stages} />
     </article>

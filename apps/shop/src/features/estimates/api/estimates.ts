@@ -1,23 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { EstimateStatus, LINE_GROUPS, UpdateEstimateBody } from '@benchwright/contracts';
+import type { EstimateView, UpdateEstimateBody } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
 
-export type LineGroup = (typeof LINE_GROUPS)[number];
-export interface OwnerEstimate {
-  id: string;
-  projectId: string;
-  number: string;
-  revision: number;
-  status: EstimateStatus;
-  version: number;
-  validUntil: string | null;
-  lines: { id: string; group: LineGroup; description: string; quantity: number; unit: string; unitPriceCents: number; amountCents: number; costCents: number; source: 'computed' | 'manual'; overrideReason: string | null }[];
-  totals: { subtotalCents: number; discountCents: number; taxCents: number; totalCents: number; depositCents: number; balanceCents: number };
-  hoursByStage: Record<string, number>;
-  layouts: { materialId: string; materialName: string; sheetCount: number; lowerBound: number; yieldRatio: number }[];
-  checks: { code: string; level: string; message: string }[];
-  costCents: number;
-}
+/** The owner's view of an estimate: the contract's type with the owner-only fields present. */
+export type OwnerEstimate = EstimateView & Required<Pick<EstimateView, 'hoursByStage' | 'layouts' | 'costCents'>> & { lines: (EstimateView['lines'][number] & { costCents: number; overrideReason: string | null })[] };
 
 const path = (id: string) => `/estimates/${encodeURIComponent(id)}`;
 export const getEstimate = async (id: string) => (await api<{ estimate: OwnerEstimate }>(path(id))).estimate;

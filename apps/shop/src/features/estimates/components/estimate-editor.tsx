@@ -1,10 +1,8 @@
 import { useEffect, useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
-import { LINE_GROUPS } from '@benchwright/contracts';
+import { LINE_GROUP_LABELS, type LineGroup } from '@benchwright/contracts';
 import { ApiRequestError, Button, Money, Notice, Panel } from '@benchwright/ui';
-import { useSendEstimate, useUpdateEstimate, type LineGroup, type OwnerEstimate } from '../api/estimates';
-
-const GROUP_NAMES: Record<LineGroup, string> = { sheet_goods: 'Sheet goods', solid_wood: 'Solid wood', edge_banding: 'Edge banding', hardware: 'Hardware', finish: 'Finish', consumables: 'Shop supplies', labour: 'Shop time', delivery: 'Delivery', other: 'Other' };
+import { useSendEstimate, useUpdateEstimate, type OwnerEstimate } from '../api/estimates';
 
 interface LineForm {
   id?: string;
@@ -91,7 +89,7 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
               return (
                 <tr key={f.id} className="border-b border-rule align-top">
                   <td className="py-1">
-                    <span className="mr-2 text-xs uppercase text-ink-soft">{GROUP_NAMES[f.group]}</span>
+                    <span className="mr-2 text-xs uppercase text-ink-soft">{LINE_GROUP_LABELS[f.group]}</span>
                     {f.id ? f.description : <input aria-label={`Line ${i + 1} description`} className="w-full rounded border border-rule bg-white px-2 py-1" {...form.register(`lines.${i}.description`)} />}
                   </td>
                   <td className="py-1">
