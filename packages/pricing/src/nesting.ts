@@ -1,4 +1,5 @@
 import { seededRandom } from './_lib/random';
+import { packExact } from './nesting-exact';
 
 /** A part to lay out. `lengthMm` runs along the grain (the sheet's length). */
 export interface NestPart {
@@ -165,18 +166,29 @@ function newBin(ctx: Ctx): Bin {
   return { free: [{ x: ctx.x0, y: ctx.y0, l: ctx.L, w: ctx.W }], placed: [], used: 0 };
 }
 
-function score(fit: FitRule, f: Free, l: number, w: number): [number, number] {
+// the two keys of the last score() call (kept in module variables, not a new array per call: this is the hot loop)
+let score0 = 0;
+let score1 = 0;
+
+function score(fit: FitRule, f: Free, l: number, w: number): void {
   const dl = f.l - l;
   const dw = f.w - w;
   switch (fit) {
     case 'area':
-      return [f.l * f.w - l * w, Math.min(dl, dw)];
+      score0 = f.l * f.w - l * w;
+      score1 = Math.min(dl, dw);
+      return;
     case 'short':
-      return [Math.min(dl, dw), Math.max(dl, dw)];
+      score0 = Math.min(dl, dw);
+      score1 = Math.max(dl, dw);
+      return;
     case 'long':
-      return [Math.max(dl, dw), Math.min(dl, dw)];
+      score0 = Math.max(dl, dw);
+      score1 = Math.min(dl, dw);
+      return;
     case 'bottom':
-      return [f.y, f.x];
+      score0 = f.y;
+      score1 = f.x;
   }
 }
 
@@ -190,19 +202,19 @@ function insert(bin: Bin, item: Item, cfg: Config, ctx: Ctx): boolean {
   for (let i = 0; i < free.length; i++) {
     const f = free[i];
     if (item.l <= f.l + EPS && item.w <= f.w + EPS) {
-      const [a, b] = score(cfg.fit, f, item.l, item.w);
-      if (a < s0 - EPS || (a < s0 + EPS && b < s1)) {
-        s0 = a;
-        s1 = b;
+      score(cfg.fit, f, item.l, item.w);
+      if (score0 < s0 - EPS || (score0 < s0 + EPS && score1 < s1)) {
+        s0 = score0;
+        s1 = score1;
         best = i;
         bestRot = false;
       }
     }
     if (item.canRotate && item.l !== item.w && item.w <= f.l + EPS && item.l <= f.w + EPS) {
-      const [a, b] = score(cfg.fit, f, item.w, item.l);
-      if (a < s0 - EPS || (a < s0 + EPS && b < s1)) {
-        s0 = a;
-        s1 = b;
+      score(cfg.fit, f, item.w, item.l);
+      if (score0 < s0 - EPS || (score0 < s0 + EPS && score1 < s1)) {
+        s0 = score0;
+        s1 = score1;
         best = i;
         bestRot = true;
       }
@@ -507,6 +519,37 @@ function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: n
   return { bins };
 }
 
+/** a part visit of the heuristics costs about as much time as this many steps of the exact search */
+const STEPS_PER_VISIT = 120;
+
+/**
+ * The exact search (nesting-exact.ts) over `sheets` sheets for all `items`;
+ * parts of one size are pooled so the search sees them as one kind.
+ * Returns the bins, or null if it found none within `workLimit` steps.
+ */
+function exactBins(items: Item[], sheets: number, ctx: Ctx, workLimit: number, seed: number): Bin[] | null {
+  const pools = new Map<string, Item[]>();
+  for (const it of items) {
+    const key = `${it.l}x${it.w}x${it.canRotate ? 1 : 0}`;
+    const pool = pools.get(key);
+    if (pool) pool.push(it);
+    else pools.set(key, [it]);
+  }
+  const kinds = [...pools.values()];
+  const types = kinds.map((k) => ({ l: k[0].l, w: k[0].w, canRotate: k[0].canRotate, count: k.length }));
+  const r = packExact(types, { x0: ctx.x0, y0: ctx.y0, L: ctx.L, W: ctx.W, sheets, kerf: ctx.kerf, workLimit, seed });
+  ctx.spent += Math.ceil(r.work / STEPS_PER_VISIT);
+  if (r.status !== 'found') return null;
+  const bins: Bin[] = Array.from({ length: sheets }, () => ({ free: [], placed: [], used: 0 }));
+  const taken = kinds.map(() => 0);
+  for (const p of r.placements) {
+    const item = kinds[p.type][taken[p.type]++];
+    bins[p.sheet].placed.push({ item, x: p.x, y: p.y, l: p.l, w: p.w, rotated: p.rotated });
+    bins[p.sheet].used += item.area;
+  }
+  return bins.filter((b) => b.placed.length);
+}
+
 // ---------------------------------------------------------------------------
 // Cut order: recover the saw's plan from the final placements by recursive
 // through-cuts, rips (along the length) first, then crosscuts of each strip.
@@ -705,6 +748,12 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
     for (const cfg of thorough ? SPACE_CONFIGS : []) if (!done()) consider(greedy(items, cfg, ctx));
     const rand = seededRandom(options.seed ?? 20261201);
     if (!done()) consider(eliminateBins(best!, ctx, QUICK_CONFIGS, lowerBound, { n: thorough ? 4000 : 60 }));
+    // one sheet over the bound: an exact search for a layout on the bound's sheets, with half the work allowed
+    if (thorough && !done() && best!.bins.length === lowerBound + 1) {
+      const steps = Math.max(0, ctx.limit / 2 - ctx.spent) * STEPS_PER_VISIT;
+      const bins = exactBins(items, lowerBound, ctx, steps, options.seed ?? 20261201);
+      if (bins) consider({ bins });
+    }
     if (thorough) {
       const n = items.length;
       const trials = Math.max(2, Math.min(12, Math.floor(6000 / n)));
