@@ -133,6 +133,7 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
   const memoCap = 2_000_000;
   let nodes = 0;
   let work = 0;
+  let run = 0;
   let runLimit = 0;
   let gaveUp = false;
 
@@ -235,10 +236,14 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
         const pl = rot ? types[t].w : types[t].l;
         const pw = rot ? types[t].l : types[t].w;
         const exact = (Math.abs(r.l - pl) < EPS ? 1 : 0) + (Math.abs(r.w - pw) < EPS ? 1 : 0);
-        cands.push({ t, rot, score: -exact * n * 2 + rank[t] });
+        cands.push({ t, rot, score: -exact * n * 4 + rank[t] + (run > 0 ? 0.5 * n * rand() : 0) });
       }
     }
     cands.sort((a, b) => a.score - b.score);
+    // a part the rectangle's exact size goes there: in any layout that puts it
+    // elsewhere, swapping it with what fills this rectangle gives another layout
+    const forced = cands.length > 0 && cands[0].score < -6 * n;
+    if (forced) cands.length = 1;
     for (const { t, rot } of cands) {
       const pl = rot ? types[t].w : types[t].l;
       const pw = rot ? types[t].l : types[t].w;
@@ -273,7 +278,7 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
       if (gaveUp) return false;
     }
     // or leave the rectangle as waste, if the area left allows
-    if (freeArea - r.l * r.w >= remaining - EPS) {
+    if (!forced && freeArea - r.l * r.w >= remaining - EPS) {
       if (dfs(rest)) return true;
       if (gaveUp) return false;
     }
@@ -301,7 +306,7 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
   const start = () => Array.from({ length: o.sheets }, (_, s) => rect(s, o.x0, o.y0, o.L, o.W, 0, 0));
   let found = false;
   let budget = 500 * 16 * Math.max(8, n);
-  for (let run = 0; !found && work < o.workLimit; run++) {
+  for (run = 0; !found && work < o.workLimit; run++) {
     gaveUp = false;
     runLimit = Math.min(o.workLimit, work + budget);
     found = dfs(start());
