@@ -33,6 +33,7 @@ const ROUTES: [string, string][] = [
   ['post', '/api/payments/nope/refund'],
   ['post', '/api/webhooks/stripe'],
   ['get', '/api/jobs'],
+  ['get', '/api/jobs/nope/traveller'],
   ['patch', '/api/jobs/nope'],
   ['post', '/api/jobs/nope/time'],
 ];

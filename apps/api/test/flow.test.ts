@@ -246,6 +246,25 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(r.body).toEqual({ received: true, duplicate: false });
   });
 
+  it('gives the builder the job’s traveller: cut list, every sheet drawn with its cuts, pick list, cautions, and no prices', async () => {
+    const job = (await owner.get('/api/jobs')).body.jobs[0];
+    const idris = await agent('idris@fernhill.example');
+    const r = await idris.get(`/api/jobs/${job.id}/traveller`);
+    expect(r.status).toBe(200);
+    const t = r.body.traveller;
+    expect(t.job.id).toBe(job.id);
+    expect(t.pieces.length).toBeGreaterThan(0);
+    expect(t.pieces[0].parts.length).toBeGreaterThan(3);
+    const sheets = t.materials.reduce((s: number, m: { sheets: unknown[] }) => s + m.sheets.length, 0);
+    expect(sheets).toBeGreaterThan(0);
+    expect(t.materials[0].sheets[0].drawing.shapes.length).toBeGreaterThan(5);
+    expect(t.materials[0].sheets[0].cuts[0]).toMatchObject({ order: 1 });
+    expect(t.cautions.join(' ')).toMatch(/riving knife/);
+    expect(JSON.stringify(t)).not.toMatch(/cents|price/i);
+    expect((await priya.get(`/api/jobs/${job.id}/traveller`)).status).toBe(403);
+    expect((await idris.get('/api/jobs/no-such-job/traveller')).status).toBe(404);
+  });
+
   it('the board moves the project by its stage rules, asks for the balance at Ready, and a builder logs hours', async () => {
     const job = (await owner.get('/api/jobs')).body.jobs[0];
     const idris = await agent('idris@fernhill.example');

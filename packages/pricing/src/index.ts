@@ -9,4 +9,6 @@ export { labourHours, bandingMetres } from './labour';
 export { estimate, budgetRange, rangeOf, totalsFor, splitDeposit, times } from './costing';
 export type { Estimate, EstimateItem, EstimateLine, EstimateOptions, MaterialLayout, PieceResult, Totals } from './costing';
 export { demoPriceBook, demoSettings } from './demo-data';
+export { traveller, SHOP_CAUTIONS } from './traveller';
+export type { Traveller, TravellerPart, TravellerSheet } from './traveller';
 export { LABOUR_OPERATION_KEYS, HardwareKind, SheetGood, Lumber, EdgeBanding, HardwareItem, Finish, LabourOperation } from './price-book';

@@ -16,6 +16,9 @@ export function jobsRoutes(service: JobsService): Router {
   r.get('/:id', (req, res) => {
     res.json({ job: service.get(req.params.id) });
   });
+  r.get('/:id/traveller', (req, res) => {
+    res.json({ traveller: service.traveller(req.params.id) });
+  });
   r.patch('/:id', (req, res) => {
     res.json({ job: service.update(currentUser(res), req.params.id, parse(UpdateJobBody, req.body)) });
   });

@@ -1,0 +1,60 @@
+import { describe, expect, it } from 'vitest';
+import { estimate } from './costing';
+import { demoPriceBook, demoSettings } from './demo-data';
+import { designs, parseSpec } from './designs';
+import { SHOP_CAUTIONS, traveller } from './traveller';
+import { toSvg } from './drawings';
+
+const spec = (slug: keyof typeof designs) => {
+  const r = parseSpec({ ...designs[slug].defaults, design: slug });
+  if (!r.ok) throw new Error('defaults must parse');
+  return r.spec;
+};
+
+describe('traveller', () => {
+  const items = [
+    { spec: spec('base-cabinet'), quantity: 2 },
+    { spec: spec('bookcase'), quantity: 1 },
+  ];
+  const e = estimate(items, demoPriceBook, demoSettings, { effort: 'quick' });
+  const t = traveller(e, demoPriceBook, demoSettings);
+
+  it('lists every part of every piece, counted for the quantity ordered', () => {
+    expect(t.pieces.map((p) => [p.title, p.quantity])).toEqual([
+      ['Base cabinet', 2],
+      ['Bookcase', 1],
+    ]);
+    const cabinetSides = e.pieces[0].parts.filter((p) => /side/i.test(p.name));
+    expect(cabinetSides.length).toBeGreaterThan(0);
+    const row = t.pieces[0].parts.find((p) => p.name === cabinetSides[0].name)!;
+    expect(row.quantity).toBe(cabinetSides[0].quantity * 2);
+    expect(row.materialName).toBe(demoPriceBook.sheetGoods.find((s) => s.id === cabinetSides[0].materialId)!.name);
+    // the sheet parts on the cut list are exactly the units the layouts place
+    const listed = t.pieces.flatMap((p) => p.parts).filter((p) => p.stock === 'sheet').reduce((s, p) => s + p.quantity, 0);
+    const placed = e.layouts.reduce((s, l) => s + l.sheets.reduce((n, sh) => n + sh.placements.length, 0), 0);
+    expect(listed).toBe(placed);
+  });
+
+  it('draws every sheet of every material, numbered, with its cut order', () => {
+    expect(t.materials.map((m) => m.sheets.length)).toEqual(e.layouts.map((l) => l.sheetCount));
+    const first = t.materials[0].sheets[0];
+    expect(first.number).toBe(1);
+    expect(first.cuts.length).toBeGreaterThan(0);
+    expect(first.drawing.title).toBe(`${t.materials[0].materialName}: sheet 1 of ${t.materials[0].sheetCount}`);
+    expect(toSvg(first.drawing)).toMatch(/^<svg[\s\S]*<\/svg>$/);
+  });
+
+  it('sums the hardware into one pick list for the job', () => {
+    const hinge = e.pieces[0].hardware.find((h) => h.kind === 'hinge');
+    expect(hinge).toBeDefined();
+    const line = t.pickList.find((p) => p.name === hinge!.name)!;
+    const expected = e.pieces.reduce((s, p) => s + p.quantity * p.hardware.filter((h) => h.itemId === hinge!.itemId).reduce((a, h) => a + h.pieces, 0), 0);
+    expect(line.pieces).toBe(expected);
+  });
+
+  it('carries the shop cautions and the pieces’ own, and no prices', () => {
+    expect(t.cautions).toEqual(expect.arrayContaining([...SHOP_CAUTIONS]));
+    expect(t.cautions.some((c) => /anchor/i.test(c))).toBe(true);
+    expect(JSON.stringify(t)).not.toMatch(/cents|price/i);
+  });
+});

@@ -1,0 +1,122 @@
+import type { Estimate } from './costing';
+import type { Cut } from './nesting';
+import type { PriceBook, ShopSettings, StageKey } from './price-book';
+import { designs } from './designs';
+import { sheetLayoutDrawing, type Drawing } from './drawings';
+import { bandingMetres } from './labour';
+
+/**
+ * The shop's usual safety cautions for the traveller (DESIGN.md section 7).
+ * Our own wording of common practice; the machine makers' manuals, the
+ * finish makers' safety data sheets and local workplace rules come first.
+ */
+export const SHOP_CAUTIONS: readonly string[] = [
+  'Eye and ear protection at every machine; a dust mask or respirator when cutting MDF or sanding, with the dust collector running.',
+  'Table saw: blade guard and riving knife on, a push stick for narrow rips, and stand out of line with the blade.',
+  'Unplug the machine before changing a blade or bit. Feed the router against the bit’s rotation and clamp small work.',
+  'Nailers: keep hands clear of the nose and disconnect the air before clearing a jam.',
+  'Finishing: ventilate, wear the respirator the finish’s safety data sheet names, and keep sparks and flames away from solvents.',
+  'Oily rags can catch fire by themselves: lay them flat to dry outside or keep them in a closed metal can of water.',
+  'Follow each machine’s manual and your local workplace safety rules; they come before this sheet.',
+];
+
+export interface TravellerPart {
+  name: string;
+  materialName: string;
+  stock: 'sheet' | 'lumber';
+  /** units to cut for the whole job (the part's count times the piece's quantity) */
+  quantity: number;
+  lengthMm: number;
+  widthMm: number;
+  thicknessMm: number;
+  grain: string;
+  /** edges to band, as "2 long, 1 short", or "" */
+  banding: string;
+}
+
+export interface TravellerSheet {
+  /** 1-based within its material */
+  number: number;
+  yieldRatio: number;
+  drawing: Drawing;
+  cuts: Cut[];
+}
+
+export interface Traveller {
+  pieces: { title: string; quantity: number; parts: TravellerPart[] }[];
+  materials: { materialName: string; sheetCount: number; lowerBound: number; yieldRatio: number; sheets: TravellerSheet[] }[];
+  pickList: { name: string; kind: string; pieces: number }[];
+  bandingMetres: { name: string; metres: number }[];
+  hoursByStage: Record<StageKey, number>;
+  totalHours: number;
+  massKg: number;
+  /** the pieces' own cautions (anchoring, casters...) then the shop's */
+  cautions: string[];
+}
+
+/**
+ * The job's shop paper from a priced estimate: the cut list by piece, every
+ * sheet's layout drawing with its cut order, the hardware pick list, the
+ * banding to have on hand, the hour budget and the cautions. No prices: the
+ * builder's view carries none.
+ *
+ * @example
+ * const t = traveller(estimate(items, book, settings, { effort: 'thorough' }), book, settings);
+ * t.materials[0].sheets[0].drawing // one sheet to scale, for toSvg or the PDF
+ */
+export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings): Traveller {
+  const materialName = (id: string) => book.sheetGoods.find((s) => s.id === id)?.name ?? book.lumber.find((l) => l.id === id)?.name ?? id;
+  const pieces = e.pieces.map((p) => ({
+    title: designs[p.spec.design].name,
+    quantity: p.quantity,
+    parts: p.parts.map((part) => ({
+      name: part.name,
+      materialName: materialName(part.materialId),
+      stock: part.stock,
+      quantity: part.quantity * p.quantity,
+      lengthMm: part.lengthMm,
+      widthMm: part.widthMm,
+      thicknessMm: part.thicknessMm,
+      grain: part.grain,
+      banding: [part.bandedEdges.long ? `${part.bandedEdges.long} long` : '', part.bandedEdges.short ? `${part.bandedEdges.short} short` : ''].filter(Boolean).join(', '),
+    })),
+  }));
+  const materials = e.layouts.map((l) => ({
+    materialName: l.materialName,
+    sheetCount: l.sheetCount,
+    lowerBound: l.lowerBound,
+    yieldRatio: l.yieldRatio,
+    sheets: l.sheets.map((s, i) => ({
+      number: i + 1,
+      yieldRatio: s.yieldRatio,
+      drawing: sheetLayoutDrawing(s, l.parts, { title: `${l.materialName}: sheet ${i + 1} of ${l.sheetCount}`, unit: settings.units }),
+      cuts: s.cuts,
+    })),
+  }));
+  const picks = new Map<string, { name: string; kind: string; pieces: number }>();
+  for (const p of e.pieces) {
+    for (const h of p.hardware) {
+      const cur = picks.get(h.itemId);
+      picks.set(h.itemId, { name: h.name, kind: h.kind, pieces: (cur?.pieces ?? 0) + h.pieces * p.quantity });
+    }
+  }
+  const banding = new Map<string, number>();
+  for (const p of e.pieces) {
+    for (const part of p.parts) {
+      if (!part.bandingId) continue;
+      const m = bandingMetres([{ ...part, quantity: part.quantity * p.quantity }]);
+      banding.set(part.bandingId, (banding.get(part.bandingId) ?? 0) + m);
+    }
+  }
+  const pieceCautions = [...new Set(e.checks.filter((c) => c.level === 'caution' || c.level === 'warning').map((c) => c.message))];
+  return {
+    pieces,
+    materials,
+    pickList: [...picks.values()].sort((a, b) => a.kind.localeCompare(b.kind) || a.name.localeCompare(b.name)),
+    bandingMetres: [...banding].map(([id, metres]) => ({ name: book.edgeBanding.find((b) => b.id === id)?.name ?? id, metres: Math.round(metres * 100) / 100 })),
+    hoursByStage: e.hoursByStage,
+    totalHours: e.totalHours,
+    massKg: e.massKg,
+    cautions: [...pieceCautions, ...SHOP_CAUTIONS],
+  };
+}
