@@ -38,3 +38,23 @@ test('the builder moves the paid bookcase on the board, drags it on, and logs ho
   await page.reload();
   await expect(page.getByRole('region', { name: 'Finish' }).getByRole('article', { name: 'Job for Tomasz Wierzbicki' })).toBeVisible();
 });
+
+test('the builder opens the job’s traveller from its card: cut list, drawn sheets, pick list, cautions, no prices', async ({ page }) => {
+  await signIn(page, SHOP, 'idris@fernhill.example');
+  await page.goto('/board');
+  const card = page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
+  await card.getByRole('link', { name: /Traveller/ }).click();
+  const paper = page.getByRole('article', { name: 'Traveller for Tomasz Wierzbicki' });
+  await expect(paper.getByRole('heading', { name: 'Traveller: Tomasz Wierzbicki' })).toBeVisible();
+  const cutList = paper.getByRole('table', { name: 'Cut list: Bookcase' });
+  await expect(cutList.getByRole('row').nth(1)).toBeVisible();
+  expect(await cutList.getByRole('row').count()).toBeGreaterThan(4);
+  // each sheet is drawn to scale with its parts labelled
+  const sheet = paper.getByRole('figure', { name: /sheet 1$/ }).first();
+  await expect(sheet.locator('svg rect').first()).toBeVisible();
+  await expect(paper.getByText(/Sheet 1: \d+ % used, \d+ cuts/).first()).toBeVisible();
+  await expect(paper.getByRole('table', { name: 'Pick list' }).getByRole('row').nth(1)).toBeVisible();
+  await expect(paper.getByText(/riving knife/)).toBeVisible();
+  await expect(paper.getByText(/anchor this/i)).toBeVisible();
+  await expect(paper).not.toContainText('$');
+});

@@ -15,3 +15,4 @@ export { validateSpec } from './validate';
 export { PriceBook, ShopSettings, STAGE_KEYS, StageKey } from './price-book';
 export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';
 export type { LineGroup } from './line-groups';
+export type { Traveller, TravellerPart, TravellerSheet } from './traveller';

@@ -3,6 +3,7 @@ import { PublicLayout, ShopLayout } from '../components/layout';
 import { paths } from '../config/paths';
 import { AcceptInvitationRoute } from './routes/accept-invitation';
 import { BoardRoute } from './routes/board';
+import { JobRoute } from './routes/job';
 import { ForgotPasswordRoute, ResetPasswordRoute } from './routes/password';
 import { RequestRoute } from './routes/request';
 import { RequestsRoute } from './routes/requests';
@@ -24,6 +25,7 @@ export const routes: RouteObject[] = [
     element: <ShopLayout />,
     children: [
       { path: paths.board.path, element: <BoardRoute /> },
+      { path: paths.job.path, element: <JobRoute /> },
       { path: paths.requests.path, element: <RequestsRoute /> },
       { path: paths.request.path, element: <RequestRoute /> },
       { path: paths.team.path, element: <TeamRoute /> },

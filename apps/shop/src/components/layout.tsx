@@ -9,7 +9,7 @@ import { canInviteBuilders, canSeeBoard, canSeeRequests, isStaff } from '../lib/
 function Frame({ nav, children }: { nav?: ReactNode; children: ReactNode }) {
   return (
     <div className="min-h-screen">
-      <header className="border-b-4 border-wood bg-ink text-paper">
+      <header className="border-b-4 border-wood bg-ink text-paper print:hidden">
         <div className="mx-auto flex max-w-6xl items-center justify-between px-6 py-3">
           <span className="text-lg font-bold tracking-wide">Fernhill Joinery · shop</span>
           {nav}

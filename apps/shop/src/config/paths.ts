@@ -6,6 +6,7 @@ export const paths = {
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
   board: { path: '/board', getHref: () => '/board' },
+  job: { path: '/jobs/:id', getHref: (id: string) => `/jobs/${encodeURIComponent(id)}` },
   requests: { path: '/requests', getHref: () => '/requests' },
   request: { path: '/requests/:id', getHref: (id: string) => `/requests/${encodeURIComponent(id)}` },
   team: { path: '/team', getHref: () => '/team' },

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { STAGE_KEYS } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
+import type { LengthUnit, Traveller } from '@benchwright/pricing/geometry';
 
 export type StageKey = (typeof STAGE_KEYS)[number];
 type Hours = Partial<Record<StageKey, number>> & { total: number };
@@ -50,3 +51,9 @@ export function useLogTime() {
     onSuccess: () => qc.invalidateQueries({ queryKey: jobsQueryOptions().queryKey }),
   });
 }
+
+/** The job's traveller: cut list, sheet layouts, pick list, hours and cautions (laid out by the server; no prices). */
+export type JobTraveller = Traveller & { job: Job; units: LengthUnit };
+export const travellerQueryOptions = (id: string) =>
+  queryOptions({ queryKey: ['jobs', id, 'traveller'], queryFn: async () => (await api<{ traveller: JobTraveller }>(`/jobs/${encodeURIComponent(id)}/traveller`)).traveller, staleTime: 60_000 });
+export const useTraveller = (id: string) => useQuery(travellerQueryOptions(id));

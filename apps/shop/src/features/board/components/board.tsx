@@ -1,6 +1,8 @@
 import { DndContext, PointerSensor, useDraggable, useDroppable, useSensor, useSensors, type DragEndEvent } from '@dnd-kit/core';
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import { Button, Notice } from '@benchwright/ui';
+import { paths } from '../../../config/paths';
 import { useJobs, useLogTime, useMoveJob, useStages, type Job, type Stage, type StageKey } from '../api/jobs';
 
 const h = (v: number | undefined) => (v ?? 0).toFixed(1);
@@ -75,6 +77,11 @@ function Card({ job, stages }: { job: Job; stages: Stage[] }) {
       </p>
       <p className={`text-sm ${over ? 'font-semibold text-alert' : ''}`} aria-label="Hours used">
         {h(job.hoursLogged.total)} of {h(job.hoursBudgeted.total)} h used; this stage {h(job.hoursLogged[job.stage])} of {h(job.hoursBudgeted[job.stage])} h
+      </p>
+      <p className="mt-1 text-sm">
+        <Link to={paths.job.getHref(job.id)} className="text-wood underline">
+          Traveller: cut list, sheets, pick list
+        </Link>
       </p>
       <label className="mt-2 block text-sm">
         Move to{' '}
