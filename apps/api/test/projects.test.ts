@@ -39,6 +39,24 @@ describe('GET /api/projects/:id', () => {
   });
 });
 
+describe('GET /api/projects/:id/layouts', () => {
+  it('gives the owner the request’s cut list, drawn sheets and pick list; nobody else', async () => {
+    const t = await testApp();
+    const owner = await t.signIn('maren@fernhill.example');
+    const priyas = (await owner.get('/api/projects')).body.projects.find((p: { client: { name: string } }) => p.client.name === 'Priya Natarajan');
+    const r = await owner.get(`/api/projects/${priyas.id}/layouts`);
+    expect(r.status).toBe(200);
+    const l = r.body.layouts;
+    expect(l.pieces.map((p: { quantity: number }) => p.quantity)).toEqual(priyas.items.map((i: { quantity: number }) => i.quantity));
+    expect(l.materials[0].sheets[0].drawing.shapes.length).toBeGreaterThan(3);
+    expect(l.pickList.length).toBeGreaterThan(0);
+    expect(['in', 'mm']).toContain(l.units);
+    const priya = await t.signIn('priya@example.com');
+    expect((await priya.get(`/api/projects/${priyas.id}/layouts`)).status).toBe(403);
+    expect((await owner.get('/api/projects/no-such/layouts')).status).toBe(404);
+  });
+});
+
 describe('POST /api/projects', () => {
   it('when every item is valid, records the request (201, requested)', async () => {
     const t = await testApp();

@@ -3,10 +3,10 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { and, asc, desc, eq, ne } from 'drizzle-orm';
 import type { User } from '@benchwright/contracts';
-import { designs, estimate as priceItems, parseSpec, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
+import { designs, estimate as priceItems, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { estimateLines, estimates, priceBooks, projectItems, projects, shopSettings, users } from '../../db/schema';
-import { loadPricing } from '../../lib/engine';
+import { loadPricing, projectSpecs } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail } from '../../lib/mail-templates';
 import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
@@ -126,13 +126,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         return view(owner, row(id));
       }
       const { book, settings } = loadPricing(db);
-      const items = db.select().from(projectItems).where(eq(projectItems.projectId, projectId)).orderBy(asc(projectItems.position)).all();
-      const parsed = items.map((i) => {
-        const r = parseSpec(i.spec);
-        if (!r.ok) throw new Invalid('A stored item no longer fits its design.', r.issues);
-        return { spec: r.spec, quantity: i.quantity };
-      });
-      const e = priceItems(parsed, book, settings, { effort: 'thorough' });
+      const e = priceItems(projectSpecs(db, projectId), book, settings, { effort: 'thorough' });
       const engine: EngineRecord = {
         drawings: e.pieces.map((p) => p.elevation),
         layouts: e.layouts.map((l) => ({ materialId: l.materialId, materialName: l.materialName, sheetCount: l.sheetCount, lowerBound: l.lowerBound, yieldRatio: l.yieldRatio })),

@@ -1,10 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { asc, eq } from 'drizzle-orm';
-import { estimate as priceItems, parseSpec, STAGE_KEYS, traveller, type StageKey } from '@benchwright/pricing';
+import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
-import { estimates, jobs, payments, projectItems, projects, stages, timeEntries, users } from '../../db/schema';
-import { loadPricing } from '../../lib/engine';
+import { estimates, jobs, payments, projects, stages, timeEntries, users } from '../../db/schema';
+import { loadPricing, travellerFor } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent, setStatus } from '../../lib/timeline';
@@ -72,20 +72,10 @@ export function createJobsService(db: Db, portalUrl: string) {
     get(id: string) {
       return view(row(id));
     },
-    /**
-     * The job's traveller, laid out afresh (thorough) from the project's items
-     * with the price book of today: the stock on the rack is what gets cut.
-     */
+    /** The job's traveller (lib/engine.ts travellerFor), with the job's board state. */
     traveller(id: string) {
       const j = row(id);
-      const { book, settings } = loadPricing(db);
-      const items = db.select().from(projectItems).where(eq(projectItems.projectId, j.projectId)).orderBy(asc(projectItems.position)).all();
-      const parsed = items.map((i) => {
-        const r = parseSpec(i.spec);
-        if (!r.ok) throw new Invalid('A stored item no longer fits its design.', r.issues);
-        return { spec: r.spec, quantity: i.quantity };
-      });
-      return { job: view(j), units: settings.units, ...traveller(priceItems(parsed, book, settings, { effort: 'thorough' }), book, settings) };
+      return { job: view(j), ...travellerFor(db, j.projectId) };
     },
     update(actor: User, id: string, input: { stageKey?: StageKey; position?: number; builderId?: string | null; dueDate?: string | null }) {
       const j = row(id);

@@ -13,6 +13,9 @@ export function projectsRoutes(service: ProjectsService): Router {
   r.get('/:id', (req, res) => {
     res.json({ project: service.get(currentUser(res), req.params.id) });
   });
+  r.get('/:id/layouts', (req, res) => {
+    res.json({ layouts: service.layouts(currentUser(res), req.params.id) });
+  });
   r.post('/', (req, res) => {
     const user = currentUser(res);
     if (user.role !== 'client') throw new Forbidden('Only a client can request an estimate.');

@@ -4,8 +4,8 @@ import type { Project, User } from '@benchwright/contracts';
 import { validateSpec } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
-import { loadPricing } from '../../lib/engine';
-import { Invalid, NotFound } from '../../middleware/errors';
+import { loadPricing, travellerFor } from '../../lib/engine';
+import { Forbidden, Invalid, NotFound } from '../../middleware/errors';
 
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;
@@ -59,6 +59,14 @@ export function createProjectsService(db: Db) {
       if (viewer.role === 'client' && row.clientId !== viewer.id) throw new NotFound('The project');
       if (viewer.role === 'builder' && !(IN_SHOP as readonly string[]).includes(row.status)) throw new NotFound('The project');
       return forViewer(toProject(row), viewer);
+    },
+
+    /** For the owner pricing a request: the items' cut list, sheet layouts and pick list, laid out at 'thorough'. */
+    layouts(viewer: User, id: string) {
+      if (viewer.role !== 'owner') throw new Forbidden('Only the owner sees a request’s layouts; builders have the job’s traveller.');
+      const row = db.select().from(projects).where(eq(projects.id, id)).get();
+      if (!row) throw new NotFound('The project');
+      return travellerFor(db, id);
     },
 
     /** A client's request: every item checked against its design and the shop's price book. */

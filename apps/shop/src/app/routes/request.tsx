@@ -6,6 +6,9 @@ import { paths } from '../../config/paths';
 import { useCreateEstimate, useEstimate } from '../../features/estimates/api/estimates';
 import { EstimateEditor } from '../../features/estimates/components/estimate-editor';
 import { useProject } from '../../features/projects/api/get-project';
+import { useLayouts } from '../../features/projects/api/get-layouts';
+import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../components/shop-paper';
+import { useState } from 'react';
 import { canSeeRequests } from '../../lib/policies';
 
 function RequestPage({ id }: { id: string }) {
@@ -13,6 +16,8 @@ function RequestPage({ id }: { id: string }) {
   const latestId = q.data?.estimates.at(-1)?.id;
   const estimate = useEstimate(latestId);
   const create = useCreateEstimate();
+  const [showLayouts, setShowLayouts] = useState(false);
+  const layouts = useLayouts(id, showLayouts);
   if (q.isPending) return <p>Loading…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
   const p = q.data;
@@ -48,6 +53,23 @@ function RequestPage({ id }: { id: string }) {
         ) : null}
       </Panel>
       {estimate.data ? <EstimateEditor key={estimate.data.id} estimate={estimate.data} /> : null}
+      {!showLayouts ? (
+        <p className="mb-6">
+          <Button variant="quiet" onClick={() => setShowLayouts(true)}>
+            Show the cut list and sheet layouts
+          </Button>
+        </p>
+      ) : layouts.isPending ? (
+        <p className="mb-6">Laying out the sheets…</p>
+      ) : layouts.isError ? (
+        <Notice tone="error">{layouts.error.message}</Notice>
+      ) : (
+        <>
+          <CutListPanel layouts={layouts.data} />
+          <SheetLayoutsPanel layouts={layouts.data} />
+          <PickListPanel layouts={layouts.data} />
+        </>
+      )}
     </>
   );
 }
