@@ -35,6 +35,19 @@ test.describe('the owner', () => {
     await page.goto('/board');
     await expect(page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' })).toBeVisible();
   });
+
+  test('sets the job’s due date on its traveller, and the board shows it', async ({ page }) => {
+    await page.goto('/board');
+    await page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByRole('link', { name: /Traveller/ }).click();
+    const form = page.getByRole('form', { name: 'Assign the job' });
+    await expect(form.getByLabel('Builder')).toHaveValue(/.+/);
+    await form.getByLabel('Due').fill('2026-12-24');
+    await form.getByRole('button', { name: 'Save' }).click();
+    await expect(form.getByText('Saved.')).toBeVisible();
+    await expect(page.getByText(/due 2026-12-24/).first()).toBeVisible();
+    await page.goto('/board');
+    await expect(page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByText(/due 2026-12-24/)).toBeVisible();
+  });
 });
 
 test('the demo builder sees only the board', async ({ page }) => {

@@ -5,3 +5,4 @@ export const isStaff = (u: User | null | undefined) => u?.role === 'owner' || u?
 export const canSeeBoard = isStaff;
 export const canSeeRequests = (u: User | null | undefined) => u?.role === 'owner';
 export const canInviteBuilders = (u: User | null | undefined) => u?.role === 'owner';
+export const canAssignJobs = (u: User | null | undefined) => u?.role === 'owner';

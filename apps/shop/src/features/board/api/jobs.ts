@@ -57,3 +57,15 @@ export type JobTraveller = Traveller & { job: Job; units: LengthUnit };
 export const travellerQueryOptions = (id: string) =>
   queryOptions({ queryKey: ['jobs', id, 'traveller'], queryFn: async () => (await api<{ traveller: JobTraveller }>(`/jobs/${encodeURIComponent(id)}/traveller`)).traveller, staleTime: 60_000 });
 export const useTraveller = (id: string) => useQuery(travellerQueryOptions(id));
+
+/** The owner assigns a builder and a due date (either may be cleared with null). */
+export function useUpdateJob() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, ...body }: { id: string; builderId?: string | null; dueDate?: string | null }) => api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}`, { method: 'PATCH', body }),
+    onSuccess: (_r, v) => {
+      void qc.invalidateQueries({ queryKey: jobsQueryOptions().queryKey });
+      void qc.invalidateQueries({ queryKey: travellerQueryOptions(v.id).queryKey });
+    },
+  });
+}

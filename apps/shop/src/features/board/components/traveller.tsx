@@ -2,14 +2,15 @@ import { Link } from 'react-router-dom';
 import { Button, Notice, Panel } from '@benchwright/ui';
 import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../../components/shop-paper';
 import { paths } from '../../../config/paths';
-import { useStages, useTraveller } from '../api/jobs';
+import type { ReactNode } from 'react';
+import { useStages, useTraveller, type JobTraveller } from '../api/jobs';
 
 /**
  * The builder's shop paper for one job, on screen and printed: hours against
  * the budget, the cut list by piece, every sheet drawn with its cut order, the
  * hardware pick list, the banding to have on hand and the cautions.
  */
-export function TravellerPage({ id }: { id: string }) {
+export function TravellerPage({ id, assignment }: { id: string; assignment?: (job: JobTraveller['job']) => ReactNode }) {
   const q = useTraveller(id);
   const stages = useStages();
   if (q.isPending) return <p>Laying out the sheets for this job…</p>;
@@ -33,6 +34,7 @@ export function TravellerPage({ id }: { id: string }) {
         {t.job.project.notes ? `“${t.job.project.notes}” · ` : ''}now in {stageLabel(t.job.stage)} · builder {t.job.builder?.name ?? 'not set'}
         {t.job.dueDate ? ` · due ${t.job.dueDate}` : ''} · about {Math.round(t.massKg)} kg finished
       </p>
+      {assignment?.(t.job)}
 
       <Panel title="Hours">
         <table className="w-full text-left tabular-nums">

@@ -4,7 +4,7 @@ import { api } from '@benchwright/ui';
 
 export const getTeam = async () => (await api<{ users: User[] }>('/users')).users;
 export const teamQueryOptions = () => queryOptions({ queryKey: ['team'], queryFn: getTeam });
-export const useTeam = () => useQuery(teamQueryOptions());
+export const useTeam = (enabled = true) => useQuery({ ...teamQueryOptions(), enabled });
 
 export const inviteBuilder = (body: InvitationBody) => api<{ user: User }>('/users/invitations', { body });
 export function useInviteBuilder() {
