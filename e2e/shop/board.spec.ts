@@ -57,4 +57,9 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   await expect(paper.getByText(/riving knife/)).toBeVisible();
   await expect(paper.getByText(/anchor this/i)).toBeVisible();
   await expect(paper).not.toContainText('$');
+  // the same paper as a PDF
+  const pdf = await page.request.get(await paper.getByRole('link', { name: 'Download PDF' }).getAttribute('href').then((h) => new URL(h!, page.url()).href));
+  expect(pdf.status()).toBe(200);
+  expect(pdf.headers()['content-type']).toBe('application/pdf');
+  expect((await pdf.body()).subarray(0, 5).toString()).toBe('%PDF-');
 });

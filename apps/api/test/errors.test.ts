@@ -34,6 +34,7 @@ const ROUTES: [string, string][] = [
   ['post', '/api/webhooks/stripe'],
   ['get', '/api/jobs'],
   ['get', '/api/jobs/nope/traveller'],
+  ['get', '/api/jobs/nope/traveller.pdf'],
   ['get', '/api/projects/nope/layouts'],
   ['patch', '/api/jobs/nope'],
   ['post', '/api/jobs/nope/time'],

@@ -89,6 +89,14 @@ async function until<T>(f: () => T | Promise<T>, ok: (v: T) => boolean, what: st
 async function pay(url: string, card: string) {
   return fetch(url, { method: 'POST', redirect: 'manual', headers: { 'Content-Type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card_number: card, exp: '12/34', cvc: '123', name: 'Priya Natarajan' }) });
 }
+/** a response body as bytes (supertest would otherwise try to parse the PDF) */
+function binary(req: request.Test) {
+  return req.buffer(true).parse((res, cb) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => cb(null, Buffer.concat(chunks)));
+  });
+}
 function pdfText(buf: Buffer): string {
   const f = join(mkdtempSync(join(tmpdir(), 'bw-pdf-')), 'e.pdf');
   writeFileSync(f, buf);
@@ -142,11 +150,7 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(em.to[0].address).toBe('priya@example.com');
     expect(em.text).toContain(`/projects/${projectId}`);
     expect(em.attachments?.[0].contentType).toBe('application/pdf');
-    const pdf = await priya.get(`/api/estimates/${estimateId}/pdf`).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const pdf = await binary(priya.get(`/api/estimates/${estimateId}/pdf`));
     expect(pdf.headers['content-type']).toBe('application/pdf');
     const text = pdfText(pdf.body as Buffer);
     const usd = (c: number) => new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(c / 100);
@@ -261,6 +265,17 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(t.materials[0].sheets[0].cuts[0]).toMatchObject({ order: 1 });
     expect(t.cautions.join(' ')).toMatch(/riving knife/);
     expect(JSON.stringify(t)).not.toMatch(/cents|price/i);
+    // and as a PDF for the shop floor: the same cut list, the sheets one to a page, the cautions, no money
+    const pdf = await binary(idris.get(`/api/jobs/${job.id}/traveller.pdf`));
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers['content-type']).toBe('application/pdf');
+    const text = pdfText(pdf.body as Buffer);
+    expect(text).toContain(`Traveller: ${t.job.clientName}`);
+    expect(text).toContain(t.pieces[0].parts[0].name);
+    expect(text).toMatch(new RegExp(`sheet 1 of ${t.materials[0].sheetCount}`));
+    expect(text).toMatch(/riving knife/);
+    expect(text).not.toContain('$');
+    expect((await priya.get(`/api/jobs/${job.id}/traveller.pdf`)).status).toBe(403);
     expect((await priya.get(`/api/jobs/${job.id}/traveller`)).status).toBe(403);
     expect((await idris.get('/api/jobs/no-such-job/traveller')).status).toBe(404);
   });

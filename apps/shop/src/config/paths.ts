@@ -7,6 +7,7 @@ export const paths = {
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
   board: { path: '/board', getHref: () => '/board' },
   job: { path: '/jobs/:id', getHref: (id: string) => `/jobs/${encodeURIComponent(id)}` },
+  travellerPdf: { getHref: (id: string) => `/api/jobs/${encodeURIComponent(id)}/traveller.pdf` },
   requests: { path: '/requests', getHref: () => '/requests' },
   request: { path: '/requests/:id', getHref: (id: string) => `/requests/${encodeURIComponent(id)}` },
   team: { path: '/team', getHref: () => '/team' },

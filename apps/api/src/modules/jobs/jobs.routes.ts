@@ -16,6 +16,10 @@ export function jobsRoutes(service: JobsService): Router {
   r.get('/:id', (req, res) => {
     res.json({ job: service.get(req.params.id) });
   });
+  r.get('/:id/traveller.pdf', async (req, res) => {
+    const { pdf, filename } = await service.travellerPdf(req.params.id);
+    res.type('application/pdf').attachment(filename).send(pdf);
+  });
   r.get('/:id/traveller', (req, res) => {
     res.json({ traveller: service.traveller(req.params.id) });
   });

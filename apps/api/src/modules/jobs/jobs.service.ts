@@ -5,6 +5,7 @@ import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, jobs, payments, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, travellerFor } from '../../lib/engine';
+import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent, setStatus } from '../../lib/timeline';
@@ -76,6 +77,24 @@ export function createJobsService(db: Db, portalUrl: string) {
     traveller(id: string) {
       const j = row(id);
       return { job: view(j), ...travellerFor(db, j.projectId) };
+    },
+    /** The traveller as a PDF for the shop floor. */
+    async travellerPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {
+      const { job, units, ...t } = this.traveller(id);
+      const labels = Object.fromEntries(db.select().from(stages).all().map((x) => [x.key, x.label]));
+      const pdf = await renderTravellerPdf({
+        shopName: loadPricing(db).shopName,
+        clientName: job.clientName,
+        notes: job.project.notes,
+        stageLabel: labels[job.stage] ?? job.stage,
+        builderName: job.builder?.name ?? null,
+        dueDate: job.dueDate,
+        units,
+        stageLabels: labels,
+        hoursLogged: job.hoursLogged,
+        traveller: t,
+      });
+      return { pdf, filename: `traveller-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };
     },
     update(actor: User, id: string, input: { stageKey?: StageKey; position?: number; builderId?: string | null; dueDate?: string | null }) {
       const j = row(id);

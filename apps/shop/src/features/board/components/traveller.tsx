@@ -26,9 +26,14 @@ export function TravellerPage({ id, assignment }: { id: string; assignment?: (jo
       </p>
       <header className="mb-4 flex flex-wrap items-baseline justify-between gap-3">
         <h1 className="text-2xl font-bold">Traveller: {t.job.clientName}</h1>
-        <Button variant="quiet" className="print:hidden" onClick={() => window.print()}>
-          Print
-        </Button>
+        <span className="flex gap-3 print:hidden">
+          <a href={paths.travellerPdf.getHref(t.job.id)} className="px-4 py-2 font-semibold text-wood underline">
+            Download PDF
+          </a>
+          <Button variant="quiet" onClick={() => window.print()}>
+            Print
+          </Button>
+        </span>
       </header>
       <p className="mb-4">
         {t.job.project.notes ? `“${t.job.project.notes}” · ` : ''}now in {stageLabel(t.job.stage)} · builder {t.job.builder?.name ?? 'not set'}

@@ -1,0 +1,159 @@
+import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
+import { formatLength, type LengthUnit, type Traveller } from '@benchwright/pricing';
+import { INK, PdfDrawing, WOOD } from './pdf-drawing';
+
+const s = StyleSheet.create({
+  page: { fontFamily: 'Source Sans 3', fontSize: 9, color: INK, padding: 36, paddingBottom: 52 },
+  head: { flexDirection: 'row', justifyContent: 'space-between', borderBottomWidth: 2, borderBottomColor: WOOD, paddingBottom: 6, marginBottom: 10 },
+  title: { fontSize: 15, fontWeight: 700 },
+  muted: { color: '#5b5148' },
+  h2: { fontSize: 12, fontWeight: 700, marginTop: 10, marginBottom: 4 },
+  h3: { fontSize: 10, fontWeight: 700, marginTop: 6, marginBottom: 2 },
+  row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: '#d8ccb8', paddingVertical: 2 },
+  th: { fontWeight: 700 },
+  footer: { position: 'absolute', bottom: 22, left: 36, right: 36, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: '#5b5148' },
+});
+
+export interface TravellerPdfInput {
+  shopName: string;
+  clientName: string;
+  notes: string;
+  stageLabel: string;
+  builderName: string | null;
+  dueDate: string | null;
+  units: LengthUnit;
+  stageLabels: Record<string, string>;
+  hoursLogged: Record<string, number | undefined>;
+  traveller: Traveller;
+}
+
+const COLS = [
+  { key: 'name', label: 'Part', flex: 2.2 },
+  { key: 'quantity', label: 'Qty', flex: 0.5 },
+  { key: 'length', label: 'Length', flex: 1 },
+  { key: 'width', label: 'Width', flex: 1 },
+  { key: 'thick', label: 'Thick', flex: 0.7 },
+  { key: 'material', label: 'Material', flex: 1.8 },
+  { key: 'grain', label: 'Grain', flex: 0.6 },
+  { key: 'band', label: 'Band', flex: 0.9 },
+] as const;
+
+function TravellerDocument({ d }: { d: TravellerPdfInput }) {
+  const t = d.traveller;
+  const len = (mm: number) => formatLength(mm, { unit: d.units });
+  return (
+    <Document title={`Traveller: ${d.clientName}`} author={d.shopName}>
+      <Page size="LETTER" style={s.page}>
+        <View style={s.head}>
+          <View>
+            <Text style={s.title}>Traveller: {d.clientName}</Text>
+            {d.notes ? <Text style={s.muted}>“{d.notes}”</Text> : null}
+          </View>
+          <View style={{ alignItems: 'flex-end' }}>
+            <Text>{d.shopName}</Text>
+            <Text>Now in {d.stageLabel}</Text>
+            <Text>Builder: {d.builderName ?? 'not set'}</Text>
+            <Text>Due: {d.dueDate ?? 'not set'}</Text>
+          </View>
+        </View>
+
+        <Text style={s.h2}>Hours</Text>
+        <View style={[s.row, s.th]}>
+          <Text style={{ flex: 2 }}>Stage</Text>
+          <Text style={{ flex: 1, textAlign: 'right' }}>Budget (h)</Text>
+          <Text style={{ flex: 1, textAlign: 'right' }}>Logged (h)</Text>
+        </View>
+        {Object.entries(t.hoursByStage)
+          .filter(([, h]) => h > 0)
+          .map(([k, h]) => (
+            <View key={k} style={s.row}>
+              <Text style={{ flex: 2 }}>{d.stageLabels[k] ?? k}</Text>
+              <Text style={{ flex: 1, textAlign: 'right' }}>{h.toFixed(1)}</Text>
+              <Text style={{ flex: 1, textAlign: 'right' }}>{(d.hoursLogged[k] ?? 0).toFixed(1)}</Text>
+            </View>
+          ))}
+
+        <Text style={s.h2}>Cut list</Text>
+        {t.pieces.map((p, i) => (
+          <View key={i}>
+            <Text style={s.h3}>
+              {p.title} x {p.quantity}
+            </Text>
+            <View style={[s.row, s.th]} fixed={false}>
+              {COLS.map((c) => (
+                <Text key={c.key} style={{ flex: c.flex }}>
+                  {c.label}
+                </Text>
+              ))}
+            </View>
+            {p.parts.map((part, j) => {
+              const cells: Record<(typeof COLS)[number]['key'], string> = {
+                name: part.name,
+                quantity: String(part.quantity),
+                length: len(part.lengthMm),
+                width: len(part.widthMm),
+                thick: len(part.thicknessMm),
+                material: part.materialName,
+                grain: part.grain,
+                band: part.banding || '-',
+              };
+              return (
+                <View key={j} style={s.row} wrap={false}>
+                  {COLS.map((c) => (
+                    <Text key={c.key} style={{ flex: c.flex }}>
+                      {cells[c.key]}
+                    </Text>
+                  ))}
+                </View>
+              );
+            })}
+          </View>
+        ))}
+
+        <Text style={s.h2}>Pick list</Text>
+        {t.pickList.map((h) => (
+          <View key={h.name} style={s.row}>
+            <Text style={{ flex: 3 }}>{h.name}</Text>
+            <Text style={{ flex: 1 }}>{h.kind.replace(/_/g, ' ')}</Text>
+            <Text style={{ flex: 1, textAlign: 'right' }}>{h.pieces}</Text>
+          </View>
+        ))}
+        {t.bandingMetres.map((b) => (
+          <Text key={b.name} style={{ marginTop: 3 }}>
+            {b.name}: {b.metres.toFixed(1)} m of edges to band (before waste)
+          </Text>
+        ))}
+
+        <Text style={s.h2}>Cautions</Text>
+        {t.cautions.map((c) => (
+          <Text key={c} style={{ marginBottom: 2 }}>
+            · {c}
+          </Text>
+        ))}
+
+        {t.materials.flatMap((m) =>
+          m.sheets.map((sh) => (
+            <View key={`${m.materialName}-${sh.number}`} break wrap={false}>
+              <Text style={s.h2}>
+                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)} % used, {sh.cuts.length} cuts
+              </Text>
+              <PdfDrawing drawing={sh.drawing} width={540} />
+            </View>
+          )),
+        )}
+
+        <View style={s.footer} fixed>
+          <Text>
+            {d.shopName} · traveller for {d.clientName}
+          </Text>
+          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+        </View>
+      </Page>
+    </Document>
+  );
+}
+
+/** Renders a job's traveller as a PDF: cut list, pick list, cautions, then one page per sheet. */
+export function renderTravellerPdf(input: TravellerPdfInput): Promise<Buffer> {
+  return renderToBuffer(<TravellerDocument d={input} />);
+}
