@@ -1,7 +1,7 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { designs, formatLength, LINE_GROUP_LABELS, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing';
 import { dollars } from '../mail-templates';
-import { INK, PdfDrawing, WOOD } from './pdf-drawing';
+import { INK, PageFooter, PdfDrawing, WOOD } from './pdf-drawing';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 10, color: INK, padding: 40, paddingBottom: 56 },
@@ -18,7 +18,6 @@ const s = StyleSheet.create({
   totals: { marginTop: 10, marginLeft: 'auto', width: 240 },
   totalRow: { flexDirection: 'row', justifyContent: 'space-between', paddingVertical: 2 },
   grand: { fontWeight: 700, fontSize: 12, borderTopWidth: 1, borderTopColor: INK, marginTop: 3, paddingTop: 4 },
-  footer: { position: 'absolute', bottom: 24, left: 40, right: 40, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: '#5b5148' },
   caution: { marginBottom: 3 },
 });
 
@@ -161,12 +160,7 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
             </Text>
           ))}
         </View>
-        <View style={s.footer} fixed>
-          <Text>
-            {d.shop.name} · Estimate {d.number}, revision {d.revision}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <PageFooter>{`${d.shop.name} · Estimate ${d.number}, revision ${d.revision}`}</PageFooter>
       </Page>
     </Document>
   );

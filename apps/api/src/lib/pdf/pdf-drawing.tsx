@@ -58,3 +58,15 @@ export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number
   );
 }
 
+
+const footerStyle = { position: 'absolute', bottom: 22, left: 36, right: 36, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: '#5b5148' } as const;
+
+/** The running footer of every page: what the document is, and "Page n of m". */
+export function PageFooter({ children }: { children: string }) {
+  return (
+    <View style={footerStyle} fixed>
+      <Text>{children}</Text>
+      <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+    </View>
+  );
+}

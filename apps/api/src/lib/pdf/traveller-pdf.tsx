@@ -1,6 +1,6 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { formatLength, type LengthUnit, type Traveller } from '@benchwright/pricing';
-import { INK, PdfDrawing, WOOD } from './pdf-drawing';
+import { INK, PageFooter, PdfDrawing, WOOD } from './pdf-drawing';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 9, color: INK, padding: 36, paddingBottom: 52 },
@@ -11,7 +11,6 @@ const s = StyleSheet.create({
   h3: { fontSize: 10, fontWeight: 700, marginTop: 6, marginBottom: 2 },
   row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: '#d8ccb8', paddingVertical: 2 },
   th: { fontWeight: 700 },
-  footer: { position: 'absolute', bottom: 22, left: 36, right: 36, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: '#5b5148' },
 });
 
 export interface TravellerPdfInput {
@@ -142,12 +141,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           )),
         )}
 
-        <View style={s.footer} fixed>
-          <Text>
-            {d.shopName} · traveller for {d.clientName}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
-        </View>
+        <PageFooter>{`${d.shopName} · traveller for ${d.clientName}`}</PageFooter>
       </Page>
     </Document>
   );
