@@ -1,6 +1,7 @@
 import { createBrowserRouter, createMemoryRouter, type RouteObject } from 'react-router-dom';
 import { Layout } from '../components/layout';
 import { paths } from '../config/paths';
+import { DesignRoute } from './routes/design';
 import { ForgotPasswordRoute } from './routes/forgot-password';
 import { HomeRoute } from './routes/home';
 import { ProjectRoute } from './routes/project';
@@ -15,6 +16,7 @@ export const routes: RouteObject[] = [
     element: <Layout />,
     children: [
       { path: paths.home.path, element: <HomeRoute /> },
+      { path: paths.design.path, element: <DesignRoute /> },
       { path: paths.signUp.path, element: <SignUpRoute /> },
       { path: paths.signIn.path, element: <SignInRoute /> },
       { path: paths.verifyEmail.path, element: <VerifyEmailRoute /> },

@@ -6,6 +6,7 @@ export const paths = {
   verifyEmail: { path: '/verify-email', getHref: () => '/verify-email' },
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
+  design: { path: '/designs/:slug', getHref: (slug: string) => `/designs/${encodeURIComponent(slug)}` },
   projects: { path: '/projects', getHref: () => '/projects' },
   project: { path: '/projects/:id', getHref: (id: string) => `/projects/${encodeURIComponent(id)}` },
   /** served by the API through the dev proxy; a plain link so the browser downloads it */

@@ -13,12 +13,15 @@ export function HomeRoute() {
           {DESIGN_SLUGS.map((slug) => (
             <li key={slug} className="rounded border border-rule bg-paper p-4">
               <h3 className="font-semibold">{designs[slug].name}</h3>
-              <p className="text-ink-soft">{designs[slug].summary}</p>
+              <p className="mb-2 text-ink-soft">{designs[slug].summary}</p>
+              <Link to={paths.design.getHref(slug)} className="font-semibold text-wood underline" aria-label={`Configure the ${designs[slug].name.toLowerCase()}`}>
+                Set it to your space
+              </Link>
             </li>
           ))}
         </ul>
         <p className="mt-4">
-          <Link to={paths.signUp.getHref()} className="text-wood underline">Create an account</Link> to ask for an estimate.
+          Set a design to your space to see its drawing and a budget at once; <Link to={paths.signUp.getHref()} className="text-wood underline">create an account</Link> to ask for an estimate.
         </p>
       </Panel>
     </>

@@ -1,0 +1,41 @@
+import { expect, test } from '@playwright/test';
+import { authFile } from '../support';
+
+// runs after projects.spec.ts (which counts Priya's projects), so her new request does not disturb it
+test.use({ storageState: authFile('priya') });
+
+test('a client sets a wall cabinet to her space, sees the drawing and budget change, is told what cannot be built, and asks for an estimate', async ({ page }) => {
+  await page.goto('/');
+  await page.getByRole('link', { name: 'Configure the wall cabinet' }).click();
+  await expect(page.getByRole('heading', { name: 'Wall cabinet', level: 1 })).toBeVisible();
+  const budget = page.getByLabel('Budget range');
+  await expect(budget).toHaveText(/^\$[\d,]+\.\d\d to \$[\d,]+\.\d\d$/);
+  await expect(page.getByRole('figure', { name: 'Drawing of the wall cabinet' }).locator('svg')).toBeVisible();
+  const before = await budget.textContent();
+
+  // wider costs more
+  await page.getByLabel('Width').fill('40');
+  await expect(budget).not.toHaveText(before ?? '');
+  // too tall is refused, with the limit
+  await page.getByLabel('Height').fill('60');
+  await expect(page.getByText('This cannot be built as set:')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Request an estimate' })).toBeDisabled();
+  await page.getByLabel('Height').fill('30 1/2');
+  await expect(page.getByText('This cannot be built as set:')).toHaveCount(0);
+  await expect(budget).toBeVisible();
+  // a typing slip is caught beside the field and changes nothing
+  await page.getByLabel('Depth').fill('12 ft deep');
+  await expect(page.locator('#dim-depth-error')).toBeVisible();
+  await page.getByLabel('Depth').fill('12');
+
+  // the standard size comes back with one click, in the fields too
+  await page.getByRole('button', { name: 'Back to our standard size' }).click();
+  await expect(page.getByLabel('Width')).toHaveValue('30"');
+  await page.getByLabel('Width').fill('40');
+  await page.getByLabel('Anything the shop should know').fill('Over the laundry sink, painted later.');
+  await page.getByRole('button', { name: 'Request an estimate' }).click();
+  await expect(page).toHaveURL(/\/projects\/[0-9a-f-]+$/);
+  await expect(page.getByText('We are working out your estimate')).toBeVisible();
+  await page.goto('/projects');
+  await expect(page.getByRole('list').getByRole('listitem')).toHaveCount(2);
+});
