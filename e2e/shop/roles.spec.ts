@@ -63,3 +63,24 @@ test('a client who signs in to the shop app is told it is for the shop', async (
   await expect(page.getByRole('heading', { name: 'This app is for the shop' })).toBeVisible();
   await expect(page.getByRole('navigation', { name: 'Shop' })).toHaveCount(0);
 });
+
+test.describe('the owner, on payments', () => {
+  test.use({ storageState: authFile('owner') });
+
+  test('refunds part of a paid deposit through the card processor and sees it confirmed', async ({ page }) => {
+    await page.goto('/payments');
+    const table = page.getByRole('table', { name: 'Payments' });
+    // Tomasz's deposit, paid in the seed
+    const row = table.getByRole('row').filter({ hasText: 'Tomasz Wierzbicki' }).filter({ hasText: 'deposit' });
+    await expect(row.getByRole('cell', { name: 'paid', exact: true })).toBeVisible();
+    const form = row.getByRole('form', { name: /Refund Tomasz Wierzbicki's deposit/ });
+    await form.getByLabel('Amount to refund').fill('99999');
+    await form.getByRole('button', { name: 'Refund' }).click();
+    await expect(form.getByRole('alert')).toHaveText(/at most \$[\d,]+\.\d\d is left to refund/);
+    await form.getByLabel('Amount to refund').fill('25');
+    page.once('dialog', (d) => void d.accept());
+    await form.getByRole('button', { name: 'Refund' }).click();
+    await expect(row.getByRole('cell', { name: 'partly refunded' })).toBeVisible({ timeout: 20_000 });
+    await expect(row.getByRole('cell', { name: '$25.00' })).toBeVisible();
+  });
+});

@@ -305,6 +305,9 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     const r = await owner.post(`/api/payments/${deposit.id}/refund`).send({ amountCents: 2500 });
     expect(r.status).toBe(202);
     await until(() => db.select().from(payments).all().find((p) => p.id === deposit.id)!.status, (s) => s === 'partially_refunded', 'the refund');
+    const listed = (await owner.get('/api/payments')).body.payments.find((p: { id: string }) => p.id === deposit.id);
+    expect(listed).toMatchObject({ clientName: 'Priya Natarajan', kind: 'deposit', status: 'partially_refunded', refundedCents: 2500 });
+    expect(listed).not.toHaveProperty('checkoutUrl');
     const mails = await until(inbox, (m) => m.some((x) => /Refund of \$25\.00/.test(x.subject)), 'the refund notice');
     expect(mails.filter((x) => /Refund of/.test(x.subject))).toHaveLength(1);
     const job = (await owner.get('/api/jobs')).body.jobs[0];

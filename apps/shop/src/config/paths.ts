@@ -11,6 +11,7 @@ export const paths = {
   requests: { path: '/requests', getHref: () => '/requests' },
   request: { path: '/requests/:id', getHref: (id: string) => `/requests/${encodeURIComponent(id)}` },
   team: { path: '/team', getHref: () => '/team' },
+  payments: { path: '/payments', getHref: () => '/payments' },
 } as const;
 
 export const PORTAL_URL = import.meta.env.VITE_PORTAL_URL ?? 'http://127.0.0.1:5173';

@@ -6,3 +6,4 @@ export const canSeeBoard = isStaff;
 export const canSeeRequests = (u: User | null | undefined) => u?.role === 'owner';
 export const canInviteBuilders = (u: User | null | undefined) => u?.role === 'owner';
 export const canAssignJobs = (u: User | null | undefined) => u?.role === 'owner';
+export const canSeePayments = (u: User | null | undefined) => u?.role === 'owner';

@@ -147,8 +147,16 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
       }
     },
 
+    /** Every payment, newest first, with its client; no card processor secrets, only its ids. */
     list() {
-      return db.select().from(payments).orderBy(desc(payments.createdAt)).all();
+      return db
+        .select({ id: payments.id, projectId: payments.projectId, clientName: users.name, kind: payments.kind, status: payments.status, amountCents: payments.amountCents, refundedCents: payments.refundedCents, stripePaymentIntentId: payments.stripePaymentIntentId, createdAt: payments.createdAt })
+        .from(payments)
+        .innerJoin(projects, eq(projects.id, payments.projectId))
+        .innerJoin(users, eq(users.id, projects.clientId))
+        .orderBy(desc(payments.createdAt))
+        .all()
+        .map((p) => ({ ...p, createdAt: p.createdAt.toISOString() }));
     },
 
     /**

@@ -1,0 +1,14 @@
+import { Panel } from '@benchwright/ui';
+import { RoleGate } from '../../components/layout';
+import { PaymentsTable } from '../../features/payments/components/payments-table';
+import { canSeePayments } from '../../lib/policies';
+
+export function PaymentsRoute() {
+  return (
+    <RoleGate allow={canSeePayments}>
+      <Panel title="Payments and refunds">
+        <PaymentsTable />
+      </Panel>
+    </RoleGate>
+  );
+}
