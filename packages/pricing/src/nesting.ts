@@ -737,6 +737,16 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
     // part visits allowed (deterministic, unlike a clock): bounds the hardest instances to about 1.3 s here, under the 2 s target
     ctx.limit = thorough ? 2_400_000 : 30_000;
     const keys: SortKey[] = thorough ? ['area', 'long', 'width', 'length', 'perimeter', 'short'] : ['area', 'long', 'width'];
+    // the exact search (nesting-exact.ts), for when the greedy fills stop one sheet over the bound
+    const area = items.reduce((a, it) => a + it.area, 0);
+    // under 2 % of the bound's sheets left over: the greedy fills rarely get there, the exact search is the hope
+    const tight = lowerBound > 0 && 1 - area / (lowerBound * ctx.L * ctx.W) < 0.02;
+    let exactRan = false;
+    const tryExact = (visits: number) => {
+      exactRan = true;
+      const bins = exactBins(items, lowerBound, ctx, Math.max(0, visits) * STEPS_PER_VISIT, options.seed ?? 20261201);
+      if (bins) consider({ bins });
+    };
     for (const key of keys) {
       const order = sortItems(items, key);
       for (const cfg of thorough ? ALL_CONFIGS : QUICK_CONFIGS) {
@@ -744,16 +754,15 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
         if (done()) break;
       }
       if (done()) break;
+      // nearly full sheets: search exactly after the first round of greedy fills, with most of the work allowed
+      if (thorough && tight && !exactRan && best!.bins.length === lowerBound + 1) tryExact(ctx.limit * 0.7);
+      if (done()) break;
     }
     for (const cfg of thorough ? SPACE_CONFIGS : []) if (!done()) consider(greedy(items, cfg, ctx));
     const rand = seededRandom(options.seed ?? 20261201);
     if (!done()) consider(eliminateBins(best!, ctx, QUICK_CONFIGS, lowerBound, { n: thorough ? 4000 : 60 }));
-    // one sheet over the bound: an exact search for a layout on the bound's sheets, with half the work allowed
-    if (thorough && !done() && best!.bins.length === lowerBound + 1) {
-      const steps = Math.max(0, ctx.limit / 2 - ctx.spent) * STEPS_PER_VISIT;
-      const bins = exactBins(items, lowerBound, ctx, steps, options.seed ?? 20261201);
-      if (bins) consider({ bins });
-    }
+    // otherwise, one sheet over the bound after the greedy fills: the exact search with what is left of the first half
+    if (thorough && !exactRan && !done() && best!.bins.length === lowerBound + 1) tryExact(ctx.limit / 2 - ctx.spent);
     if (thorough) {
       const n = items.length;
       const trials = Math.max(2, Math.min(12, Math.floor(6000 / n)));
