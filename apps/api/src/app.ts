@@ -21,6 +21,8 @@ import { createEstimatesService } from './modules/estimates/estimates.service';
 import { estimatesRoutes, projectMoneyRoutes } from './modules/estimates/estimates.routes';
 import { createJobsService } from './modules/jobs/jobs.service';
 import { jobsRoutes } from './modules/jobs/jobs.routes';
+import { mailRoutes } from './modules/mail/mail.routes';
+import { createMailService } from './modules/mail/mail.service';
 import { createPaymentsService } from './modules/payments/payments.service';
 import { paymentsRoutes, webhookRoute } from './modules/payments/payments.routes';
 
@@ -77,6 +79,7 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
+  app.use('/api/mail', requireRole('owner'), mailRoutes(createMailService(db)));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
   return Object.assign(app, { services: { estimates: estimatesService, payments: paymentsService, jobs: jobsService, auth } });

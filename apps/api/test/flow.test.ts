@@ -355,11 +355,23 @@ describe('SMTP down while sending', () => {
     expect(pending, JSON.stringify(db.select().from(outbox).all().map((m) => [m.to, m.status, m.attempts, m.lastError]))).toHaveLength(1);
     // the worker tried, failed, and keeps every message for a later attempt
     expect(db.select().from(outbox).all().some((m) => m.status === 'pending' && m.attempts >= 1 && m.lastError)).toBe(true);
+    // the owner sees it among the failed mail, with the relay's error; a client may not look
+    const listed: { id: string; attempts: number; lastError: string | null }[] = (await owner.get('/api/mail/failed')).body.mails;
+    const tried = db.select().from(outbox).all().filter((m) => m.status === 'pending' && m.attempts >= 1);
+    expect(listed.map((m) => m.id).sort()).toEqual(tried.map((m) => m.id).sort());
+    expect(listed.length).toBeGreaterThan(0);
+    expect(listed.every((m) => m.attempts >= 1 && m.lastError)).toBe(true);
+    const failed = listed[0];
+    expect((await guild.get('/api/mail/failed')).status).toBe(403);
     maildev = new MailDev({ smtp: SMTP, web: WEB, ip: '127.0.0.1', webIp: '127.0.0.1', mailDirectory: mkdtempSync(join(tmpdir(), 'bw-flow-mail-')), silent: true });
     await maildev.start();
-    db.$client.prepare('update outbox set next_attempt_at = 0').run();
+    // "try again now" instead of waiting out the backoff
+    for (const m of (await owner.get('/api/mail/failed')).body.mails) expect((await owner.post(`/api/mail/${m.id}/retry`)).status).toBe(202);
     const mails = await until(inbox, (m) => m.some((x) => x.to[0].address === 'guild@example.com'), 'the estimate mail after SMTP came back');
     expect(mails.filter((x) => x.to[0].address === 'guild@example.com')).toHaveLength(1);
+    await until(async () => (await owner.get('/api/mail/failed')).body.mails, (l) => l.length === 0, 'no failed mail left');
+    expect((await owner.post(`/api/mail/${failed.id}/retry`)).status).toBe(409);
+    expect((await owner.post('/api/mail/no-such/retry')).status).toBe(404);
   });
 });
 

@@ -5,6 +5,7 @@ import { AcceptInvitationRoute } from './routes/accept-invitation';
 import { BoardRoute } from './routes/board';
 import { JobRoute } from './routes/job';
 import { ForgotPasswordRoute, ResetPasswordRoute } from './routes/password';
+import { MailRoute } from './routes/mail';
 import { PaymentsRoute } from './routes/payments';
 import { RequestRoute } from './routes/request';
 import { RequestsRoute } from './routes/requests';
@@ -31,6 +32,7 @@ export const routes: RouteObject[] = [
       { path: paths.request.path, element: <RequestRoute /> },
       { path: paths.team.path, element: <TeamRoute /> },
       { path: paths.payments.path, element: <PaymentsRoute /> },
+      { path: paths.mail.path, element: <MailRoute /> },
     ],
   },
 ];

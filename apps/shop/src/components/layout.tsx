@@ -4,7 +4,7 @@ import { Button, Notice, Panel } from '@benchwright/ui';
 import { paths, PORTAL_URL } from '../config/paths';
 import { useMe } from '@benchwright/ui/auth';
 import { useSignOut } from '@benchwright/ui/auth';
-import { canInviteBuilders, canSeeBoard, canSeePayments, canSeeRequests, isStaff } from '../lib/policies';
+import { canInviteBuilders, canSeeBoard, canSeeMail, canSeePayments, canSeeRequests, isStaff } from '../lib/policies';
 
 function Frame({ nav, children }: { nav?: ReactNode; children: ReactNode }) {
   return (
@@ -63,6 +63,7 @@ export function ShopLayout() {
       {canSeeBoard(user) ? <NavLink to={paths.board.getHref()} className={link}>Board</NavLink> : null}
       {canSeePayments(user) ? <NavLink to={paths.payments.getHref()} className={link}>Payments</NavLink> : null}
       {canInviteBuilders(user) ? <NavLink to={paths.team.getHref()} className={link}>Team</NavLink> : null}
+      {canSeeMail(user) ? <NavLink to={paths.mail.getHref()} className={link}>Mail</NavLink> : null}
       <span className="ml-4 text-sm text-wood-light">{user.name}</span>
       <Button variant="quiet" className="text-wood-light" onClick={out}>
         Sign out

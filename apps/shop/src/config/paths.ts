@@ -12,6 +12,7 @@ export const paths = {
   request: { path: '/requests/:id', getHref: (id: string) => `/requests/${encodeURIComponent(id)}` },
   team: { path: '/team', getHref: () => '/team' },
   payments: { path: '/payments', getHref: () => '/payments' },
+  mail: { path: '/mail', getHref: () => '/mail' },
 } as const;
 
 export const PORTAL_URL = import.meta.env.VITE_PORTAL_URL ?? 'http://127.0.0.1:5173';

@@ -7,3 +7,4 @@ export const canSeeRequests = (u: User | null | undefined) => u?.role === 'owner
 export const canInviteBuilders = (u: User | null | undefined) => u?.role === 'owner';
 export const canAssignJobs = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeePayments = (u: User | null | undefined) => u?.role === 'owner';
+export const canSeeMail = (u: User | null | undefined) => u?.role === 'owner';
