@@ -76,3 +76,18 @@ export function Drawing({ drawing, label, maxHeight = '22rem' }: { drawing: Draw
   const svg = toSvg(drawing).replace(/ width="\d+" height="\d+"/, ` style="display:block;width:100%;height:auto;max-height:${maxHeight}"`);
   return <figure aria-label={label ?? drawing.title} className="w-full" dangerouslySetInnerHTML={{ __html: svg }} />;
 }
+
+/** A table's header row in the house style: column names, the first with the row padding. */
+export function TableHead({ columns }: { columns: readonly string[] }) {
+  return (
+    <thead>
+      <tr className="border-b border-rule">
+        {columns.map((c, i) => (
+          <th key={`${i}-${c}`} className={i === 0 ? 'py-1' : undefined}>
+            {c}
+          </th>
+        ))}
+      </tr>
+    </thead>
+  );
+}

@@ -1,3 +1,3 @@
-export { Button, Drawing, Field, formatMoney, Length, Money, Notice, Panel } from './components';
+export { Button, Drawing, Field, formatMoney, Length, Money, Notice, Panel, TableHead } from './components';
 export { api, ApiRequestError } from './api-client';
 export { applyServerIssues } from './form-errors';

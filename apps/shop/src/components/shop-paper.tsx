@@ -2,7 +2,7 @@
  * The shop paper's panels, shared by the job's traveller (board) and the
  * owner's estimate editor: cut list, sheet layouts, pick list.
  */
-import { Drawing, Length, Panel } from '@benchwright/ui';
+import { Drawing, Length, Panel, TableHead } from '@benchwright/ui';
 import type { LengthUnit, Traveller } from '@benchwright/pricing/geometry';
 
 const pct = (r: number) => `${Math.round(r * 100)} %`;
@@ -21,18 +21,7 @@ export function CutListPanel({ layouts: t }: { layouts: Layouts }) {
             {p.title} × {p.quantity}
           </h3>
           <table className="w-full text-left text-sm" aria-label={`Cut list: ${p.title}`}>
-            <thead>
-              <tr className="border-b border-rule">
-                <th className="py-1">Part</th>
-                <th>Qty</th>
-                <th>Length</th>
-                <th>Width</th>
-                <th>Thick</th>
-                <th>Material</th>
-                <th>Grain</th>
-                <th>Band</th>
-              </tr>
-            </thead>
+            <TableHead columns={['Part', 'Qty', 'Length', 'Width', 'Thick', 'Material', 'Grain', 'Band']} />
             <tbody>
               {p.parts.map((part, j) => (
                 <tr key={j} className="border-b border-rule/50">
@@ -88,13 +77,7 @@ export function PickListPanel({ layouts: t }: { layouts: Layouts }) {
   return (
     <Panel title="Pick list">
       <table className="w-full text-left" aria-label="Pick list">
-        <thead>
-          <tr className="border-b border-rule">
-            <th className="py-1">Hardware</th>
-            <th>Kind</th>
-            <th>Pieces</th>
-          </tr>
-        </thead>
+        <TableHead columns={['Hardware', 'Kind', 'Pieces']} />
         <tbody>
           {t.pickList.map((h) => (
             <tr key={h.name} className="border-b border-rule/50">

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { Button, Notice, Panel } from '@benchwright/ui';
+import { Button, Notice, Panel, TableHead } from '@benchwright/ui';
 import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../../components/shop-paper';
 import { paths } from '../../../config/paths';
 import type { ReactNode } from 'react';
@@ -43,13 +43,7 @@ export function TravellerPage({ id, assignment }: { id: string; assignment?: (jo
 
       <Panel title="Hours">
         <table className="w-full text-left tabular-nums">
-          <thead>
-            <tr className="border-b border-rule">
-              <th className="py-1">Stage</th>
-              <th>Budget (h)</th>
-              <th>Logged (h)</th>
-            </tr>
-          </thead>
+          <TableHead columns={['Stage', 'Budget (h)', 'Logged (h)']} />
           <tbody>
             {Object.entries(t.hoursByStage)
               .filter(([, h]) => h > 0)

@@ -1,4 +1,4 @@
-import { Button, Notice } from '@benchwright/ui';
+import { Button, Notice, TableHead } from '@benchwright/ui';
 import { useFailedMail, useRetryMail } from '../api/failed-mail';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' });
@@ -15,16 +15,7 @@ export function FailedMailList() {
       <p className="mb-3 text-ink-soft">These have not reached the mail server yet. Each is tried again by itself, waiting longer each time (up to five minutes); nothing is lost. Check the address, or the mail server settings, if the error says so.</p>
       {retry.isError ? <Notice tone="error">{retry.error.message}</Notice> : null}
       <table className="w-full text-left" aria-label="Failed e-mails">
-        <thead>
-          <tr className="border-b border-rule">
-            <th className="py-1">To</th>
-            <th>Subject</th>
-            <th>Tries</th>
-            <th>Last error</th>
-            <th>Next try</th>
-            <th />
-          </tr>
-        </thead>
+        <TableHead columns={['To', 'Subject', 'Tries', 'Last error', 'Next try', '']} />
         <tbody>
           {q.data.map((m) => (
             <tr key={m.id} className="border-b border-rule/50 align-top">

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { Button, formatMoney, Money, Notice } from '@benchwright/ui';
+import { Button, formatMoney, Money, Notice, TableHead } from '@benchwright/ui';
 import { usePayments, useRefund, type Payment } from '../api/payments';
 
 const STATUS: Record<Payment['status'], string> = { open: 'waiting for the client', paid: 'paid', expired: 'checkout expired', refunded: 'refunded', partially_refunded: 'partly refunded' };
@@ -62,17 +62,7 @@ export function PaymentsTable() {
       {pending.length ? <Notice>Refund asked of the card processor; the table updates when it confirms.</Notice> : null}
       {!q.data.length ? <p className="text-ink-soft">No payments yet.</p> : null}
       <table className="w-full text-left" aria-label="Payments">
-        <thead>
-          <tr className="border-b border-rule">
-            <th className="py-1">Date</th>
-            <th>Client</th>
-            <th>For</th>
-            <th>Amount</th>
-            <th>Refunded</th>
-            <th>Status</th>
-            <th>Refund</th>
-          </tr>
-        </thead>
+        <TableHead columns={['Date', 'Client', 'For', 'Amount', 'Refunded', 'Status', 'Refund']} />
         <tbody>
           {q.data.map((p) => (
             <tr key={p.id} className="border-b border-rule/50 align-top">
