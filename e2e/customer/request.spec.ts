@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { authFile } from '../support';
+import { authFile, mailTo } from '../support';
 
 // runs after projects.spec.ts (which counts Priya's projects), so her new request does not disturb it
 test.use({ storageState: authFile('priya') });
@@ -36,6 +36,13 @@ test('a client sets a wall cabinet to her space, sees the drawing and budget cha
   await page.getByRole('button', { name: 'Request an estimate' }).click();
   await expect(page).toHaveURL(/\/projects\/[0-9a-f-]+$/);
   await expect(page.getByText('We are working out your estimate')).toBeVisible();
+  // she writes to the shop; it goes on the timeline and to the owner by e-mail
+  await page.getByRole('textbox', { name: 'Write to the shop' }).fill('Could the doors be inset instead?');
+  await page.getByRole('button', { name: 'Send' }).click();
+  await expect(page.getByRole('list', { name: 'Timeline' }).getByText('Could the doors be inset instead?')).toBeVisible();
+  await expect(page.getByRole('textbox', { name: 'Write to the shop' })).toHaveValue('');
+  const mail = await mailTo('maren@fernhill.example', /A comment from Priya Natarajan/);
+  expect(mail.text).toContain('Could the doors be inset instead?');
   await page.goto('/projects');
   await expect(page.getByRole('list').getByRole('listitem')).toHaveCount(2);
 });

@@ -75,7 +75,7 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
   app.use('/api/quotes', quotesRoutes(db, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
-  app.use('/api/projects', requireRole('client', 'owner', 'builder'), projectMoneyRoutes(estimatesService, paymentsService), projectsRoutes(createProjectsService(db)));
+  app.use('/api/projects', requireRole('client', 'owner', 'builder'), projectMoneyRoutes(estimatesService, paymentsService), projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL })));
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));

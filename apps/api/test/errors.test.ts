@@ -37,6 +37,7 @@ const ROUTES: [string, string][] = [
   ['get', '/api/jobs/nope/traveller.pdf'],
   ['get', '/api/projects/nope/layouts'],
   ['get', '/api/mail/failed'],
+  ['post', '/api/projects/nope/comments'],
   ['post', '/api/mail/nope/retry'],
   ['patch', '/api/jobs/nope'],
   ['post', '/api/jobs/nope/time'],

@@ -57,6 +57,26 @@ describe('GET /api/projects/:id/layouts', () => {
   });
 });
 
+describe('POST /api/projects/:id/comments', () => {
+  it('puts the client’s and the owner’s comments on the timeline, mails the other side, and keeps everyone else out', async () => {
+    const t = await testApp();
+    const priya = await t.signIn('priya@example.com');
+    const owner = await t.signIn('maren@fernhill.example');
+    const id = (await priya.get('/api/projects')).body.projects[0].id;
+    const r = await priya.post(`/api/projects/${id}/comments`).send({ message: '  Could the bench be 2 in lower?  ' });
+    expect(r.status).toBe(201);
+    expect(r.body.project.timeline.at(-1)).toMatchObject({ kind: 'comment', message: 'Could the bench be 2 in lower?', by: 'Priya Natarajan' });
+    const reply = await owner.post(`/api/projects/${id}/comments`).send({ message: 'Yes: revision 2 is on its way.' });
+    expect(reply.body.project.timeline.at(-1)).toMatchObject({ kind: 'comment', by: 'Maren Holt' });
+    const mails = t.mails().filter((m) => /A comment from/.test(m.subject));
+    expect(mails.map((m) => m.to).sort()).toEqual(['maren@fernhill.example', 'priya@example.com']);
+    expect(mails.find((m) => m.to === 'maren@fernhill.example')!.text).toContain('Could the bench be 2 in lower?');
+    expect((await priya.post(`/api/projects/${id}/comments`).send({ message: '   ' })).body.error.issues[0]).toEqual({ path: 'message', message: 'write a comment first' });
+    expect((await (await t.signIn('tomasz@example.com')).post(`/api/projects/${id}/comments`).send({ message: 'hi' })).status).toBe(404);
+    expect((await (await t.signIn('idris@fernhill.example')).post(`/api/projects/${id}/comments`).send({ message: 'hi' })).status).toBe(403);
+  });
+});
+
 describe('POST /api/projects', () => {
   it('when every item is valid, records the request (201, requested)', async () => {
     const t = await testApp();

@@ -51,6 +51,9 @@ export const CreateProjectBody = z.object({
   notes: z.string().max(4000, 'use at most 4000 characters').default(''),
 });
 export type CreateProjectBody = z.input<typeof CreateProjectBody>;
+/** A comment on a project, from its client or the owner; it goes on the timeline and by e-mail to the other side. */
+export const CommentBody = z.object({ message: z.string().trim().min(1, 'write a comment first').max(2000, 'use at most 2000 characters') });
+export type CommentBody = z.input<typeof CommentBody>;
 
 export const PROJECT_STATUSES = ['requested', 'estimating', 'estimate_sent', 'accepted', 'deposit_paid', 'in_production', 'ready', 'delivered', 'closed', 'declined', 'expired', 'cancelled'] as const;
 export type ProjectStatus = (typeof PROJECT_STATUSES)[number];
@@ -67,6 +70,8 @@ export interface TimelineEvent {
   id: string;
   kind: string;
   message: string;
+  /** who did it, when a person did (a comment's author) */
+  by: string | null;
   at: string;
 }
 export interface Project {

@@ -1,4 +1,4 @@
-import { forwardRef, useId, type ButtonHTMLAttributes, type InputHTMLAttributes, type ReactNode } from 'react';
+import { forwardRef, useId, useState, type ButtonHTMLAttributes, type InputHTMLAttributes, type ReactNode } from 'react';
 import { formatLength, toSvg, type Drawing as DrawingData, type LengthUnit } from '@benchwright/pricing/geometry';
 
 export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: 'primary' | 'quiet' }) {
@@ -89,5 +89,32 @@ export function TableHead({ columns }: { columns: readonly string[] }) {
         ))}
       </tr>
     </thead>
+  );
+}
+
+/** A comment box: what the client and the owner say to each other about a project (sent by the caller). */
+export function CommentForm({ label, onSend, pending, error }: { label: string; onSend: (message: string, done: () => void) => void; pending: boolean; error?: string | null }) {
+  const [text, setText] = useState('');
+  return (
+    <form
+      aria-label={label}
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (text.trim()) onSend(text, () => setText(''));
+      }}
+    >
+      <label className="mb-2 block">
+        <span className="block font-semibold">{label}</span>
+        <textarea className="w-full rounded border border-rule bg-white px-2 py-1" rows={3} maxLength={2000} value={text} onChange={(e) => setText(e.target.value)} />
+      </label>
+      {error ? (
+        <p role="alert" className="mb-2 text-sm text-alert">
+          {error}
+        </p>
+      ) : null}
+      <Button type="submit" variant="quiet" className="px-0" disabled={pending || !text.trim()}>
+        {pending ? 'Sending…' : 'Send'}
+      </Button>
+    </form>
   );
 }

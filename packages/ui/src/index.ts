@@ -1,3 +1,4 @@
-export { Button, Drawing, Field, formatMoney, Length, Money, Notice, Panel, TableHead } from './components';
+export { Button, CommentForm, Drawing, Field, formatMoney, Length, Money, Notice, Panel, TableHead } from './components';
 export { api, ApiRequestError } from './api-client';
 export { applyServerIssues } from './form-errors';
+export { useComment } from './comments';

@@ -88,3 +88,9 @@ export function stageMail(shop: string, name: string, news: string, url: string)
   const a = { label: 'See my project', url };
   return { subject: `News of your piece from ${shop}`, text: text(p, a, shop), html: layout(shop, 'News from the shop', p, a) };
 }
+
+export function commentMail(shop: string, toName: string, fromName: string, comment: string, url: string): MailContent {
+  const p = [`Hello ${toName},`, `${fromName} wrote about the project:`, `“${comment}”`];
+  const a = { label: 'Open the project', url };
+  return { subject: `A comment from ${fromName}`, text: text(p, a, shop), html: layout(shop, `A comment from ${fromName}`, p, a) };
+}

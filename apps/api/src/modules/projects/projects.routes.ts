@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { CreateProjectBody } from '@benchwright/contracts';
+import { CommentBody, CreateProjectBody } from '@benchwright/contracts';
 import { Forbidden, parse } from '../../middleware/errors';
 import { currentUser } from '../../middleware/session';
 import type { ProjectsService } from './projects.service';
@@ -15,6 +15,10 @@ export function projectsRoutes(service: ProjectsService): Router {
   });
   r.get('/:id/layouts', (req, res) => {
     res.json({ layouts: service.layouts(currentUser(res), req.params.id) });
+  });
+  r.post('/:id/comments', (req, res) => {
+    const { message } = parse(CommentBody, req.body);
+    res.status(201).json({ project: service.comment(currentUser(res), req.params.id, message) });
   });
   r.post('/', (req, res) => {
     const user = currentUser(res);

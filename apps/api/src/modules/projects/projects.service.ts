@@ -5,17 +5,26 @@ import { validateSpec } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
 import { loadPricing, travellerFor } from '../../lib/engine';
+import { queueMail } from '../../lib/mailer';
+import { commentMail } from '../../lib/mail-templates';
+import { addEvent } from '../../lib/timeline';
 import { Forbidden, Invalid, NotFound } from '../../middleware/errors';
 
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;
 
-export function createProjectsService(db: Db) {
+export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string } = { portalUrl: '', shopUrl: '' }) {
   function toProject(row: typeof projects.$inferSelect): Project {
     const client = db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, row.clientId)).get()!;
     const items = db.select().from(projectItems).where(eq(projectItems.projectId, row.id)).orderBy(asc(projectItems.position)).all();
     const ests = db.select().from(estimates).where(eq(estimates.projectId, row.id)).orderBy(asc(estimates.revision)).all();
-    const events = db.select().from(projectEvents).where(eq(projectEvents.projectId, row.id)).orderBy(asc(projectEvents.createdAt)).all();
+    const events = db
+      .select({ id: projectEvents.id, kind: projectEvents.kind, message: projectEvents.message, createdAt: projectEvents.createdAt, by: users.name })
+      .from(projectEvents)
+      .leftJoin(users, eq(users.id, projectEvents.actorId))
+      .where(eq(projectEvents.projectId, row.id))
+      .orderBy(asc(projectEvents.createdAt))
+      .all();
     return {
       id: row.id,
       status: row.status,
@@ -28,7 +37,7 @@ export function createProjectsService(db: Db) {
         status: e.status,
         totals: { subtotalCents: e.subtotalCents, discountCents: e.discountCents, taxCents: e.taxCents, totalCents: e.totalCents, depositCents: e.depositCents, balanceCents: e.balanceCents },
       })),
-      timeline: events.map((e) => ({ id: e.id, kind: e.kind, message: e.message, at: e.createdAt.toISOString() })),
+      timeline: events.map((e) => ({ id: e.id, kind: e.kind, message: e.message, by: e.kind === 'comment' ? e.by : null, at: e.createdAt.toISOString() })),
       createdAt: row.createdAt.toISOString(),
     };
   }
@@ -67,6 +76,24 @@ export function createProjectsService(db: Db) {
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row) throw new NotFound('The project');
       return travellerFor(db, id);
+    },
+
+    /** A comment from the project's client or the owner: on the timeline, and by e-mail to the other side. */
+    comment(viewer: User, id: string, message: string): Project {
+      if (viewer.role === 'builder') throw new Forbidden('Comments are between the client and the owner.');
+      const row = db.select().from(projects).where(eq(projects.id, id)).get();
+      if (!row || (viewer.role === 'client' && row.clientId !== viewer.id)) throw new NotFound('The project');
+      const { shopName } = loadPricing(db);
+      const client = db.select().from(users).where(eq(users.id, row.clientId)).get()!;
+      db.transaction((tx) => {
+        addEvent(tx, id, 'comment', message, viewer.id);
+        if (viewer.role === 'client') {
+          for (const owner of tx.select().from(users).where(eq(users.role, 'owner')).all()) queueMail(tx, owner.email, commentMail(shopName, owner.name, viewer.name, message, `${urls.shopUrl}/requests/${id}`));
+        } else {
+          queueMail(tx, client.email, commentMail(shopName, client.name, `${viewer.name} at ${shopName}`, message, `${urls.portalUrl}/projects/${id}`));
+        }
+      });
+      return this.get(viewer, id);
     },
 
     /** A client's request: every item checked against its design and the shop's price book. */

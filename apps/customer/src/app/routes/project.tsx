@@ -1,5 +1,5 @@
 import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
-import { Button, Money, Notice, Panel } from '@benchwright/ui';
+import { Button, CommentForm, Money, Notice, Panel, useComment } from '@benchwright/ui';
 import { useMe } from '@benchwright/ui/auth';
 import { paths } from '../../config/paths';
 import { useBalanceCheckout } from '../../features/estimates/api/checkout';
@@ -54,11 +54,18 @@ export function ProjectRoute() {
             <li key={t.id} className="mb-2">
               <span className="text-sm text-ink-soft">{new Date(t.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}</span>
               <br />
+              {t.by ? <span className="font-semibold">{t.by}: </span> : null}
               {t.message}
             </li>
           ))}
         </ol>
+        {me.data.role === 'client' ? <ProjectComment projectId={p.id} /> : null}
       </Panel>
     </>
   );
+}
+
+function ProjectComment({ projectId }: { projectId: string }) {
+  const comment = useComment(projectId);
+  return <CommentForm label="Write to the shop" pending={comment.isPending} error={comment.error?.message} onSend={(message, done) => comment.mutate({ message }, { onSuccess: done })} />;
 }

@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
-import { Button, Notice, Panel } from '@benchwright/ui';
+import { Button, CommentForm, Notice, Panel, useComment } from '@benchwright/ui';
+import type { Project } from '@benchwright/contracts';
 import { RoleGate } from '../../components/layout';
 import { paths } from '../../config/paths';
 import { useCreateEstimate, useEstimate } from '../../features/estimates/api/estimates';
@@ -52,6 +53,7 @@ function RequestPage({ id }: { id: string }) {
           </div>
         ) : null}
       </Panel>
+      <Conversation project={p} />
       {estimate.data ? <EstimateEditor key={estimate.data.id} estimate={estimate.data} /> : null}
       {!showLayouts ? (
         <p className="mb-6">
@@ -71,6 +73,31 @@ function RequestPage({ id }: { id: string }) {
         </>
       )}
     </>
+  );
+}
+
+/** What the client and the shop have written to each other about the request. */
+function Conversation({ project }: { project: Project }) {
+  const comment = useComment(project.id);
+  const comments = project.timeline.filter((t) => t.kind === 'comment');
+  return (
+    <Panel title="Conversation with the client">
+      {comments.length ? (
+        <ol className="mb-3 border-l-2 border-wood pl-4" aria-label="Comments">
+          {comments.map((c) => (
+            <li key={c.id} className="mb-2">
+              <span className="text-sm text-ink-soft">{new Date(c.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}</span>
+              <br />
+              <span className="font-semibold">{c.by}: </span>
+              {c.message}
+            </li>
+          ))}
+        </ol>
+      ) : (
+        <p className="mb-3 text-ink-soft">No comments yet.</p>
+      )}
+      <CommentForm label={`Write to ${project.client.name}`} pending={comment.isPending} error={comment.error?.message} onSend={(message, done) => comment.mutate({ message }, { onSuccess: done })} />
+    </Panel>
   );
 }
 
