@@ -36,6 +36,15 @@ test.describe('the owner', () => {
     await expect(page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' })).toBeVisible();
   });
 
+  test('reads the overview: money accepted and collected this month, the win rate, hours by job', async ({ page }) => {
+    await page.goto('/requests');
+    await page.getByRole('navigation', { name: 'Shop' }).getByRole('link', { name: 'Overview' }).click();
+    await expect(page.getByRole('group', { name: /^Accepted in / })).toContainText(/\$[1-9][\d,]*\.\d\d/);
+    await expect(page.getByRole('group', { name: /^Deposits collected in / })).toContainText(/\$[1-9][\d,]*\.\d\d/);
+    await expect(page.getByRole('group', { name: 'Win rate' })).toContainText(/\d+ %/);
+    await expect(page.getByRole('table', { name: 'Hours by job' }).getByRole('row', { name: /Tomasz Wierzbicki/ })).toBeVisible();
+  });
+
   test('sets the job’s due date on its traveller, and the board shows it', async ({ page }) => {
     await page.goto('/board');
     await page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByRole('link', { name: /Traveller/ }).click();

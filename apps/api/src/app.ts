@@ -22,6 +22,8 @@ import { estimatesRoutes, projectMoneyRoutes } from './modules/estimates/estimat
 import { createJobsService } from './modules/jobs/jobs.service';
 import { jobsRoutes } from './modules/jobs/jobs.routes';
 import { mailRoutes } from './modules/mail/mail.routes';
+import { overviewRoutes } from './modules/overview/overview.routes';
+import { createOverviewService } from './modules/overview/overview.service';
 import { createMailService } from './modules/mail/mail.service';
 import { createPaymentsService } from './modules/payments/payments.service';
 import { paymentsRoutes, webhookRoute } from './modules/payments/payments.routes';
@@ -80,6 +82,7 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
   app.use('/api/mail', requireRole('owner'), mailRoutes(createMailService(db)));
+  app.use('/api/overview', requireRole('owner'), overviewRoutes(createOverviewService(db)));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
   return Object.assign(app, { services: { estimates: estimatesService, payments: paymentsService, jobs: jobsService, auth } });

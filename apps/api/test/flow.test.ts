@@ -250,6 +250,17 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(r.body).toEqual({ received: true, duplicate: false });
   });
 
+  it('shows the owner, on the overview, the accepted estimate, the deposit collected this month and the job’s hours', async () => {
+    const o = (await owner.get('/api/overview')).body.overview;
+    expect(o.acceptedThisMonth).toEqual({ count: 1, totalCents: total.totalCents });
+    expect(o.collectedThisMonth).toEqual({ depositsCents: total.depositCents, balancesCents: 0 });
+    expect(o.winRate).toEqual({ quoted: 1, won: 1 });
+    expect(o.pipeline.deposit_paid).toBe(1);
+    expect(o.hours).toEqual([expect.objectContaining({ clientName: 'Priya Natarajan', usedHours: 0 })]);
+    expect(o.hours[0].budgetHours).toBeGreaterThan(0);
+    expect((await priya.get('/api/overview')).status).toBe(403);
+  });
+
   it('gives the builder the job’s traveller: cut list, every sheet drawn with its cuts, pick list, cautions, and no prices', async () => {
     const job = (await owner.get('/api/jobs')).body.jobs[0];
     const idris = await agent('idris@fernhill.example');

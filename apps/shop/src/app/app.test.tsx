@@ -41,7 +41,7 @@ describe('the shop layout', () => {
     signedInAs('owner');
     render(<App router={createTestRouter('/requests')} />);
     const nav = await screen.findByRole('navigation', { name: 'Shop' });
-    expect(within(nav).getAllByRole('link').map((a) => a.textContent)).toEqual(['Requests', 'Board', 'Payments', 'Team', 'Mail']);
+    expect(within(nav).getAllByRole('link').map((a) => a.textContent)).toEqual(['Overview', 'Requests', 'Board', 'Payments', 'Team', 'Mail']);
   });
   it('tells a client that this app is for the shop', async () => {
     signedInAs('client');

@@ -6,6 +6,7 @@ import { BoardRoute } from './routes/board';
 import { JobRoute } from './routes/job';
 import { ForgotPasswordRoute, ResetPasswordRoute } from './routes/password';
 import { MailRoute } from './routes/mail';
+import { OverviewRoute } from './routes/overview';
 import { PaymentsRoute } from './routes/payments';
 import { RequestRoute } from './routes/request';
 import { RequestsRoute } from './routes/requests';
@@ -26,6 +27,7 @@ export const routes: RouteObject[] = [
     path: paths.home.path,
     element: <ShopLayout />,
     children: [
+      { path: paths.overview.path, element: <OverviewRoute /> },
       { path: paths.board.path, element: <BoardRoute /> },
       { path: paths.job.path, element: <JobRoute /> },
       { path: paths.requests.path, element: <RequestsRoute /> },

@@ -4,7 +4,7 @@ import { Button, Notice, Panel } from '@benchwright/ui';
 import { paths, PORTAL_URL } from '../config/paths';
 import { useMe } from '@benchwright/ui/auth';
 import { useSignOut } from '@benchwright/ui/auth';
-import { canInviteBuilders, canSeeBoard, canSeeMail, canSeePayments, canSeeRequests, isStaff } from '../lib/policies';
+import { canInviteBuilders, canSeeBoard, canSeeMail, canSeeOverview, canSeePayments, canSeeRequests, isStaff } from '../lib/policies';
 
 function Frame({ nav, children }: { nav?: ReactNode; children: ReactNode }) {
   return (
@@ -59,6 +59,7 @@ export function ShopLayout() {
   const link = 'rounded px-3 py-1 font-semibold text-paper hover:bg-wood aria-[current=page]:bg-wood';
   const nav = (
     <nav aria-label="Shop" className="flex items-center gap-2">
+      {canSeeOverview(user) ? <NavLink to={paths.overview.getHref()} className={link}>Overview</NavLink> : null}
       {canSeeRequests(user) ? <NavLink to={paths.requests.getHref()} className={link}>Requests</NavLink> : null}
       {canSeeBoard(user) ? <NavLink to={paths.board.getHref()} className={link}>Board</NavLink> : null}
       {canSeePayments(user) ? <NavLink to={paths.payments.getHref()} className={link}>Payments</NavLink> : null}

@@ -5,6 +5,7 @@ export const paths = {
   acceptInvitation: { path: '/accept-invitation', getHref: () => '/accept-invitation' },
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
+  overview: { path: '/overview', getHref: () => '/overview' },
   board: { path: '/board', getHref: () => '/board' },
   job: { path: '/jobs/:id', getHref: (id: string) => `/jobs/${encodeURIComponent(id)}` },
   travellerPdf: { getHref: (id: string) => `/api/jobs/${encodeURIComponent(id)}/traveller.pdf` },

@@ -8,3 +8,4 @@ export const canInviteBuilders = (u: User | null | undefined) => u?.role === 'ow
 export const canAssignJobs = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeePayments = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeeMail = (u: User | null | undefined) => u?.role === 'owner';
+export const canSeeOverview = (u: User | null | undefined) => u?.role === 'owner';

@@ -1,0 +1,12 @@
+import { RoleGate } from '../../components/layout';
+import { OverviewPage } from '../../features/overview/components/overview';
+import { canSeeOverview } from '../../lib/policies';
+
+export function OverviewRoute() {
+  return (
+    <RoleGate allow={canSeeOverview}>
+      <h1 className="mb-4 text-2xl font-bold">Overview</h1>
+      <OverviewPage />
+    </RoleGate>
+  );
+}
