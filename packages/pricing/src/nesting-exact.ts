@@ -69,10 +69,9 @@ export interface ExactOptions {
 }
 
 export interface ExactResult {
-  /** 'found': every part placed; 'none': proven impossible; 'gave-up': node budget spent */
+  /** 'found': every part placed; 'none': proven impossible; 'gave-up': work budget spent */
   status: 'found' | 'none' | 'gave-up';
   placements: ExactPlacement[];
-  nodes: number;
   /** the steps of work spent */
   work: number;
 }
@@ -96,15 +95,14 @@ interface Rect {
 }
 
 /** Searches for a guillotine layout of every unit of `types` on `sheets` identical sheets. */
-export function packExact(typesIn: readonly ExactType[], o: ExactOptions): ExactResult {
-  const types = typesIn.map((t) => ({ ...t }));
+export function packExact(types: readonly ExactType[], o: ExactOptions): ExactResult {
   const n = types.length;
   const counts = types.map((t) => t.count);
   const area = types.map((t) => t.l * t.w);
   let remaining = 0;
   for (let i = 0; i < n; i++) remaining += area[i] * counts[i];
   const placements: ExactPlacement[] = [];
-  if (remaining > o.sheets * o.L * o.W + EPS) return { status: 'none', placements, nodes: 0, work: 0 };
+  if (remaining > o.sheets * o.L * o.W + EPS) return { status: 'none', placements, work: 0 };
   const kerf = o.kerf;
   // row/column bounds work on whole numbers only (the benchmark's sizes, or mm cut lists in whole mm)
   const integral = [o.L, o.W, kerf, ...types.flatMap((t) => [t.l, t.w])].every((v) => Number.isInteger(v)) && Math.max(o.L, o.W) + kerf <= 1024;
@@ -120,7 +118,7 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
   }
 
   // parts in order of falling area, shaken on restarts; `flip` swaps which cut is tried first
-  let rank = new Array<number>(n);
+  let rank: number[] = [];
   const setOrder = (weights: number[]) => {
     const order = [...types.keys()].sort((a, b) => weights[b] - weights[a] || types[b].l - types[a].l);
     rank = new Array<number>(n);
@@ -131,7 +129,6 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
 
   const failed = new Set<number>();
   const memoCap = 2_000_000;
-  let nodes = 0;
   let work = 0;
   let run = 0;
   let runLimit = 0;
@@ -172,7 +169,6 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
 
   const dfs = (free: Rect[]): boolean => {
     if (remaining <= EPS) return true;
-    nodes++;
     work += 250 + free.length * n;
     if (work > runLimit) {
       gaveUp = true;
@@ -228,7 +224,7 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
     const r = live[pick];
     const rest = live.filter((_, i) => i !== pick);
     // parts that match a side of the rectangle first, then by size
-    const cands: { t: number; rot: boolean; score: number }[] = [];
+    const cands: { t: number; rot: boolean; exact: number; order: number }[] = [];
     for (let t = 0; t < n; t++) {
       if (!counts[t]) continue;
       for (const rot of types[t].canRotate && types[t].l !== types[t].w ? [false, true] : [false]) {
@@ -236,13 +232,13 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
         const pl = rot ? types[t].w : types[t].l;
         const pw = rot ? types[t].l : types[t].w;
         const exact = (Math.abs(r.l - pl) < EPS ? 1 : 0) + (Math.abs(r.w - pw) < EPS ? 1 : 0);
-        cands.push({ t, rot, score: -exact * n * 4 + rank[t] + (run > 0 ? 0.5 * n * rand() : 0) });
+        cands.push({ t, rot, exact, order: rank[t] + (run > 0 ? 0.5 * n * rand() : 0) });
       }
     }
-    cands.sort((a, b) => a.score - b.score);
+    cands.sort((a, b) => b.exact - a.exact || a.order - b.order);
     // a part the rectangle's exact size goes there: in any layout that puts it
     // elsewhere, swapping it with what fills this rectangle gives another layout
-    const forced = cands.length > 0 && cands[0].score < -6 * n;
+    const forced = cands.length > 0 && cands[0].exact === 2;
     if (forced) cands.length = 1;
     for (const { t, rot } of cands) {
       const pl = rot ? types[t].w : types[t].l;
@@ -315,7 +311,7 @@ export function packExact(typesIn: readonly ExactType[], o: ExactOptions): Exact
     setOrder(area.map((a) => a * (1 + 1 * (rand() * 2 - 1))));
     flip = rand() < 0.5;
   }
-  return { status: found ? 'found' : gaveUp ? 'gave-up' : 'none', placements: found ? placements : [], nodes, work };
+  return { status: found ? 'found' : gaveUp ? 'gave-up' : 'none', placements: found ? placements : [], work };
 }
 
 function mix(a: number, b: number, c: number, seed: number): number {

@@ -271,6 +271,18 @@ function place(bin: Bin, index: number, item: Item, rotated: boolean, split: Spl
   }
 }
 
+/** Items grouped by size and turnability (one array per kind of part). */
+function poolBySize(items: readonly Item[]): Item[][] {
+  const pools = new Map<string, Item[]>();
+  for (const it of items) {
+    const key = `${it.l}x${it.w}x${it.canRotate ? 1 : 0}`;
+    const pool = pools.get(key);
+    if (pool) pool.push(it);
+    else pools.set(key, [it]);
+  }
+  return [...pools.values()];
+}
+
 /** Fills one bin from `items` in order; returns the bin and the items left over. */
 function fillBin(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest: Item[] } {
   ctx.spent += items.length;
@@ -291,14 +303,7 @@ function fillBin(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest: Item[]
  */
 function fillBinBySpace(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest: Item[] } {
   const bin = newBin(ctx);
-  const pools = new Map<string, Item[]>();
-  for (const it of items) {
-    const key = `${it.l}x${it.w}x${it.canRotate ? 1 : 0}`;
-    const pool = pools.get(key);
-    if (pool) pool.push(it);
-    else pools.set(key, [it]);
-  }
-  const kinds = [...pools.values()].sort((a, b) => b[0].area - a[0].area);
+  const kinds = poolBySize(items).sort((a, b) => b[0].area - a[0].area);
   while (bin.free.length) {
     let fi = 0;
     for (let i = 1; i < bin.free.length; i++) {
@@ -528,14 +533,7 @@ const STEPS_PER_VISIT = 120;
  * Returns the bins, or null if it found none within `workLimit` steps.
  */
 function exactBins(items: Item[], sheets: number, ctx: Ctx, workLimit: number, seed: number): Bin[] | null {
-  const pools = new Map<string, Item[]>();
-  for (const it of items) {
-    const key = `${it.l}x${it.w}x${it.canRotate ? 1 : 0}`;
-    const pool = pools.get(key);
-    if (pool) pool.push(it);
-    else pools.set(key, [it]);
-  }
-  const kinds = [...pools.values()];
+  const kinds = poolBySize(items);
   const types = kinds.map((k) => ({ l: k[0].l, w: k[0].w, canRotate: k[0].canRotate, count: k.length }));
   const r = packExact(types, { x0: ctx.x0, y0: ctx.y0, L: ctx.L, W: ctx.W, sheets, kerf: ctx.kerf, workLimit, seed });
   ctx.spent += Math.ceil(r.work / STEPS_PER_VISIT);
@@ -734,6 +732,7 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
 
   if (items.length) {
     const thorough = options.effort === 'thorough';
+    const seed = options.seed ?? 20261201;
     // part visits allowed (deterministic, unlike a clock): bounds the hardest instances to about 1.3 s here, under the 2 s target
     ctx.limit = thorough ? 2_400_000 : 30_000;
     const keys: SortKey[] = thorough ? ['area', 'long', 'width', 'length', 'perimeter', 'short'] : ['area', 'long', 'width'];
@@ -744,7 +743,7 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
     let exactRan = false;
     const tryExact = (visits: number) => {
       exactRan = true;
-      const bins = exactBins(items, lowerBound, ctx, Math.max(0, visits) * STEPS_PER_VISIT, options.seed ?? 20261201);
+      const bins = exactBins(items, lowerBound, ctx, Math.max(0, visits) * STEPS_PER_VISIT, seed);
       if (bins) consider({ bins });
     };
     for (const key of keys) {
@@ -759,7 +758,7 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
       if (done()) break;
     }
     for (const cfg of thorough ? SPACE_CONFIGS : []) if (!done()) consider(greedy(items, cfg, ctx));
-    const rand = seededRandom(options.seed ?? 20261201);
+    const rand = seededRandom(seed);
     if (!done()) consider(eliminateBins(best!, ctx, QUICK_CONFIGS, lowerBound, { n: thorough ? 4000 : 60 }));
     // otherwise, one sheet over the bound after the greedy fills: the exact search with what is left of the first half
     if (thorough && !exactRan && !done() && best!.bins.length === lowerBound + 1) tryExact(ctx.limit / 2 - ctx.spent);

@@ -1,15 +1,15 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { designs, formatLength, LINE_GROUP_LABELS, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing';
 import { dollars } from '../mail-templates';
-import { INK, PageFooter, PdfDrawing, WOOD } from './pdf-drawing';
+import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 10, color: INK, padding: 40, paddingBottom: 56 },
   head: { flexDirection: 'row', justifyContent: 'space-between', borderBottomWidth: 2, borderBottomColor: WOOD, paddingBottom: 8, marginBottom: 14 },
   shop: { fontSize: 16, fontWeight: 700 },
-  muted: { color: '#5b5148' },
+  muted: { color: MUTED },
   h2: { fontSize: 12, fontWeight: 700, marginTop: 12, marginBottom: 6 },
-  row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: '#d8ccb8', paddingVertical: 3 },
+  row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: RULE, paddingVertical: 3 },
   groupRow: { flexDirection: 'row', paddingTop: 7, paddingBottom: 2 },
   cDesc: { flex: 1 },
   cQty: { width: 70, textAlign: 'right' },

@@ -14,6 +14,9 @@ Font.registerHyphenationCallback((word) => [word]);
 
 export const INK = '#231c15';
 export const WOOD = '#7a4a24';
+/** secondary text, and the hairline between table rows */
+export const MUTED = '#5b5148';
+export const RULE = '#d8ccb8';
 
 // fills by style; offcuts are a light grey that stays readable printed in black and white
 const FILL: Partial<Record<ShapeStyle, string>> = { top: '#e3d6c1', kick: '#d9d2c7', case: '#f1ebe0', part: '#f6f1e7', offcut: '#e4e4e4', trim: '#cdb79a' };
@@ -59,7 +62,7 @@ export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number
 }
 
 
-const footerStyle = { position: 'absolute', bottom: 22, left: 36, right: 36, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: '#5b5148' } as const;
+const footerStyle = { position: 'absolute', bottom: 22, left: 36, right: 36, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: MUTED } as const;
 
 /** The running footer of every page: what the document is, and "Page n of m". */
 export function PageFooter({ children }: { children: string }) {

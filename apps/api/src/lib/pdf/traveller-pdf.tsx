@@ -1,15 +1,15 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { formatLength, type LengthUnit, type Traveller } from '@benchwright/pricing';
-import { INK, PageFooter, PdfDrawing, WOOD } from './pdf-drawing';
+import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 9, color: INK, padding: 36, paddingBottom: 52 },
   head: { flexDirection: 'row', justifyContent: 'space-between', borderBottomWidth: 2, borderBottomColor: WOOD, paddingBottom: 6, marginBottom: 10 },
   title: { fontSize: 15, fontWeight: 700 },
-  muted: { color: '#5b5148' },
+  muted: { color: MUTED },
   h2: { fontSize: 12, fontWeight: 700, marginTop: 10, marginBottom: 4 },
   h3: { fontSize: 10, fontWeight: 700, marginTop: 6, marginBottom: 2 },
-  row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: '#d8ccb8', paddingVertical: 2 },
+  row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: RULE, paddingVertical: 2 },
   th: { fontWeight: 700 },
 });
 
@@ -78,7 +78,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
             <Text style={s.h3}>
               {p.title} x {p.quantity}
             </Text>
-            <View style={[s.row, s.th]} fixed={false}>
+            <View style={[s.row, s.th]}>
               {COLS.map((c) => (
                 <Text key={c.key} style={{ flex: c.flex }}>
                   {c.label}

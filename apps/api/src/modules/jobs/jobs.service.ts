@@ -81,7 +81,7 @@ export function createJobsService(db: Db, portalUrl: string) {
     /** The traveller as a PDF for the shop floor. */
     async travellerPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {
       const { job, units, ...t } = this.traveller(id);
-      const labels = Object.fromEntries(db.select().from(stages).all().map((x) => [x.key, x.label]));
+      const labels = Object.fromEntries(this.stages().map((x) => [x.key, x.label]));
       const pdf = await renderTravellerPdf({
         shopName: loadPricing(db).shopName,
         clientName: job.clientName,

@@ -1,7 +1,7 @@
+import { eq } from 'drizzle-orm';
 import { STAGE_KEYS } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { estimates, jobs, payments, projects, timeEntries, users, PROJECT_STATUS } from '../../db/schema';
-import { eq } from 'drizzle-orm';
 
 /** The owner's overview: the pipeline, this month's money, the win rate, and hours estimated against hours used. */
 export function createOverviewService(db: Db) {

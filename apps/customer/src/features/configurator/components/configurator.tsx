@@ -29,6 +29,8 @@ const DIMENSIONS = [
 ] as const;
 
 const draftKey = (slug: string) => `benchwright:draft:${slug}`;
+/** a fresh copy of the design's standard piece */
+const defaultsOf = (slug: DesignSlug) => structuredClone(designs[slug].defaults) as unknown as Spec;
 
 function useDebounced<T>(value: T, ms: number): T {
   const [v, setV] = useState(value);
@@ -142,7 +144,7 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
   const design = designs[slug];
   const [spec, setSpec] = useState<Spec>(() => {
     const saved = sessionStorage.getItem(draftKey(slug));
-    return saved ? (JSON.parse(saved) as Spec) : (structuredClone(design.defaults) as unknown as Spec);
+    return saved ? (JSON.parse(saved) as Spec) : (defaultsOf(slug));
   });
   const [quantity, setQuantity] = useState(1);
   const [unit, setUnit] = useState<LengthUnit>('in');
@@ -185,7 +187,7 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
           <input type="number" min={1} max={20} className="w-20 rounded border border-rule bg-white px-2 py-1" value={quantity} onChange={(e) => setQuantity(Math.max(1, Math.min(20, Math.round(Number(e.target.value) || 1))))} />
         </label>
         <Button type="button" variant="quiet" className="px-0" onClick={() => {
-            setSpec(structuredClone(design.defaults) as unknown as Spec);
+            setSpec(defaultsOf(slug));
             setResets((n) => n + 1);
           }}>
           Back to our standard size

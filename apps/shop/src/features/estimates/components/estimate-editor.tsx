@@ -3,6 +3,7 @@ import { useFieldArray, useForm } from 'react-hook-form';
 import { LINE_GROUP_LABELS, type LineGroup } from '@benchwright/contracts';
 import { ApiRequestError, Button, Money, Notice, Panel } from '@benchwright/ui';
 import { useSendEstimate, useUpdateEstimate, type OwnerEstimate } from '../api/estimates';
+import { toCents, toDollars } from '../../../lib/money';
 
 interface LineForm {
   id?: string;
@@ -19,8 +20,6 @@ interface EditorForm {
   discount: string;
 }
 
-const toDollars = (c: number) => (c / 100).toFixed(2);
-const toCents = (s: string) => Math.round(Number(s.replace(/[$,\s]/g, '')) * 100);
 
 function formOf(e: OwnerEstimate): EditorForm {
   return {

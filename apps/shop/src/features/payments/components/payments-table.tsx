@@ -1,18 +1,16 @@
 import { useEffect, useState } from 'react';
 import { Button, formatMoney, Money, Notice, TableHead } from '@benchwright/ui';
+import { toCents, toDollars } from '../../../lib/money';
 import { usePayments, useRefund, type Payment } from '../api/payments';
 
 const STATUS: Record<Payment['status'], string> = { open: 'waiting for the client', paid: 'paid', expired: 'checkout expired', refunded: 'refunded', partially_refunded: 'partly refunded' };
 
-/** Dollars as typed ("25", "25.50") to cents, or null. */
-function toCents(text: string): number | null {
-  if (!/^\s*\d+(\.\d{1,2})?\s*$/.test(text)) return null;
-  return Math.round(Number(text) * 100);
-}
+/** A refund amount as typed ("25", "25.50") in cents, or null if it is not dollars and cents. */
+const refundCents = (text: string): number | null => (/^\s*\d+(\.\d{1,2})?\s*$/.test(text) ? toCents(text) : null);
 
 function RefundForm({ p, onAsked }: { p: Payment; onAsked: (id: string, refundedBefore: number) => void }) {
   const left = p.amountCents - p.refundedCents;
-  const [text, setText] = useState((left / 100).toFixed(2));
+  const [text, setText] = useState(toDollars(left));
   const [error, setError] = useState<string | null>(null);
   const refund = useRefund();
   return (
@@ -21,7 +19,7 @@ function RefundForm({ p, onAsked }: { p: Payment; onAsked: (id: string, refunded
       className="flex flex-wrap items-center gap-2"
       onSubmit={(e) => {
         e.preventDefault();
-        const cents = toCents(text);
+        const cents = refundCents(text);
         if (cents === null || cents <= 0) return setError('enter an amount in dollars, like 25 or 25.50');
         if (cents > left) return setError(`at most ${formatMoney(left)} is left to refund`);
         if (!window.confirm(`Refund ${formatMoney(cents)} to ${p.clientName}'s card?`)) return;
