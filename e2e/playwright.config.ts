@@ -11,14 +11,33 @@ export default defineConfig({
   use: {
     launchOptions: {
       executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
     },
     trace: 'retain-on-failure',
     screenshot: 'only-on-failure',
   },
   projects: [
     { name: 'setup', testMatch: /auth\.setup\.ts/ },
-    { name: 'customer', testMatch: /customer\/.*\.spec\.ts/, dependencies: ['setup'], use: { baseURL: 'http://127.0.0.1:5173' } },
-    { name: 'shop', testMatch: /shop\/.*\.spec\.ts/, dependencies: ['setup'], use: { baseURL: 'http://127.0.0.1:5174' } },
+    {
+      name: 'customer',
+      testMatch: /customer\/.*\.spec\.ts/,
+      dependencies: ['setup'],
+      use: { baseURL: 'http://127.0.0.1:5173' },
+    },
+    {
+      name: 'shop',
+      testMatch: /shop\/.*\.spec\.ts/,
+      dependencies: ['setup'],
+      use: { baseURL: 'http://127.0.0.1:5174' },
+    },
   ],
 });

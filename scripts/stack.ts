@@ -83,7 +83,14 @@ async function stop(code = 0) {
 process.on('SIGINT', () => void stop(0));
 process.on('SIGTERM', () => void stop(0));
 
-maildev = new MailDev({ smtp: 1025, web: 1080, ip: '127.0.0.1', webIp: '127.0.0.1', mailDirectory: resolve(data, 'maildev'), silent: true });
+maildev = new MailDev({
+  smtp: 1025,
+  web: 1080,
+  ip: '127.0.0.1',
+  webIp: '127.0.0.1',
+  mailDirectory: resolve(data, 'maildev'),
+  silent: true,
+});
 await maildev.start();
 run('stripe', ['--filter', '@benchwright/stripe-fake', 'start'], root);
 await waitFor('http://127.0.0.1:12111/__fake/events', 'the Stripe stand-in').catch(async (err) => {

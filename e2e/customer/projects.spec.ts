@@ -11,14 +11,18 @@ test("a demo client sees her own request, and no one else's", async ({ page }) =
   await expect(page.getByText('Bookcase')).toHaveCount(0);
 });
 
-test('she reads the sent estimate, accepts it by typing her name, and pays the deposit on the test card page', async ({ page }) => {
+test('she reads the sent estimate, accepts it by typing her name, and pays the deposit on the test card page', async ({
+  page,
+}) => {
   await page.goto('/projects');
   await page.getByRole('link', { name: 'Rolling assembly bench' }).click();
   await expect(page.getByLabel('Status')).toHaveText('Estimate ready to review');
   await expect(page.getByRole('heading', { name: /Estimate E-[0-9A-F]{6}, revision 1/ })).toBeVisible();
-  await expect(page.getByRole('table', { name: 'Priced items' }).getByRole('cell', { name: 'Total', exact: true })).toBeVisible();
+  await expect(
+    page.getByRole('table', { name: 'Priced items' }).getByRole('cell', { name: 'Total', exact: true }),
+  ).toBeVisible();
   const pdf = page.getByRole('link', { name: 'Download the PDF' });
-  const res = await page.request.get(await pdf.getAttribute('href') as string);
+  const res = await page.request.get((await pdf.getAttribute('href')) as string);
   expect(res.headers()['content-type']).toBe('application/pdf');
 
   await page.getByRole('button', { name: 'Accept the estimate' }).click();
@@ -43,7 +47,9 @@ test('she reads the sent estimate, accepts it by typing her name, and pays the d
   await page.getByRole('button', { name: /^Pay \$/ }).click();
 
   await expect(page).toHaveURL(/127\.0\.0\.1:5173\/projects\/.+\?session_id=cs_test_/);
-  await expect(page.getByText('your deposit is paid and your piece is on our production board')).toBeVisible({ timeout: 20_000 });
+  await expect(page.getByText('your deposit is paid and your piece is on our production board')).toBeVisible({
+    timeout: 20_000,
+  });
   await expect(page.getByLabel('Status')).toHaveText('Deposit paid');
   await expect(page.getByRole('list', { name: 'Timeline' })).toContainText('Deposit of');
 });

@@ -4,7 +4,9 @@ import { authFile, mailTo } from '../support';
 // runs after projects.spec.ts (which counts Priya's projects), so her new request does not disturb it
 test.use({ storageState: authFile('priya') });
 
-test('a client sets a wall cabinet to her space, sees the drawing and budget change, is told what cannot be built, and asks for an estimate', async ({ page }) => {
+test('a client sets a wall cabinet to her space, sees the drawing and budget change, is told what cannot be built, and asks for an estimate', async ({
+  page,
+}) => {
   await page.goto('/');
   await page.getByRole('link', { name: 'Configure the wall cabinet' }).click();
   await expect(page.getByRole('heading', { name: 'Wall cabinet', level: 1 })).toBeVisible();
@@ -39,7 +41,9 @@ test('a client sets a wall cabinet to her space, sees the drawing and budget cha
   // she writes to the shop; it goes on the timeline and to the owner by e-mail
   await page.getByRole('textbox', { name: 'Write to the shop' }).fill('Could the doors be inset instead?');
   await page.getByRole('button', { name: 'Send' }).click();
-  await expect(page.getByRole('list', { name: 'Timeline' }).getByText('Could the doors be inset instead?')).toBeVisible();
+  await expect(
+    page.getByRole('list', { name: 'Timeline' }).getByText('Could the doors be inset instead?'),
+  ).toBeVisible();
   await expect(page.getByRole('textbox', { name: 'Write to the shop' })).toHaveValue('');
   const mail = await mailTo('maren@fernhill.example', /A comment from Priya Natarajan/);
   expect(mail.text).toContain('Could the doors be inset instead?');

@@ -1,7 +1,9 @@
 import { expect, test } from '@playwright/test';
 import { SHOP, signIn } from '../support';
 
-test('the builder moves the paid bookcase on the board, drags it on, and logs hours against its budget', async ({ page }) => {
+test('the builder moves the paid bookcase on the board, drags it on, and logs hours against its budget', async ({
+  page,
+}) => {
   await signIn(page, SHOP, 'idris@fernhill.example');
   await page.goto('/board');
   const casework = page.getByRole('region', { name: 'Casework' });
@@ -36,10 +38,14 @@ test('the builder moves the paid bookcase on the board, drags it on, and logs ho
   await expect(moved.getByText('enter between 0.1 and 24 hours')).toBeVisible();
 
   await page.reload();
-  await expect(page.getByRole('region', { name: 'Finish' }).getByRole('article', { name: 'Job for Tomasz Wierzbicki' })).toBeVisible();
+  await expect(
+    page.getByRole('region', { name: 'Finish' }).getByRole('article', { name: 'Job for Tomasz Wierzbicki' }),
+  ).toBeVisible();
 });
 
-test('the builder opens the job’s traveller from its card: cut list, drawn sheets, pick list, cautions, no prices', async ({ page }) => {
+test('the builder opens the job’s traveller from its card: cut list, drawn sheets, pick list, cautions, no prices', async ({
+  page,
+}) => {
   await signIn(page, SHOP, 'idris@fernhill.example');
   await page.goto('/board');
   const card = page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
@@ -58,7 +64,12 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   await expect(paper.getByText(/anchor this/i)).toBeVisible();
   await expect(paper).not.toContainText('$');
   // the same paper as a PDF
-  const pdf = await page.request.get(await paper.getByRole('link', { name: 'Download PDF' }).getAttribute('href').then((h) => new URL(h!, page.url()).href));
+  const pdf = await page.request.get(
+    await paper
+      .getByRole('link', { name: 'Download PDF' })
+      .getAttribute('href')
+      .then((h) => new URL(h!, page.url()).href),
+  );
   expect(pdf.status()).toBe(200);
   expect(pdf.headers()['content-type']).toBe('application/pdf');
   expect((await pdf.body()).subarray(0, 5).toString()).toBe('%PDF-');

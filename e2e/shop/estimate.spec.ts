@@ -3,16 +3,22 @@ import { authFile, mailTo } from '../support';
 
 test.use({ storageState: authFile('owner') });
 
-test("the owner prices the guild's request, changes a line with a reason, and sends it as a PDF by e-mail", async ({ page }) => {
+test("the owner prices the guild's request, changes a line with a reason, and sends it as a PDF by e-mail", async ({
+  page,
+}) => {
   await page.goto('/requests');
   await page.getByRole('link', { name: "Alder Cross Makers' Guild" }).click();
   await expect(page.getByText('2 x Wall cabinet')).toBeVisible();
   await page.getByRole('button', { name: 'Price an estimate' }).click();
-  await expect(page.getByRole('heading', { name: /Estimate E-[0-9A-F]{6}, revision 1 \(draft\)/ })).toBeVisible({ timeout: 20_000 });
+  await expect(page.getByRole('heading', { name: /Estimate E-[0-9A-F]{6}, revision 1 \(draft\)/ })).toBeVisible({
+    timeout: 20_000,
+  });
   await expect(page.getByText(/Sheets: 3\/4 in birch plywood \d+ \(least possible \d+, yield \d+ %\)/)).toBeVisible();
   // the cut list and every sheet behind the sheet count
   await page.getByRole('button', { name: 'Show the cut list and sheet layouts' }).click();
-  await expect(page.getByRole('table', { name: 'Cut list: Wall cabinet' }).getByRole('row').nth(1)).toBeVisible({ timeout: 20_000 });
+  await expect(page.getByRole('table', { name: 'Cut list: Wall cabinet' }).getByRole('row').nth(1)).toBeVisible({
+    timeout: 20_000,
+  });
   await expect(page.getByRole('figure', { name: /3\/4 in birch plywood, sheet 1$/ }).locator('svg')).toBeVisible();
   const before = await page.getByLabel('Total').textContent();
 

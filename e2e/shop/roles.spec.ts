@@ -4,7 +4,10 @@ import { authFile, linkIn, mailTo, signIn, SHOP } from '../support';
 test.describe('the owner', () => {
   test.use({ storageState: authFile('owner') });
 
-  test('invites a builder, whose mail leads to a set-password page; the builder then sees only the board', async ({ page, browser }) => {
+  test('invites a builder, whose mail leads to a set-password page; the builder then sees only the board', async ({
+    page,
+    browser,
+  }) => {
     const email = `builder-${Date.now()}@fernhill.example`;
     await page.goto('/team');
     await page.getByLabel("Builder's name").fill('Sam Reed');
@@ -42,12 +45,17 @@ test.describe('the owner', () => {
     await expect(page.getByRole('group', { name: /^Accepted in / })).toContainText(/\$[1-9][\d,]*\.\d\d/);
     await expect(page.getByRole('group', { name: /^Deposits collected in / })).toContainText(/\$[1-9][\d,]*\.\d\d/);
     await expect(page.getByRole('group', { name: 'Win rate' })).toContainText(/\d+ %/);
-    await expect(page.getByRole('table', { name: 'Hours by job' }).getByRole('row', { name: /Tomasz Wierzbicki/ })).toBeVisible();
+    await expect(
+      page.getByRole('table', { name: 'Hours by job' }).getByRole('row', { name: /Tomasz Wierzbicki/ }),
+    ).toBeVisible();
   });
 
   test('sets the job’s due date on its traveller, and the board shows it', async ({ page }) => {
     await page.goto('/board');
-    await page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByRole('link', { name: /Traveller/ }).click();
+    await page
+      .getByRole('article', { name: 'Job for Tomasz Wierzbicki' })
+      .getByRole('link', { name: /Traveller/ })
+      .click();
     const form = page.getByRole('form', { name: 'Assign the job' });
     await expect(form.getByLabel('Builder')).toHaveValue(/.+/);
     await form.getByLabel('Due').fill('2026-12-24');
@@ -55,7 +63,9 @@ test.describe('the owner', () => {
     await expect(form.getByText('Saved.')).toBeVisible();
     await expect(page.getByText(/due 2026-12-24/).first()).toBeVisible();
     await page.goto('/board');
-    await expect(page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByText(/due 2026-12-24/)).toBeVisible();
+    await expect(
+      page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByText(/due 2026-12-24/),
+    ).toBeVisible();
   });
 });
 

@@ -45,10 +45,21 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.set('trust proxy', 'loopback');
   const secure = env.PORTAL_URL.startsWith('https:');
   const lucia = createLucia(db, secure);
-  const auth = createAuthService({ db, shopName: () => loadPricing(db).shopName, portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL });
+  const auth = createAuthService({
+    db,
+    shopName: () => loadPricing(db).shopName,
+    portalUrl: env.PORTAL_URL,
+    shopUrl: env.SHOP_URL,
+  });
 
   const estimatesService = createEstimatesService({ db, pdfDir: env.PDF_DIR, portalUrl: env.PORTAL_URL });
-  const paymentsService = createPaymentsService({ db, stripe: createStripe(env), webhookSecret: env.STRIPE_WEBHOOK_SECRET, portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL });
+  const paymentsService = createPaymentsService({
+    db,
+    stripe: createStripe(env),
+    webhookSecret: env.STRIPE_WEBHOOK_SECRET,
+    portalUrl: env.PORTAL_URL,
+    shopUrl: env.SHOP_URL,
+  });
   const jobsService = createJobsService(db, env.PORTAL_URL);
 
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
@@ -69,15 +80,27 @@ export function createApp({ db, env, log, ready }: AppDeps) {
       database = 'unreachable';
     }
     const ok = database === 'ok' && ready();
-    res.status(ok ? 200 : 503).json({ health: { status: ok ? 'ok' : 'starting', database, migrations, version: VERSION } });
+    res
+      .status(ok ? 200 : 503)
+      .json({ health: { status: ok ? 'ok' : 'starting', database, migrations, version: VERSION } });
   });
 
-  const limits = { enabled: env.RATE_LIMITS, signInFailsPerEmail: env.SIGNIN_FAILS_PER_EMAIL, signInAttemptsPerIp: env.SIGNIN_ATTEMPTS_PER_IP, signUpsPerIp: env.SIGNUPS_PER_IP };
+  const limits = {
+    enabled: env.RATE_LIMITS,
+    signInFailsPerEmail: env.SIGNIN_FAILS_PER_EMAIL,
+    signInAttemptsPerIp: env.SIGNIN_ATTEMPTS_PER_IP,
+    signUpsPerIp: env.SIGNUPS_PER_IP,
+  };
   app.use('/api/auth', authRoutes(auth, lucia, limits));
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
   app.use('/api/quotes', quotesRoutes(db, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
-  app.use('/api/projects', requireRole('client', 'owner', 'builder'), projectMoneyRoutes(estimatesService, paymentsService), projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL })));
+  app.use(
+    '/api/projects',
+    requireRole('client', 'owner', 'builder'),
+    projectMoneyRoutes(estimatesService, paymentsService),
+    projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL })),
+  );
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
@@ -85,5 +108,7 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/overview', requireRole('owner'), overviewRoutes(createOverviewService(db)));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
-  return Object.assign(app, { services: { estimates: estimatesService, payments: paymentsService, jobs: jobsService, auth } });
+  return Object.assign(app, {
+    services: { estimates: estimatesService, payments: paymentsService, jobs: jobsService, auth },
+  });
 }

@@ -6,9 +6,7 @@ import * as z from 'zod';
 export const REPO_ROOT = resolve(fileURLToPath(new URL('../../../', import.meta.url)));
 const fromRoot = (p: string) => (p === ':memory:' || isAbsolute(p) ? p : resolve(REPO_ROOT, p));
 
-const bool = z
-  .enum(['true', 'false', '1', '0'])
-  .transform((v) => v === 'true' || v === '1');
+const bool = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
 
 const Env = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -16,7 +14,9 @@ const Env = z.object({
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
   DATABASE_PATH: z.string().default('data/benchwright.db').transform(fromRoot),
   UPLOADS_DIR: z.string().default('data/uploads').transform(fromRoot),
-  APP_ORIGINS: z.string().default('http://127.0.0.1:5173,http://localhost:5173,http://127.0.0.1:5174,http://localhost:5174'),
+  APP_ORIGINS: z
+    .string()
+    .default('http://127.0.0.1:5173,http://localhost:5173,http://127.0.0.1:5174,http://localhost:5174'),
   PORTAL_URL: z.url().default('http://127.0.0.1:5173'),
   SHOP_URL: z.url().default('http://127.0.0.1:5174'),
   SMTP_URL: z.string().default('smtp://127.0.0.1:1025'),
@@ -31,7 +31,10 @@ const Env = z.object({
   SEED_DEMO: bool.default(true),
   PDF_DIR: z.string().default('data/estimates').transform(fromRoot),
   // Stripe: the local stand-in by default; real Stripe is only a matter of these three
-  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_\w+$/, 'a Stripe secret key (sk_test_... or sk_live_...)').default('sk_test_local_benchwright'),
+  STRIPE_SECRET_KEY: z
+    .string()
+    .regex(/^sk_(test|live)_\w+$/, 'a Stripe secret key (sk_test_... or sk_live_...)')
+    .default('sk_test_local_benchwright'),
   STRIPE_API_BASE: z.url().default('http://127.0.0.1:12111'),
   STRIPE_WEBHOOK_SECRET: z.string().min(8).default('whsec_local_benchwright'),
 });
@@ -48,5 +51,7 @@ export function loadEnv(source: Record<string, string | undefined> = process.env
 }
 
 export function appOrigins(env: Env): string[] {
-  return env.APP_ORIGINS.split(',').map((s) => s.trim()).filter(Boolean);
+  return env.APP_ORIGINS.split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
 }

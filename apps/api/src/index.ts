@@ -24,7 +24,10 @@ async function boot() {
     try {
       await seedDemoFlow(db, app.services, log);
     } catch (err) {
-      log.warn({ err: String(err) }, 'demo estimates and payments not seeded (is the Stripe stand-in running on STRIPE_API_BASE?)');
+      log.warn(
+        { err: String(err) },
+        'demo estimates and payments not seeded (is the Stripe stand-in running on STRIPE_API_BASE?)',
+      );
     }
   }
   ready = true;

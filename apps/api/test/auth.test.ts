@@ -5,7 +5,10 @@ describe('POST /api/auth/sign-up', () => {
   it('creates a client, signs them in and queues the verification mail', async () => {
     const t = await testApp();
     const a = t.agent();
-    const r = await a.post('/api/auth/sign-up').set('Origin', PORTAL).send({ email: 'New.Client@Example.com', password: 'a-long-password', name: 'Ada Client' });
+    const r = await a
+      .post('/api/auth/sign-up')
+      .set('Origin', PORTAL)
+      .send({ email: 'New.Client@Example.com', password: 'a-long-password', name: 'Ada Client' });
     expect(r.status).toBe(201);
     expect(r.body.user).toMatchObject({ email: 'new.client@example.com', role: 'client', emailVerified: false });
     const cookie = r.headers['set-cookie'][0];
@@ -24,18 +27,37 @@ describe('POST /api/auth/sign-up', () => {
     const r = await t.agent().post('/api/auth/sign-up').send({ email: 'not-an-email', password: 'short', name: 'X' });
     expect(r.status).toBe(400);
     expect(r.body.error.code).toBe('invalid_input');
-    expect(r.body.error.issues).toEqual(expect.arrayContaining([{ path: 'email', message: 'enter a valid e-mail address' }, { path: 'password', message: 'use at least 10 characters' }]));
+    expect(r.body.error.issues).toEqual(
+      expect.arrayContaining([
+        { path: 'email', message: 'enter a valid e-mail address' },
+        { path: 'password', message: 'use at least 10 characters' },
+      ]),
+    );
   });
   it('when the e-mail is taken, answers 409', async () => {
     const t = await testApp();
-    const r = await t.agent().post('/api/auth/sign-up').send({ email: 'priya@example.com', password: 'a-long-password', name: 'P' });
+    const r = await t
+      .agent()
+      .post('/api/auth/sign-up')
+      .send({ email: 'priya@example.com', password: 'a-long-password', name: 'P' });
     expect(r.status).toBe(409);
     expect(r.body.error.code).toBe('conflict');
   });
   it('when sign-ups from one address pass the hourly limit, answers 429', async () => {
     const t = await testApp({ RATE_LIMITS: 'true', SIGNUPS_PER_IP: '2' });
-    for (let i = 0; i < 2; i++) expect((await t.agent().post('/api/auth/sign-up').send({ email: `c${i}@example.com`, password: 'a-long-password', name: 'C' })).status).toBe(201);
-    const r = await t.agent().post('/api/auth/sign-up').send({ email: 'c9@example.com', password: 'a-long-password', name: 'C' });
+    for (let i = 0; i < 2; i++)
+      expect(
+        (
+          await t
+            .agent()
+            .post('/api/auth/sign-up')
+            .send({ email: `c${i}@example.com`, password: 'a-long-password', name: 'C' })
+        ).status,
+      ).toBe(201);
+    const r = await t
+      .agent()
+      .post('/api/auth/sign-up')
+      .send({ email: 'c9@example.com', password: 'a-long-password', name: 'C' });
     expect(r.status).toBe(429);
     expect(r.body.error.code).toBe('rate_limited');
   });
@@ -44,8 +66,14 @@ describe('POST /api/auth/sign-up', () => {
 describe('POST /api/auth/sign-in', () => {
   it('answers the same for an unknown e-mail and a wrong password', async () => {
     const t = await testApp();
-    const a = await t.agent().post('/api/auth/sign-in').send({ email: 'nobody@example.com', password: 'whatever-it-is' });
-    const b = await t.agent().post('/api/auth/sign-in').send({ email: 'priya@example.com', password: 'whatever-it-is' });
+    const a = await t
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@example.com', password: 'whatever-it-is' });
+    const b = await t
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: 'priya@example.com', password: 'whatever-it-is' });
     expect(a.status).toBe(401);
     expect(b.status).toBe(401);
     expect(a.body).toEqual(b.body);
@@ -59,11 +87,21 @@ describe('POST /api/auth/sign-in', () => {
   it('after 10 failed sign-ins for one e-mail, answers 429, and successful ones are not counted', async () => {
     const t = await testApp({ RATE_LIMITS: 'true' });
     for (let i = 0; i < 3; i++) await t.signIn('priya@example.com');
-    for (let i = 0; i < 10; i++) expect((await t.agent().post('/api/auth/sign-in').send({ email: 'priya@example.com', password: 'wrong-password' })).status).toBe(401);
-    const r = await t.agent().post('/api/auth/sign-in').send({ email: 'priya@example.com', password: 'wrong-password' });
+    for (let i = 0; i < 10; i++)
+      expect(
+        (await t.agent().post('/api/auth/sign-in').send({ email: 'priya@example.com', password: 'wrong-password' }))
+          .status,
+      ).toBe(401);
+    const r = await t
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: 'priya@example.com', password: 'wrong-password' });
     expect(r.status).toBe(429);
     // another e-mail from the same address is still let through
-    expect((await t.agent().post('/api/auth/sign-in').send({ email: 'tomasz@example.com', password: 'bench-demo-2026' })).status).toBe(200);
+    expect(
+      (await t.agent().post('/api/auth/sign-in').send({ email: 'tomasz@example.com', password: 'bench-demo-2026' }))
+        .status,
+    ).toBe(200);
   });
 });
 
@@ -99,17 +137,33 @@ describe('POST /api/auth/forgot-password and /reset-password', () => {
     const mails = t.mails().filter((m) => m.subject.startsWith('Reset'));
     expect(mails.map((m) => m.to)).toEqual(['tomasz@example.com']);
     const token = tokenFrom(mails[0].text);
-    expect((await t.agent().post('/api/auth/reset-password').send({ token, password: 'a-brand-new-password' })).status).toBe(200);
-    expect((await t.agent().post('/api/auth/sign-in').send({ email: 'tomasz@example.com', password: 'bench-demo-2026' })).status).toBe(401);
-    expect((await t.agent().post('/api/auth/sign-in').send({ email: 'tomasz@example.com', password: 'a-brand-new-password' })).status).toBe(200);
-    expect((await t.agent().post('/api/auth/reset-password').send({ token, password: 'yet-another-password' })).status).toBe(400);
+    expect(
+      (await t.agent().post('/api/auth/reset-password').send({ token, password: 'a-brand-new-password' })).status,
+    ).toBe(200);
+    expect(
+      (await t.agent().post('/api/auth/sign-in').send({ email: 'tomasz@example.com', password: 'bench-demo-2026' }))
+        .status,
+    ).toBe(401);
+    expect(
+      (
+        await t
+          .agent()
+          .post('/api/auth/sign-in')
+          .send({ email: 'tomasz@example.com', password: 'a-brand-new-password' })
+      ).status,
+    ).toBe(200);
+    expect(
+      (await t.agent().post('/api/auth/reset-password').send({ token, password: 'yet-another-password' })).status,
+    ).toBe(400);
   });
   it('refuses an expired link', async () => {
     const t = await testApp();
     await t.agent().post('/api/auth/forgot-password').send({ email: 'tomasz@example.com' });
     const token = tokenFrom(t.mails().find((m) => m.subject.startsWith('Reset'))!.text);
     t.db.$client.prepare('update tokens set expires_at = 0').run();
-    expect((await t.agent().post('/api/auth/reset-password').send({ token, password: 'a-brand-new-password' })).status).toBe(400);
+    expect(
+      (await t.agent().post('/api/auth/reset-password').send({ token, password: 'a-brand-new-password' })).status,
+    ).toBe(400);
   });
 });
 
@@ -123,7 +177,10 @@ describe('POST /api/users/invitations', () => {
     const mail = t.mails().find((m) => m.to === 'sam@fernhill.example')!;
     expect(mail.text).toContain('http://127.0.0.1:5174/accept-invitation?token=');
     const b = t.agent();
-    expect((await b.post('/api/auth/accept-invitation').send({ token: tokenFrom(mail.text), password: 'builder-password' })).status).toBe(200);
+    expect(
+      (await b.post('/api/auth/accept-invitation').send({ token: tokenFrom(mail.text), password: 'builder-password' }))
+        .status,
+    ).toBe(200);
     expect((await b.get('/api/auth/me')).body.user.role).toBe('builder');
   });
   it('refuses clients and builders (403) and anonymous callers (401)', async () => {
@@ -134,18 +191,35 @@ describe('POST /api/users/invitations', () => {
       expect(r.status).toBe(403);
       expect(r.body.error.code).toBe('forbidden');
     }
-    expect((await t.agent().post('/api/users/invitations').send({ email: 'x@example.com', name: 'X' })).status).toBe(401);
+    expect((await t.agent().post('/api/users/invitations').send({ email: 'x@example.com', name: 'X' })).status).toBe(
+      401,
+    );
   });
 });
 
 describe('origin check', () => {
   it('refuses a state-changing request from another origin, and lets one without an Origin through', async () => {
     const t = await testApp();
-    const bad = await t.agent().post('/api/auth/sign-in').set('Origin', 'http://evil.example').send({ email: 'priya@example.com', password: 'bench-demo-2026' });
+    const bad = await t
+      .agent()
+      .post('/api/auth/sign-in')
+      .set('Origin', 'http://evil.example')
+      .send({ email: 'priya@example.com', password: 'bench-demo-2026' });
     expect(bad.status).toBe(403);
     expect(bad.body.error.code).toBe('forbidden');
-    expect((await t.agent().post('/api/auth/sign-in').send({ email: 'priya@example.com', password: 'bench-demo-2026' })).status).toBe(200);
-    expect((await t.agent().post('/api/auth/sign-in').set('Origin', 'http://localhost:5174').send({ email: 'priya@example.com', password: 'bench-demo-2026' })).status).toBe(200);
+    expect(
+      (await t.agent().post('/api/auth/sign-in').send({ email: 'priya@example.com', password: 'bench-demo-2026' }))
+        .status,
+    ).toBe(200);
+    expect(
+      (
+        await t
+          .agent()
+          .post('/api/auth/sign-in')
+          .set('Origin', 'http://localhost:5174')
+          .send({ email: 'priya@example.com', password: 'bench-demo-2026' })
+      ).status,
+    ).toBe(200);
   });
   it('asks no CSRF token or Content-Type of a bodiless POST', async () => {
     const t = await testApp();

@@ -42,12 +42,22 @@ const ROUTES: [string, string][] = [
   ['patch', '/api/jobs/nope'],
   ['post', '/api/jobs/nope/time'],
 ];
-const CODES = ['invalid_input', 'unauthenticated', 'forbidden', 'not_found', 'conflict', 'payload_too_large', 'unsupported_media_type', 'rate_limited'];
+const CODES = [
+  'invalid_input',
+  'unauthenticated',
+  'forbidden',
+  'not_found',
+  'conflict',
+  'payload_too_large',
+  'unsupported_media_type',
+  'rate_limited',
+];
 
 function checkShape(status: number, body: unknown) {
   expect(status).toBeLessThan(500);
   if (status >= 400) {
-    const e = (body as { error: { code: string; message: string; issues?: { path: string; message: string }[] } }).error;
+    const e = (body as { error: { code: string; message: string; issues?: { path: string; message: string }[] } })
+      .error;
     expect(CODES).toContain(e.code);
     expect(typeof e.message).toBe('string');
     expect(JSON.stringify(body)).not.toMatch(/at .*\.ts:\d+|node_modules|stack/i);
@@ -58,12 +68,38 @@ function checkShape(status: number, body: unknown) {
 describe('bad input on every route', () => {
   it('never answers 500 or a stack trace, signed in as each role or not at all', async () => {
     const t = await testApp();
-    const agents = [t.agent(), await t.signIn('priya@example.com'), await t.signIn('maren@fernhill.example'), await t.signIn('idris@fernhill.example')];
-    const bodies: unknown[] = [null, 0, 'text', [], {}, { email: 5 }, { email: 'a@b.c', password: ['x'] }, { items: 'x' }, { items: [{}] }, { items: [{ spec: { design: 'bookcase', widthMm: 'wide' }, quantity: -1 }] }, { items: [{ spec: { design: '__proto__' }, quantity: 1 }] }, { token: 'x'.repeat(300) }, { __proto__: { admin: true } }];
+    const agents = [
+      t.agent(),
+      await t.signIn('priya@example.com'),
+      await t.signIn('maren@fernhill.example'),
+      await t.signIn('idris@fernhill.example'),
+    ];
+    const bodies: unknown[] = [
+      null,
+      0,
+      'text',
+      [],
+      {},
+      { email: 5 },
+      { email: 'a@b.c', password: ['x'] },
+      { items: 'x' },
+      { items: [{}] },
+      { items: [{ spec: { design: 'bookcase', widthMm: 'wide' }, quantity: -1 }] },
+      { items: [{ spec: { design: '__proto__' }, quantity: 1 }] },
+      { token: 'x'.repeat(300) },
+      { __proto__: { admin: true } },
+    ];
     for (const a of agents) {
       for (const [method, path] of ROUTES) {
         for (const body of bodies) {
-          const r = await (a as never as Record<string, (p: string) => { send: (b: unknown) => Promise<{ status: number; body: unknown }> }>)[method](path).send(body as object);
+          const r = await (
+            a as never as Record<
+              string,
+              (p: string) => { send: (b: unknown) => Promise<{ status: number; body: unknown }> }
+            >
+          )
+            [method](path)
+            .send(body as object);
           checkShape(r.status, r.body);
         }
       }
@@ -86,7 +122,11 @@ describe('bad input on every route', () => {
     const bad = await t.agent().post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email":');
     expect(bad.status).toBe(400);
     expect(bad.body.error).toEqual({ code: 'invalid_input', message: 'The request body is not valid JSON.' });
-    const big = await t.agent().post('/api/quotes/preview').set('Content-Type', 'application/json').send(JSON.stringify({ items: [], pad: 'x'.repeat(200_000) }));
+    const big = await t
+      .agent()
+      .post('/api/quotes/preview')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ items: [], pad: 'x'.repeat(200_000) }));
     expect(big.status).toBe(413);
     expect(big.body.error.code).toBe('payload_too_large');
     const none = await t.agent().get('/api/nothing-here');
@@ -111,16 +151,24 @@ describe('bad input on the money routes, with real ids', () => {
     const owner = await t.signIn('maren@fernhill.example');
     const priya = await t.signIn('priya@example.com');
     const projectId = (await priya.get('/api/projects')).body.projects[0].id;
-    const est = (await owner.post(`/api/projects/${projectId}/estimates`).send({ source: 'nonsense' }));
+    const est = await owner.post(`/api/projects/${projectId}/estimates`).send({ source: 'nonsense' });
     expect(est.status).toBe(400);
     const draft = (await owner.post(`/api/projects/${projectId}/estimates`).send({})).body.estimate;
-    for (const body of [{}, { version: 'one' }, { version: 1, lines: [{ group: 'gold' }] }, { version: 1, lines: [{ group: 'other', description: '', quantity: -1, unit: '', unitPriceCents: 1.5 }] }, { version: 1, discountCents: -5 }]) {
+    for (const body of [
+      {},
+      { version: 'one' },
+      { version: 1, lines: [{ group: 'gold' }] },
+      { version: 1, lines: [{ group: 'other', description: '', quantity: -1, unit: '', unitPriceCents: 1.5 }] },
+      { version: 1, discountCents: -5 },
+    ]) {
       const r = await owner.patch(`/api/estimates/${draft.id}`).send(body);
       expect(r.status).toBe(400);
       expect(r.body.error.issues.length).toBeGreaterThan(0);
     }
     expect((await owner.patch(`/api/estimates/${draft.id}`).send({ version: 99 })).status).toBe(409);
-    expect((await priya.post(`/api/estimates/${draft.id}/accept`).send({ acceptedName: 'Priya Natarajan' })).status).toBe(404);
+    expect(
+      (await priya.post(`/api/estimates/${draft.id}/accept`).send({ acceptedName: 'Priya Natarajan' })).status,
+    ).toBe(404);
     expect((await owner.post(`/api/projects/${projectId}/estimates`).send({})).status).toBe(409);
   });
 });

@@ -35,7 +35,14 @@ async function listen(s: Server): Promise<number> {
 }
 
 beforeAll(async () => {
-  maildev = new MailDev({ smtp: SMTP, web: WEB, ip: '127.0.0.1', webIp: '127.0.0.1', mailDirectory: mkdtempSync(join(tmpdir(), 'bw-flow-mail-')), silent: true });
+  maildev = new MailDev({
+    smtp: SMTP,
+    web: WEB,
+    ip: '127.0.0.1',
+    webIp: '127.0.0.1',
+    mailDirectory: mkdtempSync(join(tmpdir(), 'bw-flow-mail-')),
+    silent: true,
+  });
   await maildev.start();
   apiServer = createServer();
   const apiPort = await listen(apiServer);
@@ -43,10 +50,23 @@ beforeAll(async () => {
   fakeServer = createServer();
   const fakePort = await listen(fakeServer);
   stripeBase = `http://127.0.0.1:${fakePort}`;
-  fake = createStripeFake({ baseUrl: stripeBase, webhookUrl: `${api}/api/webhooks/stripe`, webhookSecret: SECRET, retryBaseMs: 100 });
+  fake = createStripeFake({
+    baseUrl: stripeBase,
+    webhookUrl: `${api}/api/webhooks/stripe`,
+    webhookSecret: SECRET,
+    retryBaseMs: 100,
+  });
   fakeServer.on('request', fake.app);
   const dir = mkdtempSync(join(tmpdir(), 'bw-flow-'));
-  const env = loadEnv({ DATABASE_PATH: ':memory:', LOG_LEVEL: 'silent', RATE_LIMITS: 'false', STRIPE_API_BASE: stripeBase, STRIPE_WEBHOOK_SECRET: SECRET, PDF_DIR: join(dir, 'pdf'), SMTP_URL: `smtp://127.0.0.1:${SMTP}` });
+  const env = loadEnv({
+    DATABASE_PATH: ':memory:',
+    LOG_LEVEL: 'silent',
+    RATE_LIMITS: 'false',
+    STRIPE_API_BASE: stripeBase,
+    STRIPE_WEBHOOK_SECRET: SECRET,
+    PDF_DIR: join(dir, 'pdf'),
+    SMTP_URL: `smtp://127.0.0.1:${SMTP}`,
+  });
   db = openDb(':memory:');
   applyMigrations(db);
   await seedDemo(db);
@@ -87,7 +107,12 @@ async function until<T>(f: () => T | Promise<T>, ok: (v: T) => boolean, what: st
   throw new Error(`timed out waiting for ${what}`);
 }
 async function pay(url: string, card: string) {
-  return fetch(url, { method: 'POST', redirect: 'manual', headers: { 'Content-Type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card_number: card, exp: '12/34', cvc: '123', name: 'Priya Natarajan' }) });
+  return fetch(url, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: { 'Content-Type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ card_number: card, exp: '12/34', cvc: '123', name: 'Priya Natarajan' }),
+  });
 }
 /** a response body as bytes (supertest would otherwise try to parse the PDF) */
 function binary(req: request.Test) {
@@ -129,10 +154,39 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
 
   it('PATCH /api/estimates/:id adds a manual line with a reason, and refuses a stale version (409)', async () => {
     const cur = (await owner.get(`/api/estimates/${estimateId}`)).body.estimate;
-    const noReason = await owner.patch(`/api/estimates/${estimateId}`).send({ version: cur.version, lines: [...cur.lines, { group: 'delivery', description: 'Delivery to Alder Cross', quantity: 1, unit: 'trip', unitPriceCents: 9500 }] });
+    const noReason = await owner
+      .patch(`/api/estimates/${estimateId}`)
+      .send({
+        version: cur.version,
+        lines: [
+          ...cur.lines,
+          {
+            group: 'delivery',
+            description: 'Delivery to Alder Cross',
+            quantity: 1,
+            unit: 'trip',
+            unitPriceCents: 9500,
+          },
+        ],
+      });
     expect(noReason.status, JSON.stringify(noReason.body)).toBe(400);
     expect(noReason.body.error.issues[0].path).toMatch(/overrideReason/);
-    const r = await owner.patch(`/api/estimates/${estimateId}`).send({ version: cur.version, lines: [...cur.lines, { group: 'delivery', description: 'Delivery to Alder Cross', quantity: 1, unit: 'trip', unitPriceCents: 9500, overrideReason: 'client asked for delivery' }] });
+    const r = await owner
+      .patch(`/api/estimates/${estimateId}`)
+      .send({
+        version: cur.version,
+        lines: [
+          ...cur.lines,
+          {
+            group: 'delivery',
+            description: 'Delivery to Alder Cross',
+            quantity: 1,
+            unit: 'trip',
+            unitPriceCents: 9500,
+            overrideReason: 'client asked for delivery',
+          },
+        ],
+      });
     expect(r.status, JSON.stringify(r.body)).toBe(200);
     expect(r.body.estimate.version).toBe(cur.version + 1);
     expect(r.body.estimate.totals.subtotalCents).toBe(cur.totals.subtotalCents + 9500);
@@ -145,7 +199,11 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     const r = await owner.post(`/api/estimates/${estimateId}/send`);
     expect(r.status).toBe(200);
     expect(r.body.estimate.status).toBe('sent');
-    const mail = await until(inbox, (m) => m.some((x) => /Your estimate from Fernhill Joinery/.test(x.subject)), 'the estimate mail');
+    const mail = await until(
+      inbox,
+      (m) => m.some((x) => /Your estimate from Fernhill Joinery/.test(x.subject)),
+      'the estimate mail',
+    );
     const em = mail.find((x) => /Your estimate/.test(x.subject))!;
     expect(em.to[0].address).toBe('priya@example.com');
     expect(em.text).toContain(`/projects/${projectId}`);
@@ -154,18 +212,21 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(pdf.headers['content-type']).toBe('application/pdf');
     const text = pdfText(pdf.body as Buffer);
     const usd = (c: number) => new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(c / 100);
-    for (const c of [total.totalCents, total.depositCents, total.balanceCents, total.taxCents]) expect(text).toContain(usd(c));
+    for (const c of [total.totalCents, total.depositCents, total.balanceCents, total.taxCents])
+      expect(text).toContain(usd(c));
     expect(text).toContain('Revision 1');
     expect(text).toContain('anchored to the wall');
     expect(text).toMatch(/Page 1 of \d/);
     expect((await owner.patch(`/api/estimates/${estimateId}`).send({ version: 3, discountCents: 5 })).status).toBe(409);
   });
 
-  it("answers 404 to another client on every route of the flow", async () => {
+  it('answers 404 to another client on every route of the flow', async () => {
     const tomasz = await agent('tomasz@example.com');
     expect((await tomasz.get(`/api/estimates/${estimateId}`)).status).toBe(404);
     expect((await tomasz.get(`/api/estimates/${estimateId}/pdf`)).status).toBe(404);
-    expect((await tomasz.post(`/api/estimates/${estimateId}/accept`).send({ acceptedName: 'Tomasz W' })).status).toBe(404);
+    expect((await tomasz.post(`/api/estimates/${estimateId}/accept`).send({ acceptedName: 'Tomasz W' })).status).toBe(
+      404,
+    );
     expect((await tomasz.post(`/api/estimates/${estimateId}/deposit-checkout`)).status).toBe(404);
     expect((await tomasz.post(`/api/projects/${projectId}/balance-checkout`)).status).toBe(404);
     expect((await tomasz.get(`/api/projects/${projectId}`)).status).toBe(404);
@@ -174,10 +235,15 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
   it('refuses a deposit before acceptance (409), then records the acceptance with name, time and IP', async () => {
     expect((await priya.post(`/api/estimates/${estimateId}/deposit-checkout`)).status).toBe(409);
     expect((await priya.post(`/api/estimates/${estimateId}/accept`).send({ acceptedName: 'P' })).status).toBe(400);
-    const r = await priya.post(`/api/estimates/${estimateId}/accept`).set('User-Agent', 'flow-test').send({ acceptedName: 'Priya Natarajan' });
+    const r = await priya
+      .post(`/api/estimates/${estimateId}/accept`)
+      .set('User-Agent', 'flow-test')
+      .send({ acceptedName: 'Priya Natarajan' });
     expect(r.status).toBe(200);
     expect(r.body.estimate).toMatchObject({ status: 'accepted', acceptedName: 'Priya Natarajan' });
-    const row = db.$client.prepare('select accepted_ip, accepted_user_agent, accepted_at from estimates where id = ?').get(estimateId) as Record<string, unknown>;
+    const row = db.$client
+      .prepare('select accepted_ip, accepted_user_agent, accepted_at from estimates where id = ?')
+      .get(estimateId) as Record<string, unknown>;
     expect(row.accepted_ip).toBeTruthy();
     expect(row.accepted_user_agent).toBe('flow-test');
     expect((await priya.get(`/api/projects/${projectId}`)).body.project.status).toBe('accepted');
@@ -189,7 +255,11 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(a.status).toBe(200);
     expect(b.body.url).toBe(a.body.url);
     // once the session expires, asking again gives a new one
-    const sdk = new Stripe('sk_test_flow', { host: '127.0.0.1', port: Number(new URL(stripeBase).port), protocol: 'http' });
+    const sdk = new Stripe('sk_test_flow', {
+      host: '127.0.0.1',
+      port: Number(new URL(stripeBase).port),
+      protocol: 'http',
+    });
     await sdk.checkout.sessions.expire(a.body.url.split('/pay/')[1]);
     const c = await priya.post(`/api/estimates/${estimateId}/deposit-checkout`);
     expect(c.status).toBe(200);
@@ -205,7 +275,16 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     const paid = await pay(url, '4242 4242 4242 4242');
     expect(paid.status).toBe(303);
     expect(paid.headers.get('location')).toMatch(new RegExp(`/projects/${projectId}\\?session_id=cs_test_`));
-    await until(() => db.select().from(projects).all().find((p) => p.id === projectId)!.status, (s) => s === 'deposit_paid', 'deposit_paid');
+    await until(
+      () =>
+        db
+          .select()
+          .from(projects)
+          .all()
+          .find((p) => p.id === projectId)!.status,
+      (s) => s === 'deposit_paid',
+      'deposit_paid',
+    );
     const board = (await owner.get('/api/jobs')).body.jobs;
     expect(board).toHaveLength(1);
     expect(board[0]).toMatchObject({ stage: 'material', clientName: 'Priya Natarajan' });
@@ -215,15 +294,25 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     const receipts = mails.filter((m) => m.subject.startsWith('Deposit receipt'));
     expect(receipts).toHaveLength(1);
     expect(receipts[0].to[0].address).toBe('priya@example.com');
-    expect(receipts[0].subject).toContain(new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(total.depositCents / 100));
+    expect(receipts[0].subject).toContain(
+      new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(total.depositCents / 100),
+    );
     expect(mails.some((m) => m.to[0].address === 'maren@fernhill.example' && /deposit/.test(m.subject))).toBe(true);
   });
 
   it('a resent event changes nothing: one payment, one job, one receipt', async () => {
-    const events = (await (await fetch(`${stripeBase}/__fake/events`)).json()) as { data: { id: string; type: string }[] };
+    const events = (await (await fetch(`${stripeBase}/__fake/events`)).json()) as {
+      data: { id: string; type: string }[];
+    };
     for (const e of events.data) await fetch(`${stripeBase}/__fake/events/${e.id}/resend`, { method: 'POST' });
     await new Promise((r) => setTimeout(r, 400));
-    expect(db.select().from(payments).all().filter((p) => p.status === 'paid')).toHaveLength(1);
+    expect(
+      db
+        .select()
+        .from(payments)
+        .all()
+        .filter((p) => p.status === 'paid'),
+    ).toHaveLength(1);
     expect(db.select().from(jobs).all()).toHaveLength(1);
     const mails = await inbox();
     expect(mails.filter((m) => m.subject.startsWith('Deposit receipt'))).toHaveLength(1);
@@ -231,21 +320,45 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
 
   it('a forged or stale signature answers 400 and changes nothing', async () => {
     const before = db.select().from(outbox).all().length;
-    const payload = JSON.stringify({ id: 'evt_forged', object: 'event', type: 'checkout.session.completed', data: { object: { id: 'cs_x', payment_status: 'paid', metadata: { paymentId: 'x' } } } });
-    const forged = await request(api).post('/api/webhooks/stripe').set('Content-Type', 'application/json').set('Stripe-Signature', signPayload(payload, 'whsec_wrong')).send(payload);
+    const payload = JSON.stringify({
+      id: 'evt_forged',
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: { id: 'cs_x', payment_status: 'paid', metadata: { paymentId: 'x' } } },
+    });
+    const forged = await request(api)
+      .post('/api/webhooks/stripe')
+      .set('Content-Type', 'application/json')
+      .set('Stripe-Signature', signPayload(payload, 'whsec_wrong'))
+      .send(payload);
     expect(forged.status).toBe(400);
     expect(forged.body.error.code).toBe('invalid_input');
-    const stale = await request(api).post('/api/webhooks/stripe').set('Content-Type', 'application/json').set('Stripe-Signature', signPayload(payload, SECRET, Math.floor(Date.now() / 1000) - 3600)).send(payload);
+    const stale = await request(api)
+      .post('/api/webhooks/stripe')
+      .set('Content-Type', 'application/json')
+      .set('Stripe-Signature', signPayload(payload, SECRET, Math.floor(Date.now() / 1000) - 3600))
+      .send(payload);
     expect(stale.status).toBe(400);
     const none = await request(api).post('/api/webhooks/stripe').set('Content-Type', 'application/json').send(payload);
     expect(none.status).toBe(400);
-    expect(db.$client.prepare("select count(*) as n from stripe_events where id = 'evt_forged'").get()).toEqual({ n: 0 });
+    expect(db.$client.prepare("select count(*) as n from stripe_events where id = 'evt_forged'").get()).toEqual({
+      n: 0,
+    });
     expect(db.select().from(outbox).all().length).toBe(before);
   });
 
   it('acknowledges an unknown event type once', async () => {
-    const payload = JSON.stringify({ id: 'evt_unknown_1', object: 'event', type: 'customer.created', data: { object: {} } });
-    const r = await request(api).post('/api/webhooks/stripe').set('Content-Type', 'application/json').set('Stripe-Signature', signPayload(payload, SECRET)).send(payload);
+    const payload = JSON.stringify({
+      id: 'evt_unknown_1',
+      object: 'event',
+      type: 'customer.created',
+      data: { object: {} },
+    });
+    const r = await request(api)
+      .post('/api/webhooks/stripe')
+      .set('Content-Type', 'application/json')
+      .set('Stripe-Signature', signPayload(payload, SECRET))
+      .send(payload);
     expect(r.status).toBe(200);
     expect(r.body).toEqual({ received: true, duplicate: false });
   });
@@ -296,7 +409,9 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     const idris = await agent('idris@fernhill.example');
     expect((await idris.patch(`/api/jobs/${job.id}`).send({ stageKey: 'cutting' })).status).toBe(200);
     expect((await owner.get(`/api/projects/${projectId}`)).body.project.status).toBe('in_production');
-    const t = await idris.post(`/api/jobs/${job.id}/time`).send({ stageKey: 'cutting', hours: 2.5, note: 'broke down the sheets' });
+    const t = await idris
+      .post(`/api/jobs/${job.id}/time`)
+      .send({ stageKey: 'cutting', hours: 2.5, note: 'broke down the sheets' });
     expect(t.status).toBe(201);
     expect(t.body.job.hoursLogged).toMatchObject({ cutting: 2.5, total: 2.5 });
     expect((await idris.post(`/api/jobs/${job.id}/time`).send({ stageKey: 'cutting', hours: 30 })).status).toBe(400);
@@ -304,28 +419,61 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect((await idris.patch(`/api/jobs/${job.id}`).send({ stageKey: 'ready' })).status).toBe(200);
     expect((await owner.get(`/api/projects/${projectId}`)).body.project.status).toBe('ready');
     const mails = await until(inbox, (m) => m.some((x) => /balance of/.test(x.subject)), 'the balance request');
-    expect(mails.find((m) => /balance of/.test(m.subject))!.subject).toContain(new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(total.balanceCents / 100));
+    expect(mails.find((m) => /balance of/.test(m.subject))!.subject).toContain(
+      new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(total.balanceCents / 100),
+    );
   });
 
   it('the client pays the balance once the piece is ready, and the owner refunds part of the deposit through Stripe', async () => {
     const { url } = (await priya.post(`/api/projects/${projectId}/balance-checkout`)).body;
     expect((await pay(url, '4242424242424242')).status).toBe(303);
-    await until(() => db.select().from(payments).all().filter((p) => p.kind === 'balance' && p.status === 'paid').length, (n) => n === 1, 'the balance');
-    const deposit = db.select().from(payments).all().find((p) => p.kind === 'deposit' && p.status === 'paid')!;
+    await until(
+      () =>
+        db
+          .select()
+          .from(payments)
+          .all()
+          .filter((p) => p.kind === 'balance' && p.status === 'paid').length,
+      (n) => n === 1,
+      'the balance',
+    );
+    const deposit = db
+      .select()
+      .from(payments)
+      .all()
+      .find((p) => p.kind === 'deposit' && p.status === 'paid')!;
     expect((await priya.post(`/api/payments/${deposit.id}/refund`).send({ amountCents: 100 })).status).toBe(403);
     const r = await owner.post(`/api/payments/${deposit.id}/refund`).send({ amountCents: 2500 });
     expect(r.status).toBe(202);
-    await until(() => db.select().from(payments).all().find((p) => p.id === deposit.id)!.status, (s) => s === 'partially_refunded', 'the refund');
+    await until(
+      () =>
+        db
+          .select()
+          .from(payments)
+          .all()
+          .find((p) => p.id === deposit.id)!.status,
+      (s) => s === 'partially_refunded',
+      'the refund',
+    );
     const listed = (await owner.get('/api/payments')).body.payments.find((p: { id: string }) => p.id === deposit.id);
-    expect(listed).toMatchObject({ clientName: 'Priya Natarajan', kind: 'deposit', status: 'partially_refunded', refundedCents: 2500 });
+    expect(listed).toMatchObject({
+      clientName: 'Priya Natarajan',
+      kind: 'deposit',
+      status: 'partially_refunded',
+      refundedCents: 2500,
+    });
     expect(listed).not.toHaveProperty('checkoutUrl');
     const mails = await until(inbox, (m) => m.some((x) => /Refund of \$25\.00/.test(x.subject)), 'the refund notice');
     expect(mails.filter((x) => /Refund of/.test(x.subject))).toHaveLength(1);
     const job = (await owner.get('/api/jobs')).body.jobs[0];
     expect((await owner.patch(`/api/jobs/${job.id}`).send({ stageKey: 'delivered' })).status).toBe(200);
     expect((await owner.get(`/api/projects/${projectId}`)).body.project.status).toBe('closed');
-    const timeline = (await owner.get(`/api/projects/${projectId}`)).body.project.timeline.map((e: { kind: string }) => e.kind);
-    expect(timeline).toEqual(expect.arrayContaining(['estimate_sent', 'estimate_accepted', 'deposit_paid', 'stage', 'balance_paid', 'refund']));
+    const timeline = (await owner.get(`/api/projects/${projectId}`)).body.project.timeline.map(
+      (e: { kind: string }) => e.kind,
+    );
+    expect(timeline).toEqual(
+      expect.arrayContaining(['estimate_sent', 'estimate_accepted', 'deposit_paid', 'stage', 'balance_paid', 'refund']),
+    );
   });
 });
 
@@ -362,25 +510,65 @@ describe('SMTP down while sending', () => {
     expect(sent.status).toBe(200);
     expect(sent.body.estimate.status).toBe('sent');
     await worker.tick();
-    const pending = db.select().from(outbox).all().filter((m) => m.to === 'guild@example.com' && m.status === 'pending');
-    expect(pending, JSON.stringify(db.select().from(outbox).all().map((m) => [m.to, m.status, m.attempts, m.lastError]))).toHaveLength(1);
+    const pending = db
+      .select()
+      .from(outbox)
+      .all()
+      .filter((m) => m.to === 'guild@example.com' && m.status === 'pending');
+    expect(
+      pending,
+      JSON.stringify(
+        db
+          .select()
+          .from(outbox)
+          .all()
+          .map((m) => [m.to, m.status, m.attempts, m.lastError]),
+      ),
+    ).toHaveLength(1);
     // the worker tried, failed, and keeps every message for a later attempt
-    expect(db.select().from(outbox).all().some((m) => m.status === 'pending' && m.attempts >= 1 && m.lastError)).toBe(true);
+    expect(
+      db
+        .select()
+        .from(outbox)
+        .all()
+        .some((m) => m.status === 'pending' && m.attempts >= 1 && m.lastError),
+    ).toBe(true);
     // the owner sees it among the failed mail, with the relay's error; a client may not look
-    const listed: { id: string; attempts: number; lastError: string | null }[] = (await owner.get('/api/mail/failed')).body.mails;
-    const tried = db.select().from(outbox).all().filter((m) => m.status === 'pending' && m.attempts >= 1);
+    const listed: { id: string; attempts: number; lastError: string | null }[] = (await owner.get('/api/mail/failed'))
+      .body.mails;
+    const tried = db
+      .select()
+      .from(outbox)
+      .all()
+      .filter((m) => m.status === 'pending' && m.attempts >= 1);
     expect(listed.map((m) => m.id).sort()).toEqual(tried.map((m) => m.id).sort());
     expect(listed.length).toBeGreaterThan(0);
     expect(listed.every((m) => m.attempts >= 1 && m.lastError)).toBe(true);
     const failed = listed[0];
     expect((await guild.get('/api/mail/failed')).status).toBe(403);
-    maildev = new MailDev({ smtp: SMTP, web: WEB, ip: '127.0.0.1', webIp: '127.0.0.1', mailDirectory: mkdtempSync(join(tmpdir(), 'bw-flow-mail-')), silent: true });
+    maildev = new MailDev({
+      smtp: SMTP,
+      web: WEB,
+      ip: '127.0.0.1',
+      webIp: '127.0.0.1',
+      mailDirectory: mkdtempSync(join(tmpdir(), 'bw-flow-mail-')),
+      silent: true,
+    });
     await maildev.start();
     // "try again now" instead of waiting out the backoff
-    for (const m of (await owner.get('/api/mail/failed')).body.mails) expect((await owner.post(`/api/mail/${m.id}/retry`)).status).toBe(202);
-    const mails = await until(inbox, (m) => m.some((x) => x.to[0].address === 'guild@example.com'), 'the estimate mail after SMTP came back');
+    for (const m of (await owner.get('/api/mail/failed')).body.mails)
+      expect((await owner.post(`/api/mail/${m.id}/retry`)).status).toBe(202);
+    const mails = await until(
+      inbox,
+      (m) => m.some((x) => x.to[0].address === 'guild@example.com'),
+      'the estimate mail after SMTP came back',
+    );
     expect(mails.filter((x) => x.to[0].address === 'guild@example.com')).toHaveLength(1);
-    await until(async () => (await owner.get('/api/mail/failed')).body.mails, (l) => l.length === 0, 'no failed mail left');
+    await until(
+      async () => (await owner.get('/api/mail/failed')).body.mails,
+      (l) => l.length === 0,
+      'no failed mail left',
+    );
     expect((await owner.post(`/api/mail/${failed.id}/retry`)).status).toBe(409);
     expect((await owner.post('/api/mail/no-such/retry')).status).toBe(404);
   });

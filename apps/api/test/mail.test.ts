@@ -12,7 +12,14 @@ const quiet = { warn: () => undefined };
 let maildev: MailDev | null = null;
 
 async function startMaildev() {
-  maildev = new MailDev({ smtp: SMTP, web: WEB, ip: '127.0.0.1', webIp: '127.0.0.1', mailDirectory: mkdtempSync(join(tmpdir(), 'bw-mail-')), silent: true });
+  maildev = new MailDev({
+    smtp: SMTP,
+    web: WEB,
+    ip: '127.0.0.1',
+    webIp: '127.0.0.1',
+    mailDirectory: mkdtempSync(join(tmpdir(), 'bw-mail-')),
+    silent: true,
+  });
   await maildev.start();
 }
 async function inbox(): Promise<{ subject: string; to: { address: string }[]; headers: Record<string, string> }[]> {
@@ -28,7 +35,12 @@ describe('the outbox worker over real SMTP (maildev)', () => {
     await startMaildev();
     const t = await testApp();
     await t.agent().post('/api/auth/sign-up').send({ email: 'm@example.com', password: 'a-long-password', name: 'M' });
-    const worker = createMailWorker(t.db, `smtp://127.0.0.1:${SMTP}`, 'Fernhill Joinery <shop@fernhill.example>', quiet);
+    const worker = createMailWorker(
+      t.db,
+      `smtp://127.0.0.1:${SMTP}`,
+      'Fernhill Joinery <shop@fernhill.example>',
+      quiet,
+    );
     expect(await worker.tick()).toBe(1);
     const mails = await inbox();
     expect(mails).toHaveLength(1);
@@ -42,7 +54,12 @@ describe('the outbox worker over real SMTP (maildev)', () => {
   it('while SMTP is down, keeps the message and retries with backoff; once it is up the message arrives once', async () => {
     const t = await testApp();
     await t.agent().post('/api/auth/forgot-password').send({ email: 'priya@example.com' });
-    const worker = createMailWorker(t.db, `smtp://127.0.0.1:${SMTP}`, 'Fernhill Joinery <shop@fernhill.example>', quiet);
+    const worker = createMailWorker(
+      t.db,
+      `smtp://127.0.0.1:${SMTP}`,
+      'Fernhill Joinery <shop@fernhill.example>',
+      quiet,
+    );
     expect(await worker.tick()).toBe(0);
     const failed = t.mails()[0];
     expect(failed).toMatchObject({ status: 'pending', attempts: 1 });

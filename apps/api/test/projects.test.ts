@@ -29,7 +29,9 @@ describe('GET /api/projects/:id', () => {
     const t = await testApp();
     const tomasz = await t.signIn('tomasz@example.com');
     const owner = await t.signIn('maren@fernhill.example');
-    const priyas = (await owner.get('/api/projects')).body.projects.find((p: { client: { name: string } }) => p.client.name === 'Priya Natarajan');
+    const priyas = (await owner.get('/api/projects')).body.projects.find(
+      (p: { client: { name: string } }) => p.client.name === 'Priya Natarajan',
+    );
     const r = await tomasz.get(`/api/projects/${priyas.id}`);
     expect(r.status).toBe(404);
     expect(r.body.error.code).toBe('not_found');
@@ -43,11 +45,15 @@ describe('GET /api/projects/:id/layouts', () => {
   it('gives the owner the request’s cut list, drawn sheets and pick list; nobody else', async () => {
     const t = await testApp();
     const owner = await t.signIn('maren@fernhill.example');
-    const priyas = (await owner.get('/api/projects')).body.projects.find((p: { client: { name: string } }) => p.client.name === 'Priya Natarajan');
+    const priyas = (await owner.get('/api/projects')).body.projects.find(
+      (p: { client: { name: string } }) => p.client.name === 'Priya Natarajan',
+    );
     const r = await owner.get(`/api/projects/${priyas.id}/layouts`);
     expect(r.status).toBe(200);
     const l = r.body.layouts;
-    expect(l.pieces.map((p: { quantity: number }) => p.quantity)).toEqual(priyas.items.map((i: { quantity: number }) => i.quantity));
+    expect(l.pieces.map((p: { quantity: number }) => p.quantity)).toEqual(
+      priyas.items.map((i: { quantity: number }) => i.quantity),
+    );
     expect(l.materials[0].sheets[0].drawing.shapes.length).toBeGreaterThan(3);
     expect(l.pickList.length).toBeGreaterThan(0);
     expect(['in', 'mm']).toContain(l.units);
@@ -65,15 +71,28 @@ describe('POST /api/projects/:id/comments', () => {
     const id = (await priya.get('/api/projects')).body.projects[0].id;
     const r = await priya.post(`/api/projects/${id}/comments`).send({ message: '  Could the bench be 2 in lower?  ' });
     expect(r.status).toBe(201);
-    expect(r.body.project.timeline.at(-1)).toMatchObject({ kind: 'comment', message: 'Could the bench be 2 in lower?', by: 'Priya Natarajan' });
+    expect(r.body.project.timeline.at(-1)).toMatchObject({
+      kind: 'comment',
+      message: 'Could the bench be 2 in lower?',
+      by: 'Priya Natarajan',
+    });
     const reply = await owner.post(`/api/projects/${id}/comments`).send({ message: 'Yes: revision 2 is on its way.' });
     expect(reply.body.project.timeline.at(-1)).toMatchObject({ kind: 'comment', by: 'Maren Holt' });
     const mails = t.mails().filter((m) => /A comment from/.test(m.subject));
     expect(mails.map((m) => m.to).sort()).toEqual(['maren@fernhill.example', 'priya@example.com']);
     expect(mails.find((m) => m.to === 'maren@fernhill.example')!.text).toContain('Could the bench be 2 in lower?');
-    expect((await priya.post(`/api/projects/${id}/comments`).send({ message: '   ' })).body.error.issues[0]).toEqual({ path: 'message', message: 'write a comment first' });
-    expect((await (await t.signIn('tomasz@example.com')).post(`/api/projects/${id}/comments`).send({ message: 'hi' })).status).toBe(404);
-    expect((await (await t.signIn('idris@fernhill.example')).post(`/api/projects/${id}/comments`).send({ message: 'hi' })).status).toBe(403);
+    expect((await priya.post(`/api/projects/${id}/comments`).send({ message: '   ' })).body.error.issues[0]).toEqual({
+      path: 'message',
+      message: 'write a comment first',
+    });
+    expect(
+      (await (await t.signIn('tomasz@example.com')).post(`/api/projects/${id}/comments`).send({ message: 'hi' }))
+        .status,
+    ).toBe(404);
+    expect(
+      (await (await t.signIn('idris@fernhill.example')).post(`/api/projects/${id}/comments`).send({ message: 'hi' }))
+        .status,
+    ).toBe(403);
   });
 });
 
@@ -81,7 +100,9 @@ describe('POST /api/projects', () => {
   it('when every item is valid, records the request (201, requested)', async () => {
     const t = await testApp();
     const a = await t.signIn('guild@example.com');
-    const r = await a.post('/api/projects').send({ items: [{ spec: designs['base-cabinet'].defaults, quantity: 3 }], notes: 'For the corner' });
+    const r = await a
+      .post('/api/projects')
+      .send({ items: [{ spec: designs['base-cabinet'].defaults, quantity: 3 }], notes: 'For the corner' });
     expect(r.status).toBe(201);
     expect(r.body.project).toMatchObject({ status: 'requested', notes: 'For the corner', items: [{ quantity: 3 }] });
     expect((await a.get('/api/projects')).body.projects).toHaveLength(2);
@@ -89,9 +110,14 @@ describe('POST /api/projects', () => {
   it('when an item breaks its design limits, answers 400 naming the field and the limit', async () => {
     const t = await testApp();
     const a = await t.signIn('guild@example.com');
-    const r = await a.post('/api/projects').send({ items: [{ spec: { ...designs.bookcase.defaults, widthMm: 100 }, quantity: 1 }] });
+    const r = await a
+      .post('/api/projects')
+      .send({ items: [{ spec: { ...designs.bookcase.defaults, widthMm: 100 }, quantity: 1 }] });
     expect(r.status).toBe(400);
-    expect(r.body.error.issues).toContainEqual({ path: 'items[0].spec.widthMm', message: '100 mm is below the 305 mm minimum' });
+    expect(r.body.error.issues).toContainEqual({
+      path: 'items[0].spec.widthMm',
+      message: '100 mm is below the 305 mm minimum',
+    });
   });
   it('when a shelf span is more than its material can carry, answers 400 and says what to change', async () => {
     const t = await testApp();
@@ -103,7 +129,9 @@ describe('POST /api/projects', () => {
   });
   it('refuses the owner (403): only a client requests an estimate', async () => {
     const t = await testApp();
-    const r = await (await t.signIn('maren@fernhill.example')).post('/api/projects').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    const r = await (await t.signIn('maren@fernhill.example'))
+      .post('/api/projects')
+      .send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
     expect(r.status).toBe(403);
   });
 });
@@ -112,7 +140,12 @@ describe('GET /api/designs', () => {
   it('lists the four designs with defaults and limits, to anyone', async () => {
     const t = await testApp();
     const r = await t.agent().get('/api/designs');
-    expect(r.body.designs.map((d: { slug: string }) => d.slug)).toEqual(['assembly-bench', 'base-cabinet', 'wall-cabinet', 'bookcase']);
+    expect(r.body.designs.map((d: { slug: string }) => d.slug)).toEqual([
+      'assembly-bench',
+      'base-cabinet',
+      'wall-cabinet',
+      'bookcase',
+    ]);
     expect((await t.agent().get('/api/designs/bookcase')).body.design.limits.widthMm).toEqual([305, 1067]);
     expect((await t.agent().get('/api/designs/sofa')).status).toBe(404);
   });
@@ -121,7 +154,10 @@ describe('GET /api/designs', () => {
 describe('POST /api/quotes/preview', () => {
   it('gives anyone the budget range, checks and drawing, and no cost lines', async () => {
     const t = await testApp();
-    const r = await t.agent().post('/api/quotes/preview').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    const r = await t
+      .agent()
+      .post('/api/quotes/preview')
+      .send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
     expect(r.status).toBe(200);
     const q = r.body.quote;
     expect(q.budget.lowCents).toBeLessThan(q.budget.highCents);
@@ -132,14 +168,18 @@ describe('POST /api/quotes/preview', () => {
   });
   it('gives the owner the lines and totals as well', async () => {
     const t = await testApp();
-    const r = await (await t.signIn('maren@fernhill.example')).post('/api/quotes/preview').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    const r = await (await t.signIn('maren@fernhill.example'))
+      .post('/api/quotes/preview')
+      .send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
     expect(r.body.quote.lines.length).toBeGreaterThan(3);
     expect(r.body.quote.totals.totalCents).toBeGreaterThanOrEqual(r.body.quote.budget.lowCents);
     expect(r.body.quote.totals.totalCents).toBeLessThanOrEqual(r.body.quote.budget.highCents);
   });
   it('gives a client no lines either', async () => {
     const t = await testApp();
-    const r = await (await t.signIn('priya@example.com')).post('/api/quotes/preview').send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    const r = await (await t.signIn('priya@example.com'))
+      .post('/api/quotes/preview')
+      .send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
     expect(r.body.quote.lines).toBeUndefined();
   });
 });

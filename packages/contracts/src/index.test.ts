@@ -4,7 +4,11 @@ import { CreateProjectBody, SignUpBody } from './index';
 
 describe('SignUpBody', () => {
   it('trims and lower-cases the e-mail', () => {
-    expect(SignUpBody.parse({ email: '  Priya@Example.COM ', password: 'a-long-password', name: ' Priya ' })).toEqual({ email: 'priya@example.com', password: 'a-long-password', name: 'Priya' });
+    expect(SignUpBody.parse({ email: '  Priya@Example.COM ', password: 'a-long-password', name: ' Priya ' })).toEqual({
+      email: 'priya@example.com',
+      password: 'a-long-password',
+      name: 'Priya',
+    });
   });
   it('refuses a password under 10 characters', () => {
     const r = SignUpBody.safeParse({ email: 'a@example.com', password: 'short', name: 'A' });
@@ -15,9 +19,14 @@ describe('SignUpBody', () => {
 
 describe('CreateProjectBody', () => {
   it('checks each item against its design, naming the path', () => {
-    const r = CreateProjectBody.safeParse({ items: [{ spec: { ...designs['wall-cabinet'].defaults, depthMm: 50 }, quantity: 2 }] });
+    const r = CreateProjectBody.safeParse({
+      items: [{ spec: { ...designs['wall-cabinet'].defaults, depthMm: 50 }, quantity: 2 }],
+    });
     expect(r.success).toBe(false);
-    expect(r.error?.issues[0]).toMatchObject({ path: ['items', 0, 'spec', 'depthMm'], message: '50 mm is below the 229 mm minimum' });
+    expect(r.error?.issues[0]).toMatchObject({
+      path: ['items', 0, 'spec', 'depthMm'],
+      message: '50 mm is below the 229 mm minimum',
+    });
   });
   it('defaults the notes to empty', () => {
     expect(CreateProjectBody.parse({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] }).notes).toBe('');

@@ -4,7 +4,17 @@ import { BuildSpec, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwrig
 export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
 
 /** Every error the API answers with (DESIGN.md section 10). */
-export const ERROR_CODES = ['invalid_input', 'unauthenticated', 'forbidden', 'not_found', 'conflict', 'payload_too_large', 'unsupported_media_type', 'rate_limited', 'internal'] as const;
+export const ERROR_CODES = [
+  'invalid_input',
+  'unauthenticated',
+  'forbidden',
+  'not_found',
+  'conflict',
+  'payload_too_large',
+  'unsupported_media_type',
+  'rate_limited',
+  'internal',
+] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 export interface ApiIssue {
   path: string;
@@ -18,8 +28,15 @@ export const ROLES = ['client', 'owner', 'builder'] as const;
 export type Role = (typeof ROLES)[number];
 
 export const PASSWORD_MIN = 10;
-const email = z.string({ error: 'enter your e-mail address' }).trim().toLowerCase().pipe(z.email('enter a valid e-mail address').max(254, 'use at most 254 characters'));
-const password = z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(200, 'use at most 200 characters');
+const email = z
+  .string({ error: 'enter your e-mail address' })
+  .trim()
+  .toLowerCase()
+  .pipe(z.email('enter a valid e-mail address').max(254, 'use at most 254 characters'));
+const password = z
+  .string()
+  .min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`)
+  .max(200, 'use at most 200 characters');
 const name = z.string().trim().min(1, 'enter your name').max(120, 'use at most 120 characters');
 const token = z.string().min(16, 'this link is not valid').max(200, 'this link is not valid');
 
@@ -37,14 +54,22 @@ export type InvitationBody = z.input<typeof InvitationBody>;
 export const AcceptInvitationBody = z.object({ token, password });
 export type AcceptInvitationBody = z.input<typeof AcceptInvitationBody>;
 
-export const User = z.object({ id: z.string(), email: z.string(), name: z.string(), role: z.enum(ROLES), emailVerified: z.boolean() });
+export const User = z.object({
+  id: z.string(),
+  email: z.string(),
+  name: z.string(),
+  role: z.enum(ROLES),
+  emailVerified: z.boolean(),
+});
 export type User = z.infer<typeof User>;
 
 export const ItemInput = z.object({
   spec: BuildSpec,
   quantity: z.number().int('enter a whole number').min(1, 'at least 1').max(50, 'at most 50'),
 });
-export const QuotePreviewBody = z.object({ items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items') });
+export const QuotePreviewBody = z.object({
+  items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items'),
+});
 export type QuotePreviewBody = z.input<typeof QuotePreviewBody>;
 export const CreateProjectBody = z.object({
   items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items'),
@@ -52,10 +77,25 @@ export const CreateProjectBody = z.object({
 });
 export type CreateProjectBody = z.input<typeof CreateProjectBody>;
 /** A comment on a project, from its client or the owner; it goes on the timeline and by e-mail to the other side. */
-export const CommentBody = z.object({ message: z.string().trim().min(1, 'write a comment first').max(2000, 'use at most 2000 characters') });
+export const CommentBody = z.object({
+  message: z.string().trim().min(1, 'write a comment first').max(2000, 'use at most 2000 characters'),
+});
 export type CommentBody = z.input<typeof CommentBody>;
 
-export const PROJECT_STATUSES = ['requested', 'estimating', 'estimate_sent', 'accepted', 'deposit_paid', 'in_production', 'ready', 'delivered', 'closed', 'declined', 'expired', 'cancelled'] as const;
+export const PROJECT_STATUSES = [
+  'requested',
+  'estimating',
+  'estimate_sent',
+  'accepted',
+  'deposit_paid',
+  'in_production',
+  'ready',
+  'delivered',
+  'closed',
+  'declined',
+  'expired',
+  'cancelled',
+] as const;
 export type ProjectStatus = (typeof PROJECT_STATUSES)[number];
 export const ESTIMATE_STATUSES = ['draft', 'sent', 'accepted', 'superseded', 'expired'] as const;
 export type EstimateStatus = (typeof ESTIMATE_STATUSES)[number];
@@ -64,7 +104,14 @@ export interface EstimateSummary {
   id: string;
   revision: number;
   status: EstimateStatus;
-  totals: { subtotalCents: number; discountCents: number; taxCents: number; totalCents: number; depositCents: number; balanceCents: number };
+  totals: {
+    subtotalCents: number;
+    discountCents: number;
+    taxCents: number;
+    totalCents: number;
+    depositCents: number;
+    balanceCents: number;
+  };
 }
 export interface TimelineEvent {
   id: string;
@@ -117,8 +164,12 @@ export const UpdateEstimateBody = z.object({
   discountCents: z.number().int().min(0).max(100_000_000).optional(),
 });
 export type UpdateEstimateBody = z.input<typeof UpdateEstimateBody>;
-export const AcceptEstimateBody = z.object({ acceptedName: z.string().trim().min(2, 'type your full name to accept').max(120) });
-export const RefundBody = z.object({ amountCents: z.number().int().min(1, 'at least 1 cent').max(100_000_000).optional() });
+export const AcceptEstimateBody = z.object({
+  acceptedName: z.string().trim().min(2, 'type your full name to accept').max(120),
+});
+export const RefundBody = z.object({
+  amountCents: z.number().int().min(1, 'at least 1 cent').max(100_000_000).optional(),
+});
 export const STAGE_KEYS = ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] as const;
 export const UpdateJobBody = z
   .object({
@@ -128,7 +179,11 @@ export const UpdateJobBody = z
     dueDate: z.iso.date('use a date like 2026-12-24').nullable().optional(),
   })
   .refine((v) => Object.keys(v).length > 0, 'change at least one of stageKey, position, builderId, dueDate');
-export const LogTimeBody = z.object({ stageKey: z.enum(STAGE_KEYS), hours: z.number().gt(0, 'more than 0 hours').max(24, 'at most 24 hours at a time'), note: z.string().max(500).default('') });
+export const LogTimeBody = z.object({
+  stageKey: z.enum(STAGE_KEYS),
+  hours: z.number().gt(0, 'more than 0 hours').max(24, 'at most 24 hours at a time'),
+  note: z.string().max(500).default(''),
+});
 
 /** `GET /api/estimates/:id`: what a client sees; the owner also gets the fields marked owner. */
 export interface EstimateView {
@@ -142,7 +197,18 @@ export interface EstimateView {
   sentAt: string | null;
   acceptedAt: string | null;
   acceptedName: string | null;
-  lines: { id: string; group: LineGroup; description: string; quantity: number; unit: string; unitPriceCents: number; amountCents: number; source: 'computed' | 'manual'; /** owner */ costCents?: number; /** owner */ overrideReason?: string | null }[];
+  lines: {
+    id: string;
+    group: LineGroup;
+    description: string;
+    quantity: number;
+    unit: string;
+    unitPriceCents: number;
+    amountCents: number;
+    source: 'computed' | 'manual';
+    /** owner */ costCents?: number;
+    /** owner */ overrideReason?: string | null;
+  }[];
   totals: EstimateSummary['totals'];
   drawings: Drawing[];
   checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string }[];

@@ -26,7 +26,9 @@ function median(f: () => void, runs: number, warm = 5): number {
 }
 
 const bench: EstimateItem[] = [{ spec: designs['assembly-bench'].defaults, quantity: 1 }];
-const kitchen: EstimateItem[] = JSON.parse(readFileSync(new URL('../test/fixtures/kitchen-run.json', import.meta.url), 'utf8'));
+const kitchen: EstimateItem[] = JSON.parse(
+  readFileSync(new URL('../test/fixtures/kitchen-run.json', import.meta.url), 'utf8'),
+);
 const benchMs = median(() => estimate(bench, demoPriceBook, demoSettings, { effort: 'quick' }), 50);
 const kitchenMs = median(() => estimate(kitchen, demoPriceBook, demoSettings, { effort: 'quick' }), 15, 2);
 const thoroughKitchenMs = median(() => estimate(kitchen, demoPriceBook, demoSettings, { effort: 'thorough' }), 3, 1);
@@ -47,4 +49,6 @@ const pieces = kitchen.reduce((s, i) => s + i.quantity, 0);
 console.log(`estimate, assembly-bench defaults, quick: median ${benchMs.toFixed(1)} ms (target <= 20 ms)`);
 console.log(`estimate, kitchen run of ${pieces} cabinets, quick: median ${kitchenMs.toFixed(1)} ms (target <= 300 ms)`);
 console.log(`estimate, kitchen run, thorough: median ${thoroughKitchenMs.toFixed(0)} ms`);
-console.log(`geometry bundle: ${(js.length / 1024).toFixed(1)} KB minified, ${(gz / 1024).toFixed(1)} KB gzipped (target <= 60 KB)`);
+console.log(
+  `geometry bundle: ${(js.length / 1024).toFixed(1)} KB minified, ${(gz / 1024).toFixed(1)} KB gzipped (target <= 60 KB)`,
+);

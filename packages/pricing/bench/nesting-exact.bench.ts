@@ -32,13 +32,20 @@ for (let s = 1; s <= N; s++) {
       waste += a;
     }
   }
-  const types = piecesByKind(pieces.filter((_, i) => kept.has(i)), false);
+  const types = piecesByKind(
+    pieces.filter((_, i) => kept.has(i)),
+    false,
+  );
   const r = packExact(types, { x0: 0, y0: 0, L: 30, W: 30, sheets: 1, kerf: 0, workLimit: STEPS });
   steps += r.work;
   if (r.status === 'found') solved++;
   else misses.push(`#${s} (${kept.size} parts, ${waste} free: ${r.status})`);
 }
 const ms = performance.now() - t0;
-console.log(`exact search, ${N} random guillotine sheets of 30 x 30 with up to ${WASTE} free: ${solved} of ${N} put back within ${STEPS.toExponential(1)} steps each`);
-console.log(`time ${(ms / 1000).toFixed(1)} s (${(ms / N).toFixed(0)} ms per sheet, ${((ms * 1e6) / steps).toFixed(1)} ns per step)`);
+console.log(
+  `exact search, ${N} random guillotine sheets of 30 x 30 with up to ${WASTE} free: ${solved} of ${N} put back within ${STEPS.toExponential(1)} steps each`,
+);
+console.log(
+  `time ${(ms / 1000).toFixed(1)} s (${(ms / N).toFixed(0)} ms per sheet, ${((ms * 1e6) / steps).toFixed(1)} ns per step)`,
+);
 if (misses.length) console.log(`missed: ${misses.join(', ')}`);

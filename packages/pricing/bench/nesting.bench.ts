@@ -59,12 +59,28 @@ function groupOf(name: string): string {
 
 // Best published totals over the ten instances of each group (Gonçalves & Resende 2013), as listed in the bench README.
 const FIXED: Record<string, number[]> = {
-  1: [71, 134, 200], 2: [10, 19, 25], 3: [51, 94, 139], 4: [10, 19, 25], 5: [65, 119, 180],
-  6: [10, 16, 21], 7: [55, 111, 158], 8: [58, 113, 161], 9: [143, 278, 437], 10: [42, 74, 100],
+  1: [71, 134, 200],
+  2: [10, 19, 25],
+  3: [51, 94, 139],
+  4: [10, 19, 25],
+  5: [65, 119, 180],
+  6: [10, 16, 21],
+  7: [55, 111, 158],
+  8: [58, 113, 161],
+  9: [143, 278, 437],
+  10: [42, 74, 100],
 };
 const ROTATING: Record<string, number[]> = {
-  1: [66, 128, 195], 2: [10, 19, 25], 3: [47, 92, 134], 4: [10, 19, 23], 5: [59, 114, 172],
-  6: [10, 16, 21], 7: [52, 102, 146], 8: [53, 103, 147], 9: [143, 275, 435], 10: [41, 72, 99],
+  1: [66, 128, 195],
+  2: [10, 19, 25],
+  3: [47, 92, 134],
+  4: [10, 19, 23],
+  5: [59, 114, 172],
+  6: [10, 16, 21],
+  7: [52, 102, 146],
+  8: [53, 103, 147],
+  9: [143, 275, 435],
+  10: [41, 72, 99],
 };
 function best(group: string, rotate: boolean): number | undefined {
   if (group === 'beng01-08') return 54;
@@ -90,21 +106,54 @@ let invalid = 0;
 function run(rotate: boolean): Row[] {
   const rows = new Map<string, Row>();
   for (const inst of instances) {
-    const parts: NestPart[] = inst.items.map((it, i) => ({ id: `${i}`, lengthMm: it.w, widthMm: it.h, quantity: it.count, canRotate: rotate }));
+    const parts: NestPart[] = inst.items.map((it, i) => ({
+      id: `${i}`,
+      lengthMm: it.w,
+      widthMm: it.h,
+      quantity: it.count,
+      canRotate: rotate,
+    }));
     const sheet = { lengthMm: inst.binW, widthMm: inst.binH };
-    const opts = { kerfMm: 0, trimMm: 0, effort: 'thorough' as const, ...(process.env.BENCH_SEED ? { seed: Number(process.env.BENCH_SEED) } : {}) };
+    const opts = {
+      kerfMm: 0,
+      trimMm: 0,
+      effort: 'thorough' as const,
+      ...(process.env.BENCH_SEED ? { seed: Number(process.env.BENCH_SEED) } : {}),
+    };
     const t0 = performance.now();
     const r = nest(parts, sheet, opts);
     const ms = performance.now() - t0;
     const v = validateLayout(r, parts, sheet, opts);
     if (!v.ok || r.unplaced.length) {
       invalid++;
-      console.error(`INVALID ${inst.name} rotate=${rotate}: ${[...v.errors, ...r.unplaced.map((u) => u.reason)].slice(0, 3).join('; ')}`);
+      console.error(
+        `INVALID ${inst.name} rotate=${rotate}: ${[...v.errors, ...r.unplaced.map((u) => u.reason)].slice(0, 3).join('; ')}`,
+      );
     }
-    const area = Math.ceil(inst.items.reduce((s, it) => s + it.w * it.h * it.count, 0) / (inst.binW * inst.binH) - 1e-9);
-    const packer = new MaxRectsPacker(inst.binW, inst.binH, 0, { smart: false, pot: false, square: false, allowRotation: rotate, border: 0 });
-    packer.addArray(inst.items.flatMap((it) => Array.from({ length: it.count }, () => ({ width: it.w, height: it.h }))) as never);
-    const row = rows.get(inst.group) ?? { group: inst.group, instances: 0, ours: 0, area: 0, peer: 0, best: best(inst.group, rotate), ms: 0, maxMs: 0, reachedBound: 0 };
+    const area = Math.ceil(
+      inst.items.reduce((s, it) => s + it.w * it.h * it.count, 0) / (inst.binW * inst.binH) - 1e-9,
+    );
+    const packer = new MaxRectsPacker(inst.binW, inst.binH, 0, {
+      smart: false,
+      pot: false,
+      square: false,
+      allowRotation: rotate,
+      border: 0,
+    });
+    packer.addArray(
+      inst.items.flatMap((it) => Array.from({ length: it.count }, () => ({ width: it.w, height: it.h }))) as never,
+    );
+    const row = rows.get(inst.group) ?? {
+      group: inst.group,
+      instances: 0,
+      ours: 0,
+      area: 0,
+      peer: 0,
+      best: best(inst.group, rotate),
+      ms: 0,
+      maxMs: 0,
+      reachedBound: 0,
+    };
     row.instances++;
     row.ours += r.sheetCount;
     row.area += area;
@@ -117,11 +166,20 @@ function run(rotate: boolean): Row[] {
   return [...rows.values()];
 }
 
-function print(title: string, rows: Row[]): { ours: number; peer: number; best: number; oursWithBest: number; maxMs: number } {
+function print(
+  title: string,
+  rows: Row[],
+): { ours: number; peer: number; best: number; oursWithBest: number; maxMs: number } {
   console.log(`\n## ${title}\n`);
-  console.log('| group | instances | ours | area bound | best published | ours vs best | maxrects-packer | ms/instance (mean) | ms (max) |');
+  console.log(
+    '| group | instances | ours | area bound | best published | ours vs best | maxrects-packer | ms/instance (mean) | ms (max) |',
+  );
   console.log('|---|---|---|---|---|---|---|---|---|');
-  let ours = 0, peer = 0, bestSum = 0, oursWithBest = 0, maxMs = 0;
+  let ours = 0,
+    peer = 0,
+    bestSum = 0,
+    oursWithBest = 0,
+    maxMs = 0;
   for (const r of rows) {
     ours += r.ours;
     peer += r.peer;
@@ -131,13 +189,22 @@ function print(title: string, rows: Row[]): { ours: number; peer: number; best: 
       oursWithBest += r.ours;
     }
     const gap = r.best !== undefined ? `${(((r.ours - r.best) / r.best) * 100).toFixed(1)} %` : '-';
-    console.log(`| ${r.group} | ${r.instances} | ${r.ours} | ${r.area} | ${r.best ?? '-'} | ${gap} | ${r.peer} | ${(r.ms / r.instances).toFixed(1)} | ${r.maxMs.toFixed(0)} |`);
+    console.log(
+      `| ${r.group} | ${r.instances} | ${r.ours} | ${r.area} | ${r.best ?? '-'} | ${gap} | ${r.peer} | ${(r.ms / r.instances).toFixed(1)} | ${r.maxMs.toFixed(0)} |`,
+    );
   }
   const gap = bestSum ? (((oursWithBest - bestSum) / bestSum) * 100).toFixed(2) : '-';
-  console.log(`| **all** | ${rows.reduce((s, r) => s + r.instances, 0)} | ${ours} | ${rows.reduce((s, r) => s + r.area, 0)} | ${bestSum} | ${gap} % | ${peer} | | ${maxMs.toFixed(0)} |`);
+  console.log(
+    `| **all** | ${rows.reduce((s, r) => s + r.instances, 0)} | ${ours} | ${rows.reduce((s, r) => s + r.area, 0)} | ${bestSum} | ${gap} % | ${peer} | | ${maxMs.toFixed(0)} |`,
+  );
   const c2 = rows.filter((r) => r.group.startsWith('class 2 '));
-  if (c2.length) console.log(`\nclass II at the area bound: ${c2.reduce((s, r) => s + r.reachedBound, 0)} of ${c2.reduce((s, r) => s + r.instances, 0)} instances`);
-  console.log(`groups with a published total: ours ${oursWithBest} vs best ${bestSum} (${gap} % over); all instances: ours ${ours} vs maxrects-packer ${peer}`);
+  if (c2.length)
+    console.log(
+      `\nclass II at the area bound: ${c2.reduce((s, r) => s + r.reachedBound, 0)} of ${c2.reduce((s, r) => s + r.instances, 0)} instances`,
+    );
+  console.log(
+    `groups with a published total: ours ${oursWithBest} vs best ${bestSum} (${gap} % over); all instances: ours ${ours} vs maxrects-packer ${peer}`,
+  );
   return { ours, peer, best: bestSum, oursWithBest, maxMs };
 }
 
@@ -160,7 +227,9 @@ function quickTiming(): void {
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);
-  console.log(`\neffort 'quick', 100 parts on 4 x 8 ft: median ${times[15].toFixed(2)} ms, max ${times[29].toFixed(2)} ms (30 runs)`);
+  console.log(
+    `\neffort 'quick', 100 parts on 4 x 8 ft: median ${times[15].toFixed(2)} ms, max ${times[29].toFixed(2)} ms (30 runs)`,
+  );
 }
 
 console.log(`# Sheet-layout benchmark: ${instances.length} instances, kerf 0, trim 0, effort 'thorough'`);

@@ -20,9 +20,22 @@ describe('maxShelfSpan', () => {
   it('reproduces all twelve rows of the AWS 1st ed. 4.4.14.10 span table within 1 in', () => {
     let checked = 0;
     for (const [, psi, tIn, at40, at50] of rows) {
-      for (const [psf, table] of [[40, at40], [50, at50]] as const) {
-        const span = toInches(maxShelfSpan({ thicknessMm: toMm(tIn), modulusMPa: psi * PSI_TO_MPA, loadKPa: psf * PSF_TO_KPA, limitRatio: 144 }));
-        expect(Math.abs(span - table), `${psi} psi, ${tIn} in, ${psf} lb/ft2: ${span.toFixed(2)} in vs ${table} in`).toBeLessThan(1);
+      for (const [psf, table] of [
+        [40, at40],
+        [50, at50],
+      ] as const) {
+        const span = toInches(
+          maxShelfSpan({
+            thicknessMm: toMm(tIn),
+            modulusMPa: psi * PSI_TO_MPA,
+            loadKPa: psf * PSF_TO_KPA,
+            limitRatio: 144,
+          }),
+        );
+        expect(
+          Math.abs(span - table),
+          `${psi} psi, ${tIn} in, ${psf} lb/ft2: ${span.toFixed(2)} in vs ${table} in`,
+        ).toBeLessThan(1);
         checked++;
       }
     }
@@ -53,7 +66,13 @@ describe('shelfSag', () => {
     const I = (12 * 0.75 ** 3) / 12;
     const expectedIn = (5 * w * 36 ** 4) / (384 * 1.8e6 * I);
     expect(expectedIn).toBeCloseTo(0.096, 3);
-    const r = shelfSag({ spanMm: toMm(36), depthMm: toMm(12), thicknessMm: toMm(0.75), modulusMPa: 1.8e6 * PSI_TO_MPA, loadKPa: 40 * PSF_TO_KPA });
+    const r = shelfSag({
+      spanMm: toMm(36),
+      depthMm: toMm(12),
+      thicknessMm: toMm(0.75),
+      modulusMPa: 1.8e6 * PSI_TO_MPA,
+      loadKPa: 40 * PSF_TO_KPA,
+    });
     expect(toInches(r.sagMm)).toBeCloseTo(expectedIn, 4);
   });
   it('returns an allowable of span/600 by default (0.02 in per foot, Fine Woodworking)', () => {
@@ -61,7 +80,14 @@ describe('shelfSag', () => {
     expect(toInches(r.allowableMm)).toBeCloseTo(0.06, 9);
   });
   it('says what to change when the shelf sags too much', () => {
-    const r = shelfSag({ spanMm: toMm(40), depthMm: 280, thicknessMm: 18.26, modulusMPa: 6550, loadKPa: 1.915, creepFactor: 1.5 });
+    const r = shelfSag({
+      spanMm: toMm(40),
+      depthMm: 280,
+      thicknessMm: 18.26,
+      modulusMPa: 6550,
+      loadKPa: 1.915,
+      creepFactor: 1.5,
+    });
     expect(r.ok).toBe(false);
     expect(r.message).toMatch(/thicker shelf/);
     expect(r.message).toMatch(/centre support/);
@@ -73,7 +99,14 @@ describe('shelfSag', () => {
   });
   it('agrees with maxShelfSpan at the limit', () => {
     const span = maxShelfSpan({ thicknessMm: 18, modulusMPa: 9000, loadKPa: 1.915, limitRatio: 300 });
-    const r = shelfSag({ spanMm: span, depthMm: 250, thicknessMm: 18, modulusMPa: 9000, loadKPa: 1.915, limitRatio: 300 });
+    const r = shelfSag({
+      spanMm: span,
+      depthMm: 250,
+      thicknessMm: 18,
+      modulusMPa: 9000,
+      loadKPa: 1.915,
+      limitRatio: 300,
+    });
     expect(r.sagMm).toBeCloseTo(r.allowableMm, 9);
   });
   describe('invalid input', () => {

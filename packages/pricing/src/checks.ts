@@ -34,7 +34,14 @@ export function shelfSag(input: ShelfSagInput): ShelfSagResult {
   const { spanMm: L, depthMm: b, thicknessMm: t, modulusMPa: E, loadKPa } = input;
   const creep = input.creepFactor ?? 1;
   const ratio = input.limitRatio ?? 600;
-  for (const [k, v] of Object.entries({ spanMm: L, depthMm: b, thicknessMm: t, modulusMPa: E, limitRatio: ratio, creepFactor: creep })) {
+  for (const [k, v] of Object.entries({
+    spanMm: L,
+    depthMm: b,
+    thicknessMm: t,
+    modulusMPa: E,
+    limitRatio: ratio,
+    creepFactor: creep,
+  })) {
     if (!(v > 0) || !Number.isFinite(v)) throw new RangeError(`${k} must be a positive number, got ${v}`);
   }
   if (!(loadKPa >= 0)) throw new RangeError(`loadKPa must be zero or more, got ${loadKPa}`);
@@ -56,8 +63,21 @@ export function shelfSag(input: ShelfSagInput): ShelfSagResult {
  *
  * @example maxShelfSpan({ thicknessMm: 19.05, modulusMPa: 6550, loadKPa: 1.915, limitRatio: 144 }) // about 1017 mm (40 in)
  */
-export function maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio, creepFactor = 1 }: { thicknessMm: number; modulusMPa: number; loadKPa: number; limitRatio: number; creepFactor?: number }): number {
-  if (!(t > 0 && E > 0 && loadKPa > 0 && limitRatio > 0 && creepFactor > 0)) throw new RangeError('thickness, modulus, load, limit ratio and creep factor must all be positive');
+export function maxShelfSpan({
+  thicknessMm: t,
+  modulusMPa: E,
+  loadKPa,
+  limitRatio,
+  creepFactor = 1,
+}: {
+  thicknessMm: number;
+  modulusMPa: number;
+  loadKPa: number;
+  limitRatio: number;
+  creepFactor?: number;
+}): number {
+  if (!(t > 0 && E > 0 && loadKPa > 0 && limitRatio > 0 && creepFactor > 0))
+    throw new RangeError('thickness, modulus, load, limit ratio and creep factor must all be positive');
   const q = loadKPa * 1e-3; // N/mm2
   return Math.cbrt((384 * E * t ** 3) / (12 * 5 * q * creepFactor * limitRatio));
 }
@@ -74,7 +94,11 @@ export interface CasterCheckInput {
  * the floor (uneven floors, common practice).
  * @example casterCheck({ pieceKg: 120, workingLoadKg: 200, casters: 8, ratedLoadKg: 100 }).ok // true
  */
-export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: CasterCheckInput): { perCasterKg: number; ok: boolean; message: string } {
+export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: CasterCheckInput): {
+  perCasterKg: number;
+  ok: boolean;
+  message: string;
+} {
   if (casters < 2) throw new RangeError('a caster check needs at least two casters');
   const perCasterKg = (pieceKg + workingLoadKg) / (casters - 1);
   const ok = perCasterKg <= ratedLoadKg;
@@ -103,8 +127,11 @@ export interface Check {
 export function partsMassKg(parts: readonly CutPart[], book: PriceBook): number {
   let kg = 0;
   for (const p of parts) {
-    const density = p.stock === 'lumber' ? book.lumber.find((l) => l.id === p.materialId)?.densityKgM3 : book.sheetGoods.find((s) => s.id === p.materialId)?.densityKgM3;
-    kg += (p.quantity * p.lengthMm * p.widthMm * p.thicknessMm * 1e-9 * (density ?? 0));
+    const density =
+      p.stock === 'lumber'
+        ? book.lumber.find((l) => l.id === p.materialId)?.densityKgM3
+        : book.sheetGoods.find((s) => s.id === p.materialId)?.densityKgM3;
+    kg += p.quantity * p.lengthMm * p.widthMm * p.thicknessMm * 1e-9 * (density ?? 0);
   }
   return kg;
 }
@@ -115,7 +142,12 @@ export function partsMassKg(parts: readonly CutPart[], book: PriceBook): number 
  * span/144, the limit of the Architectural Woodwork Standards' shelf table),
  * caster load, tip-over, and the usual cautions. Each message says what to do.
  */
-export function pieceChecks(list: CutList, book: PriceBook, settings: ShopSettings, hardwareMassKg = 0): { checks: Check[]; massKg: number; needsAntiTip: boolean } {
+export function pieceChecks(
+  list: CutList,
+  book: PriceBook,
+  settings: ShopSettings,
+  hardwareMassKg = 0,
+): { checks: Check[]; massKg: number; needsAntiTip: boolean } {
   const g = list.geometry;
   const checks: Check[] = [];
   const massKg = partsMassKg(list.parts, book) + hardwareMassKg;
@@ -126,30 +158,66 @@ export function pieceChecks(list: CutList, book: PriceBook, settings: ShopSettin
     seen.add(key);
     const mat = book.sheetGoods.find((m) => m.id === s.materialId);
     if (!mat) continue;
-    const base = { spanMm: s.spanMm, depthMm: s.depthMm, thicknessMm: s.thicknessMm, modulusMPa: mat.modulusMPa, loadKPa: settings.shelfLoadKPa, creepFactor: settings.shelfCreepFactor };
+    const base = {
+      spanMm: s.spanMm,
+      depthMm: s.depthMm,
+      thicknessMm: s.thicknessMm,
+      modulusMPa: mat.modulusMPa,
+      loadKPa: settings.shelfLoadKPa,
+      creepFactor: settings.shelfCreepFactor,
+    };
     const hard = shelfSag({ ...base, limitRatio: 144 });
     const soft = shelfSag({ ...base, limitRatio: settings.shelfSagRatio });
-    if (!hard.ok) checks.push({ code: 'shelf_span', level: 'error', path: 'bays', message: `${mat.name} cannot carry this span: ${hard.message}` });
+    if (!hard.ok)
+      checks.push({
+        code: 'shelf_span',
+        level: 'error',
+        path: 'bays',
+        message: `${mat.name} cannot carry this span: ${hard.message}`,
+      });
     else if (!soft.ok) checks.push({ code: 'shelf_sag', level: 'warning', path: 'bays', message: soft.message });
   }
   if (g.casters > 0 && g.casterId) {
     const caster = book.hardware.find((h) => h.id === g.casterId);
     if (caster?.ratedLoadKg) {
-      const c = casterCheck({ pieceKg: massKg, workingLoadKg: g.workingLoadKg, casters: g.casters, ratedLoadKg: caster.ratedLoadKg });
+      const c = casterCheck({
+        pieceKg: massKg,
+        workingLoadKg: g.workingLoadKg,
+        casters: g.casters,
+        ratedLoadKg: caster.ratedLoadKg,
+      });
       checks.push({ code: 'caster_load', level: c.ok ? 'caution' : 'error', path: 'casterId', message: c.message });
     }
-    checks.push({ code: 'casters_locked', level: 'caution', message: 'Lock the casters before working at the bench, and never stand on it.' });
+    checks.push({
+      code: 'casters_locked',
+      level: 'caution',
+      message: 'Lock the casters before working at the bench, and never stand on it.',
+    });
   }
   const hasFronts = g.doors.length > 0 || g.drawers.length > 0;
   let needsAntiTip = false;
   if (g.freeStanding && !g.mobile && g.heightMm >= TIP_OVER_HEIGHT_MM) {
     if (hasFronts) {
       needsAntiTip = true;
-      checks.push({ code: 'tip_over', level: 'warning', message: `At ${toInches(g.heightMm).toFixed(0)} in tall with drawers or doors, this piece must be anchored to the wall: an anti-tip kit is included. Anchor into a stud or with fasteners suited to the wall, as the kit's instructions and local codes require.` });
+      checks.push({
+        code: 'tip_over',
+        level: 'warning',
+        message: `At ${toInches(g.heightMm).toFixed(0)} in tall with drawers or doors, this piece must be anchored to the wall: an anti-tip kit is included. Anchor into a stud or with fasteners suited to the wall, as the kit's instructions and local codes require.`,
+      });
     } else {
-      checks.push({ code: 'anchor', level: 'caution', message: `Tall furniture can tip over: anchor this ${toInches(g.heightMm).toFixed(0)} in piece to the wall, load the lowest shelves first, and do not let children climb it.` });
+      checks.push({
+        code: 'anchor',
+        level: 'caution',
+        message: `Tall furniture can tip over: anchor this ${toInches(g.heightMm).toFixed(0)} in piece to the wall, load the lowest shelves first, and do not let children climb it.`,
+      });
     }
   }
-  if (g.wallHung) checks.push({ code: 'wall_hung', level: 'caution', message: 'Hang wall cabinets from the rail with screws into studs or fasteners rated for the wall; have built-ins and anything electrical installed by licensed trades under local code.' });
+  if (g.wallHung)
+    checks.push({
+      code: 'wall_hung',
+      level: 'caution',
+      message:
+        'Hang wall cabinets from the rail with screws into studs or fasteners rated for the wall; have built-ins and anything electrical installed by licensed trades under local code.',
+    });
   return { checks, massKg, needsAntiTip };
 }

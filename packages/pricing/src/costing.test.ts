@@ -9,19 +9,39 @@ import { toMm } from './units';
 describe('totalsFor', () => {
   it('returns 8.25 % tax on $1,234.56 as $101.85', () => {
     expect(times(123456, 0.0825, halfUp)).toBe(10185);
-    const t = totalsFor([{ group: 'hardware', amountCents: 123456 }], { taxRate: 0.0825, taxApplies: 'all', depositRate: 0.5 });
+    const t = totalsFor([{ group: 'hardware', amountCents: 123456 }], {
+      taxRate: 0.0825,
+      taxApplies: 'all',
+      depositRate: 0.5,
+    });
     expect(t).toMatchObject({ subtotalCents: 123456, taxCents: 10185, totalCents: 133641 });
   });
   it('taxes materials only when the shop says so', () => {
-    const t = totalsFor([{ group: 'hardware', amountCents: 10000 }, { group: 'labour', amountCents: 50000 }], { taxRate: 0.1, taxApplies: 'materials', depositRate: 0.5 });
+    const t = totalsFor(
+      [
+        { group: 'hardware', amountCents: 10000 },
+        { group: 'labour', amountCents: 50000 },
+      ],
+      { taxRate: 0.1, taxApplies: 'materials', depositRate: 0.5 },
+    );
     expect(t.taxCents).toBe(1000);
   });
   it('spreads a discount over the tax base', () => {
-    const t = totalsFor([{ group: 'hardware', amountCents: 10000 }, { group: 'labour', amountCents: 10000 }], { taxRate: 0.1, taxApplies: 'materials', depositRate: 0.5 }, 2000);
+    const t = totalsFor(
+      [
+        { group: 'hardware', amountCents: 10000 },
+        { group: 'labour', amountCents: 10000 },
+      ],
+      { taxRate: 0.1, taxApplies: 'materials', depositRate: 0.5 },
+      2000,
+    );
     expect(t).toMatchObject({ discountCents: 2000, taxCents: 900, totalCents: 18900 });
   });
   it('never discounts below zero', () => {
-    expect(totalsFor([{ group: 'other', amountCents: 500 }], { taxRate: 0, taxApplies: 'all', depositRate: 0.5 }, 9999).totalCents).toBe(0);
+    expect(
+      totalsFor([{ group: 'other', amountCents: 500 }], { taxRate: 0, taxApplies: 'all', depositRate: 0.5 }, 9999)
+        .totalCents,
+    ).toBe(0);
   });
 });
 
@@ -49,7 +69,9 @@ describe('estimate', () => {
     expect(e.totals.totalCents).toBe(e.totals.subtotalCents - e.totals.discountCents + e.totals.taxCents);
     expect(e.totals.depositCents + e.totals.balanceCents).toBe(e.totals.totalCents);
     for (const l of e.lines) {
-      expect(Number.isInteger(l.amountCents) && Number.isInteger(l.unitPriceCents) && Number.isInteger(l.costCents)).toBe(true);
+      expect(
+        Number.isInteger(l.amountCents) && Number.isInteger(l.unitPriceCents) && Number.isInteger(l.costCents),
+      ).toBe(true);
       expect(l.source).toBe('computed');
     }
     expect(e.lines.some((l) => l.group === 'sheet_goods')).toBe(true);
@@ -66,13 +88,18 @@ describe('estimate', () => {
     expect(ply.quantity).toBe(layout.sheetCount);
     expect(ply.unitPriceCents).toBe(Math.round(8900 * 1.35));
     expect(ply.costCents).toBe(8900 * layout.sheetCount);
-    for (const l of e.lines.filter((x) => x.group === 'labour')) expect(l.unitPriceCents).toBe(demoPriceBook.shopRateCents);
+    for (const l of e.lines.filter((x) => x.group === 'labour'))
+      expect(l.unitPriceCents).toBe(demoPriceBook.shopRateCents);
     const hours = e.lines.filter((x) => x.group === 'labour').reduce((s, l) => s + l.quantity, 0);
     expect(hours).toBeCloseTo(e.totalHours, 1);
   });
 
   it('charges the used fraction with its minimum when the shop says so', () => {
-    const e = estimate([{ spec: designs['wall-cabinet'].defaults, quantity: 1 }], demoPriceBook, { ...demoSettings, sheetCharging: 'used_fraction', minSheetFraction: 0.25 });
+    const e = estimate([{ spec: designs['wall-cabinet'].defaults, quantity: 1 }], demoPriceBook, {
+      ...demoSettings,
+      sheetCharging: 'used_fraction',
+      minSheetFraction: 0.25,
+    });
     const back = e.lines.find((l) => l.ref === 'birch-ply-6')!;
     expect(back.quantity).toBeGreaterThanOrEqual(0.25);
     expect(back.quantity).toBeLessThan(1);
@@ -87,16 +114,27 @@ describe('estimate', () => {
   });
 
   it('prices walnut trim in board feet with waste', () => {
-    const spec = { ...designs.bookcase.defaults, trim: { lumberId: 'walnut-4-4', widthMm: toMm(1.5), thicknessMm: toMm(0.75) } };
+    const spec = {
+      ...designs.bookcase.defaults,
+      trim: { lumberId: 'walnut-4-4', widthMm: toMm(1.5), thicknessMm: toMm(0.75) },
+    };
     const e = estimate([{ spec, quantity: 1 }], demoPriceBook, demoSettings);
     const wood = e.lines.find((l) => l.group === 'solid_wood')!;
     // 2 stiles of 69 in and 2 rails of 32 in, 1 1/2 in wide, 4/4 rough: (2 x 69 + 2 x 32) x 1.5 / 144 = 2.104 bd ft, plus 30 % waste
-    expect(wood.quantity).toBeCloseTo(((2 * 69 + 2 * 32) * 1.5 * 1) / 144 * 1.3, 2);
+    expect(wood.quantity).toBeCloseTo((((2 * 69 + 2 * 32) * 1.5 * 1) / 144) * 1.3, 2);
     expect(wood.unit).toBe('bd ft');
   });
 
   it('adds an anti-tip kit and says why for a tall free-standing piece with doors', () => {
-    const spec: BuildSpec = { ...designs.bookcase.defaults, bays: [{ widthMm: null, compartments: [{ kind: 'door', heightMm: null, doors: 2, adjustableShelves: 3, fixedShelves: 0 }] }] };
+    const spec: BuildSpec = {
+      ...designs.bookcase.defaults,
+      bays: [
+        {
+          widthMm: null,
+          compartments: [{ kind: 'door', heightMm: null, doors: 2, adjustableShelves: 3, fixedShelves: 0 }],
+        },
+      ],
+    };
     const e = estimate([{ spec, quantity: 1 }], demoPriceBook, demoSettings);
     expect(e.lines.some((l) => l.ref === 'anti-tip-kit')).toBe(true);
     expect(e.checks.find((c) => c.code === 'tip_over')?.message).toMatch(/anchored to the wall/);
@@ -114,7 +152,9 @@ describe('estimate', () => {
   describe('invalid input', () => {
     it('refuses no items and a fractional quantity', () => {
       expect(() => estimate([], demoPriceBook, demoSettings)).toThrow(/at least one item/);
-      expect(() => estimate([{ spec: designs.bookcase.defaults, quantity: 1.5 }], demoPriceBook, demoSettings)).toThrow(/whole number/);
+      expect(() => estimate([{ spec: designs.bookcase.defaults, quantity: 1.5 }], demoPriceBook, demoSettings)).toThrow(
+        /whole number/,
+      );
     });
   });
 });
@@ -148,8 +188,20 @@ const specArb = fc
     const L = design.limits;
     const lerp = ([a, b]: [number, number], f: number) => a + (b - a) * (0.25 + 0.5 * f);
     const base = structuredClone(design.defaults) as BuildSpec;
-    const compartments = kinds.map((kind) => ({ kind, heightMm: null, doors: 1 as const, adjustableShelves: kind === 'drawer' ? 0 : shelves, fixedShelves: 0 }));
-    return { ...base, widthMm: lerp(L.widthMm, w), heightMm: lerp(L.heightMm, h), depthMm: lerp(L.depthMm, d), bays: Array.from({ length: Math.min(bays, L.bays[1]) }, () => ({ widthMm: null, compartments })) } as BuildSpec;
+    const compartments = kinds.map((kind) => ({
+      kind,
+      heightMm: null,
+      doors: 1 as const,
+      adjustableShelves: kind === 'drawer' ? 0 : shelves,
+      fixedShelves: 0,
+    }));
+    return {
+      ...base,
+      widthMm: lerp(L.widthMm, w),
+      heightMm: lerp(L.heightMm, h),
+      depthMm: lerp(L.depthMm, d),
+      bays: Array.from({ length: Math.min(bays, L.bays[1]) }, () => ({ widthMm: null, compartments })),
+    } as BuildSpec;
   })
   .filter((s) => parseSpec(s).ok);
 
@@ -171,7 +223,9 @@ describe('properties over random valid specs (fast-check)', () => {
           expect(p.widthMm).toBeGreaterThan(0);
           const L = m.sheetLengthMm - 2 * demoPriceBook.sheetTrimMm;
           const W = m.sheetWidthMm - 2 * demoPriceBook.sheetTrimMm;
-          expect((p.lengthMm <= L && p.widthMm <= W) || (p.grain === 'free' && p.widthMm <= L && p.lengthMm <= W)).toBe(true);
+          expect((p.lengthMm <= L && p.widthMm <= W) || (p.grain === 'free' && p.widthMm <= L && p.lengthMm <= W)).toBe(
+            true,
+          );
         }
         expect(e.totals.subtotalCents).toBe(e.lines.reduce((s, l) => s + l.amountCents, 0));
         expect(e.totals.depositCents + e.totals.balanceCents).toBe(e.totals.totalCents);
@@ -183,7 +237,12 @@ describe('properties over random valid specs (fast-check)', () => {
   it('never lowers per-part operations or hardware when every dimension grows', () => {
     fc.assert(
       fc.property(specArb, fc.double({ min: 1.01, max: 1.15, noNaN: true }), (spec, grow) => {
-        const bigger = { ...spec, widthMm: spec.widthMm * grow, heightMm: spec.heightMm * grow, depthMm: spec.depthMm * grow } as BuildSpec;
+        const bigger = {
+          ...spec,
+          widthMm: spec.widthMm * grow,
+          heightMm: spec.heightMm * grow,
+          depthMm: spec.depthMm * grow,
+        } as BuildSpec;
         if (!parseSpec(bigger).ok) return;
         let a, b;
         try {
@@ -193,7 +252,10 @@ describe('properties over random valid specs (fast-check)', () => {
           return;
         }
         const parts = (e: typeof a) => e.pieces[0].parts.reduce((s, p) => s + p.quantity, 0);
-        const hw = (e: typeof a) => e.pieces[0].hardware.filter((h) => h.kind !== 'slide' && h.kind !== 'anti_tip_kit' && h.kind !== 'rail_screw').reduce((s, h) => s + h.pieces, 0);
+        const hw = (e: typeof a) =>
+          e.pieces[0].hardware
+            .filter((h) => h.kind !== 'slide' && h.kind !== 'anti_tip_kit' && h.kind !== 'rail_screw')
+            .reduce((s, h) => s + h.pieces, 0);
         expect(parts(b)).toBeGreaterThanOrEqual(parts(a));
         expect(hw(b)).toBeGreaterThanOrEqual(hw(a));
         const cutting = (e: typeof a) => e.hoursByStage.casework + e.hoursByStage.drawers_doors;

@@ -11,7 +11,14 @@ import { byId, STAGE_KEYS, type PriceBook, type ShopSettings, type StageKey } fr
 import { boardFeet, toInches } from './units';
 
 import { LINE_GROUPS, type LineGroup } from './line-groups';
-const MATERIAL_GROUPS: ReadonlySet<LineGroup> = new Set(['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables']);
+const MATERIAL_GROUPS: ReadonlySet<LineGroup> = new Set([
+  'sheet_goods',
+  'solid_wood',
+  'edge_banding',
+  'hardware',
+  'finish',
+  'consumables',
+]);
 
 export interface EstimateLine {
   group: LineGroup;
@@ -108,19 +115,50 @@ export function splitDeposit(totalCents: number, rate: number): { depositCents: 
  * or on materials only, total, deposit and balance.
  * @example totalsFor([{ group: 'hardware', amountCents: 123456 }], { taxRate: 0.0825, taxApplies: 'all', depositRate: 0.5 }).taxCents // 10185
  */
-export function totalsFor(lines: readonly Pick<EstimateLine, 'group' | 'amountCents'>[], rules: Pick<ShopSettings, 'taxRate' | 'taxApplies' | 'depositRate'>, discountCents = 0): Totals {
+export function totalsFor(
+  lines: readonly Pick<EstimateLine, 'group' | 'amountCents'>[],
+  rules: Pick<ShopSettings, 'taxRate' | 'taxApplies' | 'depositRate'>,
+  discountCents = 0,
+): Totals {
   const subtotalCents = lines.reduce((s, l) => s + l.amountCents, 0);
   const discount = Math.max(0, Math.min(Math.round(discountCents), subtotalCents));
-  const taxable = rules.taxApplies === 'all' ? subtotalCents : lines.filter((l) => MATERIAL_GROUPS.has(l.group)).reduce((s, l) => s + l.amountCents, 0);
+  const taxable =
+    rules.taxApplies === 'all'
+      ? subtotalCents
+      : lines.filter((l) => MATERIAL_GROUPS.has(l.group)).reduce((s, l) => s + l.amountCents, 0);
   const taxableDiscount = subtotalCents > 0 ? times(discount, taxable / subtotalCents) : 0;
   const taxCents = times(Math.max(0, taxable - taxableDiscount), rules.taxRate, halfUp);
   const totalCents = subtotalCents - discount + taxCents;
-  return { subtotalCents, discountCents: discount, taxCents, totalCents, ...splitDeposit(totalCents, rules.depositRate) };
+  return {
+    subtotalCents,
+    discountCents: discount,
+    taxCents,
+    totalCents,
+    ...splitDeposit(totalCents, rules.depositRate),
+  };
 }
 
-function line(group: LineGroup, ref: string, description: string, quantity: number, unit: string, unitCostCents: number, markup: number): EstimateLine {
+function line(
+  group: LineGroup,
+  ref: string,
+  description: string,
+  quantity: number,
+  unit: string,
+  unitCostCents: number,
+  markup: number,
+): EstimateLine {
   const unitPriceCents = times(unitCostCents, 1 + markup);
-  return { group, ref, description, quantity, unit, unitPriceCents, amountCents: times(unitPriceCents, quantity), costCents: times(unitCostCents, quantity), source: 'computed' };
+  return {
+    group,
+    ref,
+    description,
+    quantity,
+    unit,
+    unitPriceCents,
+    amountCents: times(unitPriceCents, quantity),
+    costCents: times(unitCostCents, quantity),
+    source: 'computed',
+  };
 }
 
 function r3(v: number): number {
@@ -136,12 +174,18 @@ function r3(v: number): number {
  * @example
  * estimate([{ spec: designs.bookcase.defaults, quantity: 1 }], demoPriceBook, demoSettings).totals.totalCents
  */
-export function estimate(items: readonly EstimateItem[], book: PriceBook, settings: ShopSettings, options: EstimateOptions = {}): Estimate {
+export function estimate(
+  items: readonly EstimateItem[],
+  book: PriceBook,
+  settings: ShopSettings,
+  options: EstimateOptions = {},
+): Estimate {
   if (!items.length) throw new RangeError('an estimate needs at least one item');
   const effort = options.effort ?? 'quick';
   const markup = settings.materialMarkup;
   const lists = items.map((item, index) => {
-    if (!Number.isInteger(item.quantity) || item.quantity < 1) throw new RangeError(`item ${index + 1}: quantity must be a whole number of 1 or more`);
+    if (!Number.isInteger(item.quantity) || item.quantity < 1)
+      throw new RangeError(`item ${index + 1}: quantity must be a whole number of 1 or more`);
     return cutList(item.spec, book, settings);
   });
   const geos: PieceGeometry[] = lists.map((l) => l.geometry);
@@ -149,19 +193,61 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
     const list = lists[index];
     const first = pieceChecks(list, book, settings);
     const hardware = hardwareFor(list, book, { antiTip: first.needsAntiTip });
-    const { checks, massKg } = pieceChecks(list, book, settings, hardware.reduce((s, h) => s + h.massKg, 0));
-    return { index, spec: item.spec, quantity: item.quantity, parts: list.parts, hardware, checks, massKg, elevation: elevationDrawing(item.spec, { list, unit: settings.units }) };
+    const { checks, massKg } = pieceChecks(
+      list,
+      book,
+      settings,
+      hardware.reduce((s, h) => s + h.massKg, 0),
+    );
+    return {
+      index,
+      spec: item.spec,
+      quantity: item.quantity,
+      parts: list.parts,
+      hardware,
+      checks,
+      massKg,
+      elevation: elevationDrawing(item.spec, { list, unit: settings.units }),
+    };
   });
 
   // every unit of every piece, nested together per material
-  const all: (CutPart & { piece: number })[] = pieces.flatMap((p) => p.parts.map((part) => ({ ...part, id: `i${p.index + 1}-${part.id}`, quantity: part.quantity * p.quantity, piece: p.index })));
+  const all: (CutPart & { piece: number })[] = pieces.flatMap((p) =>
+    p.parts.map((part) => ({
+      ...part,
+      id: `i${p.index + 1}-${part.id}`,
+      quantity: part.quantity * p.quantity,
+      piece: p.index,
+    })),
+  );
   const sheetParts = all.filter((p) => p.stock === 'sheet');
-  const nestParts: NestPart[] = sheetParts.map((p) => ({ id: p.id, name: p.name, lengthMm: p.lengthMm, widthMm: p.widthMm, quantity: p.quantity, canRotate: p.grain === 'free', materialId: p.materialId }));
-  const stock = Object.fromEntries(book.sheetGoods.map((s) => [s.id, { lengthMm: s.sheetLengthMm, widthMm: s.sheetWidthMm }]));
-  const nested = nestByMaterial(nestParts, stock, { kerfMm: book.kerfMm, trimMm: book.sheetTrimMm, effort, seed: options.seed });
-  const layouts: MaterialLayout[] = Object.entries(nested).map(([materialId, r]) => ({ ...r, materialId, materialName: byId(book.sheetGoods, materialId, 'sheet good').name, parts: nestParts.filter((p) => p.materialId === materialId) }));
+  const nestParts: NestPart[] = sheetParts.map((p) => ({
+    id: p.id,
+    name: p.name,
+    lengthMm: p.lengthMm,
+    widthMm: p.widthMm,
+    quantity: p.quantity,
+    canRotate: p.grain === 'free',
+    materialId: p.materialId,
+  }));
+  const stock = Object.fromEntries(
+    book.sheetGoods.map((s) => [s.id, { lengthMm: s.sheetLengthMm, widthMm: s.sheetWidthMm }]),
+  );
+  const nested = nestByMaterial(nestParts, stock, {
+    kerfMm: book.kerfMm,
+    trimMm: book.sheetTrimMm,
+    effort,
+    seed: options.seed,
+  });
+  const layouts: MaterialLayout[] = Object.entries(nested).map(([materialId, r]) => ({
+    ...r,
+    materialId,
+    materialName: byId(book.sheetGoods, materialId, 'sheet good').name,
+    parts: nestParts.filter((p) => p.materialId === materialId),
+  }));
   const unplaced = layouts.flatMap((l) => l.unplaced);
-  if (unplaced.length) throw new RangeError(`some parts fit no sheet: ${unplaced.map((u) => `${u.partId} (${u.reason})`).join('; ')}`);
+  if (unplaced.length)
+    throw new RangeError(`some parts fit no sheet: ${unplaced.map((u) => `${u.partId} (${u.reason})`).join('; ')}`);
 
   const lines: EstimateLine[] = [];
   let sheets = 0;
@@ -170,30 +256,71 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
     sheets += l.sheetCount;
     const sheetArea = m.sheetLengthMm * m.sheetWidthMm;
     const used = l.sheets.reduce((s, x) => s + x.usedAreaMm2, 0) / sheetArea;
-    const qty = settings.sheetCharging === 'whole' ? l.sheetCount : Math.max(settings.minSheetFraction, Math.ceil(used * 100) / 100);
-    lines.push(line('sheet_goods', m.id, `${m.name}, ${toInches(m.sheetLengthMm / 12).toFixed(0)} x ${toInches(m.sheetWidthMm / 12).toFixed(0)} ft sheets${settings.sheetCharging === 'used_fraction' ? ' (used fraction)' : ''}`, qty, 'sheet', m.priceCents, markup));
+    const qty =
+      settings.sheetCharging === 'whole'
+        ? l.sheetCount
+        : Math.max(settings.minSheetFraction, Math.ceil(used * 100) / 100);
+    lines.push(
+      line(
+        'sheet_goods',
+        m.id,
+        `${m.name}, ${toInches(m.sheetLengthMm / 12).toFixed(0)} x ${toInches(m.sheetWidthMm / 12).toFixed(0)} ft sheets${settings.sheetCharging === 'used_fraction' ? ' (used fraction)' : ''}`,
+        qty,
+        'sheet',
+        m.priceCents,
+        markup,
+      ),
+    );
   }
   // solid wood: board feet on the rough thickness, with waste
   const lumberBf = new Map<string, number>();
   for (const p of all.filter((x) => x.stock === 'lumber')) {
     const lum = byId(book.lumber, p.materialId, 'lumber');
-    lumberBf.set(lum.id, (lumberBf.get(lum.id) ?? 0) + p.quantity * boardFeet(lum.roughThicknessIn, toInches(p.widthMm), toInches(p.lengthMm)));
+    lumberBf.set(
+      lum.id,
+      (lumberBf.get(lum.id) ?? 0) +
+        p.quantity * boardFeet(lum.roughThicknessIn, toInches(p.widthMm), toInches(p.lengthMm)),
+    );
   }
   for (const [id, bf] of lumberBf) {
     const lum = byId(book.lumber, id, 'lumber');
-    lines.push(line('solid_wood', id, `${lum.name}, with ${Math.round(settings.lumberWaste * 100)} % waste`, r3(bf * (1 + settings.lumberWaste)), 'bd ft', lum.pricePerBoardFootCents, markup));
+    lines.push(
+      line(
+        'solid_wood',
+        id,
+        `${lum.name}, with ${Math.round(settings.lumberWaste * 100)} % waste`,
+        r3(bf * (1 + settings.lumberWaste)),
+        'bd ft',
+        lum.pricePerBoardFootCents,
+        markup,
+      ),
+    );
   }
   const bandById = new Map<string, number>();
-  for (const p of all) if (p.bandingId) bandById.set(p.bandingId, (bandById.get(p.bandingId) ?? 0) + bandingMetres([p]));
+  for (const p of all)
+    if (p.bandingId) bandById.set(p.bandingId, (bandById.get(p.bandingId) ?? 0) + bandingMetres([p]));
   for (const [id, metres] of bandById) {
     const b = byId(book.edgeBanding, id, 'edge banding');
-    lines.push(line('edge_banding', id, `${b.name}, with ${Math.round(settings.bandingWaste * 100)} % waste`, r3(metres * (1 + settings.bandingWaste)), 'm', b.pricePerMetreCents, markup));
+    lines.push(
+      line(
+        'edge_banding',
+        id,
+        `${b.name}, with ${Math.round(settings.bandingWaste * 100)} % waste`,
+        r3(metres * (1 + settings.bandingWaste)),
+        'm',
+        b.pricePerMetreCents,
+        markup,
+      ),
+    );
   }
   const hw = new Map<string, HardwareLine>();
   for (const p of pieces) {
     for (const h of p.hardware) {
       const cur = hw.get(h.itemId);
-      hw.set(h.itemId, cur ? { ...cur, pieces: cur.pieces + h.pieces * p.quantity } : { ...h, pieces: h.pieces * p.quantity });
+      hw.set(
+        h.itemId,
+        cur ? { ...cur, pieces: cur.pieces + h.pieces * p.quantity } : { ...h, pieces: h.pieces * p.quantity },
+      );
     }
   }
   for (const h of hw.values()) {
@@ -207,9 +334,14 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
     if (!p.spec.finishId) continue;
     const f = byId(book.finishes, p.spec.finishId, 'finish');
     const coats = p.spec.coats ?? f.defaultCoats;
-    const areaM2 = p.parts.reduce((s, x) => s + (x.quantity * x.finishFaces * x.lengthMm * x.widthMm) / 1e6, 0) * p.quantity;
+    const areaM2 =
+      p.parts.reduce((s, x) => s + (x.quantity * x.finishFaces * x.lengthMm * x.widthMm) / 1e6, 0) * p.quantity;
     finishM2Coats += areaM2 * coats;
-    const coverage = finishCoverage({ volumeSolids: f.volumeSolids, dryFilmMils: f.dryFilmMilsPerCoat, transferEfficiency: f.transferEfficiency });
+    const coverage = finishCoverage({
+      volumeSolids: f.volumeSolids,
+      dryFilmMils: f.dryFilmMilsPerCoat,
+      transferEfficiency: f.transferEfficiency,
+    });
     finishGal.set(f.id, (finishGal.get(f.id) ?? 0) + finishGallons({ areaM2, coats, coverageFt2PerGallon: coverage }));
   }
   for (const [id, gal] of finishGal) {
@@ -219,7 +351,17 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
   const materialCost = lines.reduce((s, l) => s + l.costCents, 0);
   if (settings.consumablesRate > 0 && materialCost > 0) {
     const c = times(materialCost, settings.consumablesRate);
-    lines.push({ group: 'consumables', ref: 'consumables', description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)} % of materials)`, quantity: 1, unit: 'lot', unitPriceCents: times(c, 1 + markup), amountCents: times(c, 1 + markup), costCents: c, source: 'computed' });
+    lines.push({
+      group: 'consumables',
+      ref: 'consumables',
+      description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)} % of materials)`,
+      quantity: 1,
+      unit: 'lot',
+      unitPriceCents: times(c, 1 + markup),
+      amountCents: times(c, 1 + markup),
+      costCents: c,
+      source: 'computed',
+    });
   }
 
   const sumQ = (f: (i: number) => number) => pieces.reduce((s, p, i) => s + f(i) * p.quantity, 0);
@@ -241,7 +383,15 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
     },
     book,
   );
-  const stageNames: Record<StageKey, string> = { material: 'material and set-up', cutting: 'cutting', casework: 'casework', drawers_doors: 'drawers and doors', finish: 'finishing', ready: 'final check', delivered: 'delivery' };
+  const stageNames: Record<StageKey, string> = {
+    material: 'material and set-up',
+    cutting: 'cutting',
+    casework: 'casework',
+    drawers_doors: 'drawers and doors',
+    finish: 'finishing',
+    ready: 'final check',
+    delivered: 'delivery',
+  };
   for (const stage of STAGE_KEYS) {
     const h = Math.round(hours.byStage[stage] * 100) / 100;
     if (h <= 0) continue;
@@ -260,7 +410,9 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
     hoursByStage: hours.byStage,
     totalHours: hours.totalHours,
     massKg: pieces.reduce((s, p) => s + p.massKg * p.quantity, 0),
-    checks: pieces.flatMap((p) => p.checks.map((c) => ({ ...c, message: pieces.length > 1 ? `Item ${p.index + 1}: ${c.message}` : c.message }))),
+    checks: pieces.flatMap((p) =>
+      p.checks.map((c) => ({ ...c, message: pieces.length > 1 ? `Item ${p.index + 1}: ${c.message}` : c.message })),
+    ),
     costCents,
     marginCents: totals.subtotalCents - totals.discountCents - costCents,
   };
@@ -271,13 +423,21 @@ export function estimate(items: readonly EstimateItem[], book: PriceBook, settin
  * less and plus the spread, rounded out to whole tens of dollars.
  * @example budgetRange(items, demoPriceBook, demoSettings) // { lowCents, highCents, totalCents }
  */
-export function budgetRange(items: readonly EstimateItem[], book: PriceBook, settings: ShopSettings, options: EstimateOptions = {}): { lowCents: number; highCents: number; totalCents: number } {
+export function budgetRange(
+  items: readonly EstimateItem[],
+  book: PriceBook,
+  settings: ShopSettings,
+  options: EstimateOptions = {},
+): { lowCents: number; highCents: number; totalCents: number } {
   const e = estimate(items, book, settings, options);
   return rangeOf(e.totals.totalCents, settings.budgetSpread);
 }
 
 /** The range around a total: low rounded down and high rounded up to $10. */
-export function rangeOf(totalCents: number, spread: number): { lowCents: number; highCents: number; totalCents: number } {
+export function rangeOf(
+  totalCents: number,
+  spread: number,
+): { lowCents: number; highCents: number; totalCents: number } {
   const low = Math.floor((totalCents * (1 - spread)) / 1000) * 1000;
   const high = Math.ceil((totalCents * (1 + spread)) / 1000) * 1000;
   return { lowCents: Math.min(low, totalCents), highCents: Math.max(high, totalCents), totalCents };

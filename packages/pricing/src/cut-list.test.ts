@@ -9,7 +9,13 @@ const UPDATE = process.env.UPDATE_GOLDEN === '1';
 
 describe('drawerBox', () => {
   it('returns the longest slide that fits the depth less 1/2 in, the box 1/2 in narrower a side and 1 in lower (common practice)', () => {
-    expect(drawerBox({ widthMm: 500, heightMm: 150, depthMm: 560 })).toEqual({ boxWidthMm: 474.6, boxHeightMm: 124.6, boxDepthMm: 508, slideLengthMm: 508, slideLengthIn: 20 });
+    expect(drawerBox({ widthMm: 500, heightMm: 150, depthMm: 560 })).toEqual({
+      boxWidthMm: 474.6,
+      boxHeightMm: 124.6,
+      boxDepthMm: 508,
+      slideLengthMm: 508,
+      slideLengthIn: 20,
+    });
   });
   it('takes a 28 in slide at most', () => {
     expect(drawerBox({ widthMm: 500, heightMm: 150, depthMm: 900 }).slideLengthIn).toBe(28);
@@ -109,7 +115,10 @@ describe('cutList', () => {
   });
 
   it('mitres solid trim and takes it off the banding', () => {
-    const spec = { ...designs.bookcase.defaults, trim: { lumberId: 'walnut-4-4', widthMm: toMm(1.5), thicknessMm: toMm(0.75) } };
+    const spec = {
+      ...designs.bookcase.defaults,
+      trim: { lumberId: 'walnut-4-4', widthMm: toMm(1.5), thicknessMm: toMm(0.75) },
+    };
     const { parts } = cutList(spec, demoPriceBook, demoSettings);
     const trim = parts.filter((p) => p.stock === 'lumber');
     expect(trim.reduce((s, p) => s + p.quantity, 0)).toBe(4);
@@ -130,7 +139,9 @@ describe('cutList', () => {
     it.each(DESIGN_SLUGS)('matches the fixture for the %s defaults', (slug) => {
       const file = new URL(`../test/fixtures/${slug}.cut-list.json`, import.meta.url);
       const parts = cutList(designs[slug].defaults, demoPriceBook, demoSettings).parts;
-      const rounded = JSON.parse(JSON.stringify(parts, (_k, v) => (typeof v === 'number' ? Math.round(v * 100) / 100 : v)));
+      const rounded = JSON.parse(
+        JSON.stringify(parts, (_k, v) => (typeof v === 'number' ? Math.round(v * 100) / 100 : v)),
+      );
       if (UPDATE) {
         mkdirSync(new URL('../test/fixtures/', import.meta.url), { recursive: true });
         writeFileSync(file, `${JSON.stringify(rounded, null, 2)}\n`);
@@ -142,7 +153,9 @@ describe('cutList', () => {
 
   describe('invalid input', () => {
     it('throws when a material is not in the price book', () => {
-      expect(() => cutList({ ...designs.bookcase.defaults, carcassMaterialId: 'unobtainium' }, demoPriceBook, demoSettings)).toThrow(/not in the price book/);
+      expect(() =>
+        cutList({ ...designs.bookcase.defaults, carcassMaterialId: 'unobtainium' }, demoPriceBook, demoSettings),
+      ).toThrow(/not in the price book/);
     });
   });
 });
@@ -152,18 +165,48 @@ describe('parseSpec', () => {
     for (const slug of DESIGN_SLUGS) expect(parseSpec(designs[slug].defaults).ok).toBe(true);
   });
   it('names the field path and the limit', () => {
-    const spec = structuredClone(designs['base-cabinet'].defaults) as unknown as { bays: { compartments: { heightMm: number | null }[] }[] };
-    spec.bays = [spec.bays[0], { compartments: [{ ...spec.bays[0].compartments[0] }, { ...spec.bays[0].compartments[0] }, { ...spec.bays[0].compartments[0], heightMm: 38 }] } as never];
+    const spec = structuredClone(designs['base-cabinet'].defaults) as unknown as {
+      bays: { compartments: { heightMm: number | null }[] }[];
+    };
+    spec.bays = [
+      spec.bays[0],
+      {
+        compartments: [
+          { ...spec.bays[0].compartments[0] },
+          { ...spec.bays[0].compartments[0] },
+          { ...spec.bays[0].compartments[0], heightMm: 38 },
+        ],
+      } as never,
+    ];
     const r = parseSpec({ ...designs['base-cabinet'].defaults, widthMm: toMm(30), bays: spec.bays });
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.issues).toContainEqual({ path: 'bays[1].compartments[2].heightMm', message: '38 mm is below the 60 mm minimum' });
+    if (!r.ok)
+      expect(r.issues).toContainEqual({
+        path: 'bays[1].compartments[2].heightMm',
+        message: '38 mm is below the 60 mm minimum',
+      });
   });
   it('catches compartments taller than the case', () => {
-    const r = parseSpec({ ...designs['wall-cabinet'].defaults, bays: [{ widthMm: null, compartments: [{ kind: 'door', heightMm: 900, doors: 2, adjustableShelves: 1, fixedShelves: 0 }] }] });
+    const r = parseSpec({
+      ...designs['wall-cabinet'].defaults,
+      bays: [
+        {
+          widthMm: null,
+          compartments: [{ kind: 'door', heightMm: 900, doors: 2, adjustableShelves: 1, fixedShelves: 0 }],
+        },
+      ],
+    });
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.issues[0]).toMatchObject({ path: 'bays[0].compartments', message: expect.stringMatching(/compartments need 900 mm/) });
+    if (!r.ok)
+      expect(r.issues[0]).toMatchObject({
+        path: 'bays[0].compartments',
+        message: expect.stringMatching(/compartments need 900 mm/),
+      });
   });
   it('refuses an unknown design', () => {
-    expect(parseSpec({ design: 'sofa' })).toEqual({ ok: false, issues: [{ path: 'design', message: expect.stringMatching(/choose one of the designs/) }] });
+    expect(parseSpec({ design: 'sofa' })).toEqual({
+      ok: false,
+      issues: [{ path: 'design', message: expect.stringMatching(/choose one of the designs/) }],
+    });
   });
 });

@@ -131,19 +131,26 @@ export interface DrawerRules {
  * // { boxWidthMm: 474.6, boxHeightMm: 124.6, boxDepthMm: 508, slideLengthMm: 508, slideLengthIn: 20 }
  * @throws RangeError when no slide fits, naming the least depth
  */
-export function drawerBox(opening: { widthMm: number; heightMm: number; depthMm: number }, rules: DrawerRules = {}): DrawerBox {
+export function drawerBox(
+  opening: { widthMm: number; heightMm: number; depthMm: number },
+  rules: DrawerRules = {},
+): DrawerBox {
   const hc = rules.heightClearanceMm ?? toMm(1);
   const sc = rules.sideClearanceMm ?? SLIDE_SIDE_CLEARANCE_MM;
   const room = opening.depthMm - SLIDE_REAR_CLEARANCE_MM;
   const fits = SLIDE_LENGTHS_IN.filter((l) => toMm(l) <= room + 1e-9);
   if (!fits.length) {
-    throw new RangeError(`no drawer slide fits ${round(opening.depthMm)} mm of inside depth; the shortest (10 in) needs at least ${round(toMm(10) + SLIDE_REAR_CLEARANCE_MM)} mm`);
+    throw new RangeError(
+      `no drawer slide fits ${round(opening.depthMm)} mm of inside depth; the shortest (10 in) needs at least ${round(toMm(10) + SLIDE_REAR_CLEARANCE_MM)} mm`,
+    );
   }
   const slideIn = fits[fits.length - 1];
   const boxWidthMm = opening.widthMm - 2 * sc;
   const boxHeightMm = opening.heightMm - hc;
-  if (boxWidthMm < toMm(4)) throw new RangeError(`a ${round(opening.widthMm)} mm opening is too narrow for a drawer box`);
-  if (boxHeightMm < toMm(1.5)) throw new RangeError(`a ${round(opening.heightMm)} mm opening is too low for a drawer box`);
+  if (boxWidthMm < toMm(4))
+    throw new RangeError(`a ${round(opening.widthMm)} mm opening is too narrow for a drawer box`);
+  if (boxHeightMm < toMm(1.5))
+    throw new RangeError(`a ${round(opening.heightMm)} mm opening is too low for a drawer box`);
   return { boxWidthMm, boxHeightMm, boxDepthMm: toMm(slideIn), slideLengthMm: toMm(slideIn), slideLengthIn: slideIn };
 }
 
@@ -170,7 +177,10 @@ class PartList {
   readonly parts: CutPart[] = [];
   add(p: Omit<CutPart, 'stock' | 'bandingId'> & { stock?: 'sheet' | 'lumber'; bandingId?: string | null }): void {
     if (p.quantity <= 0) return;
-    if (!(p.lengthMm > 0 && p.widthMm > 0)) throw new RangeError(`part "${p.name}" comes out ${round(p.lengthMm)} x ${round(p.widthMm)} mm: the piece is too small for its layout`);
+    if (!(p.lengthMm > 0 && p.widthMm > 0))
+      throw new RangeError(
+        `part "${p.name}" comes out ${round(p.lengthMm)} x ${round(p.widthMm)} mm: the piece is too small for its layout`,
+      );
     const banded = p.bandedEdges.long + p.bandedEdges.short > 0;
     const part: CutPart = { stock: 'sheet', ...p, bandingId: banded ? (p.bandingId ?? null) : null };
     const same = this.parts.find((q) => q.id === part.id);
@@ -237,7 +247,9 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
     footId: null,
     hangingRailWidthMm: null,
     wallHung: spec.design === 'wall-cabinet',
-    freeStanding: spec.design === 'assembly-bench' || ((spec.design === 'bookcase' || spec.design === 'base-cabinet') && spec.installation === 'free-standing'),
+    freeStanding:
+      spec.design === 'assembly-bench' ||
+      ((spec.design === 'bookcase' || spec.design === 'base-cabinet') && spec.installation === 'free-standing'),
     mobile: false,
     workingLoadKg: 0,
     pullId: spec.pullId,
@@ -255,7 +267,18 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
     const topT = spec.top.kind === 'laminated' ? 2 * t : spec.top.thicknessMm;
     const caseHeight = spec.heightMm - topT - under;
     for (let c = 0; c < spec.caseCount; c++) {
-      cases.push({ key: `c${c + 1}`, xMm: spec.overhangSidesMm + c * caseWidth, yMm: under, widthMm: caseWidth, heightMm: caseHeight, depthMm: caseDepth, toeKickMm: 0, topKind: 'stretchers', hangingRail: false, trimmed: false });
+      cases.push({
+        key: `c${c + 1}`,
+        xMm: spec.overhangSidesMm + c * caseWidth,
+        yMm: under,
+        widthMm: caseWidth,
+        heightMm: caseHeight,
+        depthMm: caseDepth,
+        toeKickMm: 0,
+        topKind: 'stretchers',
+        hangingRail: false,
+        trimmed: false,
+      });
     }
     geo.top = { xMm: 0, yMm: spec.heightMm - topT, widthMm: spec.widthMm, heightMm: topT, kind: spec.top.kind };
     benchTop(spec, book, list, geo, topT);
@@ -269,7 +292,8 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
       geo.footId = foot.id;
     }
     for (const cs of cases) {
-      for (const x of [cs.xMm + 70, cs.xMm + cs.widthMm - 70]) geo.mobility.push({ kind: caster ? 'caster' : 'foot', xMm: x, heightMm: under });
+      for (const x of [cs.xMm + 70, cs.xMm + cs.widthMm - 70])
+        geo.mobility.push({ kind: caster ? 'caster' : 'foot', xMm: x, heightMm: under });
     }
     geo.mobile = caster !== null;
     geo.workingLoadKg = spec.workingLoadKg;
@@ -296,18 +320,43 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
     }
   }
 
-  for (const cs of cases) buildCase(cs, spec, { carcass, back, front, drawerMat, drawerBottom }, settings, list, geo, band);
+  for (const cs of cases)
+    buildCase(cs, spec, { carcass, back, front, drawerMat, drawerBottom }, settings, list, geo, band);
   geo.caseCount = cases.length;
 
   if (spec.trim) {
     const lumber = byId(book.lumber, spec.trim.lumberId, 'trim lumber');
     const tt = spec.trim.thicknessMm;
     const tw = spec.trim.widthMm;
-    const common = { materialId: lumber.id, stock: 'lumber' as const, thicknessMm: tt, widthMm: tw, grain: 'fixed' as const, bandedEdges: { long: 0, short: 0 } as const, pocketHoles: 0, dados: 0, finishFaces: 2 as const };
+    const common = {
+      materialId: lumber.id,
+      stock: 'lumber' as const,
+      thicknessMm: tt,
+      widthMm: tw,
+      grain: 'fixed' as const,
+      bandedEdges: { long: 0, short: 0 } as const,
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 2 as const,
+    };
     if (spec.design === 'assembly-bench' && geo.top) {
       // solid edging round the top, mitred at the corners (lengths are long-point)
-      list.add({ ...common, id: 'trim-top-long', name: 'trim, top edge (long)', quantity: 2, lengthMm: spec.widthMm + 2 * tt, widthMm: geo.top.heightMm });
-      list.add({ ...common, id: 'trim-top-short', name: 'trim, top edge (end)', quantity: 2, lengthMm: spec.depthMm + 2 * tt, widthMm: geo.top.heightMm });
+      list.add({
+        ...common,
+        id: 'trim-top-long',
+        name: 'trim, top edge (long)',
+        quantity: 2,
+        lengthMm: spec.widthMm + 2 * tt,
+        widthMm: geo.top.heightMm,
+      });
+      list.add({
+        ...common,
+        id: 'trim-top-short',
+        name: 'trim, top edge (end)',
+        quantity: 2,
+        lengthMm: spec.depthMm + 2 * tt,
+        widthMm: geo.top.heightMm,
+      });
     } else {
       const cs = cases[0];
       // a mitred face frame of solid trim over the case's front edges
@@ -327,7 +376,15 @@ interface Mats {
   drawerBottom: SheetGood;
 }
 
-function buildCase(cs: CaseInput, spec: BuildSpec, m: Mats, settings: ShopSettings, list: PartList, geo: PieceGeometry, band: string): void {
+function buildCase(
+  cs: CaseInput,
+  spec: BuildSpec,
+  m: Mats,
+  settings: ShopSettings,
+  list: PartList,
+  geo: PieceGeometry,
+  band: string,
+): void {
   const t = m.carcass.thicknessMm;
   const bt = m.back.thicknessMm;
   const k = cs.key;
@@ -336,45 +393,181 @@ function buildCase(cs: CaseInput, spec: BuildSpec, m: Mats, settings: ShopSettin
   const insideDepth = grooved ? cs.depthMm - BACK_SETBACK_MM - bt : cs.depthMm - bt;
   const insideWidth = cs.widthMm - 2 * t;
   const insideHeight = cs.heightMm - cs.toeKickMm - 2 * t;
-  if (insideWidth <= 0 || insideHeight <= 0 || insideDepth <= 0) throw new RangeError(`the case (${round(cs.widthMm)} x ${round(cs.heightMm)} x ${round(cs.depthMm)} mm) has no room inside`);
+  if (insideWidth <= 0 || insideHeight <= 0 || insideDepth <= 0)
+    throw new RangeError(
+      `the case (${round(cs.widthMm)} x ${round(cs.heightMm)} x ${round(cs.depthMm)} mm) has no room inside`,
+    );
   const faceBand = cs.trimmed ? 0 : 1;
   const carcassGrain = (visible: boolean) => grainOf(m.carcass, visible);
   const horizontals = cs.topKind === 'panel' ? 2 : 1; // bottom and a top panel dadoed into the sides
 
   const bays = spec.bays;
-  const dividersPerBay = bays.map((b) => dividerCount(b.compartments) + b.compartments.reduce((s, c) => s + (c.kind === 'drawer' ? 0 : c.fixedShelves), 0));
+  const dividersPerBay = bays.map(
+    (b) =>
+      dividerCount(b.compartments) + b.compartments.reduce((s, c) => s + (c.kind === 'drawer' ? 0 : c.fixedShelves), 0),
+  );
   const bayWidths = share(
     bays.map((b) => b.widthMm),
     insideWidth - (bays.length - 1) * t,
   );
-  if (bayWidths.some((w) => w < 100)) throw new RangeError('the bays do not fit the case: make them narrower or the case wider');
+  if (bayWidths.some((w) => w < 100))
+    throw new RangeError('the bays do not fit the case: make them narrower or the case wider');
 
   // sides: full height (notched for the toe kick), dadoes for bottom, top panel and the outer bays' dividers, and the back groove
   const sideDados = [0, bays.length - 1].map((b) => horizontals + dividersPerBay[b] + (grooved ? 1 : 0));
-  list.add({ id: `${k}-side`, name: 'side', materialId: m.carcass.id, quantity: 2, lengthMm: cs.heightMm, widthMm: panelDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: Math.max(...sideDados), finishFaces: 2 });
-  list.add({ id: `${k}-bottom`, name: 'bottom', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth + 2 * DADO_MM, widthMm: panelDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: (bays.length - 1) + (grooved ? 1 : 0), finishFaces: 1 });
+  list.add({
+    id: `${k}-side`,
+    name: 'side',
+    materialId: m.carcass.id,
+    quantity: 2,
+    lengthMm: cs.heightMm,
+    widthMm: panelDepth,
+    thicknessMm: t,
+    grain: carcassGrain(true),
+    bandedEdges: { long: faceBand as 0 | 1, short: 0 },
+    bandingId: band,
+    pocketHoles: 0,
+    dados: Math.max(...sideDados),
+    finishFaces: 2,
+  });
+  list.add({
+    id: `${k}-bottom`,
+    name: 'bottom',
+    materialId: m.carcass.id,
+    quantity: 1,
+    lengthMm: insideWidth + 2 * DADO_MM,
+    widthMm: panelDepth,
+    thicknessMm: t,
+    grain: carcassGrain(true),
+    bandedEdges: { long: faceBand as 0 | 1, short: 0 },
+    bandingId: band,
+    pocketHoles: 0,
+    dados: bays.length - 1 + (grooved ? 1 : 0),
+    finishFaces: 1,
+  });
   if (cs.topKind === 'panel') {
-    list.add({ id: `${k}-top`, name: 'top', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth + 2 * DADO_MM, widthMm: panelDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: (bays.length - 1) + (grooved ? 1 : 0), finishFaces: 2 });
+    list.add({
+      id: `${k}-top`,
+      name: 'top',
+      materialId: m.carcass.id,
+      quantity: 1,
+      lengthMm: insideWidth + 2 * DADO_MM,
+      widthMm: panelDepth,
+      thicknessMm: t,
+      grain: carcassGrain(true),
+      bandedEdges: { long: faceBand as 0 | 1, short: 0 },
+      bandingId: band,
+      pocketHoles: 0,
+      dados: bays.length - 1 + (grooved ? 1 : 0),
+      finishFaces: 2,
+    });
   } else {
-    list.add({ id: `${k}-stretcher`, name: 'stretcher', materialId: m.carcass.id, quantity: 2, lengthMm: insideWidth, widthMm: STRETCHER_WIDTH_MM, thicknessMm: t, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 4, dados: 0, finishFaces: 0 });
+    list.add({
+      id: `${k}-stretcher`,
+      name: 'stretcher',
+      materialId: m.carcass.id,
+      quantity: 2,
+      lengthMm: insideWidth,
+      widthMm: STRETCHER_WIDTH_MM,
+      thicknessMm: t,
+      grain: 'free',
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 4,
+      dados: 0,
+      finishFaces: 0,
+    });
   }
   if (cs.toeKickMm > 0) {
-    list.add({ id: `${k}-toe-kick`, name: 'toe kick', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth, widthMm: cs.toeKickMm, thicknessMm: t, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+    list.add({
+      id: `${k}-toe-kick`,
+      name: 'toe kick',
+      materialId: m.carcass.id,
+      quantity: 1,
+      lengthMm: insideWidth,
+      widthMm: cs.toeKickMm,
+      thicknessMm: t,
+      grain: 'free',
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 1,
+    });
   }
   if (cs.hangingRail) {
-    list.add({ id: `${k}-hanging-rail`, name: 'hanging rail', materialId: m.carcass.id, quantity: 1, lengthMm: insideWidth, widthMm: RAIL_WIDTH_MM, thicknessMm: t, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 4, dados: 0, finishFaces: 0 });
+    list.add({
+      id: `${k}-hanging-rail`,
+      name: 'hanging rail',
+      materialId: m.carcass.id,
+      quantity: 1,
+      lengthMm: insideWidth,
+      widthMm: RAIL_WIDTH_MM,
+      thicknessMm: t,
+      grain: 'free',
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 4,
+      dados: 0,
+      finishFaces: 0,
+    });
     geo.hangingRailWidthMm = cs.widthMm;
   }
   if (grooved) {
-    list.add({ id: `${k}-back`, name: 'back', materialId: m.back.id, quantity: 1, lengthMm: insideHeight + 2 * DADO_MM, widthMm: insideWidth + 2 * DADO_MM, thicknessMm: bt, grain: grainOf(m.back, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+    list.add({
+      id: `${k}-back`,
+      name: 'back',
+      materialId: m.back.id,
+      quantity: 1,
+      lengthMm: insideHeight + 2 * DADO_MM,
+      widthMm: insideWidth + 2 * DADO_MM,
+      thicknessMm: bt,
+      grain: grainOf(m.back, true),
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 1,
+    });
   } else {
-    list.add({ id: `${k}-back`, name: 'back', materialId: m.back.id, quantity: 1, lengthMm: cs.heightMm - cs.toeKickMm, widthMm: cs.widthMm, thicknessMm: bt, grain: grainOf(m.back, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+    list.add({
+      id: `${k}-back`,
+      name: 'back',
+      materialId: m.back.id,
+      quantity: 1,
+      lengthMm: cs.heightMm - cs.toeKickMm,
+      widthMm: cs.widthMm,
+      thicknessMm: bt,
+      grain: grainOf(m.back, true),
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 1,
+    });
   }
   if (bays.length > 1) {
-    list.add({ id: `${k}-partition`, name: 'partition', materialId: m.carcass.id, quantity: bays.length - 1, lengthMm: insideHeight + 2 * DADO_MM, widthMm: insideDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: Math.max(...dividersPerBay), finishFaces: 2 });
+    list.add({
+      id: `${k}-partition`,
+      name: 'partition',
+      materialId: m.carcass.id,
+      quantity: bays.length - 1,
+      lengthMm: insideHeight + 2 * DADO_MM,
+      widthMm: insideDepth,
+      thicknessMm: t,
+      grain: carcassGrain(true),
+      bandedEdges: { long: faceBand as 0 | 1, short: 0 },
+      bandingId: band,
+      pocketHoles: 0,
+      dados: Math.max(...dividersPerBay),
+      finishFaces: 2,
+    });
   }
 
-  const outline: CaseOutline = { xMm: cs.xMm, yMm: cs.yMm, widthMm: cs.widthMm, heightMm: cs.heightMm, toeKickMm: cs.toeKickMm, partitionsXMm: [], shelvesMm: [] };
+  const outline: CaseOutline = {
+    xMm: cs.xMm,
+    yMm: cs.yMm,
+    widthMm: cs.widthMm,
+    heightMm: cs.heightMm,
+    toeKickMm: cs.toeKickMm,
+    partitionsXMm: [],
+    shelvesMm: [],
+  };
   geo.cases.push(outline);
   const outerInset = Math.max(0, t - settings.overlayMm) + settings.revealMm / 2;
   const half = settings.revealMm / 2;
@@ -389,9 +582,26 @@ function buildCase(cs: CaseInput, spec: BuildSpec, m: Mats, settings: ShopSettin
       bay.compartments.map((c) => c.heightMm),
       insideHeight - dividers * t,
     );
-    if (heights.some((h) => h < 50)) throw new RangeError(`the compartments of bay ${b + 1} do not fit the case: make them shorter or the case taller`);
+    if (heights.some((h) => h < 50))
+      throw new RangeError(
+        `the compartments of bay ${b + 1} do not fit the case: make them shorter or the case taller`,
+      );
     if (dividers > 0) {
-      list.add({ id: `${bk}-divider`, name: 'fixed shelf', materialId: m.carcass.id, quantity: dividers, lengthMm: bw + 2 * DADO_MM, widthMm: insideDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+      list.add({
+        id: `${bk}-divider`,
+        name: 'fixed shelf',
+        materialId: m.carcass.id,
+        quantity: dividers,
+        lengthMm: bw + 2 * DADO_MM,
+        widthMm: insideDepth,
+        thicknessMm: t,
+        grain: carcassGrain(true),
+        bandedEdges: { long: faceBand as 0 | 1, short: 0 },
+        bandingId: band,
+        pocketHoles: 0,
+        dados: 0,
+        finishFaces: 2,
+      });
     }
     // the face boundaries of this bay (centre of partitions, case edge less the overlay)
     const left = b === 0 ? cs.xMm + outerInset : x - t / 2 + half;
@@ -400,44 +610,161 @@ function buildCase(cs: CaseInput, spec: BuildSpec, m: Mats, settings: ShopSettin
     bay.compartments.forEach((c: Compartment, j) => {
       const h = heights[j];
       const ck = `${bk}-k${j + 1}`;
-      const below = j === 0 ? 'edge' : bay.compartments[j - 1].kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
-      const above = j === bay.compartments.length - 1 ? 'edge' : bay.compartments[j + 1].kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
-      const bottom = below === 'edge' ? cs.yMm + cs.toeKickMm + outerInset : below === 'divider' ? y - t / 2 + half : y + half;
-      const top = above === 'edge' ? cs.yMm + cs.heightMm - outerInset : above === 'divider' ? y + h + t / 2 - half : y + h - half;
+      const below =
+        j === 0 ? 'edge' : bay.compartments[j - 1].kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
+      const above =
+        j === bay.compartments.length - 1
+          ? 'edge'
+          : bay.compartments[j + 1].kind === 'drawer' && c.kind === 'drawer'
+            ? 'joint'
+            : 'divider';
+      const bottom =
+        below === 'edge' ? cs.yMm + cs.toeKickMm + outerInset : below === 'divider' ? y - t / 2 + half : y + half;
+      const top =
+        above === 'edge'
+          ? cs.yMm + cs.heightMm - outerInset
+          : above === 'divider'
+            ? y + h + t / 2 - half
+            : y + h - half;
       if (above === 'divider') outline.shelvesMm.push([x, y + h, bw]);
       const shelfDepth = insideDepth - SHELF_FRONT_SETBACK_MM;
       if (c.kind !== 'drawer') {
         if (c.adjustableShelves > 0) {
-          list.add({ id: `${ck}-shelf`, name: 'shelf', materialId: m.carcass.id, quantity: c.adjustableShelves, lengthMm: bw - 2 * SHELF_SIDE_CLEARANCE_MM, widthMm: shelfDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+          list.add({
+            id: `${ck}-shelf`,
+            name: 'shelf',
+            materialId: m.carcass.id,
+            quantity: c.adjustableShelves,
+            lengthMm: bw - 2 * SHELF_SIDE_CLEARANCE_MM,
+            widthMm: shelfDepth,
+            thicknessMm: t,
+            grain: carcassGrain(true),
+            bandedEdges: { long: 1, short: 0 },
+            bandingId: band,
+            pocketHoles: 0,
+            dados: 0,
+            finishFaces: 2,
+          });
           geo.adjustableShelves += c.adjustableShelves;
           geo.shelfSpans.push({ spanMm: bw, depthMm: shelfDepth, materialId: m.carcass.id, thicknessMm: t });
         }
         if (c.fixedShelves > 0) {
-          list.add({ id: `${ck}-fixed-shelf`, name: 'fixed shelf', materialId: m.carcass.id, quantity: c.fixedShelves, lengthMm: bw + 2 * DADO_MM, widthMm: insideDepth, thicknessMm: t, grain: carcassGrain(true), bandedEdges: { long: faceBand as 0 | 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+          list.add({
+            id: `${ck}-fixed-shelf`,
+            name: 'fixed shelf',
+            materialId: m.carcass.id,
+            quantity: c.fixedShelves,
+            lengthMm: bw + 2 * DADO_MM,
+            widthMm: insideDepth,
+            thicknessMm: t,
+            grain: carcassGrain(true),
+            bandedEdges: { long: faceBand as 0 | 1, short: 0 },
+            bandingId: band,
+            pocketHoles: 0,
+            dados: 0,
+            finishFaces: 2,
+          });
           const gap = (h - c.fixedShelves * t) / (c.fixedShelves + 1);
           for (let i = 1; i <= c.fixedShelves; i++) outline.shelvesMm.push([x, y + i * gap + (i - 1) * t, bw]);
         }
-        if (c.adjustableShelves > 0 || c.fixedShelves > 0 || dividers > 0) geo.shelfSpans.push({ spanMm: bw, depthMm: insideDepth, materialId: m.carcass.id, thicknessMm: t });
+        if (c.adjustableShelves > 0 || c.fixedShelves > 0 || dividers > 0)
+          geo.shelfSpans.push({ spanMm: bw, depthMm: insideDepth, materialId: m.carcass.id, thicknessMm: t });
       }
       if (c.kind === 'door') {
         const doors = c.doors;
         const fw = (right - left - (doors - 1) * settings.revealMm) / doors;
         for (let d = 0; d < doors; d++) {
           const fx = left + d * (fw + settings.revealMm);
-          geo.fronts.push({ kind: 'door', xMm: fx, yMm: bottom, widthMm: fw, heightMm: top - bottom, hinge: doors === 2 ? (d === 0 ? 'left' : 'right') : 'left' });
+          geo.fronts.push({
+            kind: 'door',
+            xMm: fx,
+            yMm: bottom,
+            widthMm: fw,
+            heightMm: top - bottom,
+            hinge: doors === 2 ? (d === 0 ? 'left' : 'right') : 'left',
+          });
           geo.doors.push({ widthMm: fw, heightMm: top - bottom });
         }
-        list.add({ id: `${ck}-door`, name: 'door', materialId: m.front.id, quantity: doors, lengthMm: top - bottom, widthMm: fw, thicknessMm: m.front.thicknessMm, grain: grainOf(m.front, true), bandedEdges: { long: 2, short: 2 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+        list.add({
+          id: `${ck}-door`,
+          name: 'door',
+          materialId: m.front.id,
+          quantity: doors,
+          lengthMm: top - bottom,
+          widthMm: fw,
+          thicknessMm: m.front.thicknessMm,
+          grain: grainOf(m.front, true),
+          bandedEdges: { long: 2, short: 2 },
+          bandingId: band,
+          pocketHoles: 0,
+          dados: 0,
+          finishFaces: 2,
+        });
       } else if (c.kind === 'drawer') {
         const box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth });
         const fw = right - left;
         geo.fronts.push({ kind: 'drawer', xMm: left, yMm: bottom, widthMm: fw, heightMm: top - bottom });
         geo.drawers.push({ frontWidthMm: fw, slideLengthIn: box.slideLengthIn, box });
-        list.add({ id: `${ck}-drawer-front`, name: 'drawer front', materialId: m.front.id, quantity: 1, lengthMm: fw, widthMm: top - bottom, thicknessMm: m.front.thicknessMm, grain: grainOf(m.front, true), bandedEdges: { long: 2, short: 2 }, bandingId: band, pocketHoles: 0, dados: 0, finishFaces: 2 });
+        list.add({
+          id: `${ck}-drawer-front`,
+          name: 'drawer front',
+          materialId: m.front.id,
+          quantity: 1,
+          lengthMm: fw,
+          widthMm: top - bottom,
+          thicknessMm: m.front.thicknessMm,
+          grain: grainOf(m.front, true),
+          bandedEdges: { long: 2, short: 2 },
+          bandingId: band,
+          pocketHoles: 0,
+          dados: 0,
+          finishFaces: 2,
+        });
         const st = m.drawerMat.thicknessMm;
-        list.add({ id: `${ck}-drawer-side`, name: 'drawer side', materialId: m.drawerMat.id, quantity: 2, lengthMm: box.boxDepthMm, widthMm: box.boxHeightMm, thicknessMm: st, grain: 'free', bandedEdges: { long: 1, short: 0 }, bandingId: band, pocketHoles: 0, dados: 1, finishFaces: 0 });
-        list.add({ id: `${ck}-drawer-end`, name: 'drawer box front and back', materialId: m.drawerMat.id, quantity: 2, lengthMm: box.boxWidthMm - 2 * st, widthMm: box.boxHeightMm, thicknessMm: st, grain: 'free', bandedEdges: { long: 1, short: 0 }, bandingId: band, pocketHoles: 4, dados: 1, finishFaces: 0 });
-        list.add({ id: `${ck}-drawer-bottom`, name: 'drawer bottom', materialId: m.drawerBottom.id, quantity: 1, lengthMm: box.boxWidthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM, widthMm: box.boxDepthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM, thicknessMm: m.drawerBottom.thicknessMm, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+        list.add({
+          id: `${ck}-drawer-side`,
+          name: 'drawer side',
+          materialId: m.drawerMat.id,
+          quantity: 2,
+          lengthMm: box.boxDepthMm,
+          widthMm: box.boxHeightMm,
+          thicknessMm: st,
+          grain: 'free',
+          bandedEdges: { long: 1, short: 0 },
+          bandingId: band,
+          pocketHoles: 0,
+          dados: 1,
+          finishFaces: 0,
+        });
+        list.add({
+          id: `${ck}-drawer-end`,
+          name: 'drawer box front and back',
+          materialId: m.drawerMat.id,
+          quantity: 2,
+          lengthMm: box.boxWidthMm - 2 * st,
+          widthMm: box.boxHeightMm,
+          thicknessMm: st,
+          grain: 'free',
+          bandedEdges: { long: 1, short: 0 },
+          bandingId: band,
+          pocketHoles: 4,
+          dados: 1,
+          finishFaces: 0,
+        });
+        list.add({
+          id: `${ck}-drawer-bottom`,
+          name: 'drawer bottom',
+          materialId: m.drawerBottom.id,
+          quantity: 1,
+          lengthMm: box.boxWidthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM,
+          widthMm: box.boxDepthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM,
+          thicknessMm: m.drawerBottom.thicknessMm,
+          grain: 'free',
+          bandedEdges: { long: 0, short: 0 },
+          pocketHoles: 0,
+          dados: 0,
+          finishFaces: 0,
+        });
       }
       y += h + (above === 'divider' ? t : 0);
     });
@@ -446,12 +773,31 @@ function buildCase(cs: CaseInput, spec: BuildSpec, m: Mats, settings: ShopSettin
   });
 }
 
-function benchTop(spec: Extract<BuildSpec, { design: 'assembly-bench' }>, book: PriceBook, list: PartList, geo: PieceGeometry, topT: number): void {
+function benchTop(
+  spec: Extract<BuildSpec, { design: 'assembly-bench' }>,
+  book: PriceBook,
+  list: PartList,
+  geo: PieceGeometry,
+  topT: number,
+): void {
   const L = spec.widthMm;
   const D = spec.depthMm;
   if (spec.top.kind === 'laminated') {
     const m = byId(book.sheetGoods, spec.carcassMaterialId, 'top material');
-    list.add({ id: 'top-layer', name: 'top layer', materialId: m.id, quantity: 2, lengthMm: L, widthMm: D, thicknessMm: m.thicknessMm, grain: grainOf(m, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
+    list.add({
+      id: 'top-layer',
+      name: 'top layer',
+      materialId: m.id,
+      quantity: 2,
+      lengthMm: L,
+      widthMm: D,
+      thicknessMm: m.thicknessMm,
+      grain: grainOf(m, true),
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 1,
+    });
     return;
   }
   const skin = byId(book.sheetGoods, spec.top.skinMaterialId, 'top skin material');
@@ -460,18 +806,84 @@ function benchTop(spec: Extract<BuildSpec, { design: 'assembly-bench' }>, book: 
   const coreH = topT - 2 * skin.thicknessMm;
   if (coreH < ct) throw new RangeError(`the top is too thin for two ${round(skin.thicknessMm)} mm skins and a core`);
   const spacing = spec.top.gridSpacingMm;
-  list.add({ id: 'top-skin', name: 'skin', materialId: skin.id, quantity: 2, lengthMm: L, widthMm: D, thicknessMm: skin.thicknessMm, grain: grainOf(skin, true), bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 1 });
-  list.add({ id: 'top-frame-long', name: 'frame, long', materialId: core.id, quantity: 2, lengthMm: L, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
-  list.add({ id: 'top-frame-end', name: 'frame, end', materialId: core.id, quantity: 2, lengthMm: D - 2 * ct, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+  list.add({
+    id: 'top-skin',
+    name: 'skin',
+    materialId: skin.id,
+    quantity: 2,
+    lengthMm: L,
+    widthMm: D,
+    thicknessMm: skin.thicknessMm,
+    grain: grainOf(skin, true),
+    bandedEdges: { long: 0, short: 0 },
+    pocketHoles: 0,
+    dados: 0,
+    finishFaces: 1,
+  });
+  list.add({
+    id: 'top-frame-long',
+    name: 'frame, long',
+    materialId: core.id,
+    quantity: 2,
+    lengthMm: L,
+    widthMm: coreH,
+    thicknessMm: ct,
+    grain: 'free',
+    bandedEdges: { long: 0, short: 0 },
+    pocketHoles: 0,
+    dados: 0,
+    finishFaces: 0,
+  });
+  list.add({
+    id: 'top-frame-end',
+    name: 'frame, end',
+    materialId: core.id,
+    quantity: 2,
+    lengthMm: D - 2 * ct,
+    widthMm: coreH,
+    thicknessMm: ct,
+    grain: 'free',
+    bandedEdges: { long: 0, short: 0 },
+    pocketHoles: 0,
+    dados: 0,
+    finishFaces: 0,
+  });
   // cross ribs run front to back between the long frame members; long ribs are cut into segments between them
   const innerL = L - 2 * ct;
   const innerD = D - 2 * ct;
   const cross = Math.max(0, Math.ceil(innerL / spacing) - 1);
   const longRows = Math.max(0, Math.ceil(innerD / spacing) - 1);
-  if (cross > 0) list.add({ id: 'top-rib-cross', name: 'grid rib, cross', materialId: core.id, quantity: cross, lengthMm: innerD, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+  if (cross > 0)
+    list.add({
+      id: 'top-rib-cross',
+      name: 'grid rib, cross',
+      materialId: core.id,
+      quantity: cross,
+      lengthMm: innerD,
+      widthMm: coreH,
+      thicknessMm: ct,
+      grain: 'free',
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 0,
+    });
   if (longRows > 0) {
     const seg = (innerL - cross * ct) / (cross + 1);
-    list.add({ id: 'top-rib-long', name: 'grid rib, long', materialId: core.id, quantity: longRows * (cross + 1), lengthMm: seg, widthMm: coreH, thicknessMm: ct, grain: 'free', bandedEdges: { long: 0, short: 0 }, pocketHoles: 0, dados: 0, finishFaces: 0 });
+    list.add({
+      id: 'top-rib-long',
+      name: 'grid rib, long',
+      materialId: core.id,
+      quantity: longRows * (cross + 1),
+      lengthMm: seg,
+      widthMm: coreH,
+      thicknessMm: ct,
+      grain: 'free',
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 0,
+    });
   }
   geo.torsionTops = 1;
 }

@@ -17,7 +17,10 @@ describe('elevationDrawing', () => {
     const d = elevationDrawing(designs['base-cabinet'].defaults, { book: demoPriceBook, settings: demoSettings });
     expect(d.shapes.filter((s) => s.type === 'rect' && s.style === 'front')).toHaveLength(2);
     expect(d.shapes.filter((s) => s.type === 'rect' && s.style === 'kick')).toHaveLength(1);
-    expect(d.shapes.filter((s) => s.type === 'dimension').map((s) => (s.type === 'dimension' ? s.text : ''))).toEqual(['24"', '34 1/2"']);
+    expect(d.shapes.filter((s) => s.type === 'dimension').map((s) => (s.type === 'dimension' ? s.text : ''))).toEqual([
+      '24"',
+      '34 1/2"',
+    ]);
   });
   it('draws casters under the bench', () => {
     const d = elevationDrawing(designs['assembly-bench'].defaults);
@@ -49,7 +52,14 @@ describe('sheetLayoutDrawing', () => {
 
 describe('toSvg', () => {
   it('returns a standalone SVG with a title, hatching for offcuts and escaped text', () => {
-    const svg = toSvg({ title: 'A & B', viewBox: { x: 0, y: 0, width: 100, height: 50 }, shapes: [{ type: 'text', x: 1, y: 1, text: '<shelf>', size: 5, anchor: 'start' }, { type: 'rect', x: 0, y: 0, width: 10, height: 10, style: 'offcut' }] });
+    const svg = toSvg({
+      title: 'A & B',
+      viewBox: { x: 0, y: 0, width: 100, height: 50 },
+      shapes: [
+        { type: 'text', x: 1, y: 1, text: '<shelf>', size: 5, anchor: 'start' },
+        { type: 'rect', x: 0, y: 0, width: 10, height: 10, style: 'offcut' },
+      ],
+    });
     expect(svg.startsWith('<svg xmlns="http://www.w3.org/2000/svg"')).toBe(true);
     expect(svg).toContain('<title>A &amp; B</title>');
     expect(svg).toContain('&lt;shelf&gt;');

@@ -6,14 +6,34 @@ import type { NestPart, SheetLayout } from './nesting';
 import { formatLength, type LengthUnit } from './units';
 
 /** How a shape is drawn; every style reads in black and white (hatching, not colour, carries meaning). */
-export type ShapeStyle = 'case' | 'front' | 'top' | 'kick' | 'hardware' | 'sheet' | 'part' | 'offcut' | 'trim' | 'cut' | 'guide' | 'shelf';
+export type ShapeStyle =
+  | 'case'
+  | 'front'
+  | 'top'
+  | 'kick'
+  | 'hardware'
+  | 'sheet'
+  | 'part'
+  | 'offcut'
+  | 'trim'
+  | 'cut'
+  | 'guide'
+  | 'shelf';
 
 export type Shape =
   | { type: 'rect'; x: number; y: number; width: number; height: number; style: ShapeStyle }
   | { type: 'line'; x1: number; y1: number; x2: number; y2: number; style: ShapeStyle }
   | { type: 'arrow'; x1: number; y1: number; x2: number; y2: number; style: ShapeStyle }
   | { type: 'circle'; cx: number; cy: number; r: number; style: ShapeStyle }
-  | { type: 'text'; x: number; y: number; text: string; size: number; anchor: 'start' | 'middle' | 'end'; weight?: 'normal' | 'bold' }
+  | {
+      type: 'text';
+      x: number;
+      y: number;
+      text: string;
+      size: number;
+      anchor: 'start' | 'middle' | 'end';
+      weight?: 'normal' | 'bold';
+    }
   | { type: 'dimension'; x1: number; y1: number; x2: number; y2: number; offset: number; text: string; size: number };
 
 /** A drawing as plain data: millimetres, y growing downwards, within `viewBox`. */
@@ -35,7 +55,10 @@ function fmt(mm: number, unit: LengthUnit): string {
  * @example toSvg(elevationDrawing(designs.bookcase.defaults)) // to scale with the demo book's thicknesses
  * @example elevationDrawing(spec, { book, settings }) // with the shop's own materials
  */
-export function elevationDrawing(spec: BuildSpec, options: { list?: CutList; book?: PriceBook; settings?: ShopSettings; unit?: LengthUnit } = {}): Drawing {
+export function elevationDrawing(
+  spec: BuildSpec,
+  options: { list?: CutList; book?: PriceBook; settings?: ShopSettings; unit?: LengthUnit } = {},
+): Drawing {
   const unit = options.unit ?? options.settings?.units ?? 'in';
   // thicknesses come from the shop's price book; without one, from the demo book (the drawing is to scale, not priced)
   const list = options.list ?? cutList(spec, options.book ?? demoPriceBook, options.settings ?? demoSettings);
@@ -46,22 +69,75 @@ export function elevationDrawing(spec: BuildSpec, options: { list?: CutList; boo
   const size = Math.max(W, H) / 38;
   const shapes: Shape[] = [];
   for (const c of g.cases) {
-    shapes.push({ type: 'rect', x: c.xMm, y: Y(c.yMm + c.heightMm), width: c.widthMm, height: c.heightMm - c.toeKickMm, style: 'case' });
-    if (c.toeKickMm > 0) shapes.push({ type: 'rect', x: c.xMm + 20, y: Y(c.yMm + c.toeKickMm), width: c.widthMm - 40, height: c.toeKickMm, style: 'kick' });
-    for (const px of c.partitionsXMm) shapes.push({ type: 'line', x1: px, y1: Y(c.yMm + c.toeKickMm), x2: px, y2: Y(c.yMm + c.heightMm), style: 'guide' });
-    for (const [sx, sy, sw] of c.shelvesMm) shapes.push({ type: 'line', x1: sx, y1: Y(sy), x2: sx + sw, y2: Y(sy), style: 'shelf' });
+    shapes.push({
+      type: 'rect',
+      x: c.xMm,
+      y: Y(c.yMm + c.heightMm),
+      width: c.widthMm,
+      height: c.heightMm - c.toeKickMm,
+      style: 'case',
+    });
+    if (c.toeKickMm > 0)
+      shapes.push({
+        type: 'rect',
+        x: c.xMm + 20,
+        y: Y(c.yMm + c.toeKickMm),
+        width: c.widthMm - 40,
+        height: c.toeKickMm,
+        style: 'kick',
+      });
+    for (const px of c.partitionsXMm)
+      shapes.push({
+        type: 'line',
+        x1: px,
+        y1: Y(c.yMm + c.toeKickMm),
+        x2: px,
+        y2: Y(c.yMm + c.heightMm),
+        style: 'guide',
+      });
+    for (const [sx, sy, sw] of c.shelvesMm)
+      shapes.push({ type: 'line', x1: sx, y1: Y(sy), x2: sx + sw, y2: Y(sy), style: 'shelf' });
   }
-  if (g.top) shapes.push({ type: 'rect', x: g.top.xMm, y: Y(g.top.yMm + g.top.heightMm), width: g.top.widthMm, height: g.top.heightMm, style: 'top' });
+  if (g.top)
+    shapes.push({
+      type: 'rect',
+      x: g.top.xMm,
+      y: Y(g.top.yMm + g.top.heightMm),
+      width: g.top.widthMm,
+      height: g.top.heightMm,
+      style: 'top',
+    });
   for (const f of g.fronts) {
-    shapes.push({ type: 'rect', x: f.xMm, y: Y(f.yMm + f.heightMm), width: f.widthMm, height: f.heightMm, style: 'front' });
+    shapes.push({
+      type: 'rect',
+      x: f.xMm,
+      y: Y(f.yMm + f.heightMm),
+      width: f.widthMm,
+      height: f.heightMm,
+      style: 'front',
+    });
     if (f.kind === 'door') {
       // the opening side meets at the hinge side: a thin chevron, as drawn on shop elevations
       const hx = f.hinge === 'right' ? f.xMm + f.widthMm : f.xMm;
       const ox = f.hinge === 'right' ? f.xMm : f.xMm + f.widthMm;
-      shapes.push({ type: 'line', x1: ox, y1: Y(f.yMm + f.heightMm), x2: hx, y2: Y(f.yMm + f.heightMm / 2), style: 'guide' });
+      shapes.push({
+        type: 'line',
+        x1: ox,
+        y1: Y(f.yMm + f.heightMm),
+        x2: hx,
+        y2: Y(f.yMm + f.heightMm / 2),
+        style: 'guide',
+      });
       shapes.push({ type: 'line', x1: hx, y1: Y(f.yMm + f.heightMm / 2), x2: ox, y2: Y(f.yMm), style: 'guide' });
     } else {
-      shapes.push({ type: 'line', x1: f.xMm + f.widthMm / 2 - Math.min(64, f.widthMm / 4), y1: Y(f.yMm + f.heightMm / 2), x2: f.xMm + f.widthMm / 2 + Math.min(64, f.widthMm / 4), y2: Y(f.yMm + f.heightMm / 2), style: 'hardware' });
+      shapes.push({
+        type: 'line',
+        x1: f.xMm + f.widthMm / 2 - Math.min(64, f.widthMm / 4),
+        y1: Y(f.yMm + f.heightMm / 2),
+        x2: f.xMm + f.widthMm / 2 + Math.min(64, f.widthMm / 4),
+        y2: Y(f.yMm + f.heightMm / 2),
+        style: 'hardware',
+      });
     }
   }
   for (const m of g.mobility) {
@@ -70,19 +146,36 @@ export function elevationDrawing(spec: BuildSpec, options: { list?: CutList; boo
       const r = Math.min(m.heightMm / 2.6, 45);
       shapes.push({ type: 'line', x1: m.xMm, y1: Y(m.heightMm), x2: m.xMm, y2: Y(2 * r), style: 'hardware' });
       shapes.push({ type: 'circle', cx: m.xMm, cy: Y(r), r, style: 'hardware' });
-    }
-    else shapes.push({ type: 'rect', x: m.xMm - 20, y: Y(m.heightMm), width: 40, height: m.heightMm, style: 'hardware' });
+    } else
+      shapes.push({ type: 'rect', x: m.xMm - 20, y: Y(m.heightMm), width: 40, height: m.heightMm, style: 'hardware' });
   }
   const gap = size * 1.6;
   shapes.push({ type: 'dimension', x1: 0, y1: H, x2: W, y2: H, offset: gap, text: fmt(W, unit), size });
   shapes.push({ type: 'dimension', x1: W, y1: 0, x2: W, y2: H, offset: gap, text: fmt(H, unit), size });
-  shapes.push({ type: 'text', x: 0, y: -size * 0.8, text: `${titleOf(spec)}: ${fmt(W, unit)} W x ${fmt(H, unit)} H x ${fmt(g.depthMm, unit)} D`, size, anchor: 'start', weight: 'bold' });
+  shapes.push({
+    type: 'text',
+    x: 0,
+    y: -size * 0.8,
+    text: `${titleOf(spec)}: ${fmt(W, unit)} W x ${fmt(H, unit)} H x ${fmt(g.depthMm, unit)} D`,
+    size,
+    anchor: 'start',
+    weight: 'bold',
+  });
   const pad = size * 4;
-  return { title: titleOf(spec), viewBox: { x: -pad / 2, y: -size * 2.5, width: W + pad * 1.5, height: H + size * 2.5 + pad }, shapes };
+  return {
+    title: titleOf(spec),
+    viewBox: { x: -pad / 2, y: -size * 2.5, width: W + pad * 1.5, height: H + size * 2.5 + pad },
+    shapes,
+  };
 }
 
 function titleOf(spec: BuildSpec): string {
-  return { 'assembly-bench': 'Assembly bench', 'base-cabinet': 'Base cabinet', 'wall-cabinet': 'Wall cabinet', bookcase: 'Bookcase' }[spec.design];
+  return {
+    'assembly-bench': 'Assembly bench',
+    'base-cabinet': 'Base cabinet',
+    'wall-cabinet': 'Wall cabinet',
+    bookcase: 'Bookcase',
+  }[spec.design];
 }
 
 /**
@@ -92,7 +185,11 @@ function titleOf(spec: BuildSpec): string {
  *
  * @example toSvg(sheetLayoutDrawing(result.sheets[0], parts, { title: '3/4 in birch plywood, sheet 1 of 3' }))
  */
-export function sheetLayoutDrawing(sheet: SheetLayout, parts: readonly NestPart[], options: { title?: string; unit?: LengthUnit } = {}): Drawing {
+export function sheetLayoutDrawing(
+  sheet: SheetLayout,
+  parts: readonly NestPart[],
+  options: { title?: string; unit?: LengthUnit } = {},
+): Drawing {
   const unit = options.unit ?? 'in';
   const L = sheet.lengthMm;
   const Wd = sheet.widthMm;
@@ -102,7 +199,14 @@ export function sheetLayoutDrawing(sheet: SheetLayout, parts: readonly NestPart[
   for (const o of sheet.offcuts) {
     shapes.push({ type: 'rect', x: o.xMm, y: o.yMm, width: o.lengthMm, height: o.widthMm, style: 'offcut' });
     if (o.lengthMm > size * 8 && o.widthMm > size * 2.2) {
-      shapes.push({ type: 'text', x: o.xMm + o.lengthMm / 2, y: o.yMm + o.widthMm / 2 + size * 0.35, text: `offcut ${fmt(o.lengthMm, unit)} x ${fmt(o.widthMm, unit)}`, size: size * 0.8, anchor: 'middle' });
+      shapes.push({
+        type: 'text',
+        x: o.xMm + o.lengthMm / 2,
+        y: o.yMm + o.widthMm / 2 + size * 0.35,
+        text: `offcut ${fmt(o.lengthMm, unit)} x ${fmt(o.widthMm, unit)}`,
+        size: size * 0.8,
+        anchor: 'middle',
+      });
     }
   }
   for (const p of sheet.placements) {
@@ -133,11 +237,34 @@ export function sheetLayoutDrawing(sheet: SheetLayout, parts: readonly NestPart[
     const cx = c.direction === 'rip' ? c.x1Mm + r * 1.3 : c.x1Mm;
     const cy = c.direction === 'rip' ? c.y1Mm : c.y1Mm + r * 1.3;
     shapes.push({ type: 'circle', cx, cy, r, style: 'cut' });
-    shapes.push({ type: 'text', x: cx, y: cy + r * 0.4, text: String(c.order), size: r * 1.1, anchor: 'middle', weight: 'bold' });
+    shapes.push({
+      type: 'text',
+      x: cx,
+      y: cy + r * 0.4,
+      text: String(c.order),
+      size: r * 1.1,
+      anchor: 'middle',
+      weight: 'bold',
+    });
   }
   const title = options.title ?? 'Sheet layout';
-  shapes.push({ type: 'text', x: 0, y: -size * 0.8, text: `${title}: ${fmt(L, unit)} x ${fmt(Wd, unit)}, yield ${(sheet.yieldRatio * 100).toFixed(0)} %`, size: size * 1.1, anchor: 'start', weight: 'bold' });
-  shapes.push({ type: 'text', x: 0, y: Wd + size * 1.6, text: 'Numbers give the cut order; hatched areas are offcuts; arrows show the grain.', size: size * 0.8, anchor: 'start' });
+  shapes.push({
+    type: 'text',
+    x: 0,
+    y: -size * 0.8,
+    text: `${title}: ${fmt(L, unit)} x ${fmt(Wd, unit)}, yield ${(sheet.yieldRatio * 100).toFixed(0)} %`,
+    size: size * 1.1,
+    anchor: 'start',
+    weight: 'bold',
+  });
+  shapes.push({
+    type: 'text',
+    x: 0,
+    y: Wd + size * 1.6,
+    text: 'Numbers give the cut order; hatched areas are offcuts; arrows show the grain.',
+    size: size * 0.8,
+    anchor: 'start',
+  });
   return { title, viewBox: { x: -size, y: -size * 2.5, width: L + 2 * size, height: Wd + size * 5 }, shapes };
 }
 
@@ -178,34 +305,58 @@ export function toSvg(drawing: Drawing, options: { widthPx?: number } = {}): str
   const heightPx = Math.round((widthPx * vb.height) / vb.width);
   const attrs = (style: ShapeStyle, fill = true) => {
     const s = STROKE[style];
-    return `stroke="${s.stroke}" stroke-width="${n(s.width * scale)}" fill="${fill ? s.fill : 'none'}"${s.dash ? ` stroke-dasharray="${s.dash.split(' ').map((d) => n(Number(d) * scale)).join(' ')}"` : ''}`;
+    return `stroke="${s.stroke}" stroke-width="${n(s.width * scale)}" fill="${fill ? s.fill : 'none'}"${
+      s.dash
+        ? ` stroke-dasharray="${s.dash
+            .split(' ')
+            .map((d) => n(Number(d) * scale))
+            .join(' ')}"`
+        : ''
+    }`;
   };
   const out: string[] = [];
   for (const sh of drawing.shapes) {
     switch (sh.type) {
       case 'rect':
-        out.push(`<rect x="${n(sh.x)}" y="${n(sh.y)}" width="${n(sh.width)}" height="${n(sh.height)}" ${attrs(sh.style)}/>`);
+        out.push(
+          `<rect x="${n(sh.x)}" y="${n(sh.y)}" width="${n(sh.width)}" height="${n(sh.height)}" ${attrs(sh.style)}/>`,
+        );
         break;
       case 'line':
-        out.push(`<line x1="${n(sh.x1)}" y1="${n(sh.y1)}" x2="${n(sh.x2)}" y2="${n(sh.y2)}" ${attrs(sh.style, false)}/>`);
+        out.push(
+          `<line x1="${n(sh.x1)}" y1="${n(sh.y1)}" x2="${n(sh.x2)}" y2="${n(sh.y2)}" ${attrs(sh.style, false)}/>`,
+        );
         break;
       case 'arrow':
-        out.push(`<line x1="${n(sh.x1)}" y1="${n(sh.y1)}" x2="${n(sh.x2)}" y2="${n(sh.y2)}" ${attrs(sh.style, false)} marker-end="url(#bw-arrow)"/>`);
+        out.push(
+          `<line x1="${n(sh.x1)}" y1="${n(sh.y1)}" x2="${n(sh.x2)}" y2="${n(sh.y2)}" ${attrs(sh.style, false)} marker-end="url(#bw-arrow)"/>`,
+        );
         break;
       case 'circle':
         out.push(`<circle cx="${n(sh.cx)}" cy="${n(sh.cy)}" r="${n(sh.r)}" ${attrs(sh.style)}/>`);
         break;
       case 'text':
-        out.push(`<text x="${n(sh.x)}" y="${n(sh.y)}" font-size="${n(sh.size)}" text-anchor="${sh.anchor}"${sh.weight === 'bold' ? ' font-weight="600"' : ''} fill="${INK}">${esc(sh.text)}</text>`);
+        out.push(
+          `<text x="${n(sh.x)}" y="${n(sh.y)}" font-size="${n(sh.size)}" text-anchor="${sh.anchor}"${sh.weight === 'bold' ? ' font-weight="600"' : ''} fill="${INK}">${esc(sh.text)}</text>`,
+        );
         break;
       case 'dimension': {
         const horizontal = Math.abs(sh.y1 - sh.y2) < 1e-6;
-        const [ax, ay, bx, by] = horizontal ? [sh.x1, sh.y1 + sh.offset, sh.x2, sh.y2 + sh.offset] : [sh.x1 + sh.offset, sh.y1, sh.x2 + sh.offset, sh.y2];
+        const [ax, ay, bx, by] = horizontal
+          ? [sh.x1, sh.y1 + sh.offset, sh.x2, sh.y2 + sh.offset]
+          : [sh.x1 + sh.offset, sh.y1, sh.x2 + sh.offset, sh.y2];
         const tick = sh.size * 0.5;
         const w = n(0.8 * scale);
         out.push(`<line x1="${n(ax)}" y1="${n(ay)}" x2="${n(bx)}" y2="${n(by)}" stroke="${INK}" stroke-width="${w}"/>`);
-        for (const [x, y] of [[ax, ay], [bx, by]]) {
-          out.push(horizontal ? `<line x1="${n(x)}" y1="${n(y - tick)}" x2="${n(x)}" y2="${n(y + tick)}" stroke="${INK}" stroke-width="${w}"/>` : `<line x1="${n(x - tick)}" y1="${n(y)}" x2="${n(x + tick)}" y2="${n(y)}" stroke="${INK}" stroke-width="${w}"/>`);
+        for (const [x, y] of [
+          [ax, ay],
+          [bx, by],
+        ]) {
+          out.push(
+            horizontal
+              ? `<line x1="${n(x)}" y1="${n(y - tick)}" x2="${n(x)}" y2="${n(y + tick)}" stroke="${INK}" stroke-width="${w}"/>`
+              : `<line x1="${n(x - tick)}" y1="${n(y)}" x2="${n(x + tick)}" y2="${n(y)}" stroke="${INK}" stroke-width="${w}"/>`,
+          );
         }
         const mx = (ax + bx) / 2;
         const my = (ay + by) / 2;

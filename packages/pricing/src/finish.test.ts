@@ -14,7 +14,12 @@ describe('finishCoverage', () => {
     expect(finishCoverage({ volumeSolids: 0.5, dryFilmMils: 2, transferEfficiency: 0.5 })).toBeCloseTo(200.5, 9);
   });
   describe('invalid input', () => {
-    it.each([{ volumeSolids: 0, dryFilmMils: 1 }, { volumeSolids: 1.2, dryFilmMils: 1 }, { volumeSolids: 0.5, dryFilmMils: 0 }, { volumeSolids: 0.5, dryFilmMils: 1, transferEfficiency: 2 }])('refuses %j', (input) => {
+    it.each([
+      { volumeSolids: 0, dryFilmMils: 1 },
+      { volumeSolids: 1.2, dryFilmMils: 1 },
+      { volumeSolids: 0.5, dryFilmMils: 0 },
+      { volumeSolids: 0.5, dryFilmMils: 1, transferEfficiency: 2 },
+    ])('refuses %j', (input) => {
       expect(() => finishCoverage(input)).toThrow(RangeError);
     });
   });

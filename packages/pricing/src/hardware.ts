@@ -78,6 +78,15 @@ export function hardwareFor(list: CutList, book: PriceBook, opts: { antiTip: boo
   return [...counts].map(([id, pieces]) => {
     const item = byId(book.hardware, id, 'hardware');
     const per = item.unit === 'pair' ? 2 : item.perUnit;
-    return { itemId: id, name: item.name, kind: item.kind, pieces, units: Math.ceil(pieces / per), unit: item.unit, unitPriceCents: item.priceCents, massKg: item.massKg * pieces };
+    return {
+      itemId: id,
+      name: item.name,
+      kind: item.kind,
+      pieces,
+      units: Math.ceil(pieces / per),
+      unit: item.unit,
+      unitPriceCents: item.priceCents,
+      massKg: item.massKg * pieces,
+    };
   });
 }

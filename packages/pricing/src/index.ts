@@ -1,14 +1,41 @@
 export * from './geometry';
 export { nest, nestByMaterial, nestLowerBound } from './nesting';
-export type { Cut, NestOptions, NestPart, NestResult, Offcut, Placement, SheetLayout, StockSheet, UnplacedPart } from './nesting';
+export type {
+  Cut,
+  NestOptions,
+  NestPart,
+  NestResult,
+  Offcut,
+  Placement,
+  SheetLayout,
+  StockSheet,
+  UnplacedPart,
+} from './nesting';
 export { validateLayout } from './validate-layout';
 export { finishCoverage, finishGallons, FT2_MIL_PER_GALLON } from './finish';
 export { hardwareFor, TWO_PULL_WIDTH_MM } from './hardware';
 export type { HardwareLine } from './hardware';
 export { labourHours, bandingMetres } from './labour';
 export { estimate, budgetRange, rangeOf, totalsFor, splitDeposit, times } from './costing';
-export type { Estimate, EstimateItem, EstimateLine, EstimateOptions, MaterialLayout, PieceResult, Totals } from './costing';
+export type {
+  Estimate,
+  EstimateItem,
+  EstimateLine,
+  EstimateOptions,
+  MaterialLayout,
+  PieceResult,
+  Totals,
+} from './costing';
 export { demoPriceBook, demoSettings } from './demo-data';
 export { traveller, SHOP_CAUTIONS } from './traveller';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';
-export { LABOUR_OPERATION_KEYS, HardwareKind, SheetGood, Lumber, EdgeBanding, HardwareItem, Finish, LabourOperation } from './price-book';
+export {
+  LABOUR_OPERATION_KEYS,
+  HardwareKind,
+  SheetGood,
+  Lumber,
+  EdgeBanding,
+  HardwareItem,
+  Finish,
+  LabourOperation,
+} from './price-book';

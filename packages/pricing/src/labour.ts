@@ -49,7 +49,10 @@ const COUNT_OF: Record<LabourOperationKey, keyof LabourCounts> = {
  *
  * @example labourHours({ ...counts, sheets: 3 }, demoPriceBook).byStage.cutting
  */
-export function labourHours(counts: LabourCounts, book: PriceBook): { lines: LabourLine[]; byStage: Record<StageKey, number>; totalHours: number } {
+export function labourHours(
+  counts: LabourCounts,
+  book: PriceBook,
+): { lines: LabourLine[]; byStage: Record<StageKey, number>; totalHours: number } {
   const byStage = Object.fromEntries(STAGE_KEYS.map((k) => [k, 0])) as Record<StageKey, number>;
   const lines: LabourLine[] = [];
   for (const op of book.labour) {
@@ -64,5 +67,8 @@ export function labourHours(counts: LabourCounts, book: PriceBook): { lines: Lab
 
 /** Metres of edge banding on the parts (before waste). */
 export function bandingMetres(parts: readonly CutPart[]): number {
-  return parts.reduce((s, p) => s + (p.quantity * (p.bandedEdges.long * p.lengthMm + p.bandedEdges.short * p.widthMm)) / 1000, 0);
+  return parts.reduce(
+    (s, p) => s + (p.quantity * (p.bandedEdges.long * p.lengthMm + p.bandedEdges.short * p.widthMm)) / 1000,
+    0,
+  );
 }

@@ -1,5 +1,15 @@
 /** The groups of an estimate's lines, in the order they are shown. */
-export const LINE_GROUPS = ['sheet_goods', 'solid_wood', 'edge_banding', 'hardware', 'finish', 'consumables', 'labour', 'delivery', 'other'] as const;
+export const LINE_GROUPS = [
+  'sheet_goods',
+  'solid_wood',
+  'edge_banding',
+  'hardware',
+  'finish',
+  'consumables',
+  'labour',
+  'delivery',
+  'other',
+] as const;
 export type LineGroup = (typeof LINE_GROUPS)[number];
 
 /** How the groups are headed on screens and in the PDF. */

@@ -7,8 +7,20 @@ import { seededRandom } from './_lib/random';
 import { guillotinePieces, piecesByKind } from './_lib/guillotine-pieces';
 
 /** the exact search's answer as a layout the independent validator reads */
-function asLayout(types: ExactType[], r: ExactResult, sheets: number, L: number, W: number): { parts: NestPart[]; result: Pick<NestResult, 'sheets' | 'unplaced'> } {
-  const parts = types.map((t, i) => ({ id: `t${i}`, lengthMm: t.l, widthMm: t.w, quantity: t.count, canRotate: t.canRotate }));
+function asLayout(
+  types: ExactType[],
+  r: ExactResult,
+  sheets: number,
+  L: number,
+  W: number,
+): { parts: NestPart[]; result: Pick<NestResult, 'sheets' | 'unplaced'> } {
+  const parts = types.map((t, i) => ({
+    id: `t${i}`,
+    lengthMm: t.l,
+    widthMm: t.w,
+    quantity: t.count,
+    canRotate: t.canRotate,
+  }));
   return {
     parts,
     result: {
@@ -16,7 +28,9 @@ function asLayout(types: ExactType[], r: ExactResult, sheets: number, L: number,
       sheets: Array.from({ length: sheets }, (_, s) => ({
         lengthMm: L,
         widthMm: W,
-        placements: r.placements.filter((p) => p.sheet === s).map((p) => ({ partId: `t${p.type}`, xMm: p.x, yMm: p.y, lengthMm: p.l, widthMm: p.w, rotated: p.rotated })),
+        placements: r.placements
+          .filter((p) => p.sheet === s)
+          .map((p) => ({ partId: `t${p.type}`, xMm: p.x, yMm: p.y, lengthMm: p.l, widthMm: p.w, rotated: p.rotated })),
         cuts: [],
         offcuts: [],
         usedAreaMm2: 0,
@@ -35,7 +49,10 @@ describe('packExact', () => {
         const r = packExact(types, { x0: 0, y0: 0, L: 16, W: 12, sheets: 1, kerf: 0, workLimit: 50_000_000 });
         expect(r.status).toBe('found');
         const { parts, result } = asLayout(types, r, 1, 16, 12);
-        expect(validateLayout(result, parts, { lengthMm: 16, widthMm: 12 }, { kerfMm: 0, trimMm: 0 })).toEqual({ ok: true, errors: [] });
+        expect(validateLayout(result, parts, { lengthMm: 16, widthMm: 12 }, { kerfMm: 0, trimMm: 0 })).toEqual({
+          ok: true,
+          errors: [],
+        });
       }),
       { numRuns: 40 },
     );
@@ -63,10 +80,15 @@ describe('packExact', () => {
     const r = packExact(fits, { x0: 0, y0: 0, L: 2438.4, W: 1219.2, sheets: 1, kerf: 3.2, workLimit: 1_000_000 });
     expect(r.status).toBe('found');
     const { parts, result } = asLayout(fits, r, 1, 2438.4, 1219.2);
-    expect(validateLayout(result, parts, { lengthMm: 2438.4, widthMm: 1219.2 }, { kerfMm: 3.2, trimMm: 0 })).toEqual({ ok: true, errors: [] });
+    expect(validateLayout(result, parts, { lengthMm: 2438.4, widthMm: 1219.2 }, { kerfMm: 3.2, trimMm: 0 })).toEqual({
+      ok: true,
+      errors: [],
+    });
     // a tenth of a millimetre longer and the second part runs into the kerf
     const tooLong: ExactType[] = [{ l: 1217.7, w: 607.8, canRotate: false, count: 4 }];
-    expect(packExact(tooLong, { x0: 0, y0: 0, L: 2438.4, W: 1219.2, sheets: 1, kerf: 3.2, workLimit: 1_000_000 }).status).toBe('none');
+    expect(
+      packExact(tooLong, { x0: 0, y0: 0, L: 2438.4, W: 1219.2, sheets: 1, kerf: 3.2, workLimit: 1_000_000 }).status,
+    ).toBe('none');
   });
 
   it('spreads parts over several sheets and stops at its work budget', () => {

@@ -105,7 +105,9 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
   if (remaining > o.sheets * o.L * o.W + EPS) return { status: 'none', placements, work: 0 };
   const kerf = o.kerf;
   // row/column bounds work on whole numbers only (the benchmark's sizes, or mm cut lists in whole mm)
-  const integral = [o.L, o.W, kerf, ...types.flatMap((t) => [t.l, t.w])].every((v) => Number.isInteger(v)) && Math.max(o.L, o.W) + kerf <= 1024;
+  const integral =
+    [o.L, o.W, kerf, ...types.flatMap((t) => [t.l, t.w])].every((v) => Number.isInteger(v)) &&
+    Math.max(o.L, o.W) + kerf <= 1024;
   const rand = seededRandom(o.seed ?? 1);
   // per-type hash keys for the counts part of a state
   const ka = types.map(() => (rand() * 2 ** 32) | 1);

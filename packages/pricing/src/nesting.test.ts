@@ -8,26 +8,74 @@ import { toMm } from './units';
 const SHEET = { lengthMm: toMm(96), widthMm: toMm(48) };
 const OPTS = { kerfMm: 3.2, trimMm: 0, effort: 'quick' as const };
 
-function single(parts: NestPart[], placements: { partId: string; xMm: number; yMm: number; lengthMm: number; widthMm: number; rotated?: boolean }[]): Pick<NestResult, 'sheets' | 'unplaced'> {
-  return { sheets: [{ lengthMm: 100, widthMm: 100, placements: placements.map((p) => ({ rotated: false, ...p })), cuts: [], offcuts: [], usedAreaMm2: 0, yieldRatio: 0 }], unplaced: [] };
+function single(
+  parts: NestPart[],
+  placements: { partId: string; xMm: number; yMm: number; lengthMm: number; widthMm: number; rotated?: boolean }[],
+): Pick<NestResult, 'sheets' | 'unplaced'> {
+  return {
+    sheets: [
+      {
+        lengthMm: 100,
+        widthMm: 100,
+        placements: placements.map((p) => ({ rotated: false, ...p })),
+        cuts: [],
+        offcuts: [],
+        usedAreaMm2: 0,
+        yieldRatio: 0,
+      },
+    ],
+    unplaced: [],
+  };
 }
 
 describe('validateLayout', () => {
-  const sq = (id: string, l = 40, w = 40, canRotate = true): NestPart => ({ id, lengthMm: l, widthMm: w, quantity: 1, canRotate });
+  const sq = (id: string, l = 40, w = 40, canRotate = true): NestPart => ({
+    id,
+    lengthMm: l,
+    widthMm: w,
+    quantity: 1,
+    canRotate,
+  });
   const sheet = { lengthMm: 100, widthMm: 100 };
   it('accepts a good hand-made layout', () => {
     const parts = [sq('a'), sq('b')];
-    expect(validateLayout(single(parts, [{ partId: 'a', xMm: 0, yMm: 0, lengthMm: 40, widthMm: 40 }, { partId: 'b', xMm: 45, yMm: 0, lengthMm: 40, widthMm: 40 }]), parts, sheet, { kerfMm: 3, trimMm: 0 })).toEqual({ ok: true, errors: [] });
+    expect(
+      validateLayout(
+        single(parts, [
+          { partId: 'a', xMm: 0, yMm: 0, lengthMm: 40, widthMm: 40 },
+          { partId: 'b', xMm: 45, yMm: 0, lengthMm: 40, widthMm: 40 },
+        ]),
+        parts,
+        sheet,
+        { kerfMm: 3, trimMm: 0 },
+      ),
+    ).toEqual({ ok: true, errors: [] });
   });
   it('finds an overlap', () => {
     const parts = [sq('a'), sq('b')];
-    const v = validateLayout(single(parts, [{ partId: 'a', xMm: 0, yMm: 0, lengthMm: 40, widthMm: 40 }, { partId: 'b', xMm: 30, yMm: 10, lengthMm: 40, widthMm: 40 }]), parts, sheet, { kerfMm: 3, trimMm: 0 });
+    const v = validateLayout(
+      single(parts, [
+        { partId: 'a', xMm: 0, yMm: 0, lengthMm: 40, widthMm: 40 },
+        { partId: 'b', xMm: 30, yMm: 10, lengthMm: 40, widthMm: 40 },
+      ]),
+      parts,
+      sheet,
+      { kerfMm: 3, trimMm: 0 },
+    );
     expect(v.ok).toBe(false);
     expect(v.errors.join()).toMatch(/overlap/);
   });
   it('finds parts closer than a kerf', () => {
     const parts = [sq('a'), sq('b')];
-    const v = validateLayout(single(parts, [{ partId: 'a', xMm: 0, yMm: 0, lengthMm: 40, widthMm: 40 }, { partId: 'b', xMm: 42, yMm: 0, lengthMm: 40, widthMm: 40 }]), parts, sheet, { kerfMm: 3, trimMm: 0 });
+    const v = validateLayout(
+      single(parts, [
+        { partId: 'a', xMm: 0, yMm: 0, lengthMm: 40, widthMm: 40 },
+        { partId: 'b', xMm: 42, yMm: 0, lengthMm: 40, widthMm: 40 },
+      ]),
+      parts,
+      sheet,
+      { kerfMm: 3, trimMm: 0 },
+    );
     expect(v.errors.join()).toMatch(/less than the 3 mm kerf/);
   });
   it('finds a pinwheel that no through-cut separates', () => {
@@ -48,12 +96,25 @@ describe('validateLayout', () => {
   });
   it('finds a rotated grain-bound part', () => {
     const parts = [sq('a', 60, 30, false)];
-    const v = validateLayout(single(parts, [{ partId: 'a', xMm: 0, yMm: 0, lengthMm: 30, widthMm: 60, rotated: true }]), parts, sheet, { kerfMm: 0, trimMm: 0 });
+    const v = validateLayout(
+      single(parts, [{ partId: 'a', xMm: 0, yMm: 0, lengthMm: 30, widthMm: 60, rotated: true }]),
+      parts,
+      sheet,
+      { kerfMm: 0, trimMm: 0 },
+    );
     expect(v.errors.join()).toMatch(/grain-bound but placed rotated/);
   });
   it('finds a part inside the trim and a missing unit', () => {
     const parts = [sq('a'), { ...sq('b'), quantity: 2 }];
-    const v = validateLayout(single(parts, [{ partId: 'a', xMm: 2, yMm: 10, lengthMm: 40, widthMm: 40 }, { partId: 'b', xMm: 50, yMm: 10, lengthMm: 40, widthMm: 40 }]), parts, sheet, { kerfMm: 3, trimMm: 5 });
+    const v = validateLayout(
+      single(parts, [
+        { partId: 'a', xMm: 2, yMm: 10, lengthMm: 40, widthMm: 40 },
+        { partId: 'b', xMm: 50, yMm: 10, lengthMm: 40, widthMm: 40 },
+      ]),
+      parts,
+      sheet,
+      { kerfMm: 3, trimMm: 5 },
+    );
     expect(v.errors.join('\n')).toMatch(/outside the sheet less its 5 mm trim/);
     expect(v.errors.join('\n')).toMatch(/"b": 1 placed and 0 unplaced, but the quantity is 2/);
   });
@@ -74,7 +135,9 @@ describe('nest', () => {
     const s = r.sheets[0];
     expect(s.placements).toHaveLength(5);
     expect(s.cuts[0]).toMatchObject({ order: 1, stage: 0 }); // edge trims first
-    expect(s.cuts.filter((c) => c.stage === 1).every((c) => c.direction === s.cuts.find((x) => x.stage === 1)!.direction)).toBe(true);
+    expect(
+      s.cuts.filter((c) => c.stage === 1).every((c) => c.direction === s.cuts.find((x) => x.stage === 1)!.direction),
+    ).toBe(true);
     expect(s.offcuts.length).toBeGreaterThan(0);
     const area = parts.reduce((a, p) => a + p.lengthMm * p.widthMm * p.quantity, 0);
     expect(s.yieldRatio).toBeCloseTo(area / (SHEET.lengthMm * SHEET.widthMm), 9);
@@ -102,14 +165,22 @@ describe('nest', () => {
       { id: 'ok', lengthMm: 500, widthMm: 300, quantity: 1, canRotate: false },
     ];
     const r = nest(parts, SHEET, OPTS);
-    expect(r.unplaced).toEqual([{ partId: 'tall', quantity: 2, reason: expect.stringMatching(/fits only turned across the grain/) }]);
+    expect(r.unplaced).toEqual([
+      { partId: 'tall', quantity: 2, reason: expect.stringMatching(/fits only turned across the grain/) },
+    ]);
     expect(r.sheetCount).toBe(1);
     expect(validateLayout(r, parts, SHEET, OPTS).ok).toBe(true);
     expect(nest([{ ...parts[0], canRotate: true }], SHEET, OPTS).unplaced).toEqual([]);
   });
 
   it('gives the same layout for the same seed', () => {
-    const parts: NestPart[] = Array.from({ length: 30 }, (_, i) => ({ id: `p${i}`, lengthMm: 200 + ((i * 97) % 700), widthMm: 100 + ((i * 53) % 400), quantity: 1 + (i % 3), canRotate: i % 2 === 0 }));
+    const parts: NestPart[] = Array.from({ length: 30 }, (_, i) => ({
+      id: `p${i}`,
+      lengthMm: 200 + ((i * 97) % 700),
+      widthMm: 100 + ((i * 53) % 400),
+      quantity: 1 + (i % 3),
+      canRotate: i % 2 === 0,
+    }));
     const a = nest(parts, SHEET, { ...OPTS, effort: 'thorough', seed: 5 });
     const b = nest(parts, SHEET, { ...OPTS, effort: 'thorough', seed: 5 });
     expect(b).toEqual(a);
@@ -117,7 +188,8 @@ describe('nest', () => {
 
   it('fills a nearly full sheet that greedy fills miss: Berkey and Wang class II, instance cl02_040_01, grain-bound', () => {
     // 40 parts, 895 of 900 square units on one 30 x 30 sheet (2DPackLib, Berkey & Wang 1987 class II; see ../shared/bench/nesting)
-    const sizes = '1,1;1,2;1,3;1,5;1,9;1,9;2,2;2,2;2,2;2,8;3,1;3,4;3,8;3,9;3,10;4,1;4,1;4,2;4,3;4,4;4,7;4,7;6,3;6,5;6,8;6,9;7,1;7,1;7,2;8,3;8,4;9,2;9,5;9,5;9,5;9,7;9,8;10,2;10,4;10,6';
+    const sizes =
+      '1,1;1,2;1,3;1,5;1,9;1,9;2,2;2,2;2,2;2,8;3,1;3,4;3,8;3,9;3,10;4,1;4,1;4,2;4,3;4,4;4,7;4,7;6,3;6,5;6,8;6,9;7,1;7,1;7,2;8,3;8,4;9,2;9,5;9,5;9,5;9,7;9,8;10,2;10,4;10,6';
     const parts: NestPart[] = sizes.split(';').map((s, i) => {
       const [l, w] = s.split(',').map(Number);
       return { id: `p${i}`, lengthMm: l, widthMm: w, quantity: 1, canRotate: false };
@@ -142,11 +214,25 @@ describe('nest', () => {
   it('returns layouts that always validate, for random parts (fast-check)', () => {
     fc.assert(
       fc.property(
-        fc.array(fc.record({ l: fc.integer({ min: 20, max: 2500 }), w: fc.integer({ min: 20, max: 1300 }), q: fc.integer({ min: 1, max: 4 }), r: fc.boolean() }), { minLength: 1, maxLength: 25 }),
+        fc.array(
+          fc.record({
+            l: fc.integer({ min: 20, max: 2500 }),
+            w: fc.integer({ min: 20, max: 1300 }),
+            q: fc.integer({ min: 1, max: 4 }),
+            r: fc.boolean(),
+          }),
+          { minLength: 1, maxLength: 25 },
+        ),
         fc.constantFrom(0, 3.2, 4.8),
         fc.constantFrom(0, 6, 12.5),
         (raw, kerfMm, trimMm) => {
-          const parts: NestPart[] = raw.map((p, i) => ({ id: `p${i}`, lengthMm: p.l, widthMm: p.w, quantity: p.q, canRotate: p.r }));
+          const parts: NestPart[] = raw.map((p, i) => ({
+            id: `p${i}`,
+            lengthMm: p.l,
+            widthMm: p.w,
+            quantity: p.q,
+            canRotate: p.r,
+          }));
           const opts = { kerfMm, trimMm, effort: 'quick' as const };
           const r = nest(parts, SHEET, opts);
           const v = validateLayout(r, parts, SHEET, opts);
@@ -164,7 +250,9 @@ describe('nest', () => {
       expect(nest([], SHEET, OPTS)).toEqual({ sheets: [], sheetCount: 0, lowerBound: 0, yieldRatio: 0, unplaced: [] });
     });
     it('counts parts too big to share a sheet in the lower bound', () => {
-      expect(nestLowerBound([{ id: 'a', lengthMm: 1300, widthMm: 700, quantity: 3, canRotate: false }], SHEET, 0)).toBe(3);
+      expect(nestLowerBound([{ id: 'a', lengthMm: 1300, widthMm: 700, quantity: 3, canRotate: false }], SHEET, 0)).toBe(
+        3,
+      );
     });
   });
 

@@ -309,7 +309,10 @@ function fillBinBySpace(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest:
     for (let i = 1; i < bin.free.length; i++) {
       const a = bin.free[i];
       const b = bin.free[fi];
-      const before = cfg.fit === 'area' ? a.l * a.w < b.l * b.w - EPS || (Math.abs(a.l * a.w - b.l * b.w) < EPS && a.y < b.y) : a.y < b.y - EPS || (Math.abs(a.y - b.y) < EPS && a.x < b.x);
+      const before =
+        cfg.fit === 'area'
+          ? a.l * a.w < b.l * b.w - EPS || (Math.abs(a.l * a.w - b.l * b.w) < EPS && a.y < b.y)
+          : a.y < b.y - EPS || (Math.abs(a.y - b.y) < EPS && a.x < b.x);
       if (before) fi = i;
     }
     const f = bin.free[fi];
@@ -365,7 +368,12 @@ function fillBinBySpace(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest:
 
 /** Tries to pack every item into one bin with several configs and orders. */
 function packAllInOne(items: Item[], ctx: Ctx, configs: Config[], rand?: () => number, tries = 0): Bin | null {
-  const orders = [sortItems(items, 'area'), sortItems(items, 'long'), sortItems(items, 'width'), sortItems(items, 'length')];
+  const orders = [
+    sortItems(items, 'area'),
+    sortItems(items, 'long'),
+    sortItems(items, 'width'),
+    sortItems(items, 'length'),
+  ];
   for (const order of orders) {
     for (const cfg of configs) {
       const { bin, rest } = fillBin(order, cfg, ctx);
@@ -471,7 +479,14 @@ function perturb(items: Item[], rand: () => number, noise: number): Item[] {
  * Local search: move items of the least-filled bin into other bins (repacking
  * each receiving bin whole), until the bin empties or nothing moves.
  */
-function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: number, budget: { n: number }, rand?: () => number): Solution {
+function eliminateBins(
+  sol: Solution,
+  ctx: Ctx,
+  configs: Config[],
+  lowerBound: number,
+  budget: { n: number },
+  rand?: () => number,
+): Solution {
   let bins = sol.bins.slice();
   let progress = true;
   while (progress && bins.length > lowerBound && budget.n > 0 && ctx.spent < ctx.limit) {
@@ -480,7 +495,10 @@ function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: n
     for (const { i: weakIdx } of order) {
       if (budget.n <= 0 || ctx.spent >= ctx.limit) break;
       const weak = bins[weakIdx];
-      const remaining = sortItems(weak.placed.map((p) => p.item), 'area');
+      const remaining = sortItems(
+        weak.placed.map((p) => p.item),
+        'area',
+      );
       const others = bins
         .map((b, i) => ({ b, i }))
         .filter((x) => x.i !== weakIdx)
@@ -493,7 +511,13 @@ function eliminateBins(sol: Solution, ctx: Ctx, configs: Config[], lowerBound: n
           budget.n--;
           const cur = replaced.get(o.i) ?? o.b;
           if (cur.used + it.area > ctx.L * ctx.W + EPS) continue;
-          const packed = packAllInOne([...cur.placed.map((p) => p.item), it], ctx, configs, rand, rand && bins.length === lowerBound + 1 ? 10 : 0);
+          const packed = packAllInOne(
+            [...cur.placed.map((p) => p.item), it],
+            ctx,
+            configs,
+            rand,
+            rand && bins.length === lowerBound + 1 ? 10 : 0,
+          );
           if (packed) {
             replaced.set(o.i, packed);
             moved = true;
@@ -576,7 +600,13 @@ function planCuts(placed: Placed[], ctx: Ctx): { cuts: Omit<Cut, 'order'>[]; off
       }
       if (r.parts.length === 1) {
         const p = r.parts[0];
-        if (Math.abs(p.x - r.x) < EPS && Math.abs(p.y - r.y) < EPS && Math.abs(p.l - r.l) < EPS && Math.abs(p.w - r.w) < EPS) continue;
+        if (
+          Math.abs(p.x - r.x) < EPS &&
+          Math.abs(p.y - r.y) < EPS &&
+          Math.abs(p.l - r.l) < EPS &&
+          Math.abs(p.w - r.w) < EPS
+        )
+          continue;
       }
       let pieces = splitRegion(r, r.dir, k, cuts);
       let dir = r.dir;
@@ -594,7 +624,12 @@ function planCuts(placed: Placed[], ctx: Ctx): { cuts: Omit<Cut, 'order'>[]; off
 }
 
 /** All through-cuts of one direction across region r, or null if there is none. */
-function splitRegion(r: Region, dir: 'rip' | 'crosscut', k: number, cuts: Omit<Cut, 'order'>[]): Omit<Region, 'stage' | 'dir'>[] | null {
+function splitRegion(
+  r: Region,
+  dir: 'rip' | 'crosscut',
+  k: number,
+  cuts: Omit<Cut, 'order'>[],
+): Omit<Region, 'stage' | 'dir'>[] | null {
   const rip = dir === 'rip';
   const lo = rip ? r.y : r.x;
   const hi = rip ? r.y + r.w : r.x + r.l;
@@ -670,22 +705,28 @@ export function nestLowerBound(parts: readonly NestPart[], sheet: StockSheet, tr
 }
 
 function fitsSheet(p: NestPart, L: number, W: number): boolean {
-  return (p.lengthMm <= L + EPS && p.widthMm <= W + EPS) || (p.canRotate && p.widthMm <= L + EPS && p.lengthMm <= W + EPS);
+  return (
+    (p.lengthMm <= L + EPS && p.widthMm <= W + EPS) || (p.canRotate && p.widthMm <= L + EPS && p.lengthMm <= W + EPS)
+  );
 }
 
 function checkInputs(parts: readonly NestPart[], sheet: StockSheet, options: NestOptions): void {
   const bad = (what: string) => {
     throw new RangeError(what);
   };
-  if (!(sheet.lengthMm > 0 && sheet.widthMm > 0)) bad(`sheet size must be positive, got ${sheet.lengthMm} x ${sheet.widthMm} mm`);
+  if (!(sheet.lengthMm > 0 && sheet.widthMm > 0))
+    bad(`sheet size must be positive, got ${sheet.lengthMm} x ${sheet.widthMm} mm`);
   if (!(options.kerfMm >= 0)) bad(`kerf must be zero or more, got ${options.kerfMm} mm`);
-  if (!(options.trimMm >= 0) || 2 * options.trimMm >= Math.min(sheet.lengthMm, sheet.widthMm)) bad(`edge trim of ${options.trimMm} mm leaves nothing of the sheet`);
+  if (!(options.trimMm >= 0) || 2 * options.trimMm >= Math.min(sheet.lengthMm, sheet.widthMm))
+    bad(`edge trim of ${options.trimMm} mm leaves nothing of the sheet`);
   const ids = new Set<string>();
   for (const p of parts) {
     if (ids.has(p.id)) bad(`part id "${p.id}" appears twice`);
     ids.add(p.id);
-    if (!(p.lengthMm > 0 && p.widthMm > 0)) bad(`part "${p.id}" must have a positive size, got ${p.lengthMm} x ${p.widthMm} mm`);
-    if (!Number.isInteger(p.quantity) || p.quantity < 0) bad(`part "${p.id}" quantity must be a whole number, got ${p.quantity}`);
+    if (!(p.lengthMm > 0 && p.widthMm > 0))
+      bad(`part "${p.id}" must have a positive size, got ${p.lengthMm} x ${p.widthMm} mm`);
+    if (!Number.isInteger(p.quantity) || p.quantity < 0)
+      bad(`part "${p.id}" quantity must be a whole number, got ${p.quantity}`);
   }
 }
 
@@ -704,7 +745,15 @@ function checkInputs(parts: readonly NestPart[], sheet: StockSheet, options: Nes
 export function nest(parts: readonly NestPart[], sheet: StockSheet, options: NestOptions): NestResult {
   checkInputs(parts, sheet, options);
   const trim = options.trimMm;
-  const ctx: Ctx = { x0: trim, y0: trim, L: sheet.lengthMm - 2 * trim, W: sheet.widthMm - 2 * trim, kerf: options.kerfMm, spent: 0, limit: 0 };
+  const ctx: Ctx = {
+    x0: trim,
+    y0: trim,
+    L: sheet.lengthMm - 2 * trim,
+    W: sheet.widthMm - 2 * trim,
+    kerf: options.kerfMm,
+    spent: 0,
+    limit: 0,
+  };
   const unplaced: UnplacedPart[] = [];
   const items: Item[] = [];
   parts.forEach((p, type) => {
@@ -720,7 +769,8 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
       });
       return;
     }
-    for (let q = 0; q < p.quantity; q++) items.push({ type, l: p.lengthMm, w: p.widthMm, canRotate: p.canRotate, area: p.lengthMm * p.widthMm });
+    for (let q = 0; q < p.quantity; q++)
+      items.push({ type, l: p.lengthMm, w: p.widthMm, canRotate: p.canRotate, area: p.lengthMm * p.widthMm });
   });
 
   const lowerBound = nestLowerBound(parts, sheet, trim);
@@ -735,7 +785,9 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
     const seed = options.seed ?? 20261201;
     // part visits allowed (deterministic, unlike a clock): bounds the hardest instances to about 1.3 s here, under the 2 s target
     ctx.limit = thorough ? 2_400_000 : 30_000;
-    const keys: SortKey[] = thorough ? ['area', 'long', 'width', 'length', 'perimeter', 'short'] : ['area', 'long', 'width'];
+    const keys: SortKey[] = thorough
+      ? ['area', 'long', 'width', 'length', 'perimeter', 'short']
+      : ['area', 'long', 'width'];
     // the exact search (nesting-exact.ts), for when the greedy fills stop one sheet over the bound
     const area = items.reduce((a, it) => a + it.area, 0);
     // under 2 % of the bound's sheets left over: the greedy fills rarely get there, the exact search is the hope
@@ -783,7 +835,14 @@ export function nest(parts: readonly NestPart[], sheet: StockSheet, options: Nes
     return {
       lengthMm: sheet.lengthMm,
       widthMm: sheet.widthMm,
-      placements: placed.map((p) => ({ partId: parts[p.item.type].id, xMm: p.x, yMm: p.y, lengthMm: p.l, widthMm: p.w, rotated: p.rotated })),
+      placements: placed.map((p) => ({
+        partId: parts[p.item.type].id,
+        xMm: p.x,
+        yMm: p.y,
+        lengthMm: p.l,
+        widthMm: p.w,
+        rotated: p.rotated,
+      })),
       cuts,
       offcuts: plan.offcuts,
       usedAreaMm2: bin.used,
@@ -831,7 +890,11 @@ export function nestByMaterial(
         sheetCount: 0,
         lowerBound: 0,
         yieldRatio: 0,
-        unplaced: group.map((p) => ({ partId: p.id, quantity: p.quantity, reason: `no stock sheet is set for material "${materialId}"` })),
+        unplaced: group.map((p) => ({
+          partId: p.id,
+          quantity: p.quantity,
+          reason: `no stock sheet is set for material "${materialId}"`,
+        })),
       };
       continue;
     }

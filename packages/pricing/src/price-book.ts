@@ -1,6 +1,10 @@
 import * as z from 'zod';
 
-const id = z.string().min(1).max(64).regex(/^[a-z0-9][a-z0-9-]*$/, 'use lower-case letters, digits and hyphens');
+const id = z
+  .string()
+  .min(1)
+  .max(64)
+  .regex(/^[a-z0-9][a-z0-9-]*$/, 'use lower-case letters, digits and hyphens');
 const cents = z.number().int().nonnegative();
 const positive = z.number().positive();
 const fraction = z.number().min(0).max(1);
@@ -47,7 +51,18 @@ export const EdgeBanding = z.object({
 });
 export type EdgeBanding = z.infer<typeof EdgeBanding>;
 
-export const HardwareKind = z.enum(['slide', 'hinge', 'shelf_pin', 'pull', 'caster', 'leveling_foot', 'pocket_screw', 'rail_screw', 'anti_tip_kit', 'hanging_rail']);
+export const HardwareKind = z.enum([
+  'slide',
+  'hinge',
+  'shelf_pin',
+  'pull',
+  'caster',
+  'leveling_foot',
+  'pocket_screw',
+  'rail_screw',
+  'anti_tip_kit',
+  'hanging_rail',
+]);
 export type HardwareKind = z.infer<typeof HardwareKind>;
 
 export const HardwareItem = z.object({
@@ -104,7 +119,21 @@ export const LabourOperation = z.object({
   key: LabourOperationKey,
   name: z.string().min(1),
   /** what the time standard counts: per job, per sheet, per part, per metre banded, per m2 per coat... */
-  per: z.enum(['job', 'sheet', 'part', 'metre', 'hole', 'case', 'drawer', 'pair', 'door', 'top', 'piece', 'm2_coat', 'caster']),
+  per: z.enum([
+    'job',
+    'sheet',
+    'part',
+    'metre',
+    'hole',
+    'case',
+    'drawer',
+    'pair',
+    'door',
+    'top',
+    'piece',
+    'm2_coat',
+    'caster',
+  ]),
   minutes: z.number().nonnegative(),
   stage: StageKey,
 });
@@ -130,16 +159,29 @@ export const PriceBook = z
   .superRefine((book, ctx) => {
     const ops = new Set(book.labour.map((o) => o.key));
     for (const key of LABOUR_OPERATION_KEYS) {
-      if (!ops.has(key)) ctx.addIssue({ code: 'custom', path: ['labour'], message: `missing the time standard for "${key}"` });
+      if (!ops.has(key))
+        ctx.addIssue({ code: 'custom', path: ['labour'], message: `missing the time standard for "${key}"` });
     }
     const seen = new Set<string>();
-    for (const [list, items] of [['sheetGoods', book.sheetGoods], ['lumber', book.lumber], ['edgeBanding', book.edgeBanding], ['hardware', book.hardware], ['finishes', book.finishes]] as const) {
+    for (const [list, items] of [
+      ['sheetGoods', book.sheetGoods],
+      ['lumber', book.lumber],
+      ['edgeBanding', book.edgeBanding],
+      ['hardware', book.hardware],
+      ['finishes', book.finishes],
+    ] as const) {
       items.forEach((it, i) => {
-        if (seen.has(it.id)) ctx.addIssue({ code: 'custom', path: [list, i, 'id'], message: `id "${it.id}" is used twice in the price book` });
+        if (seen.has(it.id))
+          ctx.addIssue({
+            code: 'custom',
+            path: [list, i, 'id'],
+            message: `id "${it.id}" is used twice in the price book`,
+          });
         seen.add(it.id);
       });
     }
-    if (!book.hardware.some((h) => h.kind === 'slide')) ctx.addIssue({ code: 'custom', path: ['hardware'], message: 'at least one drawer slide is needed' });
+    if (!book.hardware.some((h) => h.kind === 'slide'))
+      ctx.addIssue({ code: 'custom', path: ['hardware'], message: 'at least one drawer slide is needed' });
   });
 export type PriceBook = z.infer<typeof PriceBook>;
 

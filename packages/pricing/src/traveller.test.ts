@@ -30,7 +30,10 @@ describe('traveller', () => {
     expect(row.quantity).toBe(cabinetSides[0].quantity * 2);
     expect(row.materialName).toBe(demoPriceBook.sheetGoods.find((s) => s.id === cabinetSides[0].materialId)!.name);
     // the sheet parts on the cut list are exactly the units the layouts place
-    const listed = t.pieces.flatMap((p) => p.parts).filter((p) => p.stock === 'sheet').reduce((s, p) => s + p.quantity, 0);
+    const listed = t.pieces
+      .flatMap((p) => p.parts)
+      .filter((p) => p.stock === 'sheet')
+      .reduce((s, p) => s + p.quantity, 0);
     const placed = e.layouts.reduce((s, l) => s + l.sheets.reduce((n, sh) => n + sh.placements.length, 0), 0);
     expect(listed).toBe(placed);
   });
@@ -48,7 +51,10 @@ describe('traveller', () => {
     const hinge = e.pieces[0].hardware.find((h) => h.kind === 'hinge');
     expect(hinge).toBeDefined();
     const line = t.pickList.find((p) => p.name === hinge!.name)!;
-    const expected = e.pieces.reduce((s, p) => s + p.quantity * p.hardware.filter((h) => h.itemId === hinge!.itemId).reduce((a, h) => a + h.pieces, 0), 0);
+    const expected = e.pieces.reduce(
+      (s, p) => s + p.quantity * p.hardware.filter((h) => h.itemId === hinge!.itemId).reduce((a, h) => a + h.pieces, 0),
+      0,
+    );
     expect(line.pieces).toBe(expected);
   });
 

@@ -44,7 +44,13 @@ export interface TravellerSheet {
 
 export interface Traveller {
   pieces: { title: string; quantity: number; parts: TravellerPart[] }[];
-  materials: { materialName: string; sheetCount: number; lowerBound: number; yieldRatio: number; sheets: TravellerSheet[] }[];
+  materials: {
+    materialName: string;
+    sheetCount: number;
+    lowerBound: number;
+    yieldRatio: number;
+    sheets: TravellerSheet[];
+  }[];
   pickList: { name: string; kind: string; pieces: number }[];
   bandingMetres: { name: string; metres: number }[];
   hoursByStage: Record<StageKey, number>;
@@ -65,7 +71,8 @@ export interface Traveller {
  * t.materials[0].sheets[0].drawing // one sheet to scale, for toSvg or the PDF
  */
 export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings): Traveller {
-  const materialName = (id: string) => book.sheetGoods.find((s) => s.id === id)?.name ?? book.lumber.find((l) => l.id === id)?.name ?? id;
+  const materialName = (id: string) =>
+    book.sheetGoods.find((s) => s.id === id)?.name ?? book.lumber.find((l) => l.id === id)?.name ?? id;
   const pieces = e.pieces.map((p) => ({
     title: designs[p.spec.design].name,
     quantity: p.quantity,
@@ -78,7 +85,12 @@ export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings):
       widthMm: part.widthMm,
       thicknessMm: part.thicknessMm,
       grain: part.grain,
-      banding: [part.bandedEdges.long ? `${part.bandedEdges.long} long` : '', part.bandedEdges.short ? `${part.bandedEdges.short} short` : ''].filter(Boolean).join(', '),
+      banding: [
+        part.bandedEdges.long ? `${part.bandedEdges.long} long` : '',
+        part.bandedEdges.short ? `${part.bandedEdges.short} short` : '',
+      ]
+        .filter(Boolean)
+        .join(', '),
     })),
   }));
   const materials = e.layouts.map((l) => ({
@@ -89,7 +101,10 @@ export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings):
     sheets: l.sheets.map((s, i) => ({
       number: i + 1,
       yieldRatio: s.yieldRatio,
-      drawing: sheetLayoutDrawing(s, l.parts, { title: `${l.materialName}: sheet ${i + 1} of ${l.sheetCount}`, unit: settings.units }),
+      drawing: sheetLayoutDrawing(s, l.parts, {
+        title: `${l.materialName}: sheet ${i + 1} of ${l.sheetCount}`,
+        unit: settings.units,
+      }),
       cuts: s.cuts,
     })),
   }));
@@ -108,12 +123,17 @@ export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings):
       banding.set(part.bandingId, (banding.get(part.bandingId) ?? 0) + m);
     }
   }
-  const pieceCautions = [...new Set(e.checks.filter((c) => c.level === 'caution' || c.level === 'warning').map((c) => c.message))];
+  const pieceCautions = [
+    ...new Set(e.checks.filter((c) => c.level === 'caution' || c.level === 'warning').map((c) => c.message)),
+  ];
   return {
     pieces,
     materials,
     pickList: [...picks.values()].sort((a, b) => a.kind.localeCompare(b.kind) || a.name.localeCompare(b.name)),
-    bandingMetres: [...banding].map(([id, metres]) => ({ name: book.edgeBanding.find((b) => b.id === id)?.name ?? id, metres: Math.round(metres * 100) / 100 })),
+    bandingMetres: [...banding].map(([id, metres]) => ({
+      name: book.edgeBanding.find((b) => b.id === id)?.name ?? id,
+      metres: Math.round(metres * 100) / 100,
+    })),
     hoursByStage: e.hoursByStage,
     totalHours: e.totalHours,
     massKg: e.massKg,

@@ -33,8 +33,14 @@ export class LengthParseError extends Error {
 const NUM = String.raw`(?:\d+(?:\.\d+)?|\.\d+)`;
 const FRAC = String.raw`\d+\s*/\s*\d+`;
 const AMOUNT = String.raw`(?:${NUM}(?:\s*-\s*|\s+)${FRAC}|${FRAC}|${NUM})`;
-const FEET_INCHES = new RegExp(String.raw`^(${AMOUNT})\s*(?:'|ft|feet|foot)\s*(?:(${AMOUNT})\s*(?:"|''|in|inch|inches)?)?$`, 'i');
-const WITH_UNIT = new RegExp(String.raw`^(${AMOUNT})\s*("|''|in|inch|inches|mm|millimet(?:er|re)s?|cm|centimet(?:er|re)s?|m|met(?:er|re)s?)?$`, 'i');
+const FEET_INCHES = new RegExp(
+  String.raw`^(${AMOUNT})\s*(?:'|ft|feet|foot)\s*(?:(${AMOUNT})\s*(?:"|''|in|inch|inches)?)?$`,
+  'i',
+);
+const WITH_UNIT = new RegExp(
+  String.raw`^(${AMOUNT})\s*("|''|in|inch|inches|mm|millimet(?:er|re)s?|cm|centimet(?:er|re)s?|m|met(?:er|re)s?)?$`,
+  'i',
+);
 
 function amount(text: string, input: string): number {
   const t = text.trim();
@@ -63,7 +69,10 @@ function fraction(n: number, d: number, input: string): number {
  */
 export function parseLength(text: string, defaultUnit: LengthUnit): number {
   const input = String(text ?? '');
-  const t = input.trim().replace(/[\u2032\u2019]/g, "'").replace(/[\u2033\u201d]/g, '"');
+  const t = input
+    .trim()
+    .replace(/[\u2032\u2019]/g, "'")
+    .replace(/[\u2033\u201d]/g, '"');
   if (!t) throw new LengthParseError(input, 'it is empty');
   if (t.startsWith('-')) throw new LengthParseError(input, 'a length cannot be negative');
   const fi = FEET_INCHES.exec(t);
@@ -72,7 +81,11 @@ export function parseLength(text: string, defaultUnit: LengthUnit): number {
     mm = toMm(amount(fi[1], input) * 12 + (fi[2] ? amount(fi[2], input) : 0));
   } else {
     const m = WITH_UNIT.exec(t);
-    if (!m) throw new LengthParseError(input, 'write a number with an optional unit, e.g. 23 3/4", 1\' 11 3/4", 603 mm or 60.3 cm');
+    if (!m)
+      throw new LengthParseError(
+        input,
+        'write a number with an optional unit, e.g. 23 3/4", 1\' 11 3/4", 603 mm or 60.3 cm',
+      );
     const value = amount(m[1], input);
     const unit = (m[2] ?? '').toLowerCase();
     if (unit === '') mm = defaultUnit === 'in' ? toMm(value) : value;

@@ -40,11 +40,20 @@ export function validateLayout(
       count.set(p.partId, (count.get(p.partId) ?? 0) + 1);
       const expected = p.rotated ? [part.widthMm, part.lengthMm] : [part.lengthMm, part.widthMm];
       if (Math.abs(p.lengthMm - expected[0]) > EPS || Math.abs(p.widthMm - expected[1]) > EPS) {
-        errors.push(`${label}: part "${p.partId}" is placed as ${p.lengthMm} x ${p.widthMm} mm, not ${expected[0]} x ${expected[1]} mm`);
+        errors.push(
+          `${label}: part "${p.partId}" is placed as ${p.lengthMm} x ${p.widthMm} mm, not ${expected[0]} x ${expected[1]} mm`,
+        );
       }
       if (p.rotated && !part.canRotate) errors.push(`${label}: part "${p.partId}" is grain-bound but placed rotated`);
-      if (p.xMm < t - EPS || p.yMm < t - EPS || p.xMm + p.lengthMm > sheet.lengthMm - t + EPS || p.yMm + p.widthMm > sheet.widthMm - t + EPS) {
-        errors.push(`${label}: part "${p.partId}" at (${p.xMm}, ${p.yMm}) lies outside the sheet less its ${t} mm trim`);
+      if (
+        p.xMm < t - EPS ||
+        p.yMm < t - EPS ||
+        p.xMm + p.lengthMm > sheet.lengthMm - t + EPS ||
+        p.yMm + p.widthMm > sheet.widthMm - t + EPS
+      ) {
+        errors.push(
+          `${label}: part "${p.partId}" at (${p.xMm}, ${p.yMm}) lies outside the sheet less its ${t} mm trim`,
+        );
       }
     }
     const ps = s.placements;
@@ -56,7 +65,10 @@ export function validateLayout(
         const gapY = Math.max(b.yMm - (a.yMm + a.widthMm), a.yMm - (b.yMm + b.widthMm));
         const gap = Math.max(gapX, gapY);
         if (gap < -EPS) errors.push(`${label}: parts "${a.partId}" and "${b.partId}" overlap`);
-        else if (gap < kerf - EPS) errors.push(`${label}: parts "${a.partId}" and "${b.partId}" are ${round(gap)} mm apart, less than the ${kerf} mm kerf`);
+        else if (gap < kerf - EPS)
+          errors.push(
+            `${label}: parts "${a.partId}" and "${b.partId}" are ${round(gap)} mm apart, less than the ${kerf} mm kerf`,
+          );
       }
     }
     if (!errors.some((e) => e.startsWith(`${label}:`)) && !separable(ps, kerf)) {

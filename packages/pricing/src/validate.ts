@@ -10,7 +10,11 @@ import type { PriceBook, ShopSettings } from './price-book';
  *
  * @example validateSpec(designs.bookcase.defaults, demoPriceBook, demoSettings).ok // true
  */
-export function validateSpec(input: unknown, book: PriceBook, settings: ShopSettings): { ok: true; spec: BuildSpec } | { ok: false; issues: SpecIssue[] } {
+export function validateSpec(
+  input: unknown,
+  book: PriceBook,
+  settings: ShopSettings,
+): { ok: true; spec: BuildSpec } | { ok: false; issues: SpecIssue[] } {
   const parsed = parseSpec(input);
   if (!parsed.ok) return parsed;
   try {

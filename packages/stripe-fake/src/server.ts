@@ -69,33 +69,62 @@ export function signPayload(payload: string, secret: string, timestamp = now()):
 
 function int(v: unknown, param: string, { min = 0 }: { min?: number } = {}): number {
   const n = typeof v === 'number' ? v : typeof v === 'string' && /^-?\d+$/.test(v) ? Number(v) : NaN;
-  if (!Number.isInteger(n) || n < min) throw new StripeError(400, 'invalid_request_error', `Invalid integer: ${String(v)}`, 'parameter_invalid_integer', param);
+  if (!Number.isInteger(n) || n < min)
+    throw new StripeError(
+      400,
+      'invalid_request_error',
+      `Invalid integer: ${String(v)}`,
+      'parameter_invalid_integer',
+      param,
+    );
   return n;
 }
 
 function str(v: unknown, param: string, required = true): string | null {
   if (v === undefined || v === '') {
-    if (required) throw new StripeError(400, 'invalid_request_error', `Missing required param: ${param}.`, 'parameter_missing', param);
+    if (required)
+      throw new StripeError(
+        400,
+        'invalid_request_error',
+        `Missing required param: ${param}.`,
+        'parameter_missing',
+        param,
+      );
     return null;
   }
-  if (typeof v !== 'string') throw new StripeError(400, 'invalid_request_error', `Invalid string: ${param}`, 'parameter_invalid_string', param);
+  if (typeof v !== 'string')
+    throw new StripeError(400, 'invalid_request_error', `Invalid string: ${param}`, 'parameter_invalid_string', param);
   return v;
 }
 
 function metadataOf(v: unknown): Record<string, string> {
   if (v === undefined || v === '') return {};
-  if (typeof v !== 'object' || v === null || Array.isArray(v)) throw new StripeError(400, 'invalid_request_error', 'Invalid object: metadata', 'parameter_invalid_object', 'metadata');
+  if (typeof v !== 'object' || v === null || Array.isArray(v))
+    throw new StripeError(
+      400,
+      'invalid_request_error',
+      'Invalid object: metadata',
+      'parameter_invalid_object',
+      'metadata',
+    );
   return Object.fromEntries(Object.entries(v as Obj).map(([k, x]) => [k, String(x)]));
 }
 
 function listOf(v: unknown): Obj[] {
   if (Array.isArray(v)) return v as Obj[];
-  if (v && typeof v === 'object') return Object.keys(v as Obj).sort((a, b) => Number(a) - Number(b)).map((k) => (v as Obj)[k] as Obj);
+  if (v && typeof v === 'object')
+    return Object.keys(v as Obj)
+      .sort((a, b) => Number(a) - Number(b))
+      .map((k) => (v as Obj)[k] as Obj);
   return [];
 }
 
 function esc(s: unknown): string {
-  return String(s ?? '').replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+  return String(s ?? '')
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;');
 }
 
 function money(cents: number, currency: string): string {
@@ -103,7 +132,10 @@ function money(cents: number, currency: string): string {
 }
 
 export function createStripeFake(opts: FakeOptions) {
-  const state: State = opts.stateFile && existsSync(opts.stateFile) ? JSON.parse(readFileSync(opts.stateFile, 'utf8')) : { sessions: {}, paymentIntents: {}, charges: {}, refunds: {}, events: [], idempotency: {} };
+  const state: State =
+    opts.stateFile && existsSync(opts.stateFile)
+      ? JSON.parse(readFileSync(opts.stateFile, 'utf8'))
+      : { sessions: {}, paymentIntents: {}, charges: {}, refunds: {}, events: [], idempotency: {} };
   const retryBase = opts.retryBaseMs ?? 1000;
   const maxAttempts = opts.maxAttempts ?? 8;
   const timers = new Set<NodeJS.Timeout>();
@@ -118,23 +150,44 @@ export function createStripeFake(opts: FakeOptions) {
 
   function deliver(event: Obj, attempt = 1): void {
     const payload = JSON.stringify(event, null, 2);
-    fetch(opts.webhookUrl, { method: 'POST', headers: { 'Content-Type': 'application/json', 'Stripe-Signature': signPayload(payload, opts.webhookSecret), 'User-Agent': 'Stripe/1.0 (+local stand-in)' }, body: payload })
+    fetch(opts.webhookUrl, {
+      method: 'POST',
+      headers: {
+        'Content-Type': 'application/json',
+        'Stripe-Signature': signPayload(payload, opts.webhookSecret),
+        'User-Agent': 'Stripe/1.0 (+local stand-in)',
+      },
+      body: payload,
+    })
       .then((r) => {
         if (!r.ok) throw new Error(`status ${r.status}`);
       })
       .catch(() => {
         if (attempt >= maxAttempts) return;
-        const t = setTimeout(() => {
-          timers.delete(t);
-          deliver(event, attempt + 1);
-        }, retryBase * 2 ** (attempt - 1));
+        const t = setTimeout(
+          () => {
+            timers.delete(t);
+            deliver(event, attempt + 1);
+          },
+          retryBase * 2 ** (attempt - 1),
+        );
         t.unref();
         timers.add(t);
       });
   }
 
   function emit(type: string, object: Obj): Obj {
-    const event = { id: newId('evt_'), object: 'event', api_version: API_VERSION, created: now(), data: { object: structuredClone(object) }, livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, type };
+    const event = {
+      id: newId('evt_'),
+      object: 'event',
+      api_version: API_VERSION,
+      created: now(),
+      data: { object: structuredClone(object) },
+      livemode: false,
+      pending_webhooks: 1,
+      request: { id: null, idempotency_key: null },
+      type,
+    };
     state.events.push(event);
     deliver(event);
     return event;
@@ -142,7 +195,14 @@ export function createStripeFake(opts: FakeOptions) {
 
   function session(id: string): Obj {
     const s = state.sessions[id];
-    if (!s) throw new StripeError(404, 'invalid_request_error', `No such checkout.session: '${id}'`, 'resource_missing', 'id');
+    if (!s)
+      throw new StripeError(
+        404,
+        'invalid_request_error',
+        `No such checkout.session: '${id}'`,
+        'resource_missing',
+        'id',
+      );
     expireIfDue(s);
     return s;
   }
@@ -161,14 +221,35 @@ export function createStripeFake(opts: FakeOptions) {
   sweep.unref();
 
   function createSession(body: Obj): Obj {
-    if (body.mode !== 'payment') throw new StripeError(400, 'invalid_request_error', 'This stand-in supports mode=payment only.', 'parameter_invalid_string', 'mode');
+    if (body.mode !== 'payment')
+      throw new StripeError(
+        400,
+        'invalid_request_error',
+        'This stand-in supports mode=payment only.',
+        'parameter_invalid_string',
+        'mode',
+      );
     const items = listOf(body.line_items);
-    if (!items.length) throw new StripeError(400, 'invalid_request_error', 'Missing required param: line_items.', 'parameter_missing', 'line_items');
+    if (!items.length)
+      throw new StripeError(
+        400,
+        'invalid_request_error',
+        'Missing required param: line_items.',
+        'parameter_missing',
+        'line_items',
+      );
     let total = 0;
     let currency = '';
     const lines = items.map((li, i) => {
       const pd = li.price_data as Obj | undefined;
-      if (!pd) throw new StripeError(400, 'invalid_request_error', `Missing required param: line_items[${i}][price_data].`, 'parameter_missing', `line_items[${i}][price_data]`);
+      if (!pd)
+        throw new StripeError(
+          400,
+          'invalid_request_error',
+          `Missing required param: line_items[${i}][price_data].`,
+          'parameter_missing',
+          `line_items[${i}][price_data]`,
+        );
       const amount = int(pd.unit_amount, `line_items[${i}][price_data][unit_amount]`);
       const quantity = int(li.quantity ?? '1', `line_items[${i}][quantity]`, { min: 1 });
       currency = String(str(pd.currency, `line_items[${i}][price_data][currency]`)).toLowerCase();
@@ -178,7 +259,14 @@ export function createStripeFake(opts: FakeOptions) {
     });
     const success = str(body.success_url, 'success_url')!;
     const expiresAt = body.expires_at !== undefined ? int(body.expires_at, 'expires_at') : now() + 24 * 3600;
-    if (expiresAt < now() + 30 * 60 - 5 || expiresAt > now() + 24 * 3600 + 5) throw new StripeError(400, 'invalid_request_error', 'The `expires_at` timestamp must be between 30 minutes and 24 hours from now.', 'parameter_invalid_integer', 'expires_at');
+    if (expiresAt < now() + 30 * 60 - 5 || expiresAt > now() + 24 * 3600 + 5)
+      throw new StripeError(
+        400,
+        'invalid_request_error',
+        'The `expires_at` timestamp must be between 30 minutes and 24 hours from now.',
+        'parameter_invalid_integer',
+        'expires_at',
+      );
     const id = newId('cs_test_');
     const pid = body.payment_intent_data as Obj | undefined;
     const s: Obj = {
@@ -208,8 +296,32 @@ export function createStripeFake(opts: FakeOptions) {
   }
 
   function pay(s: Obj): Obj {
-    const pi: Obj = { id: newId('pi_test_'), object: 'payment_intent', amount: s.amount_total, amount_received: s.amount_total, currency: s.currency, status: 'succeeded', metadata: s._pi_metadata, created: now(), livemode: false, latest_charge: null };
-    const ch: Obj = { id: newId('ch_test_'), object: 'charge', amount: s.amount_total, amount_refunded: 0, refunded: false, currency: s.currency, payment_intent: pi.id, status: 'succeeded', paid: true, metadata: s._pi_metadata, created: now(), livemode: false };
+    const pi: Obj = {
+      id: newId('pi_test_'),
+      object: 'payment_intent',
+      amount: s.amount_total,
+      amount_received: s.amount_total,
+      currency: s.currency,
+      status: 'succeeded',
+      metadata: s._pi_metadata,
+      created: now(),
+      livemode: false,
+      latest_charge: null,
+    };
+    const ch: Obj = {
+      id: newId('ch_test_'),
+      object: 'charge',
+      amount: s.amount_total,
+      amount_refunded: 0,
+      refunded: false,
+      currency: s.currency,
+      payment_intent: pi.id,
+      status: 'succeeded',
+      paid: true,
+      metadata: s._pi_metadata,
+      created: now(),
+      livemode: false,
+    };
     pi.latest_charge = ch.id;
     state.paymentIntents[pi.id as string] = pi;
     state.charges[ch.id as string] = ch;
@@ -225,13 +337,43 @@ export function createStripeFake(opts: FakeOptions) {
   function refund(body: Obj): Obj {
     const piId = str(body.payment_intent, 'payment_intent')!;
     const pi = state.paymentIntents[piId];
-    if (!pi) throw new StripeError(404, 'invalid_request_error', `No such payment_intent: '${piId}'`, 'resource_missing', 'payment_intent');
+    if (!pi)
+      throw new StripeError(
+        404,
+        'invalid_request_error',
+        `No such payment_intent: '${piId}'`,
+        'resource_missing',
+        'payment_intent',
+      );
     const ch = state.charges[pi.latest_charge as string];
     const left = (ch.amount as number) - (ch.amount_refunded as number);
     const amount = body.amount !== undefined ? int(body.amount, 'amount', { min: 1 }) : left;
-    if (left <= 0) throw new StripeError(400, 'invalid_request_error', `Charge ${ch.id} has already been refunded.`, 'charge_already_refunded');
-    if (amount > left) throw new StripeError(400, 'invalid_request_error', `Refund amount (${money(amount, ch.currency as string)}) is greater than unrefunded amount on charge (${money(left, ch.currency as string)})`, 'amount_too_large', 'amount');
-    const re: Obj = { id: newId('re_test_'), object: 'refund', amount, charge: ch.id, payment_intent: pi.id, currency: ch.currency, status: 'succeeded', metadata: metadataOf(body.metadata), created: now() };
+    if (left <= 0)
+      throw new StripeError(
+        400,
+        'invalid_request_error',
+        `Charge ${ch.id} has already been refunded.`,
+        'charge_already_refunded',
+      );
+    if (amount > left)
+      throw new StripeError(
+        400,
+        'invalid_request_error',
+        `Refund amount (${money(amount, ch.currency as string)}) is greater than unrefunded amount on charge (${money(left, ch.currency as string)})`,
+        'amount_too_large',
+        'amount',
+      );
+    const re: Obj = {
+      id: newId('re_test_'),
+      object: 'refund',
+      amount,
+      charge: ch.id,
+      payment_intent: pi.id,
+      currency: ch.currency,
+      status: 'succeeded',
+      metadata: metadataOf(body.metadata),
+      created: now(),
+    };
     state.refunds[re.id as string] = re;
     ch.amount_refunded = (ch.amount_refunded as number) + amount;
     ch.refunded = ch.amount_refunded === ch.amount;
@@ -250,13 +392,21 @@ export function createStripeFake(opts: FakeOptions) {
   // the hosted test checkout page
   app.get('/pay/:id', (req, res) => {
     const s = state.sessions[req.params.id];
-    if (!s) return void res.status(404).type('html').send(page('Payment not found', '<p>This payment link is not known.</p>'));
+    if (!s)
+      return void res
+        .status(404)
+        .type('html')
+        .send(page('Payment not found', '<p>This payment link is not known.</p>'));
     expireIfDue(s);
     res.type('html').send(payPage(s));
   });
   app.post('/pay/:id', (req, res) => {
     const s = state.sessions[req.params.id];
-    if (!s) return void res.status(404).type('html').send(page('Payment not found', '<p>This payment link is not known.</p>'));
+    if (!s)
+      return void res
+        .status(404)
+        .type('html')
+        .send(page('Payment not found', '<p>This payment link is not known.</p>'));
     expireIfDue(s);
     if (s.status !== 'open') return void res.status(409).type('html').send(payPage(s));
     const body = req.body as Obj;
@@ -269,10 +419,17 @@ export function createStripeFake(opts: FakeOptions) {
     else if (new Date(2000 + Number(exp[2]), Number(exp[1])) <= new Date()) problems.push('The card has expired.');
     if (!/^\d{3,4}$/.test(cvc)) problems.push('Enter the 3 or 4 digit security code.');
     if (!String(body.name ?? '').trim()) problems.push('Enter the name on the card.');
-    if (problems.length) return void res.status(400).type('html').send(payPage(s, problems.join(' ')));
+    if (problems.length)
+      return void res
+        .status(400)
+        .type('html')
+        .send(payPage(s, problems.join(' ')));
     if (card !== '4242424242424242') {
       // 4000 0000 0000 0002 and any other number: declined, no event, the session stays open
-      return void res.status(402).type('html').send(payPage(s, 'Your card was declined. No payment was taken; try another card.'));
+      return void res
+        .status(402)
+        .type('html')
+        .send(payPage(s, 'Your card was declined. No payment was taken; try another card.'));
     }
     pay(s);
     res.redirect(303, String(s.success_url).replace('{CHECKOUT_SESSION_ID}', String(s.id)));
@@ -284,7 +441,17 @@ export function createStripeFake(opts: FakeOptions) {
   });
   app.post('/__fake/events/:id/resend', (req, res) => {
     const e = state.events.find((x) => x.id === req.params.id);
-    if (!e) return void res.status(404).json({ error: { type: 'invalid_request_error', code: 'resource_missing', message: `No such event: '${req.params.id}'`, param: 'id' } });
+    if (!e)
+      return void res
+        .status(404)
+        .json({
+          error: {
+            type: 'invalid_request_error',
+            code: 'resource_missing',
+            message: `No such event: '${req.params.id}'`,
+            param: 'id',
+          },
+        });
     deliver(e);
     res.json(e);
   });
@@ -294,16 +461,31 @@ export function createStripeFake(opts: FakeOptions) {
   v1.use((req, _res, next) => {
     const auth = req.headers.authorization ?? '';
     const key = /^Bearer (sk_test_\w+)$/.exec(auth)?.[1];
-    if (!key) throw new StripeError(401, 'invalid_request_error', auth ? 'Invalid API Key provided.' : 'You did not provide an API key. Provide your API key in the Authorization header, using Bearer auth.', 'api_key_invalid');
+    if (!key)
+      throw new StripeError(
+        401,
+        'invalid_request_error',
+        auth
+          ? 'Invalid API Key provided.'
+          : 'You did not provide an API key. Provide your API key in the Authorization header, using Bearer auth.',
+        'api_key_invalid',
+      );
     next();
   });
   const idempotent = (handler: (req: Request) => { status?: number; body: Obj }) => (req: Request, res: Response) => {
     const key = req.headers['idempotency-key'];
-    const fingerprint = createHash('sha256').update(`${req.method} ${req.path} ${JSON.stringify(req.body ?? {})}`).digest('hex');
+    const fingerprint = createHash('sha256')
+      .update(`${req.method} ${req.path} ${JSON.stringify(req.body ?? {})}`)
+      .digest('hex');
     if (typeof key === 'string' && key) {
       const seen = state.idempotency[key];
       if (seen) {
-        if (seen.fingerprint !== fingerprint) throw new StripeError(400, 'idempotency_error', `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`);
+        if (seen.fingerprint !== fingerprint)
+          throw new StripeError(
+            400,
+            'idempotency_error',
+            `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`,
+          );
         res.setHeader('Idempotent-Replayed', 'true');
         return void res.status(seen.status).json(seen.body);
       }
@@ -314,7 +496,10 @@ export function createStripeFake(opts: FakeOptions) {
     save();
     res.status(status).json(out.body);
   };
-  v1.post('/checkout/sessions', idempotent((req) => ({ body: publicView(createSession(req.body as Obj)) })));
+  v1.post(
+    '/checkout/sessions',
+    idempotent((req) => ({ body: publicView(createSession(req.body as Obj)) })),
+  );
   v1.get('/checkout/sessions/:id', (req, res) => {
     res.json(publicView(session(req.params.id)));
   });
@@ -322,7 +507,13 @@ export function createStripeFake(opts: FakeOptions) {
     '/checkout/sessions/:id/expire',
     idempotent((req) => {
       const s = session(String(req.params.id));
-      if (s.status !== 'open') throw new StripeError(400, 'invalid_request_error', `Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${s.status}".`, 'checkout_session_not_open');
+      if (s.status !== 'open')
+        throw new StripeError(
+          400,
+          'invalid_request_error',
+          `Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${s.status}".`,
+          'checkout_session_not_open',
+        );
       s.status = 'expired';
       emit('checkout.session.expired', s);
       return { body: publicView(s) };
@@ -330,19 +521,41 @@ export function createStripeFake(opts: FakeOptions) {
   );
   v1.get('/payment_intents/:id', (req, res) => {
     const pi = state.paymentIntents[req.params.id];
-    if (!pi) throw new StripeError(404, 'invalid_request_error', `No such payment_intent: '${req.params.id}'`, 'resource_missing', 'id');
+    if (!pi)
+      throw new StripeError(
+        404,
+        'invalid_request_error',
+        `No such payment_intent: '${req.params.id}'`,
+        'resource_missing',
+        'id',
+      );
     res.json(pi);
   });
-  v1.post('/refunds', idempotent((req) => ({ body: refund(req.body as Obj) })));
+  v1.post(
+    '/refunds',
+    idempotent((req) => ({ body: refund(req.body as Obj) })),
+  );
   v1.get('/refunds/:id', (req, res) => {
     const re = state.refunds[req.params.id];
-    if (!re) throw new StripeError(404, 'invalid_request_error', `No such refund: '${req.params.id}'`, 'resource_missing', 'id');
+    if (!re)
+      throw new StripeError(
+        404,
+        'invalid_request_error',
+        `No such refund: '${req.params.id}'`,
+        'resource_missing',
+        'id',
+      );
     res.json(re);
   });
   app.use('/v1', v1);
-  app.use((req, _res, next) => next(new StripeError(404, 'invalid_request_error', `Unrecognized request URL (${req.method}: ${req.path}).`)));
+  app.use((req, _res, next) =>
+    next(new StripeError(404, 'invalid_request_error', `Unrecognized request URL (${req.method}: ${req.path}).`)),
+  );
   app.use((err: unknown, _req: Request, res: Response, _next: NextFunction) => {
-    const e = err instanceof StripeError ? err : new StripeError(400, 'invalid_request_error', 'The request could not be read.');
+    const e =
+      err instanceof StripeError
+        ? err
+        : new StripeError(400, 'invalid_request_error', 'The request could not be read.');
     res.status(e.status).json({ error: { type: e.type, code: e.code, message: e.message, param: e.param } });
   });
 
@@ -366,10 +579,13 @@ h1{font-size:20px;margin:0 0 6px}.amount{font-size:30px;font-weight:700;margin:8
 }
 
 function payPage(s: Obj, problem?: string): string {
-  const lines = (s._lines as { description: string; quantity: number }[]).map((l) => `<li>${esc(l.description)}${l.quantity > 1 ? ` x ${l.quantity}` : ''}</li>`).join('');
+  const lines = (s._lines as { description: string; quantity: number }[])
+    .map((l) => `<li>${esc(l.description)}${l.quantity > 1 ? ` x ${l.quantity}` : ''}</li>`)
+    .join('');
   const head = `<p class="note">Test payment page (local Stripe stand-in)</p><h1>Pay ${esc(s.customer_email ? `as ${s.customer_email}` : '')}</h1><div class="amount">${esc(money(s.amount_total as number, s.currency as string))}</div><ul>${lines}</ul>`;
   if (s.status === 'complete') return page('Paid', `${head}<p>This payment is complete. Thank you.</p>`);
-  if (s.status === 'expired') return page('Expired', `${head}<p>This payment link has expired. Ask for a new one from the portal.</p>`);
+  if (s.status === 'expired')
+    return page('Expired', `${head}<p>This payment link has expired. Ask for a new one from the portal.</p>`);
   return page(
     'Pay',
     `${head}${problem ? `<div class="problem" role="alert">${esc(problem)}</div>` : ''}<form method="post" action="/pay/${esc(s.id)}">

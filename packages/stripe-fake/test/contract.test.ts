@@ -40,7 +40,13 @@ async function start(file = stateFile) {
   server = createServer();
   const port = await listen(server);
   base = `http://127.0.0.1:${port}`;
-  fake = createStripeFake({ stateFile: file, baseUrl: base, webhookUrl: `http://127.0.0.1:${hookPort}/hook`, webhookSecret: SECRET, retryBaseMs: 50 });
+  fake = createStripeFake({
+    stateFile: file,
+    baseUrl: base,
+    webhookUrl: `http://127.0.0.1:${hookPort}/hook`,
+    webhookSecret: SECRET,
+    retryBaseMs: 50,
+  });
   server.on('request', fake.app);
   stripe = new Stripe('sk_test_contract', { host: '127.0.0.1', port, protocol: 'http', maxNetworkRetries: 0 });
 }
@@ -59,9 +65,20 @@ beforeEach(async () => {
 });
 afterEach(stop);
 
-const sessionParams = (over: Partial<Stripe.Checkout.SessionCreateParams> = {}): Stripe.Checkout.SessionCreateParams => ({
+const sessionParams = (
+  over: Partial<Stripe.Checkout.SessionCreateParams> = {},
+): Stripe.Checkout.SessionCreateParams => ({
   mode: 'payment',
-  line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 163678, product_data: { name: 'Deposit: assembly bench, revision 1' } } }],
+  line_items: [
+    {
+      quantity: 1,
+      price_data: {
+        currency: 'usd',
+        unit_amount: 163678,
+        product_data: { name: 'Deposit: assembly bench, revision 1' },
+      },
+    },
+  ],
   customer_email: 'priya@example.com',
   client_reference_id: 'project-1',
   metadata: { projectId: 'project-1', estimateId: 'est-1', kind: 'deposit' },
@@ -72,29 +89,56 @@ const sessionParams = (over: Partial<Stripe.Checkout.SessionCreateParams> = {}):
 });
 
 async function payForm(url: string, card: string) {
-  return fetch(url, { method: 'POST', redirect: 'manual', headers: { 'Content-Type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card_number: card, exp: '12/34', cvc: '123', name: 'Priya Natarajan' }) });
+  return fetch(url, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: { 'Content-Type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ card_number: card, exp: '12/34', cvc: '123', name: 'Priya Natarajan' }),
+  });
 }
 
 async function eventsOf(type: string, n = 1) {
-  for (let i = 0; i < 100 && received.filter((r) => JSON.parse(r.body).type === type).length < n; i++) await new Promise((r) => setTimeout(r, 20));
+  for (let i = 0; i < 100 && received.filter((r) => JSON.parse(r.body).type === type).length < n; i++)
+    await new Promise((r) => setTimeout(r, 20));
   return received.filter((r) => JSON.parse(r.body).type === type);
 }
 
 describe('secret-key auth', () => {
-  it('answers 401 with Stripe\'s error object without a test key', async () => {
-    const bad = new Stripe('sk_live_nope', { host: '127.0.0.1', port: Number(new URL(base).port), protocol: 'http', maxNetworkRetries: 0 });
-    await expect(bad.checkout.sessions.create(sessionParams())).rejects.toMatchObject({ type: 'StripeAuthenticationError', statusCode: 401 });
+  it("answers 401 with Stripe's error object without a test key", async () => {
+    const bad = new Stripe('sk_live_nope', {
+      host: '127.0.0.1',
+      port: Number(new URL(base).port),
+      protocol: 'http',
+      maxNetworkRetries: 0,
+    });
+    await expect(bad.checkout.sessions.create(sessionParams())).rejects.toMatchObject({
+      type: 'StripeAuthenticationError',
+      statusCode: 401,
+    });
     const raw = await fetch(`${base}/v1/checkout/sessions/cs_test_x`);
     expect(raw.status).toBe(401);
-    expect(((await raw.json()) as { error: unknown }).error).toMatchObject({ type: 'invalid_request_error', code: 'api_key_invalid' });
+    expect(((await raw.json()) as { error: unknown }).error).toMatchObject({
+      type: 'invalid_request_error',
+      code: 'api_key_invalid',
+    });
   });
 });
 
 describe('POST /v1/checkout/sessions', () => {
-  it('creates an open session with Stripe\'s shape, prefix and hosted page', async () => {
+  it("creates an open session with Stripe's shape, prefix and hosted page", async () => {
     const s = await stripe.checkout.sessions.create(sessionParams());
     expect(s.id).toMatch(/^cs_test_[A-Za-z0-9]+$/);
-    expect(s).toMatchObject({ object: 'checkout.session', status: 'open', payment_status: 'unpaid', amount_total: 163678, currency: 'usd', mode: 'payment', metadata: { kind: 'deposit' }, client_reference_id: 'project-1', customer_email: 'priya@example.com' });
+    expect(s).toMatchObject({
+      object: 'checkout.session',
+      status: 'open',
+      payment_status: 'unpaid',
+      amount_total: 163678,
+      currency: 'usd',
+      mode: 'payment',
+      metadata: { kind: 'deposit' },
+      client_reference_id: 'project-1',
+      customer_email: 'priya@example.com',
+    });
     expect(s.url).toBe(`${base}/pay/${s.id}`);
     const page = await (await fetch(s.url!)).text();
     expect(page).toContain('$1,636.78');
@@ -102,13 +146,20 @@ describe('POST /v1/checkout/sessions', () => {
     expect((await stripe.checkout.sessions.retrieve(s.id)).id).toBe(s.id);
   });
   it('refuses missing line items with a parameter error', async () => {
-    await expect(stripe.checkout.sessions.create({ ...sessionParams(), line_items: [] })).rejects.toMatchObject({ type: 'StripeInvalidRequestError', param: 'line_items' });
+    await expect(stripe.checkout.sessions.create({ ...sessionParams(), line_items: [] })).rejects.toMatchObject({
+      type: 'StripeInvalidRequestError',
+      param: 'line_items',
+    });
   });
   it('returns the first response for the same idempotency key and body, and refuses another body', async () => {
     const a = await stripe.checkout.sessions.create(sessionParams(), { idempotencyKey: 'k-1' });
     const b = await stripe.checkout.sessions.create(sessionParams(), { idempotencyKey: 'k-1' });
     expect(b.id).toBe(a.id);
-    await expect(stripe.checkout.sessions.create(sessionParams({ customer_email: 'other@example.com' }), { idempotencyKey: 'k-1' })).rejects.toMatchObject({ type: 'StripeIdempotencyError' });
+    await expect(
+      stripe.checkout.sessions.create(sessionParams({ customer_email: 'other@example.com' }), {
+        idempotencyKey: 'k-1',
+      }),
+    ).rejects.toMatchObject({ type: 'StripeIdempotencyError' });
   });
 });
 
@@ -169,7 +220,9 @@ describe('expiry and refunds', () => {
     const part = await stripe.refunds.create({ payment_intent: pi, amount: 10000 });
     expect(part).toMatchObject({ object: 'refund', amount: 10000, status: 'succeeded' });
     expect(part.id).toMatch(/^re_test_/);
-    await expect(stripe.refunds.create({ payment_intent: pi, amount: 999999 })).rejects.toMatchObject({ param: 'amount' });
+    await expect(stripe.refunds.create({ payment_intent: pi, amount: 999999 })).rejects.toMatchObject({
+      param: 'amount',
+    });
     const rest = await stripe.refunds.create({ payment_intent: pi });
     expect(rest.amount).toBe(153678);
     expect((await stripe.refunds.retrieve(rest.id)).id).toBe(rest.id);

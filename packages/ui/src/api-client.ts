@@ -24,7 +24,12 @@ export async function api<T>(path: string, init: { method?: string; body?: unkno
   const data = await res.json().catch(() => null);
   if (!res.ok) {
     const e = (data as { error?: { code: ErrorCode; message: string; issues?: ApiIssue[] } } | null)?.error;
-    throw new ApiRequestError(res.status, e?.code ?? 'internal', e?.message ?? `The server answered ${res.status}.`, e?.issues ?? []);
+    throw new ApiRequestError(
+      res.status,
+      e?.code ?? 'internal',
+      e?.message ?? `The server answered ${res.status}.`,
+      e?.issues ?? [],
+    );
   }
   return data as T;
 }

@@ -10,7 +10,8 @@ import { api } from './api-client';
 export function useComment(projectId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CommentBody) => api<{ project: Project }>(`/projects/${encodeURIComponent(projectId)}/comments`, { body }),
+    mutationFn: (body: CommentBody) =>
+      api<{ project: Project }>(`/projects/${encodeURIComponent(projectId)}/comments`, { body }),
     onSuccess: (r) => qc.setQueryData(['projects', projectId], r.project),
   });
 }

@@ -1,18 +1,37 @@
-import { forwardRef, useId, useState, type ButtonHTMLAttributes, type InputHTMLAttributes, type ReactNode } from 'react';
+import {
+  forwardRef,
+  useId,
+  useState,
+  type ButtonHTMLAttributes,
+  type InputHTMLAttributes,
+  type ReactNode,
+} from 'react';
 import { formatLength, toSvg, type Drawing as DrawingData, type LengthUnit } from '@benchwright/pricing/geometry';
 
-export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: 'primary' | 'quiet' }) {
+export function Button({
+  variant = 'primary',
+  className = '',
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: 'primary' | 'quiet' }) {
   const look =
     variant === 'primary'
       ? 'bg-wood text-paper hover:bg-wood-dark disabled:opacity-60'
       : 'bg-transparent text-wood underline-offset-4 hover:underline';
-  return <button className={`rounded px-4 py-2 font-semibold focus:outline-2 focus:outline-offset-2 focus:outline-sage ${look} ${className}`} {...props} />;
+  return (
+    <button
+      className={`rounded px-4 py-2 font-semibold focus:outline-2 focus:outline-offset-2 focus:outline-sage ${look} ${className}`}
+      {...props}
+    />
+  );
 }
 
 type FieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; error?: string; hint?: string };
 
 /** A labelled input with its error beside it; keeps what was typed (uncontrolled, for react-hook-form). */
-export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field({ label, error, hint, id, ...props }, ref) {
+export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field(
+  { label, error, hint, id, ...props },
+  ref,
+) {
   const auto = useId();
   const inputId = id ?? auto;
   const errId = `${inputId}-error`;
@@ -40,7 +59,12 @@ export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field({ l
 });
 
 export function Notice({ tone = 'info', children }: { tone?: 'info' | 'error' | 'ok'; children: ReactNode }) {
-  const look = tone === 'error' ? 'border-alert bg-alert-light' : tone === 'ok' ? 'border-sage bg-sage-light' : 'border-rule bg-paper-deep';
+  const look =
+    tone === 'error'
+      ? 'border-alert bg-alert-light'
+      : tone === 'ok'
+        ? 'border-sage bg-sage-light'
+        : 'border-rule bg-paper-deep';
   return (
     <div role={tone === 'error' ? 'alert' : 'status'} className={`mb-4 rounded border-l-4 px-4 py-3 ${look}`}>
       {children}
@@ -71,9 +95,20 @@ export function Length({ mm, unit }: { mm: number; unit: LengthUnit }) {
 }
 
 /** A drawing from the engine, rendered as SVG (the same data the PDF uses). */
-export function Drawing({ drawing, label, maxHeight = '22rem' }: { drawing: DrawingData; label?: string; maxHeight?: string }) {
+export function Drawing({
+  drawing,
+  label,
+  maxHeight = '22rem',
+}: {
+  drawing: DrawingData;
+  label?: string;
+  maxHeight?: string;
+}) {
   // scale to the column's width, but never taller than maxHeight (a tall bookcase stays on screen)
-  const svg = toSvg(drawing).replace(/ width="\d+" height="\d+"/, ` style="display:block;width:100%;height:auto;max-height:${maxHeight}"`);
+  const svg = toSvg(drawing).replace(
+    / width="\d+" height="\d+"/,
+    ` style="display:block;width:100%;height:auto;max-height:${maxHeight}"`,
+  );
   return <figure aria-label={label ?? drawing.title} className="w-full" dangerouslySetInnerHTML={{ __html: svg }} />;
 }
 
@@ -93,7 +128,17 @@ export function TableHead({ columns }: { columns: readonly string[] }) {
 }
 
 /** A comment box: what the client and the owner say to each other about a project (sent by the caller). */
-export function CommentForm({ label, onSend, pending, error }: { label: string; onSend: (message: string, done: () => void) => void; pending: boolean; error?: string | null }) {
+export function CommentForm({
+  label,
+  onSend,
+  pending,
+  error,
+}: {
+  label: string;
+  onSend: (message: string, done: () => void) => void;
+  pending: boolean;
+  error?: string | null;
+}) {
   const [text, setText] = useState('');
   return (
     <form
@@ -105,7 +150,13 @@ export function CommentForm({ label, onSend, pending, error }: { label: string; 
     >
       <label className="mb-2 block">
         <span className="block font-semibold">{label}</span>
-        <textarea className="w-full rounded border border-rule bg-white px-2 py-1" rows={3} maxLength={2000} value={text} onChange={(e) => setText(e.target.value)} />
+        <textarea
+          className="w-full rounded border border-rule bg-white px-2 py-1"
+          rows={3}
+          maxLength={2000}
+          value={text}
+          onChange={(e) => setText(e.target.value)}
+        />
       </label>
       {error ? (
         <p role="alert" className="mb-2 text-sm text-alert">

@@ -1,4 +1,15 @@
-export { Button, CommentForm, Drawing, Field, formatMoney, Length, Money, Notice, Panel, TableHead } from './components';
+export {
+  Button,
+  CommentForm,
+  Drawing,
+  Field,
+  formatMoney,
+  Length,
+  Money,
+  Notice,
+  Panel,
+  TableHead,
+} from './components';
 export { api, ApiRequestError } from './api-client';
 export { applyServerIssues } from './form-errors';
 export { useComment } from './comments';

@@ -15,6 +15,11 @@ export type AppLucia = ReturnType<typeof createLucia>;
 declare module 'lucia' {
   interface Register {
     Lucia: AppLucia;
-    DatabaseUserAttributes: { email: string; name: string; role: 'client' | 'owner' | 'builder'; emailVerifiedAt: number | Date | null };
+    DatabaseUserAttributes: {
+      email: string;
+      name: string;
+      role: 'client' | 'owner' | 'builder';
+      emailVerifiedAt: number | Date | null;
+    };
   }
 }

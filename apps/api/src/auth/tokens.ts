@@ -20,15 +20,34 @@ type Tx = Pick<Db, 'insert' | 'update' | 'select'>;
 /** Issues a token; only its hash is stored. Earlier unused tokens of the kind are spent. */
 export function issueToken(tx: Tx, userId: string, kind: TokenKind, now = Date.now()): string {
   const token = randomBytes(32).toString('base64url');
-  tx.update(tokens).set({ usedAt: new Date(now) }).where(and(eq(tokens.userId, userId), eq(tokens.kind, kind), isNull(tokens.usedAt))).run();
-  tx.insert(tokens).values({ id: randomUUID(), userId, kind, tokenHash: hashToken(token), expiresAt: new Date(now + TOKEN_LIFETIME_MS[kind]) }).run();
+  tx.update(tokens)
+    .set({ usedAt: new Date(now) })
+    .where(and(eq(tokens.userId, userId), eq(tokens.kind, kind), isNull(tokens.usedAt)))
+    .run();
+  tx.insert(tokens)
+    .values({
+      id: randomUUID(),
+      userId,
+      kind,
+      tokenHash: hashToken(token),
+      expiresAt: new Date(now + TOKEN_LIFETIME_MS[kind]),
+    })
+    .run();
   return token;
 }
 
 /** Spends a token once: returns its user id, or null when it is unknown, used or expired. */
 export function consumeToken(tx: Tx, token: string, kind: TokenKind, now = Date.now()): string | null {
-  const row = tx.select().from(tokens).where(and(eq(tokens.tokenHash, hashToken(token)), eq(tokens.kind, kind))).get();
+  const row = tx
+    .select()
+    .from(tokens)
+    .where(and(eq(tokens.tokenHash, hashToken(token)), eq(tokens.kind, kind)))
+    .get();
   if (!row || row.usedAt || row.expiresAt.getTime() < now) return null;
-  const r = tx.update(tokens).set({ usedAt: new Date(now) }).where(and(eq(tokens.id, row.id), isNull(tokens.usedAt))).run();
+  const r = tx
+    .update(tokens)
+    .set({ usedAt: new Date(now) })
+    .where(and(eq(tokens.id, row.id), isNull(tokens.usedAt)))
+    .run();
   return r.changes === 1 ? row.userId : null;
 }

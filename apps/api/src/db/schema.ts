@@ -60,7 +60,20 @@ export const priceBooks = sqliteTable('price_books', {
   updatedAt: createdAt(),
 });
 
-export const PROJECT_STATUS = ['requested', 'estimating', 'estimate_sent', 'accepted', 'deposit_paid', 'in_production', 'ready', 'delivered', 'closed', 'declined', 'expired', 'cancelled'] as const;
+export const PROJECT_STATUS = [
+  'requested',
+  'estimating',
+  'estimate_sent',
+  'accepted',
+  'deposit_paid',
+  'in_production',
+  'ready',
+  'delivered',
+  'closed',
+  'declined',
+  'expired',
+  'cancelled',
+] as const;
 
 export const projects = sqliteTable(
   'projects',
@@ -110,7 +123,9 @@ export const estimates = sqliteTable(
       .notNull()
       .references(() => projects.id, { onDelete: 'cascade' }),
     revision: integer().notNull(),
-    status: text({ enum: ['draft', 'sent', 'accepted', 'superseded', 'expired'] }).notNull().default('draft'),
+    status: text({ enum: ['draft', 'sent', 'accepted', 'superseded', 'expired'] })
+      .notNull()
+      .default('draft'),
     /** optimistic locking: every edit must name the version it read */
     version: integer().notNull().default(1),
     subtotalCents: integer().notNull().default(0),
@@ -159,7 +174,9 @@ export const payments = sqliteTable('payments', {
     .references(() => projects.id),
   estimateId: text().references(() => estimates.id),
   kind: text({ enum: ['deposit', 'balance'] }).notNull(),
-  status: text({ enum: ['open', 'paid', 'expired', 'refunded', 'partially_refunded'] }).notNull().default('open'),
+  status: text({ enum: ['open', 'paid', 'expired', 'refunded', 'partially_refunded'] })
+    .notNull()
+    .default('open'),
   amountCents: integer().notNull(),
   refundedCents: integer().notNull().default(0),
   attempt: integer().notNull().default(1),
@@ -178,7 +195,9 @@ export const stripeEvents = sqliteTable('stripe_events', {
 });
 
 export const stages = sqliteTable('stages', {
-  key: text({ enum: ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] }).primaryKey(),
+  key: text({
+    enum: ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'],
+  }).primaryKey(),
   label: text().notNull(),
   position: integer().notNull(),
 });
@@ -253,8 +272,13 @@ export const outbox = sqliteTable(
     subject: text().notNull(),
     text: text().notNull(),
     html: text().notNull(),
-    attachments: text({ mode: 'json' }).$type<{ filename: string; path: string; contentType: string }[]>().notNull().default([]),
-    status: text({ enum: ['pending', 'sent'] }).notNull().default('pending'),
+    attachments: text({ mode: 'json' })
+      .$type<{ filename: string; path: string; contentType: string }[]>()
+      .notNull()
+      .default([]),
+    status: text({ enum: ['pending', 'sent'] })
+      .notNull()
+      .default('pending'),
     attempts: integer().notNull().default(0),
     nextAttemptAt: integer({ mode: 'timestamp_ms' }).notNull().default(now),
     lastError: text(),

@@ -14,7 +14,8 @@ interface Services {
 }
 
 const userBy = (db: Db, email: string) => toUser(db.select().from(users).where(eq(users.email, email)).get()!);
-const projectOf = (db: Db, clientId: string) => db.select().from(projects).where(eq(projects.clientId, clientId)).get()!;
+const projectOf = (db: Db, clientId: string) =>
+  db.select().from(projects).where(eq(projects.clientId, clientId)).get()!;
 
 /**
  * The demo's money, through the real services (DESIGN.md section 8):
@@ -40,16 +41,34 @@ export async function seedDemoFlow(db: Db, services: Services, log: Pick<Logger,
   if (p.status === 'requested') {
     const e = services.estimates.createRevision(owner, p.id, 'engine');
     await services.estimates.send(owner, e.id);
-    services.estimates.accept(tomasz, e.id, { acceptedName: 'Tomasz Wierzbicki', ip: '127.0.0.1', userAgent: 'demo seed' });
+    services.estimates.accept(tomasz, e.id, {
+      acceptedName: 'Tomasz Wierzbicki',
+      ip: '127.0.0.1',
+      userAgent: 'demo seed',
+    });
     p = projectOf(db, tomasz.id);
   }
   if (p.status === 'accepted') {
-    const estimateId = db.$client.prepare("select id from estimates where project_id = ? and status = 'accepted'").get(p.id) as { id: string };
+    const estimateId = db.$client
+      .prepare("select id from estimates where project_id = ? and status = 'accepted'")
+      .get(p.id) as { id: string };
     const { url } = await services.payments.depositCheckout(tomasz, estimateId.id);
-    const paid = await fetch(url, { method: 'POST', redirect: 'manual', headers: { 'Content-Type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ card_number: '4242 4242 4242 4242', exp: '12/34', cvc: '123', name: 'Tomasz Wierzbicki' }) });
+    const paid = await fetch(url, {
+      method: 'POST',
+      redirect: 'manual',
+      headers: { 'Content-Type': 'application/x-www-form-urlencoded' },
+      body: new URLSearchParams({
+        card_number: '4242 4242 4242 4242',
+        exp: '12/34',
+        cvc: '123',
+        name: 'Tomasz Wierzbicki',
+      }),
+    });
     if (paid.status !== 303) throw new Error(`the Stripe stand-in did not take the demo payment (${paid.status})`);
-    for (let i = 0; i < 200 && projectOf(db, tomasz.id).status !== 'deposit_paid'; i++) await new Promise((r) => setTimeout(r, 100));
-    if (projectOf(db, tomasz.id).status !== 'deposit_paid') throw new Error("the deposit webhook for Tomasz's bookcase did not arrive");
+    for (let i = 0; i < 200 && projectOf(db, tomasz.id).status !== 'deposit_paid'; i++)
+      await new Promise((r) => setTimeout(r, 100));
+    if (projectOf(db, tomasz.id).status !== 'deposit_paid')
+      throw new Error("the deposit webhook for Tomasz's bookcase did not arrive");
     log.info("demo: Tomasz's deposit paid through the Stripe stand-in");
   }
   const job = db.select().from(jobs).where(eq(jobs.projectId, p.id)).get();

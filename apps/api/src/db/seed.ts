@@ -29,10 +29,22 @@ export const STAGES = [
 export function seedShop(db: Db): void {
   db.transaction((tx) => {
     if (!tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()) {
-      tx.insert(shopSettings).values({ id: 1, shopName: 'Fernhill Joinery', address: '14 Mill Lane, Alder Cross', email: 'shop@fernhill.example', phone: '555-0142', settings: demoSettings }).run();
+      tx.insert(shopSettings)
+        .values({
+          id: 1,
+          shopName: 'Fernhill Joinery',
+          address: '14 Mill Lane, Alder Cross',
+          email: 'shop@fernhill.example',
+          phone: '555-0142',
+          settings: demoSettings,
+        })
+        .run();
     }
-    if (!tx.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()) tx.insert(priceBooks).values({ id: 1, book: demoPriceBook }).run();
-    STAGES.forEach(([key, label], position) => tx.insert(stages).values({ key, label, position }).onConflictDoNothing().run());
+    if (!tx.select().from(priceBooks).where(eq(priceBooks.id, 1)).get())
+      tx.insert(priceBooks).values({ id: 1, book: demoPriceBook }).run();
+    STAGES.forEach(([key, label], position) =>
+      tx.insert(stages).values({ key, label, position }).onConflictDoNothing().run(),
+    );
   });
 }
 
@@ -50,14 +62,32 @@ export async function seedDemo(db: Db): Promise<void> {
       if (found) ids[u.email] = found.id;
       else {
         ids[u.email] = randomUUID();
-        tx.insert(users).values({ id: ids[u.email], email: u.email, name: u.name, role: u.role, passwordHash: hash, emailVerifiedAt: new Date() }).run();
+        tx.insert(users)
+          .values({
+            id: ids[u.email],
+            email: u.email,
+            name: u.name,
+            role: u.role,
+            passwordHash: hash,
+            emailVerifiedAt: new Date(),
+          })
+          .run();
       }
     }
     const bench: BuildSpec = { ...designs['assembly-bench'].defaults };
-    const walnutBookcase: BuildSpec = { ...designs.bookcase.defaults, widthMm: toMm(30), trim: { lumberId: 'walnut-4-4', widthMm: toMm(1.5), thicknessMm: toMm(0.75) } };
+    const walnutBookcase: BuildSpec = {
+      ...designs.bookcase.defaults,
+      widthMm: toMm(30),
+      trim: { lumberId: 'walnut-4-4', widthMm: toMm(1.5), thicknessMm: toMm(0.75) },
+    };
     const wallCabinet: BuildSpec = { ...designs['wall-cabinet'].defaults };
     const requests: [string, string, BuildSpec, number][] = [
-      ['priya@example.com', 'A rolling assembly bench with drawers, about six feet long, for the garage shop.', bench, 1],
+      [
+        'priya@example.com',
+        'A rolling assembly bench with drawers, about six feet long, for the garage shop.',
+        bench,
+        1,
+      ],
       ['tomasz@example.com', 'A bookcase for the study with walnut face trim.', walnutBookcase, 1],
       ['guild@example.com', "Two wall cabinets for the guild's tool room, to match.", wallCabinet, 2],
     ];
@@ -67,7 +97,15 @@ export async function seedDemo(db: Db): Promise<void> {
       const id = randomUUID();
       tx.insert(projects).values({ id, clientId, notes }).run();
       tx.insert(projectItems).values({ id: randomUUID(), projectId: id, position: 0, spec, quantity }).run();
-      tx.insert(projectEvents).values({ id: randomUUID(), projectId: id, kind: 'requested', message: 'Estimate requested.', actorId: clientId }).run();
+      tx.insert(projectEvents)
+        .values({
+          id: randomUUID(),
+          projectId: id,
+          kind: 'requested',
+          message: 'Estimate requested.',
+          actorId: clientId,
+        })
+        .run();
     }
   });
 }

@@ -1,5 +1,13 @@
 import { asc, eq } from 'drizzle-orm';
-import { estimate, parseSpec, PriceBook, ShopSettings, traveller, type PriceBook as Book, type ShopSettings as Settings } from '@benchwright/pricing';
+import {
+  estimate,
+  parseSpec,
+  PriceBook,
+  ShopSettings,
+  traveller,
+  type PriceBook as Book,
+  type ShopSettings as Settings,
+} from '@benchwright/pricing';
 import type { Db } from '../db/client';
 import { priceBooks, projectItems, shopSettings } from '../db/schema';
 import { Invalid } from '../middleware/errors';
@@ -14,7 +22,12 @@ export function loadPricing(db: Pick<Db, 'select'>): { book: Book; settings: Set
 
 /** A project's items as stored, parsed back through their designs. */
 export function projectSpecs(db: Pick<Db, 'select'>, projectId: string) {
-  const items = db.select().from(projectItems).where(eq(projectItems.projectId, projectId)).orderBy(asc(projectItems.position)).all();
+  const items = db
+    .select()
+    .from(projectItems)
+    .where(eq(projectItems.projectId, projectId))
+    .orderBy(asc(projectItems.position))
+    .all();
   return items.map((i) => {
     const r = parseSpec(i.spec);
     if (!r.ok) throw new Invalid('A stored item no longer fits its design.', r.issues);
@@ -29,5 +42,8 @@ export function projectSpecs(db: Pick<Db, 'select'>, projectId: string) {
  */
 export function travellerFor(db: Pick<Db, 'select'>, projectId: string) {
   const { book, settings } = loadPricing(db);
-  return { units: settings.units, ...traveller(estimate(projectSpecs(db, projectId), book, settings, { effort: 'thorough' }), book, settings) };
+  return {
+    units: settings.units,
+    ...traveller(estimate(projectSpecs(db, projectId), book, settings, { effort: 'thorough' }), book, settings),
+  };
 }

@@ -22,75 +22,146 @@ function text(paragraphs: string[], action?: { label: string; url: string }, sho
 }
 
 export function verificationMail(shop: string, name: string, url: string): MailContent {
-  const p = [`Hello ${name},`, `Please confirm that this is your e-mail address, so ${shop} can send you estimates and news of your project. The link works for 48 hours.`];
+  const p = [
+    `Hello ${name},`,
+    `Please confirm that this is your e-mail address, so ${shop} can send you estimates and news of your project. The link works for 48 hours.`,
+  ];
   const a = { label: 'Confirm my e-mail', url };
-  return { subject: `Confirm your e-mail for ${shop}`, text: text(p, a, shop), html: layout(shop, 'Confirm your e-mail', p, a) };
+  return {
+    subject: `Confirm your e-mail for ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Confirm your e-mail', p, a),
+  };
 }
 
 export function resetMail(shop: string, name: string, url: string): MailContent {
-  const p = [`Hello ${name},`, 'Someone asked to reset the password of your account. If it was you, choose a new password with the link below; it works for one hour and only once. If it was not you, ignore this message: your password stays as it is.'];
+  const p = [
+    `Hello ${name},`,
+    'Someone asked to reset the password of your account. If it was you, choose a new password with the link below; it works for one hour and only once. If it was not you, ignore this message: your password stays as it is.',
+  ];
   const a = { label: 'Choose a new password', url };
-  return { subject: `Reset your ${shop} password`, text: text(p, a, shop), html: layout(shop, 'Reset your password', p, a) };
+  return {
+    subject: `Reset your ${shop} password`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Reset your password', p, a),
+  };
 }
 
 export function invitationMail(shop: string, name: string, inviter: string, url: string): MailContent {
-  const p = [`Hello ${name},`, `${inviter} has invited you to the ${shop} shop app, where the production board, the travellers and the hour logs live. Set your password with the link below; it works for 7 days.`];
+  const p = [
+    `Hello ${name},`,
+    `${inviter} has invited you to the ${shop} shop app, where the production board, the travellers and the hour logs live. Set your password with the link below; it works for 7 days.`,
+  ];
   const a = { label: 'Set my password', url };
-  return { subject: `You're invited to the ${shop} shop app`, text: text(p, a, shop), html: layout(shop, 'Join the shop app', p, a) };
+  return {
+    subject: `You're invited to the ${shop} shop app`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Join the shop app', p, a),
+  };
 }
 
 const usd = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
 /** Dollars as the mails write them: $1,234.50. */
 export const dollars = (cents: number) => usd.format(cents / 100);
 
-export function estimateMail(shop: string, name: string, revision: number, totalCents: number, depositCents: number, validUntil: Date, url: string): MailContent {
+export function estimateMail(
+  shop: string,
+  name: string,
+  revision: number,
+  totalCents: number,
+  depositCents: number,
+  validUntil: Date,
+  url: string,
+): MailContent {
   const p = [
     `Hello ${name},`,
     `Your estimate from ${shop} is ready (revision ${revision}): ${dollars(totalCents)} in all, with a deposit of ${dollars(depositCents)} to start the work. The PDF is attached.`,
     `It holds until ${validUntil.toLocaleDateString('en-US', { dateStyle: 'long' })}. Read it, ask anything in the portal, and accept it there when you are ready.`,
   ];
   const a = { label: 'See the estimate', url };
-  return { subject: `Your estimate from ${shop} (revision ${revision})`, text: text(p, a, shop), html: layout(shop, 'Your estimate is ready', p, a) };
+  return {
+    subject: `Your estimate from ${shop} (revision ${revision})`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Your estimate is ready', p, a),
+  };
 }
 
 export function depositReceiptMail(shop: string, name: string, amountCents: number, url: string): MailContent {
-  const p = [`Hello ${name},`, `We have received your deposit of ${dollars(amountCents)}. Thank you: your piece is now on our production board, and we will order the material.`, 'You can follow it through the shop in the portal.'];
+  const p = [
+    `Hello ${name},`,
+    `We have received your deposit of ${dollars(amountCents)}. Thank you: your piece is now on our production board, and we will order the material.`,
+    'You can follow it through the shop in the portal.',
+  ];
   const a = { label: 'Follow my project', url };
-  return { subject: `Deposit receipt: ${dollars(amountCents)} received by ${shop}`, text: text(p, a, shop), html: layout(shop, 'Deposit received', p, a) };
+  return {
+    subject: `Deposit receipt: ${dollars(amountCents)} received by ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Deposit received', p, a),
+  };
 }
 
 export function ownerDepositNotice(shop: string, client: string, amountCents: number, url: string): MailContent {
   const p = [`${client} has paid a deposit of ${dollars(amountCents)}. The job is on the board in Material.`];
   const a = { label: 'Open the board', url };
-  return { subject: `Paid: ${client}'s deposit of ${dollars(amountCents)}`, text: text(p, a, shop), html: layout(shop, 'A deposit came in', p, a) };
+  return {
+    subject: `Paid: ${client}'s deposit of ${dollars(amountCents)}`,
+    text: text(p, a, shop),
+    html: layout(shop, 'A deposit came in', p, a),
+  };
 }
 
 export function balanceRequestMail(shop: string, name: string, amountCents: number, url: string): MailContent {
-  const p = [`Hello ${name},`, `Your piece is finished and ready. The balance of ${dollars(amountCents)} is now due; you can pay it in the portal, and we will arrange delivery.`];
+  const p = [
+    `Hello ${name},`,
+    `Your piece is finished and ready. The balance of ${dollars(amountCents)} is now due; you can pay it in the portal, and we will arrange delivery.`,
+  ];
   const a = { label: 'Pay the balance', url };
-  return { subject: `Your piece is ready: balance of ${dollars(amountCents)} due`, text: text(p, a, shop), html: layout(shop, 'Ready for you', p, a) };
+  return {
+    subject: `Your piece is ready: balance of ${dollars(amountCents)} due`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Ready for you', p, a),
+  };
 }
 
 export function balanceReceiptMail(shop: string, name: string, amountCents: number, url: string): MailContent {
   const p = [`Hello ${name},`, `We have received the balance of ${dollars(amountCents)}. Thank you.`];
   const a = { label: 'See my project', url };
-  return { subject: `Balance receipt: ${dollars(amountCents)} received by ${shop}`, text: text(p, a, shop), html: layout(shop, 'Balance received', p, a) };
+  return {
+    subject: `Balance receipt: ${dollars(amountCents)} received by ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Balance received', p, a),
+  };
 }
 
 export function refundMail(shop: string, name: string, amountCents: number, url: string): MailContent {
-  const p = [`Hello ${name},`, `We have refunded ${dollars(amountCents)} to your card. It usually shows on your statement within 5 to 10 business days.`];
+  const p = [
+    `Hello ${name},`,
+    `We have refunded ${dollars(amountCents)} to your card. It usually shows on your statement within 5 to 10 business days.`,
+  ];
   const a = { label: 'See my project', url };
-  return { subject: `Refund of ${dollars(amountCents)} from ${shop}`, text: text(p, a, shop), html: layout(shop, 'Refund sent', p, a) };
+  return {
+    subject: `Refund of ${dollars(amountCents)} from ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Refund sent', p, a),
+  };
 }
 
 export function stageMail(shop: string, name: string, news: string, url: string): MailContent {
   const p = [`Hello ${name},`, news];
   const a = { label: 'See my project', url };
-  return { subject: `News of your piece from ${shop}`, text: text(p, a, shop), html: layout(shop, 'News from the shop', p, a) };
+  return {
+    subject: `News of your piece from ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, 'News from the shop', p, a),
+  };
 }
 
 export function commentMail(shop: string, toName: string, fromName: string, comment: string, url: string): MailContent {
   const p = [`Hello ${toName},`, `${fromName} wrote about the project:`, `“${comment}”`];
   const a = { label: 'Open the project', url };
-  return { subject: `A comment from ${fromName}`, text: text(p, a, shop), html: layout(shop, `A comment from ${fromName}`, p, a) };
+  return {
+    subject: `A comment from ${fromName}`,
+    text: text(p, a, shop),
+    html: layout(shop, `A comment from ${fromName}`, p, a),
+  };
 }

@@ -8,9 +8,24 @@ import type { MailContent } from './mail-templates';
 type Tx = Pick<Db, 'insert'>;
 
 /** Queues a message in the caller's transaction; the worker sends it. */
-export function queueMail(tx: Tx, to: string, content: MailContent, attachments: { filename: string; path: string; contentType: string }[] = []): string {
+export function queueMail(
+  tx: Tx,
+  to: string,
+  content: MailContent,
+  attachments: { filename: string; path: string; contentType: string }[] = [],
+): string {
   const id = randomUUID();
-  tx.insert(outbox).values({ id, messageId: `<${id}@benchwright.local>`, to, subject: content.subject, text: content.text, html: content.html, attachments }).run();
+  tx.insert(outbox)
+    .values({
+      id,
+      messageId: `<${id}@benchwright.local>`,
+      to,
+      subject: content.subject,
+      text: content.text,
+      html: content.html,
+      attachments,
+    })
+    .run();
   return id;
 }
 
@@ -26,7 +41,12 @@ export interface MailWorker {
  * once the server has accepted it, and retrying with backoff (1 s doubling
  * to 5 min) while SMTP is down. Every attempt carries the same Message-ID.
  */
-export function createMailWorker(db: Db, smtpUrl: string, from: string, log: { warn: (o: object, m: string) => void }): MailWorker {
+export function createMailWorker(
+  db: Db,
+  smtpUrl: string,
+  from: string,
+  log: { warn: (o: object, m: string) => void },
+): MailWorker {
   const url = new URL(smtpUrl);
   const transport: Transporter = nodemailer.createTransport({
     host: url.hostname,
@@ -45,16 +65,40 @@ export function createMailWorker(db: Db, smtpUrl: string, from: string, log: { w
     if (running) return running;
     running = (async () => {
       let sent = 0;
-      const due = db.select().from(outbox).where(and(eq(outbox.status, 'pending'), lte(outbox.nextAttemptAt, new Date()))).orderBy(asc(outbox.createdAt)).limit(20).all();
+      const due = db
+        .select()
+        .from(outbox)
+        .where(and(eq(outbox.status, 'pending'), lte(outbox.nextAttemptAt, new Date())))
+        .orderBy(asc(outbox.createdAt))
+        .limit(20)
+        .all();
       for (const m of due) {
         try {
-          await transport.sendMail({ from, to: m.to, subject: m.subject, text: m.text, html: m.html, messageId: m.messageId, attachments: m.attachments });
-          db.update(outbox).set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null }).where(eq(outbox.id, m.id)).run();
+          await transport.sendMail({
+            from,
+            to: m.to,
+            subject: m.subject,
+            text: m.text,
+            html: m.html,
+            messageId: m.messageId,
+            attachments: m.attachments,
+          });
+          db.update(outbox)
+            .set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null })
+            .where(eq(outbox.id, m.id))
+            .run();
           sent++;
         } catch (err) {
           const attempts = m.attempts + 1;
           const delay = Math.min(300_000, 1000 * 2 ** Math.min(attempts - 1, 9));
-          db.update(outbox).set({ attempts, lastError: String((err as Error).message ?? err).slice(0, 500), nextAttemptAt: new Date(Date.now() + delay) }).where(eq(outbox.id, m.id)).run();
+          db.update(outbox)
+            .set({
+              attempts,
+              lastError: String((err as Error).message ?? err).slice(0, 500),
+              nextAttemptAt: new Date(Date.now() + delay),
+            })
+            .where(eq(outbox.id, m.id))
+            .run();
           log.warn({ outboxId: m.id, attempts, retryInMs: delay }, 'mail not sent; will retry');
           break; // SMTP is likely down: wait for the next tick
         }

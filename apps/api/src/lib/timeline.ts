@@ -7,7 +7,13 @@ type Tx = Pick<Db, 'insert' | 'update'>;
 export type ProjectStatus = (typeof PROJECT_STATUS)[number];
 
 /** Adds a line to the project's timeline (in the caller's transaction). */
-export function addEvent(tx: Tx, projectId: string, kind: string, message: string, actorId: string | null = null): void {
+export function addEvent(
+  tx: Tx,
+  projectId: string,
+  kind: string,
+  message: string,
+  actorId: string | null = null,
+): void {
   tx.insert(projectEvents).values({ id: randomUUID(), projectId, kind, message, actorId }).run();
 }
 

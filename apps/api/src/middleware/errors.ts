@@ -75,9 +75,11 @@ export function errorHandler(log: { error: (o: object, msg: string) => void }): 
     else {
       const h = err as HttpishError;
       const status = h.status ?? h.statusCode;
-      if (h.type === 'entity.too.large' || status === 413) e = new AppError(413, 'payload_too_large', 'The request body is too large.');
+      if (h.type === 'entity.too.large' || status === 413)
+        e = new AppError(413, 'payload_too_large', 'The request body is too large.');
       else if (h.type === 'entity.parse.failed') e = new Invalid('The request body is not valid JSON.');
-      else if (h.type === 'encoding.unsupported' || h.type === 'charset.unsupported' || status === 415) e = new AppError(415, 'unsupported_media_type', 'That content type or encoding is not supported.');
+      else if (h.type === 'encoding.unsupported' || h.type === 'charset.unsupported' || status === 415)
+        e = new AppError(415, 'unsupported_media_type', 'That content type or encoding is not supported.');
       else if (status && status >= 400 && status < 500) e = new Invalid('The request could not be read.');
       else {
         log.error({ err, path: req.path }, 'unhandled error');
@@ -85,6 +87,8 @@ export function errorHandler(log: { error: (o: object, msg: string) => void }): 
       }
     }
     if (res.headersSent) return;
-    res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.issues ? { issues: e.issues } : {}) } });
+    res
+      .status(e.status)
+      .json({ error: { code: e.code, message: e.message, ...(e.issues ? { issues: e.issues } : {}) } });
   };
 }

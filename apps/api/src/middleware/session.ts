@@ -27,7 +27,13 @@ export function sessionMiddleware(lucia: AppLucia): RequestHandler {
       return next();
     }
     res.locals.sessionId = session.id;
-    res.locals.user = { id: user.id, email: user.email, name: user.name, role: user.role, emailVerified: user.emailVerifiedAt !== null };
+    res.locals.user = {
+      id: user.id,
+      email: user.email,
+      name: user.name,
+      role: user.role,
+      emailVerified: user.emailVerifiedAt !== null,
+    };
     next();
   };
 }

@@ -5,10 +5,16 @@ import { App } from './app';
 import { createTestRouter } from './router';
 
 function mockApi(handler: (path: string, init?: RequestInit) => [number, unknown]) {
-  vi.stubGlobal('fetch', vi.fn(async (url: string, init?: RequestInit) => {
-    const [status, body] = handler(String(url), init);
-    return new Response(status === 204 ? null : JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
-  }));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (url: string, init?: RequestInit) => {
+      const [status, body] = handler(String(url), init);
+      return new Response(status === 204 ? null : JSON.stringify(body), {
+        status,
+        headers: { 'Content-Type': 'application/json' },
+      });
+    }),
+  );
 }
 afterEach(() => vi.unstubAllGlobals());
 
@@ -27,8 +33,20 @@ describe('the sign-up page', () => {
     expect((screen.getByLabelText('Your name') as HTMLInputElement).value).toBe('Ada');
   });
 
-  it('puts the server\'s answer for a taken e-mail on the page, keeping the form', async () => {
-    mockApi((path) => (path.endsWith('/auth/sign-up') ? [409, { error: { code: 'conflict', message: 'An account with this e-mail already exists; sign in or reset the password.' } }] : [401, { error: { code: 'unauthenticated', message: 'x' } }]));
+  it("puts the server's answer for a taken e-mail on the page, keeping the form", async () => {
+    mockApi((path) =>
+      path.endsWith('/auth/sign-up')
+        ? [
+            409,
+            {
+              error: {
+                code: 'conflict',
+                message: 'An account with this e-mail already exists; sign in or reset the password.',
+              },
+            },
+          ]
+        : [401, { error: { code: 'unauthenticated', message: 'x' } }],
+    );
     render(<App router={createTestRouter('/sign-up')} />);
     const user = userEvent.setup();
     await user.type(await screen.findByLabelText('Your name'), 'Priya');
@@ -46,11 +64,27 @@ describe('my projects', () => {
     render(<App router={createTestRouter('/projects')} />);
     expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeTruthy();
   });
-  it('lists the client\'s projects with their status', async () => {
+  it("lists the client's projects with their status", async () => {
     mockApi((path) =>
       path.endsWith('/auth/me')
         ? [200, { user: { id: 'u', email: 'p@example.com', name: 'Priya', role: 'client', emailVerified: true } }]
-        : [200, { projects: [{ id: 'p1', status: 'requested', notes: 'For the garage', client: { id: 'u', name: 'Priya' }, items: [{ id: 'i', spec: { design: 'assembly-bench' }, quantity: 1 }], estimates: [], timeline: [], createdAt: '2026-11-20T10:00:00Z' }] }],
+        : [
+            200,
+            {
+              projects: [
+                {
+                  id: 'p1',
+                  status: 'requested',
+                  notes: 'For the garage',
+                  client: { id: 'u', name: 'Priya' },
+                  items: [{ id: 'i', spec: { design: 'assembly-bench' }, quantity: 1 }],
+                  estimates: [],
+                  timeline: [],
+                  createdAt: '2026-11-20T10:00:00Z',
+                },
+              ],
+            },
+          ],
     );
     render(<App router={createTestRouter('/projects')} />);
     await waitFor(() => expect(screen.getByRole('list', { name: 'My projects' })).toBeTruthy());

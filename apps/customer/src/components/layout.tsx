@@ -22,7 +22,10 @@ export function Layout() {
                   My projects
                 </NavLink>
                 <span className="text-ink-soft">{me.data.name}</span>
-                <Button variant="quiet" onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref()) })}>
+                <Button
+                  variant="quiet"
+                  onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref()) })}
+                >
                   Sign out
                 </Button>
               </>

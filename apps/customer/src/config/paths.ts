@@ -2,7 +2,10 @@
 export const paths = {
   home: { path: '/', getHref: () => '/' },
   signUp: { path: '/sign-up', getHref: () => '/sign-up' },
-  signIn: { path: '/sign-in', getHref: (redirect?: string) => (redirect ? `/sign-in?redirect=${encodeURIComponent(redirect)}` : '/sign-in') },
+  signIn: {
+    path: '/sign-in',
+    getHref: (redirect?: string) => (redirect ? `/sign-in?redirect=${encodeURIComponent(redirect)}` : '/sign-in'),
+  },
   verifyEmail: { path: '/verify-email', getHref: () => '/verify-email' },
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },

@@ -4,7 +4,15 @@ import { Button, Notice, Panel } from '@benchwright/ui';
 import { paths, PORTAL_URL } from '../config/paths';
 import { useMe } from '@benchwright/ui/auth';
 import { useSignOut } from '@benchwright/ui/auth';
-import { canInviteBuilders, canSeeBoard, canSeeMail, canSeeOverview, canSeePayments, canSeeRequests, isStaff } from '../lib/policies';
+import {
+  canInviteBuilders,
+  canSeeBoard,
+  canSeeMail,
+  canSeeOverview,
+  canSeePayments,
+  canSeeRequests,
+  isStaff,
+} from '../lib/policies';
 
 function Frame({ nav, children }: { nav?: ReactNode; children: ReactNode }) {
   return (
@@ -44,10 +52,13 @@ export function ShopLayout() {
       <Frame>
         <Panel title="This app is for the shop">
           <Notice>
-            You are signed in as {user.name}, a client of the shop. The shop app is only for its owner and builders; your projects, estimates and payments are in the client portal.
+            You are signed in as {user.name}, a client of the shop. The shop app is only for its owner and builders;
+            your projects, estimates and payments are in the client portal.
           </Notice>
           <p className="mb-4">
-            <a href={PORTAL_URL} className="text-wood underline">Go to the client portal</a>
+            <a href={PORTAL_URL} className="text-wood underline">
+              Go to the client portal
+            </a>
           </p>
           <Button variant="quiet" onClick={out}>
             Sign out
@@ -59,19 +70,44 @@ export function ShopLayout() {
   const link = 'rounded px-3 py-1 font-semibold text-paper hover:bg-wood aria-[current=page]:bg-wood';
   const nav = (
     <nav aria-label="Shop" className="flex items-center gap-2">
-      {canSeeOverview(user) ? <NavLink to={paths.overview.getHref()} className={link}>Overview</NavLink> : null}
-      {canSeeRequests(user) ? <NavLink to={paths.requests.getHref()} className={link}>Requests</NavLink> : null}
-      {canSeeBoard(user) ? <NavLink to={paths.board.getHref()} className={link}>Board</NavLink> : null}
-      {canSeePayments(user) ? <NavLink to={paths.payments.getHref()} className={link}>Payments</NavLink> : null}
-      {canInviteBuilders(user) ? <NavLink to={paths.team.getHref()} className={link}>Team</NavLink> : null}
-      {canSeeMail(user) ? <NavLink to={paths.mail.getHref()} className={link}>Mail</NavLink> : null}
+      {canSeeOverview(user) ? (
+        <NavLink to={paths.overview.getHref()} className={link}>
+          Overview
+        </NavLink>
+      ) : null}
+      {canSeeRequests(user) ? (
+        <NavLink to={paths.requests.getHref()} className={link}>
+          Requests
+        </NavLink>
+      ) : null}
+      {canSeeBoard(user) ? (
+        <NavLink to={paths.board.getHref()} className={link}>
+          Board
+        </NavLink>
+      ) : null}
+      {canSeePayments(user) ? (
+        <NavLink to={paths.payments.getHref()} className={link}>
+          Payments
+        </NavLink>
+      ) : null}
+      {canInviteBuilders(user) ? (
+        <NavLink to={paths.team.getHref()} className={link}>
+          Team
+        </NavLink>
+      ) : null}
+      {canSeeMail(user) ? (
+        <NavLink to={paths.mail.getHref()} className={link}>
+          Mail
+        </NavLink>
+      ) : null}
       <span className="ml-4 text-sm text-wood-light">{user.name}</span>
       <Button variant="quiet" className="text-wood-light" onClick={out}>
         Sign out
       </Button>
     </nav>
   );
-  if (location.pathname === '/') return <Navigate to={canSeeRequests(user) ? paths.requests.getHref() : paths.board.getHref()} replace />;
+  if (location.pathname === '/')
+    return <Navigate to={canSeeRequests(user) ? paths.requests.getHref() : paths.board.getHref()} replace />;
   return (
     <Frame nav={nav}>
       <Outlet context={user} />
@@ -80,7 +116,13 @@ export function ShopLayout() {
 }
 
 /** Keeps a page to the roles that may see it. */
-export function RoleGate({ allow, children }: { allow: (u: ReturnType<typeof useMe>['data']) => boolean; children: ReactNode }) {
+export function RoleGate({
+  allow,
+  children,
+}: {
+  allow: (u: ReturnType<typeof useMe>['data']) => boolean;
+  children: ReactNode;
+}) {
   const me = useMe();
   if (!allow(me.data)) return <Notice tone="error">Your role does not include this page.</Notice>;
   return <>{children}</>;

@@ -56,7 +56,8 @@ export function SheetLayoutsPanel({ layouts: t }: { layouts: Layouts }) {
       {t.materials.map((m) => (
         <section key={m.materialName} className="mb-6">
           <h3 className="mb-2 font-semibold">
-            {m.materialName}: {m.sheetCount} {m.sheetCount === 1 ? 'sheet' : 'sheets'}, {pct(m.yieldRatio)} used (at least {m.lowerBound} needed)
+            {m.materialName}: {m.sheetCount} {m.sheetCount === 1 ? 'sheet' : 'sheets'}, {pct(m.yieldRatio)} used (at
+            least {m.lowerBound} needed)
           </h3>
           {m.sheets.map((s) => (
             <div key={s.number} className="mb-4 break-inside-avoid">

@@ -3,7 +3,13 @@
  * than `max` on a side: a layout known to exist, for testing and tuning the
  * exact search (tests and bench only).
  */
-export function guillotinePieces(L: number, W: number, max: number, rand: () => number, stop = 0.6): [number, number][] {
+export function guillotinePieces(
+  L: number,
+  W: number,
+  max: number,
+  rand: () => number,
+  stop = 0.6,
+): [number, number][] {
   const out: [number, number][] = [];
   const cut = (l: number, w: number) => {
     if (l <= max && w <= max && (rand() < stop || l * w <= 2)) return void out.push([l, w]);
@@ -25,7 +31,10 @@ export function guillotinePieces(L: number, W: number, max: number, rand: () => 
 }
 
 /** the pieces counted by size, as the exact search takes them */
-export function piecesByKind(pieces: [number, number][], canRotate: boolean): { l: number; w: number; canRotate: boolean; count: number }[] {
+export function piecesByKind(
+  pieces: [number, number][],
+  canRotate: boolean,
+): { l: number; w: number; canRotate: boolean; count: number }[] {
   const m = new Map<string, number>();
   for (const [l, w] of pieces) m.set(`${l},${w}`, (m.get(`${l},${w}`) ?? 0) + 1);
   return [...m].map(([k, count]) => {

@@ -47,10 +47,24 @@ export const assemblyBenchSchema = z
     const caseWidth = (s.widthMm - 2 * s.overhangSidesMm) / s.caseCount;
     const caseDepth = s.depthMm - s.overhangFrontMm;
     const caseHeight = s.heightMm - s.top.thicknessMm - MOBILITY_ALLOWANCE_MM;
-    if (caseWidth < 300) ctx.addIssue({ code: 'custom', path: ['overhangSidesMm'], message: `the overhangs leave ${Math.round(caseWidth)} mm for each case; at least 300 mm is needed` });
-    if (caseDepth < 305) ctx.addIssue({ code: 'custom', path: ['overhangFrontMm'], message: `the overhang leaves ${Math.round(caseDepth)} mm of case depth; at least 305 mm is needed` });
+    if (caseWidth < 300)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['overhangSidesMm'],
+        message: `the overhangs leave ${Math.round(caseWidth)} mm for each case; at least 300 mm is needed`,
+      });
+    if (caseDepth < 305)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['overhangFrontMm'],
+        message: `the overhang leaves ${Math.round(caseDepth)} mm of case depth; at least 305 mm is needed`,
+      });
     if (s.top.kind === 'torsion-box' && s.top.thicknessMm < 3 * t) {
-      ctx.addIssue({ code: 'custom', path: ['top', 'thicknessMm'], message: `a torsion box needs at least ${Math.round(3 * t)} mm for two skins and a core` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['top', 'thicknessMm'],
+        message: `a torsion box needs at least ${Math.round(3 * t)} mm for two skins and a core`,
+      });
     }
     checkInterior(s, caseWidth - 2 * t, caseHeight - 2 * t, caseDepth - toMm(0.5) - toMm(0.25), ctx);
   });
@@ -83,7 +97,13 @@ export const assemblyBenchDefaults: AssemblyBenchSpec = {
       ],
     },
   ],
-  top: { kind: 'torsion-box', thicknessMm: toMm(3.5), skinMaterialId: 'mdf-12', coreMaterialId: 'birch-ply-18', gridSpacingMm: toMm(8) },
+  top: {
+    kind: 'torsion-box',
+    thicknessMm: toMm(3.5),
+    skinMaterialId: 'mdf-12',
+    coreMaterialId: 'birch-ply-18',
+    gridSpacingMm: toMm(8),
+  },
   overhangFrontMm: toMm(3),
   overhangSidesMm: toMm(3),
   mobility: 'locking-casters',

@@ -41,5 +41,10 @@ export const bookcaseDefaults: BookcaseSpec = {
   coats: null,
   installation: 'free-standing',
   trim: null,
-  bays: [{ widthMm: null, compartments: [{ kind: 'open', heightMm: null, doors: 1, adjustableShelves: 4, fixedShelves: 1 }] }],
+  bays: [
+    {
+      widthMm: null,
+      compartments: [{ kind: 'open', heightMm: null, doors: 1, adjustableShelves: 4, fixedShelves: 1 }],
+    },
+  ],
 };

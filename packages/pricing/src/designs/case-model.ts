@@ -18,8 +18,13 @@ export function mm(min: number, max: number) {
   return z
     .number({ error: 'enter a length in millimetres' })
     .refine((v) => Number.isFinite(v), 'enter a finite length')
-    .refine((v) => v >= min, { error: (iss) => `${round(iss.input as number)} mm is below the ${round(min)} mm minimum`, abort: true })
-    .refine((v) => v <= max, { error: (iss) => `${round(iss.input as number)} mm is above the ${round(max)} mm maximum` });
+    .refine((v) => v >= min, {
+      error: (iss) => `${round(iss.input as number)} mm is below the ${round(min)} mm minimum`,
+      abort: true,
+    })
+    .refine((v) => v <= max, {
+      error: (iss) => `${round(iss.input as number)} mm is above the ${round(max)} mm maximum`,
+    });
 }
 
 function count(min: number, max: number, what: string) {
@@ -49,7 +54,10 @@ export type Compartment = z.infer<typeof Compartment>;
 export const Bay = z.object({
   /** clear width between sides or partitions; null shares what the others leave */
   widthMm: mm(150, 1200).nullable().default(null),
-  compartments: z.array(Compartment).min(1, 'a bay needs at least one compartment').max(8, 'a bay takes at most 8 compartments'),
+  compartments: z
+    .array(Compartment)
+    .min(1, 'a bay needs at least one compartment')
+    .max(8, 'a bay takes at most 8 compartments'),
 });
 export type Bay = z.infer<typeof Bay>;
 
@@ -103,7 +111,13 @@ export interface InteriorInput {
  * thickness; `insideHeightMm` is the height between bottom and top, and
  * `insideDepthMm` the clear depth for drawers. Adds issues to `ctx`.
  */
-export function checkInterior(spec: InteriorInput, insideWidthMm: number, insideHeightMm: number, insideDepthMm: number, ctx: z.RefinementCtx): void {
+export function checkInterior(
+  spec: InteriorInput,
+  insideWidthMm: number,
+  insideHeightMm: number,
+  insideDepthMm: number,
+  ctx: z.RefinementCtx,
+): void {
   const t = NOMINAL_CARCASS_MM;
   const baysWidth = insideWidthMm - (spec.bays.length - 1) * t;
   const fixed = spec.bays.reduce((s, b) => s + (b.widthMm ?? 0), 0);
@@ -136,7 +150,11 @@ export function checkInterior(spec: InteriorInput, insideWidthMm: number, inside
         });
       }
       if (c.kind === 'drawer' && (c.adjustableShelves > 0 || c.fixedShelves > 0)) {
-        ctx.addIssue({ code: 'custom', path: ['bays', b, 'compartments', k], message: 'a drawer compartment has no shelves' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['bays', b, 'compartments', k],
+          message: 'a drawer compartment has no shelves',
+        });
       }
     });
   });

@@ -61,7 +61,12 @@ export const designs = {
 } as const satisfies Record<DesignSlug, Design>;
 
 /** Any build spec: it names its design. */
-export const BuildSpec = z.discriminatedUnion('design', [assemblyBenchSchema, baseCabinetSchema, wallCabinetSchema, bookcaseSchema]);
+export const BuildSpec = z.discriminatedUnion('design', [
+  assemblyBenchSchema,
+  baseCabinetSchema,
+  wallCabinetSchema,
+  bookcaseSchema,
+]);
 export type BuildSpec = z.infer<typeof BuildSpec>;
 
 export interface SpecIssue {
@@ -71,7 +76,10 @@ export interface SpecIssue {
 
 /** Writes a zod path as people read it: `bays[1].compartments[2].heightMm`. */
 export function formatPath(path: readonly PropertyKey[]): string {
-  return path.reduce<string>((s, k) => (typeof k === 'number' ? `${s}[${k}]` : s ? `${s}.${String(k)}` : String(k)), '');
+  return path.reduce<string>(
+    (s, k) => (typeof k === 'number' ? `${s}[${k}]` : s ? `${s}.${String(k)}` : String(k)),
+    '',
+  );
 }
 
 /**
@@ -85,7 +93,10 @@ export function formatPath(path: readonly PropertyKey[]): string {
 export function parseSpec(input: unknown): { ok: true; spec: BuildSpec } | { ok: false; issues: SpecIssue[] } {
   const slug = (input as { design?: unknown } | null)?.design;
   if (typeof slug !== 'string' || !(slug in designs)) {
-    return { ok: false, issues: [{ path: 'design', message: `choose one of the designs: ${DESIGN_SLUGS.join(', ')}` }] };
+    return {
+      ok: false,
+      issues: [{ path: 'design', message: `choose one of the designs: ${DESIGN_SLUGS.join(', ')}` }],
+    };
   }
   const r = designs[slug as DesignSlug].schema.safeParse(input);
   if (r.success) return { ok: true, spec: r.data as BuildSpec };

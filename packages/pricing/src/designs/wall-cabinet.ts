@@ -39,5 +39,10 @@ export const wallCabinetDefaults: WallCabinetSpec = {
   coats: null,
   hangingRail: true,
   trim: null,
-  bays: [{ widthMm: null, compartments: [{ kind: 'door', heightMm: null, doors: 2, adjustableShelves: 2, fixedShelves: 0 }] }],
+  bays: [
+    {
+      widthMm: null,
+      compartments: [{ kind: 'door', heightMm: null, doors: 2, adjustableShelves: 2, fixedShelves: 0 }],
+    },
+  ],
 };

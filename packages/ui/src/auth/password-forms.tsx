@@ -17,17 +17,30 @@ export function ForgotPasswordForm() {
       setMessage(applyServerIssues(err, form.setError, ['email']));
     }
   });
-  if (forgot.isSuccess) return <Notice tone="ok">If an account uses that e-mail, a link to choose a new password is on its way. It works for one hour.</Notice>;
+  if (forgot.isSuccess)
+    return (
+      <Notice tone="ok">
+        If an account uses that e-mail, a link to choose a new password is on its way. It works for one hour.
+      </Notice>
+    );
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Forgot password">
       {message ? <Notice tone="error">{message}</Notice> : null}
-      <Field label="E-mail" type="email" autoComplete="email" error={form.formState.errors.email?.message} {...form.register('email')} />
+      <Field
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        error={form.formState.errors.email?.message}
+        {...form.register('email')}
+      />
       <Button type="submit">Send me a link</Button>
     </form>
   );
 }
 
-const ResetForm = z.object({ password: z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(200) });
+const ResetForm = z.object({
+  password: z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(200),
+});
 
 export function ResetPasswordForm({ token, onDone }: { token: string; onDone: () => void }) {
   const form = useForm({ resolver: zodResolver(ResetForm), defaultValues: { password: '' } });
@@ -44,7 +57,14 @@ export function ResetPasswordForm({ token, onDone }: { token: string; onDone: ()
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Choose a new password">
       {message ? <Notice tone="error">{message}</Notice> : null}
-      <Field label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={form.formState.errors.password?.message} {...form.register('password')} />
+      <Field
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters."
+        error={form.formState.errors.password?.message}
+        {...form.register('password')}
+      />
       <Button type="submit">Save the new password</Button>
     </form>
   );

@@ -8,5 +8,8 @@ export const resetPassword = (body: ResetPasswordBody) => api<{ user: User }>('/
 export const useForgotPassword = () => useMutation({ mutationFn: forgotPassword });
 export function useResetPassword() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: resetPassword, onSuccess: ({ user }) => qc.setQueryData(meQueryOptions().queryKey, user) });
+  return useMutation({
+    mutationFn: resetPassword,
+    onSuccess: ({ user }) => qc.setQueryData(meQueryOptions().queryKey, user),
+  });
 }

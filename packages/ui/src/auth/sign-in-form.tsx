@@ -23,7 +23,13 @@ export function SignInForm({ onDone }: { onDone: () => void }) {
     <form onSubmit={onSubmit} noValidate aria-label="Sign in">
       {message ? <Notice tone="error">{message}</Notice> : null}
       <Field label="E-mail" type="email" autoComplete="email" error={e.email?.message} {...form.register('email')} />
-      <Field label="Password" type="password" autoComplete="current-password" error={e.password?.message} {...form.register('password')} />
+      <Field
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        error={e.password?.message}
+        {...form.register('password')}
+      />
       <Button type="submit" disabled={form.formState.isSubmitting}>
         Sign in
       </Button>

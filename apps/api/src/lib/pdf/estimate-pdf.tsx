@@ -1,11 +1,25 @@
 import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
-import { designs, formatLength, LINE_GROUP_LABELS, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing';
+import {
+  designs,
+  formatLength,
+  LINE_GROUP_LABELS,
+  LINE_GROUPS,
+  type Drawing,
+  type LineGroup,
+} from '@benchwright/pricing';
 import { dollars } from '../mail-templates';
 import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 10, color: INK, padding: 40, paddingBottom: 56 },
-  head: { flexDirection: 'row', justifyContent: 'space-between', borderBottomWidth: 2, borderBottomColor: WOOD, paddingBottom: 8, marginBottom: 14 },
+  head: {
+    flexDirection: 'row',
+    justifyContent: 'space-between',
+    borderBottomWidth: 2,
+    borderBottomColor: WOOD,
+    paddingBottom: 8,
+    marginBottom: 14,
+  },
   shop: { fontSize: 16, fontWeight: 700 },
   muted: { color: MUTED },
   h2: { fontSize: 12, fontWeight: 700, marginTop: 12, marginBottom: 6 },
@@ -28,12 +42,31 @@ export interface EstimatePdfInput {
   revision: number;
   date: Date;
   validUntil: Date;
-  items: { spec: { design: string; widthMm: number; heightMm: number; depthMm: number }; quantity: number; materials: string[]; finish: string | null; drawing: Drawing }[];
-  lines: { group: LineGroup; description: string; quantity: number; unit: string; unitPriceCents: number; amountCents: number }[];
-  totals: { subtotalCents: number; discountCents: number; taxCents: number; totalCents: number; depositCents: number; balanceCents: number };
+  items: {
+    spec: { design: string; widthMm: number; heightMm: number; depthMm: number };
+    quantity: number;
+    materials: string[];
+    finish: string | null;
+    drawing: Drawing;
+  }[];
+  lines: {
+    group: LineGroup;
+    description: string;
+    quantity: number;
+    unit: string;
+    unitPriceCents: number;
+    amountCents: number;
+  }[];
+  totals: {
+    subtotalCents: number;
+    discountCents: number;
+    taxCents: number;
+    totalCents: number;
+    depositCents: number;
+    balanceCents: number;
+  };
   depositRate: number;
 }
-
 
 export const CAUTIONS = [
   'Tall pieces must be anchored to the wall with the supplied anchor kit or fasteners suited to the wall; do not let children climb furniture.',
@@ -149,7 +182,9 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
         <View wrap={false}>
           <Text style={s.h2}>Payment terms</Text>
           <Text>
-            Accept this estimate in the client portal before {fmtDate(d.validUntil)}. The deposit of {dollars(d.totals.depositCents)} is paid online when you accept, and we order material once it arrives. The balance of {dollars(d.totals.balanceCents)} is due when the piece is ready, before delivery.
+            Accept this estimate in the client portal before {fmtDate(d.validUntil)}. The deposit of{' '}
+            {dollars(d.totals.depositCents)} is paid online when you accept, and we order material once it arrives. The
+            balance of {dollars(d.totals.balanceCents)} is due when the piece is ready, before delivery.
           </Text>
         </View>
         <View wrap={false}>

@@ -9,7 +9,10 @@ import type { Drawing, ShapeStyle } from '@benchwright/pricing';
 const require = createRequire(import.meta.url);
 const font = (w: number) => require.resolve(`@fontsource/source-sans-3/files/source-sans-3-latin-${w}-normal.woff`);
 // the .woff files (fontkit cannot read woff2), shipped with the app: no font service
-Font.register({ family: 'Source Sans 3', fonts: [{ src: font(400) }, { src: font(600), fontWeight: 600 }, { src: font(700), fontWeight: 700 }] });
+Font.register({
+  family: 'Source Sans 3',
+  fonts: [{ src: font(400) }, { src: font(600), fontWeight: 600 }, { src: font(700), fontWeight: 700 }],
+});
 Font.registerHyphenationCallback((word) => [word]);
 
 export const INK = '#231c15';
@@ -19,7 +22,14 @@ export const MUTED = '#5b5148';
 export const RULE = '#d8ccb8';
 
 // fills by style; offcuts are a light grey that stays readable printed in black and white
-const FILL: Partial<Record<ShapeStyle, string>> = { top: '#e3d6c1', kick: '#d9d2c7', case: '#f1ebe0', part: '#f6f1e7', offcut: '#e4e4e4', trim: '#cdb79a' };
+const FILL: Partial<Record<ShapeStyle, string>> = {
+  top: '#e3d6c1',
+  kick: '#d9d2c7',
+  case: '#f1ebe0',
+  part: '#f6f1e7',
+  offcut: '#e4e4e4',
+  trim: '#cdb79a',
+};
 
 /** The engine's drawing data drawn with react-pdf's SVG primitives. */
 export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number }) {
@@ -31,25 +41,60 @@ export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number
       {drawing.shapes.map((sh, i) => {
         switch (sh.type) {
           case 'rect':
-            return <Rect key={i} x={sh.x} y={sh.y} width={sh.width} height={sh.height} stroke={INK} strokeWidth={1.2 * k} fill={FILL[sh.style] ?? '#ffffff'} />;
+            return (
+              <Rect
+                key={i}
+                x={sh.x}
+                y={sh.y}
+                width={sh.width}
+                height={sh.height}
+                stroke={INK}
+                strokeWidth={1.2 * k}
+                fill={FILL[sh.style] ?? '#ffffff'}
+              />
+            );
           case 'line':
           case 'arrow':
-            return <Line key={i} x1={sh.x1} y1={sh.y1} x2={sh.x2} y2={sh.y2} stroke={INK} strokeWidth={(sh.style === 'guide' ? 0.6 : 1) * k} strokeDasharray={sh.style === 'guide' ? `${6 * k} ${4 * k}` : undefined} />;
+            return (
+              <Line
+                key={i}
+                x1={sh.x1}
+                y1={sh.y1}
+                x2={sh.x2}
+                y2={sh.y2}
+                stroke={INK}
+                strokeWidth={(sh.style === 'guide' ? 0.6 : 1) * k}
+                strokeDasharray={sh.style === 'guide' ? `${6 * k} ${4 * k}` : undefined}
+              />
+            );
           case 'circle':
             return <Circle key={i} cx={sh.cx} cy={sh.cy} r={sh.r} stroke={INK} strokeWidth={1.2 * k} fill="#ffffff" />;
           case 'text':
             return (
-              <Text key={i} x={sh.x} y={sh.y} style={{ fontSize: sh.size, fontFamily: 'Source Sans 3', fontWeight: sh.weight === 'bold' ? 700 : 400 }} textAnchor={sh.anchor}>
+              <Text
+                key={i}
+                x={sh.x}
+                y={sh.y}
+                style={{ fontSize: sh.size, fontFamily: 'Source Sans 3', fontWeight: sh.weight === 'bold' ? 700 : 400 }}
+                textAnchor={sh.anchor}
+              >
                 {sh.text}
               </Text>
             );
           case 'dimension': {
             const horizontal = Math.abs(sh.y1 - sh.y2) < 1e-6;
-            const [ax, ay, bx, by] = horizontal ? [sh.x1, sh.y1 + sh.offset, sh.x2, sh.y2 + sh.offset] : [sh.x1 + sh.offset, sh.y1, sh.x2 + sh.offset, sh.y2];
+            const [ax, ay, bx, by] = horizontal
+              ? [sh.x1, sh.y1 + sh.offset, sh.x2, sh.y2 + sh.offset]
+              : [sh.x1 + sh.offset, sh.y1, sh.x2 + sh.offset, sh.y2];
             return (
               <View key={i}>
                 <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={INK} strokeWidth={0.8 * k} />
-                <Text x={horizontal ? (ax + bx) / 2 : ax + sh.size * 0.6} y={horizontal ? ay + sh.size * 1.2 : (ay + by) / 2} style={{ fontSize: sh.size, fontFamily: 'Source Sans 3' }} textAnchor={horizontal ? 'middle' : 'start'}>
+                <Text
+                  x={horizontal ? (ax + bx) / 2 : ax + sh.size * 0.6}
+                  y={horizontal ? ay + sh.size * 1.2 : (ay + by) / 2}
+                  style={{ fontSize: sh.size, fontFamily: 'Source Sans 3' }}
+                  textAnchor={horizontal ? 'middle' : 'start'}
+                >
                   {sh.text}
                 </Text>
               </View>
@@ -61,8 +106,16 @@ export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number
   );
 }
 
-
-const footerStyle = { position: 'absolute', bottom: 22, left: 36, right: 36, flexDirection: 'row', justifyContent: 'space-between', fontSize: 8, color: MUTED } as const;
+const footerStyle = {
+  position: 'absolute',
+  bottom: 22,
+  left: 36,
+  right: 36,
+  flexDirection: 'row',
+  justifyContent: 'space-between',
+  fontSize: 8,
+  color: MUTED,
+} as const;
 
 /** The running footer of every page: what the document is, and "Page n of m". */
 export function PageFooter({ children }: { children: string }) {

@@ -4,7 +4,14 @@ import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 9, color: INK, padding: 36, paddingBottom: 52 },
-  head: { flexDirection: 'row', justifyContent: 'space-between', borderBottomWidth: 2, borderBottomColor: WOOD, paddingBottom: 6, marginBottom: 10 },
+  head: {
+    flexDirection: 'row',
+    justifyContent: 'space-between',
+    borderBottomWidth: 2,
+    borderBottomColor: WOOD,
+    paddingBottom: 6,
+    marginBottom: 10,
+  },
   title: { fontSize: 15, fontWeight: 700 },
   muted: { color: MUTED },
   h2: { fontSize: 12, fontWeight: 700, marginTop: 10, marginBottom: 4 },
@@ -134,7 +141,8 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           m.sheets.map((sh) => (
             <View key={`${m.materialName}-${sh.number}`} break wrap={false}>
               <Text style={s.h2}>
-                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)} % used, {sh.cuts.length} cuts
+                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)} % used,{' '}
+                {sh.cuts.length} cuts
               </Text>
               <PdfDrawing drawing={sh.drawing} width={540} />
             </View>

@@ -1,6 +1,13 @@
 import { Router, type Request } from 'express';
 import { rateLimit } from 'express-rate-limit';
-import { AcceptInvitationBody, ForgotPasswordBody, ResetPasswordBody, SignInBody, SignUpBody, VerifyEmailBody } from '@benchwright/contracts';
+import {
+  AcceptInvitationBody,
+  ForgotPasswordBody,
+  ResetPasswordBody,
+  SignInBody,
+  SignUpBody,
+  VerifyEmailBody,
+} from '@benchwright/contracts';
 import type { AppLucia } from '../../auth/lucia';
 import { parse, RateLimited } from '../../middleware/errors';
 import { currentUser, requireRole } from '../../middleware/session';
@@ -27,9 +34,34 @@ export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits
   const skip = () => !limits.enabled;
   const window15 = 15 * 60_000;
   // failed sign-ins only (successful ones are not counted), per e-mail and per IP
-  const perEmail = rateLimit({ windowMs: window15, limit: limits.signInFailsPerEmail, keyGenerator: emailKey, skipSuccessfulRequests: true, skip, handler: limited, standardHeaders: 'draft-8', legacyHeaders: false, validate: false });
-  const perIp = rateLimit({ windowMs: window15, limit: limits.signInAttemptsPerIp, skipSuccessfulRequests: true, skip, handler: limited, standardHeaders: 'draft-8', legacyHeaders: false });
-  const signUps = rateLimit({ windowMs: 60 * 60_000, limit: limits.signUpsPerIp, skip, handler: limited, standardHeaders: 'draft-8', legacyHeaders: false });
+  const perEmail = rateLimit({
+    windowMs: window15,
+    limit: limits.signInFailsPerEmail,
+    keyGenerator: emailKey,
+    skipSuccessfulRequests: true,
+    skip,
+    handler: limited,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    validate: false,
+  });
+  const perIp = rateLimit({
+    windowMs: window15,
+    limit: limits.signInAttemptsPerIp,
+    skipSuccessfulRequests: true,
+    skip,
+    handler: limited,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+  });
+  const signUps = rateLimit({
+    windowMs: 60 * 60_000,
+    limit: limits.signUpsPerIp,
+    skip,
+    handler: limited,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+  });
 
   const startSession = async (res: import('express').Response, userId: string) => {
     const session = await lucia.createSession(userId, {});

@@ -25,17 +25,23 @@ export function createAuthService({ db, shopName, portalUrl, shopUrl }: AuthDeps
   return {
     /** A new client; the verification mail is queued in the same transaction. */
     async signUp(input: { email: string; password: string; name: string }): Promise<User> {
-      if (db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).get()) throw new Conflict('An account with this e-mail already exists; sign in or reset the password.');
+      if (db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).get())
+        throw new Conflict('An account with this e-mail already exists; sign in or reset the password.');
       const passwordHash = await hashPassword(input.password);
       const id = randomUUID();
       try {
         db.transaction((tx) => {
           tx.insert(users).values({ id, email: input.email, name: input.name, role: 'client', passwordHash }).run();
           const token = issueToken(tx, id, 'verify_email');
-          queueMail(tx, input.email, verificationMail(shopName(), input.name, `${portalUrl}/verify-email?token=${token}`));
+          queueMail(
+            tx,
+            input.email,
+            verificationMail(shopName(), input.name, `${portalUrl}/verify-email?token=${token}`),
+          );
         });
       } catch (err) {
-        if (String(err).includes('UNIQUE')) throw new Conflict('An account with this e-mail already exists; sign in or reset the password.');
+        if (String(err).includes('UNIQUE'))
+          throw new Conflict('An account with this e-mail already exists; sign in or reset the password.');
         throw err;
       }
       return toUser(db.select().from(users).where(eq(users.id, id)).get()!);
@@ -94,12 +100,20 @@ export function createAuthService({ db, shopName, portalUrl, shopUrl }: AuthDeps
     /** The owner invites a builder: an account without a password, and a mail to set one. */
     invite(owner: User, input: { email: string; name: string }): User {
       const existing = db.select().from(users).where(eq(users.email, input.email)).get();
-      if (existing && (existing.passwordHash || existing.role !== 'builder')) throw new Conflict('Someone already has an account with this e-mail.');
+      if (existing && (existing.passwordHash || existing.role !== 'builder'))
+        throw new Conflict('Someone already has an account with this e-mail.');
       const id = existing?.id ?? randomUUID();
       db.transaction((tx) => {
-        if (!existing) tx.insert(users).values({ id, email: input.email, name: input.name, role: 'builder', passwordHash: null }).run();
+        if (!existing)
+          tx.insert(users)
+            .values({ id, email: input.email, name: input.name, role: 'builder', passwordHash: null })
+            .run();
         const token = issueToken(tx, id, 'invitation');
-        queueMail(tx, input.email, invitationMail(shopName(), input.name, owner.name, `${shopUrl}/accept-invitation?token=${token}`));
+        queueMail(
+          tx,
+          input.email,
+          invitationMail(shopName(), input.name, owner.name, `${shopUrl}/accept-invitation?token=${token}`),
+        );
       });
       return toUser(db.select().from(users).where(eq(users.id, id)).get()!);
     },
@@ -117,7 +131,12 @@ export function createAuthService({ db, shopName, portalUrl, shopUrl }: AuthDeps
     },
 
     listStaff(): User[] {
-      return db.select().from(users).all().filter((u) => u.role !== 'client').map(toUser);
+      return db
+        .select()
+        .from(users)
+        .all()
+        .filter((u) => u.role !== 'client')
+        .map(toUser);
     },
   };
 }

@@ -15,7 +15,7 @@ export function estimatesRoutes(service: EstimatesService, payments: PaymentsSer
   };
   const client = (res: Parameters<typeof currentUser>[0]) => {
     const u = currentUser(res);
-    if (u.role !== 'client') throw new Forbidden('Only the project\'s client can do this.');
+    if (u.role !== 'client') throw new Forbidden("Only the project's client can do this.");
     return u;
   };
   r.get('/:id', (req, res) => {
@@ -36,7 +36,13 @@ export function estimatesRoutes(service: EstimatesService, payments: PaymentsSer
   r.post('/:id/accept', (req, res) => {
     const u = client(res);
     const { acceptedName } = parse(AcceptEstimateBody, req.body);
-    res.json({ estimate: service.accept(u, req.params.id, { acceptedName, ip: req.ip ?? '', userAgent: req.get('user-agent') ?? '' }) });
+    res.json({
+      estimate: service.accept(u, req.params.id, {
+        acceptedName,
+        ip: req.ip ?? '',
+        userAgent: req.get('user-agent') ?? '',
+      }),
+    });
   });
   r.post('/:id/deposit-checkout', async (req, res) => {
     res.json(await payments.depositCheckout(client(res), req.params.id));
@@ -55,7 +61,7 @@ export function projectMoneyRoutes(service: EstimatesService, payments: Payments
   });
   r.post('/:id/balance-checkout', async (req, res) => {
     const u = currentUser(res);
-    if (u.role !== 'client') throw new Forbidden('Only the project\'s client can pay.');
+    if (u.role !== 'client') throw new Forbidden("Only the project's client can pay.");
     res.json(await payments.balanceCheckout(u, req.params.id));
   });
   return r;

@@ -3,7 +3,14 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { and, asc, desc, eq, ne } from 'drizzle-orm';
 import type { User } from '@benchwright/contracts';
-import { designs, estimate as priceItems, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
+import {
+  designs,
+  estimate as priceItems,
+  totalsFor,
+  type BuildSpec,
+  type Drawing,
+  type LineGroup,
+} from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { estimateLines, estimates, priceBooks, projectItems, projects, shopSettings, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
@@ -60,7 +67,12 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
   }
 
   function view(viewer: User, e: EstimateRow) {
-    const lines = db.select().from(estimateLines).where(eq(estimateLines.estimateId, e.id)).orderBy(asc(estimateLines.position)).all();
+    const lines = db
+      .select()
+      .from(estimateLines)
+      .where(eq(estimateLines.estimateId, e.id))
+      .orderBy(asc(estimateLines.position))
+      .all();
     const owner = viewer.role === 'owner';
     const engine = e.engine as EngineRecord | null;
     return {
@@ -85,7 +97,14 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         source: l.source,
         ...(owner ? { costCents: l.costCents, overrideReason: l.overrideReason } : {}),
       })),
-      totals: { subtotalCents: e.subtotalCents, discountCents: e.discountCents, taxCents: e.taxCents, totalCents: e.totalCents, depositCents: e.depositCents, balanceCents: e.balanceCents },
+      totals: {
+        subtotalCents: e.subtotalCents,
+        discountCents: e.discountCents,
+        taxCents: e.taxCents,
+        totalCents: e.totalCents,
+        depositCents: e.depositCents,
+        balanceCents: e.balanceCents,
+      },
       hoursByStage: owner ? e.hoursByStage : undefined,
       drawings: engine?.drawings ?? [],
       checks: engine?.checks ?? [],
@@ -93,9 +112,18 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
     };
   }
 
-  function writeLines(tx: Pick<Db, 'insert' | 'delete'>, estimateId: string, lines: Omit<LineRow, 'id' | 'estimateId' | 'position'>[]): void {
+  function writeLines(
+    tx: Pick<Db, 'insert' | 'delete'>,
+    estimateId: string,
+    lines: Omit<LineRow, 'id' | 'estimateId' | 'position'>[],
+  ): void {
     tx.delete(estimateLines).where(eq(estimateLines.estimateId, estimateId)).run();
-    lines.forEach((l, position) => tx.insert(estimateLines).values({ id: randomUUID(), estimateId, position, ...l }).run());
+    lines.forEach((l, position) =>
+      tx
+        .insert(estimateLines)
+        .values({ id: randomUUID(), estimateId, position, ...l })
+        .run(),
+    );
   }
 
   return {
@@ -109,19 +137,55 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
     createRevision(owner: User, projectId: string, source: 'engine' | 'copy') {
       const project = db.select().from(projects).where(eq(projects.id, projectId)).get();
       if (!project) throw new NotFound('The project');
-      if (!['requested', 'estimating', 'estimate_sent', 'expired'].includes(project.status)) throw new Conflict(`A new estimate cannot be made while the project is ${project.status.replace(/_/g, ' ')}.`);
-      const latest = db.select().from(estimates).where(eq(estimates.projectId, projectId)).orderBy(desc(estimates.revision)).get();
-      if (latest?.status === 'draft') throw new Conflict(`Revision ${latest.revision} is still a draft: edit or send it first.`);
+      if (!['requested', 'estimating', 'estimate_sent', 'expired'].includes(project.status))
+        throw new Conflict(`A new estimate cannot be made while the project is ${project.status.replace(/_/g, ' ')}.`);
+      const latest = db
+        .select()
+        .from(estimates)
+        .where(eq(estimates.projectId, projectId))
+        .orderBy(desc(estimates.revision))
+        .get();
+      if (latest?.status === 'draft')
+        throw new Conflict(`Revision ${latest.revision} is still a draft: edit or send it first.`);
       const id = randomUUID();
       const revision = (latest?.revision ?? 0) + 1;
       if (source === 'copy') {
         if (!latest) throw new Conflict('There is no earlier revision to copy.');
-        const lines = db.select().from(estimateLines).where(eq(estimateLines.estimateId, latest.id)).orderBy(asc(estimateLines.position)).all();
+        const lines = db
+          .select()
+          .from(estimateLines)
+          .where(eq(estimateLines.estimateId, latest.id))
+          .orderBy(asc(estimateLines.position))
+          .all();
         db.transaction((tx) => {
-          tx.insert(estimates).values({ id, projectId, revision, subtotalCents: latest.subtotalCents, discountCents: latest.discountCents, taxCents: latest.taxCents, totalCents: latest.totalCents, depositCents: latest.depositCents, balanceCents: latest.balanceCents, hoursByStage: latest.hoursByStage, engine: latest.engine }).run();
-          writeLines(tx, id, lines.map(({ id: _i, estimateId: _e, position: _p, ...l }) => l));
+          tx.insert(estimates)
+            .values({
+              id,
+              projectId,
+              revision,
+              subtotalCents: latest.subtotalCents,
+              discountCents: latest.discountCents,
+              taxCents: latest.taxCents,
+              totalCents: latest.totalCents,
+              depositCents: latest.depositCents,
+              balanceCents: latest.balanceCents,
+              hoursByStage: latest.hoursByStage,
+              engine: latest.engine,
+            })
+            .run();
+          writeLines(
+            tx,
+            id,
+            lines.map(({ id: _i, estimateId: _e, position: _p, ...l }) => l),
+          );
           if (project.status === 'requested' || project.status === 'expired') setStatus(tx, projectId, 'estimating');
-          addEvent(tx, projectId, 'estimate_draft', `Revision ${revision} started from revision ${latest.revision}.`, owner.id);
+          addEvent(
+            tx,
+            projectId,
+            'estimate_draft',
+            `Revision ${revision} started from revision ${latest.revision}.`,
+            owner.id,
+          );
         });
         return view(owner, row(id));
       }
@@ -129,17 +193,45 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
       const e = priceItems(projectSpecs(db, projectId), book, settings, { effort: 'thorough' });
       const engine: EngineRecord = {
         drawings: e.pieces.map((p) => p.elevation),
-        layouts: e.layouts.map((l) => ({ materialId: l.materialId, materialName: l.materialName, sheetCount: l.sheetCount, lowerBound: l.lowerBound, yieldRatio: l.yieldRatio })),
+        layouts: e.layouts.map((l) => ({
+          materialId: l.materialId,
+          materialName: l.materialName,
+          sheetCount: l.sheetCount,
+          lowerBound: l.lowerBound,
+          yieldRatio: l.yieldRatio,
+        })),
         checks: e.checks.map((c) => ({ code: c.code, level: c.level, message: c.message })),
         totalHours: e.totalHours,
         massKg: e.massKg,
       };
       const hours = Object.fromEntries(Object.entries(e.hoursByStage).map(([k, v]) => [k, Math.round(v * 100) / 100]));
       db.transaction((tx) => {
-        tx.insert(estimates).values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine }).run();
-        writeLines(tx, id, e.lines.map((l) => ({ group: l.group, description: l.description, quantity: l.quantity, unit: l.unit, unitPriceCents: l.unitPriceCents, amountCents: l.amountCents, costCents: l.costCents, source: 'computed' as const, overrideReason: null })));
+        tx.insert(estimates)
+          .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine })
+          .run();
+        writeLines(
+          tx,
+          id,
+          e.lines.map((l) => ({
+            group: l.group,
+            description: l.description,
+            quantity: l.quantity,
+            unit: l.unit,
+            unitPriceCents: l.unitPriceCents,
+            amountCents: l.amountCents,
+            costCents: l.costCents,
+            source: 'computed' as const,
+            overrideReason: null,
+          })),
+        );
         if (project.status === 'requested' || project.status === 'expired') setStatus(tx, projectId, 'estimating');
-        addEvent(tx, projectId, 'estimate_draft', `Revision ${revision} priced from the cut list and sheet layouts.`, owner.id);
+        addEvent(
+          tx,
+          projectId,
+          'estimate_draft',
+          `Revision ${revision} priced from the cut list and sheet layouts.`,
+          owner.id,
+        );
       });
       return view(owner, row(id));
     },
@@ -151,29 +243,64 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
      */
     update(owner: User, id: string, input: { version: number; lines?: LineEdit[]; discountCents?: number }) {
       const e = row(id);
-      if (e.status !== 'draft') throw new Conflict(`Revision ${e.revision} is ${e.status}; only a draft changes. Start a new revision instead.`);
-      if (e.version !== input.version) throw new Conflict(`Revision ${e.revision} was changed by someone else (version ${e.version}, yours ${input.version}); reload it and edit again.`);
-      const current = db.select().from(estimateLines).where(eq(estimateLines.estimateId, id)).orderBy(asc(estimateLines.position)).all();
+      if (e.status !== 'draft')
+        throw new Conflict(
+          `Revision ${e.revision} is ${e.status}; only a draft changes. Start a new revision instead.`,
+        );
+      if (e.version !== input.version)
+        throw new Conflict(
+          `Revision ${e.revision} was changed by someone else (version ${e.version}, yours ${input.version}); reload it and edit again.`,
+        );
+      const current = db
+        .select()
+        .from(estimateLines)
+        .where(eq(estimateLines.estimateId, id))
+        .orderBy(asc(estimateLines.position))
+        .all();
       const byId = new Map(current.map((l) => [l.id, l]));
       const issues: { path: string; message: string }[] = [];
       const next = (input.lines ?? current).map((l, i) => {
         const edit = l as LineEdit;
         const was = edit.id ? byId.get(edit.id) : undefined;
         if (edit.id && !was) issues.push({ path: `lines[${i}].id`, message: 'no such line on this revision' });
-        const changed = !was || was.quantity !== edit.quantity || was.unitPriceCents !== edit.unitPriceCents || was.description !== edit.description || was.group !== edit.group;
+        const changed =
+          !was ||
+          was.quantity !== edit.quantity ||
+          was.unitPriceCents !== edit.unitPriceCents ||
+          was.description !== edit.description ||
+          was.group !== edit.group;
         const source = was && !changed ? was.source : 'manual';
         const reason = edit.overrideReason?.trim() || (was && !changed ? was.overrideReason : null);
-        if (source === 'manual' && !reason) issues.push({ path: `lines[${i}].overrideReason`, message: was ? 'say why this computed line changed' : 'say why this line is added' });
+        if (source === 'manual' && !reason)
+          issues.push({
+            path: `lines[${i}].overrideReason`,
+            message: was ? 'say why this computed line changed' : 'say why this line is added',
+          });
         // an unchanged line keeps the engine's amount (rounded half to even through dinero.js), so totals never drift by a cent
         const amountCents = was && !changed ? was.amountCents : Math.round(edit.quantity * edit.unitPriceCents);
-        const costCents = edit.costCents ?? (was ? Math.round((was.costCents * edit.quantity) / (was.quantity || 1)) : 0);
-        return { group: edit.group, description: edit.description, quantity: edit.quantity, unit: edit.unit, unitPriceCents: edit.unitPriceCents, amountCents, costCents, source, overrideReason: reason ?? null };
+        const costCents =
+          edit.costCents ?? (was ? Math.round((was.costCents * edit.quantity) / (was.quantity || 1)) : 0);
+        return {
+          group: edit.group,
+          description: edit.description,
+          quantity: edit.quantity,
+          unit: edit.unit,
+          unitPriceCents: edit.unitPriceCents,
+          amountCents,
+          costCents,
+          source,
+          overrideReason: reason ?? null,
+        };
       });
       if (issues.length) throw new Invalid('Some lines need attention.', issues);
       const { settings } = loadPricing(db);
       const totals = totalsFor(next, settings, input.discountCents ?? e.discountCents);
       db.transaction((tx) => {
-        const r = tx.update(estimates).set({ ...totals, version: e.version + 1, updatedAt: new Date() }).where(and(eq(estimates.id, id), eq(estimates.version, e.version), eq(estimates.status, 'draft'))).run();
+        const r = tx
+          .update(estimates)
+          .set({ ...totals, version: e.version + 1, updatedAt: new Date() })
+          .where(and(eq(estimates.id, id), eq(estimates.version, e.version), eq(estimates.status, 'draft')))
+          .run();
         if (r.changes !== 1) throw new Conflict('The revision changed while you were editing; reload it.');
         writeLines(tx, id, next);
       });
@@ -188,12 +315,23 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
       const client = db.select().from(users).where(eq(users.id, project.clientId)).get()!;
       const shop = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
       const book = db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
-      const items = db.select().from(projectItems).where(eq(projectItems.projectId, e.projectId)).orderBy(asc(projectItems.position)).all();
-      const lines = db.select().from(estimateLines).where(eq(estimateLines.estimateId, id)).orderBy(asc(estimateLines.position)).all();
+      const items = db
+        .select()
+        .from(projectItems)
+        .where(eq(projectItems.projectId, e.projectId))
+        .orderBy(asc(projectItems.position))
+        .all();
+      const lines = db
+        .select()
+        .from(estimateLines)
+        .where(eq(estimateLines.estimateId, id))
+        .orderBy(asc(estimateLines.position))
+        .all();
       const sentAt = new Date();
       const validUntil = new Date(sentAt.getTime() + shop.settings.estimateValidityDays * 86_400_000);
       const engine = e.engine as EngineRecord | null;
-      const nameOf = (mid: string) => book.sheetGoods.find((m) => m.id === mid)?.name ?? book.lumber.find((m) => m.id === mid)?.name ?? mid;
+      const nameOf = (mid: string) =>
+        book.sheetGoods.find((m) => m.id === mid)?.name ?? book.lumber.find((m) => m.id === mid)?.name ?? mid;
       const pdf = await renderEstimatePdf({
         shop: { name: shop.shopName, address: shop.address, email: shop.email, phone: shop.phone },
         client: { name: client.name, email: client.email },
@@ -204,24 +342,87 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         items: items.map((it, i) => {
           const spec = it.spec as BuildSpec;
           const hasDrawers = spec.bays.some((b) => b.compartments.some((c) => c.kind === 'drawer'));
-          const top = spec.design === 'assembly-bench' ? (spec.top.kind === 'torsion-box' ? [spec.top.skinMaterialId, spec.top.coreMaterialId] : []) : [];
-          const mats = [...new Set([spec.carcassMaterialId, spec.frontMaterialId, spec.backMaterialId, ...(hasDrawers ? [spec.drawerMaterialId] : []), ...top, ...(spec.trim ? [spec.trim.lumberId] : [])])].map(nameOf);
-          return { spec, quantity: it.quantity, materials: mats, finish: spec.finishId ? (book.finishes.find((f) => f.id === spec.finishId)?.name ?? spec.finishId) : null, drawing: engine?.drawings[i] ?? { title: designs[spec.design].name, viewBox: { x: 0, y: 0, width: 1, height: 1 }, shapes: [] } };
+          const top =
+            spec.design === 'assembly-bench'
+              ? spec.top.kind === 'torsion-box'
+                ? [spec.top.skinMaterialId, spec.top.coreMaterialId]
+                : []
+              : [];
+          const mats = [
+            ...new Set([
+              spec.carcassMaterialId,
+              spec.frontMaterialId,
+              spec.backMaterialId,
+              ...(hasDrawers ? [spec.drawerMaterialId] : []),
+              ...top,
+              ...(spec.trim ? [spec.trim.lumberId] : []),
+            ]),
+          ].map(nameOf);
+          return {
+            spec,
+            quantity: it.quantity,
+            materials: mats,
+            finish: spec.finishId ? (book.finishes.find((f) => f.id === spec.finishId)?.name ?? spec.finishId) : null,
+            drawing: engine?.drawings[i] ?? {
+              title: designs[spec.design].name,
+              viewBox: { x: 0, y: 0, width: 1, height: 1 },
+              shapes: [],
+            },
+          };
         }),
         lines,
-        totals: { subtotalCents: e.subtotalCents, discountCents: e.discountCents, taxCents: e.taxCents, totalCents: e.totalCents, depositCents: e.depositCents, balanceCents: e.balanceCents },
+        totals: {
+          subtotalCents: e.subtotalCents,
+          discountCents: e.discountCents,
+          taxCents: e.taxCents,
+          totalCents: e.totalCents,
+          depositCents: e.depositCents,
+          balanceCents: e.balanceCents,
+        },
         depositRate: shop.settings.depositRate,
       });
       mkdirSync(pdfDir, { recursive: true });
       const pdfPath = join(pdfDir, `${estimateNumber(e.projectId)}-r${e.revision}-${e.id.slice(0, 8)}.pdf`);
       writeFileSync(pdfPath, pdf);
       db.transaction((tx) => {
-        const r = tx.update(estimates).set({ status: 'sent', sentAt, validUntil, pdfPath, version: e.version + 1, updatedAt: sentAt }).where(and(eq(estimates.id, id), eq(estimates.status, 'draft'))).run();
+        const r = tx
+          .update(estimates)
+          .set({ status: 'sent', sentAt, validUntil, pdfPath, version: e.version + 1, updatedAt: sentAt })
+          .where(and(eq(estimates.id, id), eq(estimates.status, 'draft')))
+          .run();
         if (r.changes !== 1) throw new Conflict('The revision was sent or changed meanwhile.');
-        tx.update(estimates).set({ status: 'superseded', updatedAt: sentAt }).where(and(eq(estimates.projectId, e.projectId), eq(estimates.status, 'sent'), ne(estimates.id, id))).run();
+        tx.update(estimates)
+          .set({ status: 'superseded', updatedAt: sentAt })
+          .where(and(eq(estimates.projectId, e.projectId), eq(estimates.status, 'sent'), ne(estimates.id, id)))
+          .run();
         setStatus(tx, e.projectId, 'estimate_sent');
-        addEvent(tx, e.projectId, 'estimate_sent', `Estimate revision ${e.revision} sent: ${fmt(e.totalCents)}.`, owner.id);
-        queueMail(tx, client.email, estimateMail(shop.shopName, client.name, e.revision, e.totalCents, e.depositCents, validUntil, `${portalUrl}/projects/${e.projectId}`), [{ filename: `${estimateNumber(e.projectId)}-revision-${e.revision}.pdf`, path: pdfPath, contentType: 'application/pdf' }]);
+        addEvent(
+          tx,
+          e.projectId,
+          'estimate_sent',
+          `Estimate revision ${e.revision} sent: ${fmt(e.totalCents)}.`,
+          owner.id,
+        );
+        queueMail(
+          tx,
+          client.email,
+          estimateMail(
+            shop.shopName,
+            client.name,
+            e.revision,
+            e.totalCents,
+            e.depositCents,
+            validUntil,
+            `${portalUrl}/projects/${e.projectId}`,
+          ),
+          [
+            {
+              filename: `${estimateNumber(e.projectId)}-revision-${e.revision}.pdf`,
+              path: pdfPath,
+              contentType: 'application/pdf',
+            },
+          ],
+        );
       });
       return view(owner, row(id));
     },
@@ -236,21 +437,46 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
     accept(client: User, id: string, input: { acceptedName: string; ip: string; userAgent: string }) {
       const e = row(id);
       if (!visible(client, e)) throw new NotFound('The estimate');
-      if (e.status !== 'sent') throw new Conflict(e.status === 'superseded' ? `Revision ${e.revision} was replaced by a newer one; accept the latest revision.` : `Revision ${e.revision} is ${e.status} and cannot be accepted.`);
+      if (e.status !== 'sent')
+        throw new Conflict(
+          e.status === 'superseded'
+            ? `Revision ${e.revision} was replaced by a newer one; accept the latest revision.`
+            : `Revision ${e.revision} is ${e.status} and cannot be accepted.`,
+        );
       if (e.validUntil && e.validUntil.getTime() < Date.now()) {
         db.transaction((tx) => {
           tx.update(estimates).set({ status: 'expired', updatedAt: new Date() }).where(eq(estimates.id, id)).run();
           setStatus(tx, e.projectId, 'expired');
           addEvent(tx, e.projectId, 'estimate_expired', `Estimate revision ${e.revision} expired unaccepted.`);
         });
-        throw new Conflict(`Revision ${e.revision} expired on ${e.validUntil.toLocaleDateString('en-US', { dateStyle: 'long' })}; ask the shop for a new one.`);
+        throw new Conflict(
+          `Revision ${e.revision} expired on ${e.validUntil.toLocaleDateString('en-US', { dateStyle: 'long' })}; ask the shop for a new one.`,
+        );
       }
       const at = new Date();
       db.transaction((tx) => {
-        const r = tx.update(estimates).set({ status: 'accepted', acceptedAt: at, acceptedName: input.acceptedName, acceptedIp: input.ip, acceptedUserAgent: input.userAgent.slice(0, 300), version: e.version + 1, updatedAt: at }).where(and(eq(estimates.id, id), eq(estimates.status, 'sent'))).run();
+        const r = tx
+          .update(estimates)
+          .set({
+            status: 'accepted',
+            acceptedAt: at,
+            acceptedName: input.acceptedName,
+            acceptedIp: input.ip,
+            acceptedUserAgent: input.userAgent.slice(0, 300),
+            version: e.version + 1,
+            updatedAt: at,
+          })
+          .where(and(eq(estimates.id, id), eq(estimates.status, 'sent')))
+          .run();
         if (r.changes !== 1) throw new Conflict('The revision changed meanwhile; reload it.');
         setStatus(tx, e.projectId, 'accepted');
-        addEvent(tx, e.projectId, 'estimate_accepted', `Estimate revision ${e.revision} accepted by ${input.acceptedName}.`, client.id);
+        addEvent(
+          tx,
+          e.projectId,
+          'estimate_accepted',
+          `Estimate revision ${e.revision} accepted by ${input.acceptedName}.`,
+          client.id,
+        );
       });
       return view(client, row(id));
     },

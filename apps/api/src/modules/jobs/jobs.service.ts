@@ -15,9 +15,16 @@ export function createJobsService(db: Db, portalUrl: string) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
     const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
-    const builder = j.builderId ? db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, j.builderId)).get() : null;
+    const builder = j.builderId
+      ? db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, j.builderId)).get()
+      : null;
     const entries = db.select().from(timeEntries).where(eq(timeEntries.jobId, j.id)).all();
-    const logged = Object.fromEntries(STAGE_KEYS.map((k) => [k, Math.round(entries.filter((e) => e.stageKey === k).reduce((s, e) => s + e.hours, 0) * 100) / 100]));
+    const logged = Object.fromEntries(
+      STAGE_KEYS.map((k) => [
+        k,
+        Math.round(entries.filter((e) => e.stageKey === k).reduce((s, e) => s + e.hours, 0) * 100) / 100,
+      ]),
+    );
     const budget = j.hoursBudget;
     return {
       id: j.id,
@@ -27,7 +34,10 @@ export function createJobsService(db: Db, portalUrl: string) {
       position: j.position,
       builder: builder ?? null,
       dueDate: j.dueDate,
-      hoursBudgeted: { ...budget, total: Math.round(Object.values(budget).reduce((s: number, h) => s + (h ?? 0), 0) * 100) / 100 },
+      hoursBudgeted: {
+        ...budget,
+        total: Math.round(Object.values(budget).reduce((s: number, h) => s + (h ?? 0), 0) * 100) / 100,
+      },
       hoursLogged: { ...logged, total: Math.round(entries.reduce((s, e) => s + e.hours, 0) * 100) / 100 },
     };
   }
@@ -48,18 +58,36 @@ export function createJobsService(db: Db, portalUrl: string) {
     addEvent(tx, project.id, 'stage', `Moved to ${label}.`, actor.id);
     if (from === 'material' && to !== 'material' && project.status === 'deposit_paid') {
       setStatus(tx, project.id, 'in_production');
-      queueMail(tx, client.email, stageMail(shop, client.name, 'Your material is in and your piece is now being built in the shop.', url));
+      queueMail(
+        tx,
+        client.email,
+        stageMail(shop, client.name, 'Your material is in and your piece is now being built in the shop.', url),
+      );
     }
     if (to === 'ready' && project.status !== 'ready') {
       setStatus(tx, project.id, 'ready');
-      const est = tx.select().from(estimates).where(eq(estimates.projectId, project.id)).all().find((e) => e.status === 'accepted');
+      const est = tx
+        .select()
+        .from(estimates)
+        .where(eq(estimates.projectId, project.id))
+        .all()
+        .find((e) => e.status === 'accepted');
       queueMail(tx, client.email, balanceRequestMail(shop, client.name, est?.balanceCents ?? 0, url));
     }
     if (to === 'delivered' && project.status !== 'delivered') {
       // delivered with the balance paid closes the project; otherwise it waits for the balance
-      const balancePaid = tx.select().from(payments).where(eq(payments.projectId, project.id)).all().some((x) => x.kind === 'balance' && x.status === 'paid');
+      const balancePaid = tx
+        .select()
+        .from(payments)
+        .where(eq(payments.projectId, project.id))
+        .all()
+        .some((x) => x.kind === 'balance' && x.status === 'paid');
       setStatus(tx, project.id, balancePaid ? 'closed' : 'delivered');
-      queueMail(tx, client.email, stageMail(shop, client.name, 'Your piece has been delivered. Thank you for having us build it.', url));
+      queueMail(
+        tx,
+        client.email,
+        stageMail(shop, client.name, 'Your piece has been delivered. Thank you for having us build it.', url),
+      );
     }
   }
 
@@ -96,11 +124,18 @@ export function createJobsService(db: Db, portalUrl: string) {
       });
       return { pdf, filename: `traveller-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };
     },
-    update(actor: User, id: string, input: { stageKey?: StageKey; position?: number; builderId?: string | null; dueDate?: string | null }) {
+    update(
+      actor: User,
+      id: string,
+      input: { stageKey?: StageKey; position?: number; builderId?: string | null; dueDate?: string | null },
+    ) {
       const j = row(id);
       if (input.builderId) {
         const b = db.select().from(users).where(eq(users.id, input.builderId)).get();
-        if (!b || b.role === 'client') throw new Invalid('Choose a builder of the shop.', [{ path: 'builderId', message: 'not a member of the shop' }]);
+        if (!b || b.role === 'client')
+          throw new Invalid('Choose a builder of the shop.', [
+            { path: 'builderId', message: 'not a member of the shop' },
+          ]);
       }
       db.transaction((tx) => {
         tx.update(jobs)
@@ -119,7 +154,16 @@ export function createJobsService(db: Db, portalUrl: string) {
     },
     logTime(actor: User, id: string, input: { stageKey: StageKey; hours: number; note: string }) {
       const j = row(id);
-      db.insert(timeEntries).values({ id: randomUUID(), jobId: j.id, userId: actor.id, stageKey: input.stageKey, hours: input.hours, note: input.note }).run();
+      db.insert(timeEntries)
+        .values({
+          id: randomUUID(),
+          jobId: j.id,
+          userId: actor.id,
+          stageKey: input.stageKey,
+          hours: input.hours,
+          note: input.note,
+        })
+        .run();
       return view(row(id));
     },
   };

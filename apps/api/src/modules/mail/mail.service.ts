@@ -9,7 +9,15 @@ export function createMailService(db: Db) {
     /** Pending mail that has failed at least once, oldest first; the worker keeps retrying it with backoff. */
     failed() {
       return db
-        .select({ id: outbox.id, to: outbox.to, subject: outbox.subject, attempts: outbox.attempts, lastError: outbox.lastError, nextAttemptAt: outbox.nextAttemptAt, createdAt: outbox.createdAt })
+        .select({
+          id: outbox.id,
+          to: outbox.to,
+          subject: outbox.subject,
+          attempts: outbox.attempts,
+          lastError: outbox.lastError,
+          nextAttemptAt: outbox.nextAttemptAt,
+          createdAt: outbox.createdAt,
+        })
         .from(outbox)
         .where(and(eq(outbox.status, 'pending'), gte(outbox.attempts, 1)))
         .orderBy(asc(outbox.createdAt))

@@ -6,7 +6,13 @@ import type { Db, Tx } from '../../db/client';
 import { estimates, jobs, payments, projects, stripeEvents, users } from '../../db/schema';
 import { loadPricing } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
-import { balanceReceiptMail, depositReceiptMail, dollars, ownerDepositNotice, refundMail } from '../../lib/mail-templates';
+import {
+  balanceReceiptMail,
+  depositReceiptMail,
+  dollars,
+  ownerDepositNotice,
+  refundMail,
+} from '../../lib/mail-templates';
 import { addEvent, setStatus } from '../../lib/timeline';
 import { AppError, Conflict, Invalid, NotFound } from '../../middleware/errors';
 import { estimateNumber } from '../estimates/estimates.service';
@@ -31,7 +37,12 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
   }
 
   function acceptedEstimate(projectId: string) {
-    return db.select().from(estimates).where(and(eq(estimates.projectId, projectId), eq(estimates.status, 'accepted'))).orderBy(desc(estimates.revision)).get();
+    return db
+      .select()
+      .from(estimates)
+      .where(and(eq(estimates.projectId, projectId), eq(estimates.status, 'accepted')))
+      .orderBy(desc(estimates.revision))
+      .get();
   }
 
   /**
@@ -42,12 +53,19 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     const est = db.select().from(estimates).where(eq(estimates.id, estimateId)).get()!;
     const amount = kind === 'deposit' ? est.depositCents : est.balanceCents;
     if (amount <= 0) throw new Conflict(`There is no ${kind} to pay on this estimate.`);
-    const last = db.select().from(payments).where(and(eq(payments.estimateId, estimateId), eq(payments.kind, kind))).orderBy(desc(payments.attempt)).get();
-    if (last?.status === 'paid' || last?.status === 'refunded' || last?.status === 'partially_refunded') throw new Conflict(`The ${kind} is already paid.`);
+    const last = db
+      .select()
+      .from(payments)
+      .where(and(eq(payments.estimateId, estimateId), eq(payments.kind, kind)))
+      .orderBy(desc(payments.attempt))
+      .get();
+    if (last?.status === 'paid' || last?.status === 'refunded' || last?.status === 'partially_refunded')
+      throw new Conflict(`The ${kind} is already paid.`);
     if (last?.status === 'open' && last.stripeSessionId) {
       const s = await stripe.checkout.sessions.retrieve(last.stripeSessionId);
       if (s.status === 'open' && s.url) return { url: s.url };
-      if (s.status === 'complete') throw new Conflict(`The ${kind} payment is complete and being recorded; reload in a moment.`);
+      if (s.status === 'complete')
+        throw new Conflict(`The ${kind} payment is complete and being recorded; reload in a moment.`);
       db.update(payments).set({ status: 'expired', updatedAt: new Date() }).where(eq(payments.id, last.id)).run();
     }
     const attempt = (last?.attempt ?? 0) + 1;
@@ -57,7 +75,18 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     const session = await stripe.checkout.sessions.create(
       {
         mode: 'payment',
-        line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: amount, product_data: { name: `${kind === 'deposit' ? 'Deposit' : 'Balance'}: ${shop} estimate ${estimateNumber(projectId)}, revision ${est.revision}` } } }],
+        line_items: [
+          {
+            quantity: 1,
+            price_data: {
+              currency: 'usd',
+              unit_amount: amount,
+              product_data: {
+                name: `${kind === 'deposit' ? 'Deposit' : 'Balance'}: ${shop} estimate ${estimateNumber(projectId)}, revision ${est.revision}`,
+              },
+            },
+          },
+        ],
         customer_email: client.email,
         client_reference_id: projectId,
         metadata: meta,
@@ -68,7 +97,18 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
       },
       { idempotencyKey: `${kind}-${estimateId}-r${est.revision}-a${attempt}` },
     );
-    db.insert(payments).values({ id: paymentId, projectId, estimateId, kind, amountCents: amount, attempt, stripeSessionId: session.id, checkoutUrl: session.url }).run();
+    db.insert(payments)
+      .values({
+        id: paymentId,
+        projectId,
+        estimateId,
+        kind,
+        amountCents: amount,
+        attempt,
+        stripeSessionId: session.id,
+        checkoutUrl: session.url,
+      })
+      .run();
     return { url: session.url! };
   }
 
@@ -78,7 +118,14 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     if (!paymentId) return;
     const pay = tx.select().from(payments).where(eq(payments.id, paymentId)).get();
     if (!pay || pay.status === 'paid' || pay.status === 'refunded' || pay.status === 'partially_refunded') return;
-    tx.update(payments).set({ status: 'paid', stripePaymentIntentId: paymentIntentId ?? pay.stripePaymentIntentId, updatedAt: new Date() }).where(eq(payments.id, pay.id)).run();
+    tx.update(payments)
+      .set({
+        status: 'paid',
+        stripePaymentIntentId: paymentIntentId ?? pay.stripePaymentIntentId,
+        updatedAt: new Date(),
+      })
+      .where(eq(payments.id, pay.id))
+      .run();
     const project = tx.select().from(projects).where(eq(projects.id, pay.projectId)).get()!;
     const client = tx.select().from(users).where(eq(users.id, project.clientId)).get()!;
     const shop = loadPricing(tx).shopName;
@@ -86,11 +133,19 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
       const est = tx.select().from(estimates).where(eq(estimates.id, pay.estimateId!)).get()!;
       setStatus(tx, project.id, 'deposit_paid');
       if (!tx.select({ id: jobs.id }).from(jobs).where(eq(jobs.projectId, project.id)).get()) {
-        tx.insert(jobs).values({ id: randomUUID(), projectId: project.id, stageKey: 'material', hoursBudget: est.hoursByStage }).run();
+        tx.insert(jobs)
+          .values({ id: randomUUID(), projectId: project.id, stageKey: 'material', hoursBudget: est.hoursByStage })
+          .run();
       }
-      addEvent(tx, project.id, 'deposit_paid', `Deposit of ${dollars(pay.amountCents)} received; the job is on the board.`);
+      addEvent(
+        tx,
+        project.id,
+        'deposit_paid',
+        `Deposit of ${dollars(pay.amountCents)} received; the job is on the board.`,
+      );
       queueMail(tx, client.email, depositReceiptMail(shop, client.name, pay.amountCents, projectUrl(project.id)));
-      for (const owner of tx.select().from(users).where(eq(users.role, 'owner')).all()) queueMail(tx, owner.email, ownerDepositNotice(shop, client.name, pay.amountCents, `${shopUrl}/board`));
+      for (const owner of tx.select().from(users).where(eq(users.role, 'owner')).all())
+        queueMail(tx, owner.email, ownerDepositNotice(shop, client.name, pay.amountCents, `${shopUrl}/board`));
     } else {
       addEvent(tx, project.id, 'balance_paid', `Balance of ${dollars(pay.amountCents)} received.`);
       if (project.status === 'delivered') setStatus(tx, project.id, 'closed');
@@ -104,7 +159,14 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     const pay = tx.select().from(payments).where(eq(payments.stripePaymentIntentId, piId)).get();
     if (!pay || charge.amount_refunded <= pay.refundedCents) return; // late or repeated news
     const delta = charge.amount_refunded - pay.refundedCents;
-    tx.update(payments).set({ refundedCents: charge.amount_refunded, status: charge.refunded ? 'refunded' : 'partially_refunded', updatedAt: new Date() }).where(eq(payments.id, pay.id)).run();
+    tx.update(payments)
+      .set({
+        refundedCents: charge.amount_refunded,
+        status: charge.refunded ? 'refunded' : 'partially_refunded',
+        updatedAt: new Date(),
+      })
+      .where(eq(payments.id, pay.id))
+      .run();
     const project = tx.select().from(projects).where(eq(projects.id, pay.projectId)).get()!;
     const client = tx.select().from(users).where(eq(users.id, project.clientId)).get()!;
     addEvent(tx, project.id, 'refund', `${dollars(delta)} of the ${pay.kind} refunded.`);
@@ -117,7 +179,12 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
       if (!est) throw new NotFound('The estimate');
       const project = ownProject(client, est.projectId);
       if (est.status === 'draft') throw new NotFound('The estimate');
-      if (est.status !== 'accepted' || project.status !== 'accepted') throw new Conflict(project.status === 'deposit_paid' || project.status === 'in_production' ? 'The deposit is already paid.' : 'Accept the estimate before paying the deposit.');
+      if (est.status !== 'accepted' || project.status !== 'accepted')
+        throw new Conflict(
+          project.status === 'deposit_paid' || project.status === 'in_production'
+            ? 'The deposit is already paid.'
+            : 'Accept the estimate before paying the deposit.',
+        );
       return checkout(client, project.id, est.id, 'deposit');
     },
 
@@ -132,17 +199,33 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     async refund(owner: User, paymentId: string, amountCents?: number) {
       const pay = db.select().from(payments).where(eq(payments.id, paymentId)).get();
       if (!pay) throw new NotFound('The payment');
-      if (!['paid', 'partially_refunded'].includes(pay.status) || !pay.stripePaymentIntentId) throw new Conflict(`A ${pay.status} payment cannot be refunded.`);
+      if (!['paid', 'partially_refunded'].includes(pay.status) || !pay.stripePaymentIntentId)
+        throw new Conflict(`A ${pay.status} payment cannot be refunded.`);
       const left = pay.amountCents - pay.refundedCents;
       const amount = amountCents ?? left;
-      if (amount > left) throw new Invalid(`At most ${dollars(left)} is left to refund.`, [{ path: 'amountCents', message: `at most ${left}` }]);
+      if (amount > left)
+        throw new Invalid(`At most ${dollars(left)} is left to refund.`, [
+          { path: 'amountCents', message: `at most ${left}` },
+        ]);
       try {
-        const r = await stripe.refunds.create({ payment_intent: pay.stripePaymentIntentId, amount, metadata: { paymentId } }, { idempotencyKey: `refund-${paymentId}-${pay.refundedCents}-${amount}` });
-        db.transaction((tx) => addEvent(tx, pay.projectId, 'refund_requested', `Refund of ${dollars(amount)} asked of the card processor by ${owner.name}.`, owner.id));
+        const r = await stripe.refunds.create(
+          { payment_intent: pay.stripePaymentIntentId, amount, metadata: { paymentId } },
+          { idempotencyKey: `refund-${paymentId}-${pay.refundedCents}-${amount}` },
+        );
+        db.transaction((tx) =>
+          addEvent(
+            tx,
+            pay.projectId,
+            'refund_requested',
+            `Refund of ${dollars(amount)} asked of the card processor by ${owner.name}.`,
+            owner.id,
+          ),
+        );
         return { id: r.id, amountCents: r.amount, status: r.status };
       } catch (err) {
         const e = err as { type?: string; message?: string };
-        if (e.type === 'StripeInvalidRequestError') throw new Conflict(`The card processor refused the refund: ${e.message}`);
+        if (e.type === 'StripeInvalidRequestError')
+          throw new Conflict(`The card processor refused the refund: ${e.message}`);
         throw new AppError(502, 'internal', 'The card processor could not be reached; try again.');
       }
     },
@@ -150,7 +233,17 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     /** Every payment, newest first, with its client; no card processor secrets, only its ids. */
     list() {
       return db
-        .select({ id: payments.id, projectId: payments.projectId, clientName: users.name, kind: payments.kind, status: payments.status, amountCents: payments.amountCents, refundedCents: payments.refundedCents, stripePaymentIntentId: payments.stripePaymentIntentId, createdAt: payments.createdAt })
+        .select({
+          id: payments.id,
+          projectId: payments.projectId,
+          clientName: users.name,
+          kind: payments.kind,
+          status: payments.status,
+          amountCents: payments.amountCents,
+          refundedCents: payments.refundedCents,
+          stripePaymentIntentId: payments.stripePaymentIntentId,
+          createdAt: payments.createdAt,
+        })
         .from(payments)
         .innerJoin(projects, eq(projects.id, payments.projectId))
         .innerJoin(users, eq(users.id, projects.clientId))
@@ -181,7 +274,12 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
         switch (event.type) {
           case 'checkout.session.completed': {
             const s = event.data.object;
-            if (s.payment_status === 'paid') markPaid(tx, s.metadata, typeof s.payment_intent === 'string' ? s.payment_intent : (s.payment_intent?.id ?? null));
+            if (s.payment_status === 'paid')
+              markPaid(
+                tx,
+                s.metadata,
+                typeof s.payment_intent === 'string' ? s.payment_intent : (s.payment_intent?.id ?? null),
+              );
             break;
           }
           case 'payment_intent.succeeded':
@@ -189,7 +287,10 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
             break;
           case 'checkout.session.expired': {
             const s = event.data.object;
-            tx.update(payments).set({ status: 'expired', updatedAt: new Date() }).where(and(eq(payments.stripeSessionId, s.id), eq(payments.status, 'open'))).run();
+            tx.update(payments)
+              .set({ status: 'expired', updatedAt: new Date() })
+              .where(and(eq(payments.stripeSessionId, s.id), eq(payments.status, 'open')))
+              .run();
             break;
           }
           case 'charge.refunded':

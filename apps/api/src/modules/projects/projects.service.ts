@@ -13,13 +13,32 @@ import { Forbidden, Invalid, NotFound } from '../../middleware/errors';
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;
 
-export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string } = { portalUrl: '', shopUrl: '' }) {
+export function createProjectsService(
+  db: Db,
+  urls: { portalUrl: string; shopUrl: string } = { portalUrl: '', shopUrl: '' },
+) {
   function toProject(row: typeof projects.$inferSelect): Project {
     const client = db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, row.clientId)).get()!;
-    const items = db.select().from(projectItems).where(eq(projectItems.projectId, row.id)).orderBy(asc(projectItems.position)).all();
-    const ests = db.select().from(estimates).where(eq(estimates.projectId, row.id)).orderBy(asc(estimates.revision)).all();
+    const items = db
+      .select()
+      .from(projectItems)
+      .where(eq(projectItems.projectId, row.id))
+      .orderBy(asc(projectItems.position))
+      .all();
+    const ests = db
+      .select()
+      .from(estimates)
+      .where(eq(estimates.projectId, row.id))
+      .orderBy(asc(estimates.revision))
+      .all();
     const events = db
-      .select({ id: projectEvents.id, kind: projectEvents.kind, message: projectEvents.message, createdAt: projectEvents.createdAt, by: users.name })
+      .select({
+        id: projectEvents.id,
+        kind: projectEvents.kind,
+        message: projectEvents.message,
+        createdAt: projectEvents.createdAt,
+        by: users.name,
+      })
       .from(projectEvents)
       .leftJoin(users, eq(users.id, projectEvents.actorId))
       .where(eq(projectEvents.projectId, row.id))
@@ -35,9 +54,22 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
         id: e.id,
         revision: e.revision,
         status: e.status,
-        totals: { subtotalCents: e.subtotalCents, discountCents: e.discountCents, taxCents: e.taxCents, totalCents: e.totalCents, depositCents: e.depositCents, balanceCents: e.balanceCents },
+        totals: {
+          subtotalCents: e.subtotalCents,
+          discountCents: e.discountCents,
+          taxCents: e.taxCents,
+          totalCents: e.totalCents,
+          depositCents: e.depositCents,
+          balanceCents: e.balanceCents,
+        },
       })),
-      timeline: events.map((e) => ({ id: e.id, kind: e.kind, message: e.message, by: e.kind === 'comment' ? e.by : null, at: e.createdAt.toISOString() })),
+      timeline: events.map((e) => ({
+        id: e.id,
+        kind: e.kind,
+        message: e.message,
+        by: e.kind === 'comment' ? e.by : null,
+        at: e.createdAt.toISOString(),
+      })),
       createdAt: row.createdAt.toISOString(),
     };
   }
@@ -57,7 +89,10 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
           ? q.orderBy(desc(projects.createdAt)).all()
           : viewer.role === 'client'
             ? q.where(eq(projects.clientId, viewer.id)).orderBy(desc(projects.createdAt)).all()
-            : q.where(inArray(projects.status, [...IN_SHOP])).orderBy(desc(projects.createdAt)).all();
+            : q
+                .where(inArray(projects.status, [...IN_SHOP]))
+                .orderBy(desc(projects.createdAt))
+                .all();
       return rows.map((r) => forViewer(toProject(r), viewer));
     },
 
@@ -66,13 +101,15 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row) throw new NotFound('The project');
       if (viewer.role === 'client' && row.clientId !== viewer.id) throw new NotFound('The project');
-      if (viewer.role === 'builder' && !(IN_SHOP as readonly string[]).includes(row.status)) throw new NotFound('The project');
+      if (viewer.role === 'builder' && !(IN_SHOP as readonly string[]).includes(row.status))
+        throw new NotFound('The project');
       return forViewer(toProject(row), viewer);
     },
 
     /** For the owner pricing a request: the items' cut list, sheet layouts and pick list, laid out at 'thorough'. */
     layouts(viewer: User, id: string) {
-      if (viewer.role !== 'owner') throw new Forbidden('Only the owner sees a request’s layouts; builders have the job’s traveller.');
+      if (viewer.role !== 'owner')
+        throw new Forbidden('Only the owner sees a request’s layouts; builders have the job’s traveller.');
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row) throw new NotFound('The project');
       return travellerFor(db, id);
@@ -88,9 +125,24 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
       db.transaction((tx) => {
         addEvent(tx, id, 'comment', message, viewer.id);
         if (viewer.role === 'client') {
-          for (const owner of tx.select().from(users).where(eq(users.role, 'owner')).all()) queueMail(tx, owner.email, commentMail(shopName, owner.name, viewer.name, message, `${urls.shopUrl}/requests/${id}`));
+          for (const owner of tx.select().from(users).where(eq(users.role, 'owner')).all())
+            queueMail(
+              tx,
+              owner.email,
+              commentMail(shopName, owner.name, viewer.name, message, `${urls.shopUrl}/requests/${id}`),
+            );
         } else {
-          queueMail(tx, client.email, commentMail(shopName, client.name, `${viewer.name} at ${shopName}`, message, `${urls.portalUrl}/projects/${id}`));
+          queueMail(
+            tx,
+            client.email,
+            commentMail(
+              shopName,
+              client.name,
+              `${viewer.name} at ${shopName}`,
+              message,
+              `${urls.portalUrl}/projects/${id}`,
+            ),
+          );
         }
       });
       return this.get(viewer, id);
@@ -101,14 +153,29 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
       const { book, settings } = loadPricing(db);
       const issues = input.items.flatMap((item, i) => {
         const v = validateSpec(item.spec, book, settings);
-        return v.ok ? [] : v.issues.map((x) => ({ path: `items[${i}].spec${x.path ? `.${x.path}` : ''}`, message: x.message }));
+        return v.ok
+          ? []
+          : v.issues.map((x) => ({ path: `items[${i}].spec${x.path ? `.${x.path}` : ''}`, message: x.message }));
       });
       if (issues.length) throw new Invalid('Some items cannot be built as given.', issues);
       const id = randomUUID();
       db.transaction((tx) => {
         tx.insert(projects).values({ id, clientId: client.id, notes: input.notes }).run();
-        input.items.forEach((item, position) => tx.insert(projectItems).values({ id: randomUUID(), projectId: id, position, spec: item.spec, quantity: item.quantity }).run());
-        tx.insert(projectEvents).values({ id: randomUUID(), projectId: id, kind: 'requested', message: `${client.name} asked for an estimate.`, actorId: client.id }).run();
+        input.items.forEach((item, position) =>
+          tx
+            .insert(projectItems)
+            .values({ id: randomUUID(), projectId: id, position, spec: item.spec, quantity: item.quantity })
+            .run(),
+        );
+        tx.insert(projectEvents)
+          .values({
+            id: randomUUID(),
+            projectId: id,
+            kind: 'requested',
+            message: `${client.name} asked for an estimate.`,
+            actorId: client.id,
+          })
+          .run();
       });
       return this.get(client, id);
     },

@@ -12,13 +12,24 @@ import { Invalid, parse, RateLimited } from '../../middleware/errors';
  */
 export function quotesRoutes(db: Db, opts: { enabled: boolean; perMinute: number }): Router {
   const r = Router();
-  const limiter = rateLimit({ windowMs: 60_000, limit: opts.perMinute, skip: () => !opts.enabled, handler: () => { throw new RateLimited(); }, standardHeaders: 'draft-8', legacyHeaders: false });
+  const limiter = rateLimit({
+    windowMs: 60_000,
+    limit: opts.perMinute,
+    skip: () => !opts.enabled,
+    handler: () => {
+      throw new RateLimited();
+    },
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+  });
   r.post('/preview', limiter, (req, res) => {
     const body = parse(QuotePreviewBody, req.body);
     const { book, settings } = loadPricing(db);
     const issues = body.items.flatMap((item, i) => {
       const v = validateSpec(item.spec, book, settings);
-      return v.ok ? [] : v.issues.map((x) => ({ path: `items[${i}].spec${x.path ? `.${x.path}` : ''}`, message: x.message }));
+      return v.ok
+        ? []
+        : v.issues.map((x) => ({ path: `items[${i}].spec${x.path ? `.${x.path}` : ''}`, message: x.message }));
     });
     if (issues.length) throw new Invalid('Some items cannot be built as given.', issues);
     const e = estimate(body.items, book, settings, { effort: 'quick' });
@@ -29,7 +40,15 @@ export function quotesRoutes(db: Db, opts: { enabled: boolean; perMinute: number
         budget: { lowCents: budget.lowCents, highCents: budget.highCents },
         checks: e.checks.map((c) => ({ code: c.code, level: c.level, message: c.message })),
         items: e.pieces.map((p) => ({ drawingSvg: toSvg(p.elevation), massKg: Math.round(p.massKg * 10) / 10 })),
-        ...(owner ? { lines: e.lines, totals: e.totals, hoursByStage: e.hoursByStage, costCents: e.costCents, marginCents: e.marginCents } : {}),
+        ...(owner
+          ? {
+              lines: e.lines,
+              totals: e.totals,
+              hoursByStage: e.hoursByStage,
+              costCents: e.costCents,
+              marginCents: e.marginCents,
+            }
+          : {}),
       },
     });
   });

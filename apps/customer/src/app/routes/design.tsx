@@ -6,7 +6,8 @@ import { Configurator } from '../../features/configurator/components/configurato
 
 export function DesignRoute() {
   const { slug = '' } = useParams();
-  if (!(DESIGN_SLUGS as readonly string[]).includes(slug)) return <Notice tone="error">We have no design called “{slug}”.</Notice>;
+  if (!(DESIGN_SLUGS as readonly string[]).includes(slug))
+    return <Notice tone="error">We have no design called “{slug}”.</Notice>;
   const d = designs[slug as DesignSlug];
   return (
     <>

@@ -4,7 +4,9 @@ import { ForgotPasswordForm } from '@benchwright/ui/auth';
 export function ForgotPasswordRoute() {
   return (
     <Panel title="Forgot your password?">
-      <p className="mb-4 text-ink-soft">Give the e-mail you signed up with and we will send a link to choose a new password.</p>
+      <p className="mb-4 text-ink-soft">
+        Give the e-mail you signed up with and we will send a link to choose a new password.
+      </p>
       <ForgotPasswordForm />
     </Panel>
   );

@@ -28,14 +28,20 @@ export function ProjectRoute() {
           ← My projects
         </Link>
       </p>
-      <h1 className="mb-1 text-2xl font-bold">{p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${itemName(i.spec)}`).join(', ')}</h1>
+      <h1 className="mb-1 text-2xl font-bold">
+        {p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${itemName(i.spec)}`).join(', ')}
+      </h1>
       <p className="mb-4">
         <span className="rounded bg-sage-light px-2 py-0.5" aria-label="Status">
           {STATUS_WORDS[p.status]}
         </span>
       </p>
-      {returning && (p.status === 'accepted' || p.status === 'ready') ? <Notice>Thank you: your payment is being recorded. This page updates by itself.</Notice> : null}
-      {returning && p.status === 'deposit_paid' ? <Notice tone="ok">Thank you: your deposit is paid and your piece is on our production board.</Notice> : null}
+      {returning && (p.status === 'accepted' || p.status === 'ready') ? (
+        <Notice>Thank you: your payment is being recorded. This page updates by itself.</Notice>
+      ) : null}
+      {returning && p.status === 'deposit_paid' ? (
+        <Notice tone="ok">Thank you: your deposit is paid and your piece is on our production board.</Notice>
+      ) : null}
       {p.status === 'ready' && accepted ? (
         <Panel title="Your piece is ready">
           <p className="mb-3">
@@ -47,12 +53,22 @@ export function ProjectRoute() {
           </Button>
         </Panel>
       ) : null}
-      {latest ? <EstimateView estimateId={(accepted ?? latest).id} canAct={me.data.role === 'client'} depositDue={p.status === 'accepted'} /> : <Panel title="Estimate">We are working out your estimate; you will get an e-mail when it is ready.</Panel>}
+      {latest ? (
+        <EstimateView
+          estimateId={(accepted ?? latest).id}
+          canAct={me.data.role === 'client'}
+          depositDue={p.status === 'accepted'}
+        />
+      ) : (
+        <Panel title="Estimate">We are working out your estimate; you will get an e-mail when it is ready.</Panel>
+      )}
       <Panel title="Timeline">
         <ol className="border-l-2 border-wood pl-4" aria-label="Timeline">
           {p.timeline.map((t) => (
             <li key={t.id} className="mb-2">
-              <span className="text-sm text-ink-soft">{new Date(t.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}</span>
+              <span className="text-sm text-ink-soft">
+                {new Date(t.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}
+              </span>
               <br />
               {t.by ? <span className="font-semibold">{t.by}: </span> : null}
               {t.message}
@@ -67,5 +83,12 @@ export function ProjectRoute() {
 
 function ProjectComment({ projectId }: { projectId: string }) {
   const comment = useComment(projectId);
-  return <CommentForm label="Write to the shop" pending={comment.isPending} error={comment.error?.message} onSend={(message, done) => comment.mutate({ message }, { onSuccess: done })} />;
+  return (
+    <CommentForm
+      label="Write to the shop"
+      pending={comment.isPending}
+      error={comment.error?.message}
+      onSend={(message, done) => comment.mutate({ message }, { onSuccess: done })}
+    />
+  );
 }

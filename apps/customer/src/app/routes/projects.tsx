@@ -11,8 +11,14 @@ export function ProjectsRoute() {
   if (!me.data) return <Navigate to={paths.signIn.getHref(paths.projects.getHref())} replace />;
   return (
     <>
-      {params.get('welcome') ? <Notice tone="ok">Welcome, {me.data.name}. We have sent a link to {me.data.email}: open it to confirm your e-mail.</Notice> : null}
-      {!me.data.emailVerified && !params.get('welcome') ? <Notice>Your e-mail is not confirmed yet: look for our message at {me.data.email}.</Notice> : null}
+      {params.get('welcome') ? (
+        <Notice tone="ok">
+          Welcome, {me.data.name}. We have sent a link to {me.data.email}: open it to confirm your e-mail.
+        </Notice>
+      ) : null}
+      {!me.data.emailVerified && !params.get('welcome') ? (
+        <Notice>Your e-mail is not confirmed yet: look for our message at {me.data.email}.</Notice>
+      ) : null}
       <Panel title="My projects">
         <ProjectList />
       </Panel>

@@ -9,7 +9,11 @@ export function ResetPasswordRoute() {
   const token = params.get('token') ?? '';
   return (
     <Panel title="Choose a new password">
-      {token ? <ResetPasswordForm token={token} onDone={() => navigate(paths.projects.getHref())} /> : <Notice tone="error">This link has no reset code. Open the link from the e-mail again.</Notice>}
+      {token ? (
+        <ResetPasswordForm token={token} onDone={() => navigate(paths.projects.getHref())} />
+      ) : (
+        <Notice tone="error">This link has no reset code. Open the link from the e-mail again.</Notice>
+      )}
     </Panel>
   );
 }

@@ -11,8 +11,13 @@ export function SignInRoute() {
     <Panel title="Sign in">
       <SignInForm onDone={() => navigate(redirect?.startsWith('/') ? redirect : paths.projects.getHref())} />
       <p className="mt-4">
-        <Link to={paths.forgotPassword.getHref()} className="text-wood underline">Forgot your password?</Link> · New here?{' '}
-        <Link to={paths.signUp.getHref()} className="text-wood underline">Create an account</Link>
+        <Link to={paths.forgotPassword.getHref()} className="text-wood underline">
+          Forgot your password?
+        </Link>{' '}
+        · New here?{' '}
+        <Link to={paths.signUp.getHref()} className="text-wood underline">
+          Create an account
+        </Link>
       </p>
     </Panel>
   );

@@ -7,10 +7,15 @@ export function SignUpRoute() {
   const navigate = useNavigate();
   return (
     <Panel title="Create your account">
-      <p className="mb-4 text-ink-soft">With an account you can ask for estimates, follow your piece through the shop and pay online.</p>
+      <p className="mb-4 text-ink-soft">
+        With an account you can ask for estimates, follow your piece through the shop and pay online.
+      </p>
       <SignUpForm onDone={() => navigate(`${paths.projects.getHref()}?welcome=1`)} />
       <p className="mt-4">
-        Already have one? <Link to={paths.signIn.getHref()} className="text-wood underline">Sign in</Link>
+        Already have one?{' '}
+        <Link to={paths.signIn.getHref()} className="text-wood underline">
+          Sign in
+        </Link>
       </p>
     </Panel>
   );

@@ -17,11 +17,17 @@ export function VerifyEmailRoute() {
   }, [token, verify]);
   return (
     <Panel title="Confirm your e-mail">
-      {!token ? <Notice tone="error">This link has no confirmation code. Open the link from the e-mail again.</Notice> : null}
+      {!token ? (
+        <Notice tone="error">This link has no confirmation code. Open the link from the e-mail again.</Notice>
+      ) : null}
       {verify.isPending ? <p>Confirming…</p> : null}
-      {verify.isSuccess ? <Notice tone="ok">Thank you: your e-mail address {verify.data.user.email} is confirmed.</Notice> : null}
+      {verify.isSuccess ? (
+        <Notice tone="ok">Thank you: your e-mail address {verify.data.user.email} is confirmed.</Notice>
+      ) : null}
       {verify.isError ? <Notice tone="error">{verify.error.message}</Notice> : null}
-      <Link to={paths.projects.getHref()} className="text-wood underline">Go to my projects</Link>
+      <Link to={paths.projects.getHref()} className="text-wood underline">
+        Go to my projects
+      </Link>
     </Panel>
   );
 }

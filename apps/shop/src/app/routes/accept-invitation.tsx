@@ -8,7 +8,9 @@ import { applyServerIssues, Button, Field, Notice, Panel } from '@benchwright/ui
 import { paths } from '../../config/paths';
 import { useAcceptInvitation } from '../../features/auth/api/accept-invitation';
 
-const SetPassword = z.object({ password: z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(200) });
+const SetPassword = z.object({
+  password: z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(200),
+});
 
 export function AcceptInvitationRoute() {
   const [params] = useSearchParams();
@@ -25,13 +27,21 @@ export function AcceptInvitationRoute() {
       setMessage(applyServerIssues(err, form.setError, ['password']));
     }
   });
-  if (!token) return <Notice tone="error">This invitation link has no code. Open the link from the e-mail again.</Notice>;
+  if (!token)
+    return <Notice tone="error">This invitation link has no code. Open the link from the e-mail again.</Notice>;
   return (
     <Panel title="Set your password">
       <p className="mb-4 text-ink-soft">Welcome to the shop. Choose a password to finish setting up your account.</p>
       {message ? <Notice tone="error">{message}</Notice> : null}
       <form onSubmit={onSubmit} noValidate aria-label="Set your password">
-        <Field label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." error={form.formState.errors.password?.message} {...form.register('password')} />
+        <Field
+          label="Password"
+          type="password"
+          autoComplete="new-password"
+          hint="At least 10 characters."
+          error={form.formState.errors.password?.message}
+          {...form.register('password')}
+        />
         <Button type="submit">Set password and sign in</Button>
       </form>
     </Panel>

@@ -15,7 +15,10 @@ export function JobRoute() {
   const staff = (team.data ?? []).filter((u) => u.role !== 'client');
   return (
     <RoleGate allow={canSeeBoard}>
-      <TravellerPage id={id} assignment={owner && team.data ? (job) => <JobAssignment key={job.id} job={job} staff={staff} /> : undefined} />
+      <TravellerPage
+        id={id}
+        assignment={owner && team.data ? (job) => <JobAssignment key={job.id} job={job} staff={staff} /> : undefined}
+      />
     </RoleGate>
   );
 }

@@ -17,7 +17,11 @@ export function ResetPasswordRoute() {
   const token = params.get('token') ?? '';
   return (
     <Panel title="Choose a new password">
-      {token ? <ResetPasswordForm token={token} onDone={() => navigate(paths.home.getHref())} /> : <Notice tone="error">This link has no reset code.</Notice>}
+      {token ? (
+        <ResetPasswordForm token={token} onDone={() => navigate(paths.home.getHref())} />
+      ) : (
+        <Notice tone="error">This link has no reset code.</Notice>
+      )}
     </Panel>
   );
 }

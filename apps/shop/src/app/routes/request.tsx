@@ -23,7 +23,8 @@ function RequestPage({ id }: { id: string }) {
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
   const p = q.data;
   const latest = p.estimates.at(-1);
-  const canStart = ['requested', 'estimating', 'estimate_sent', 'expired'].includes(p.status) && latest?.status !== 'draft';
+  const canStart =
+    ['requested', 'estimating', 'estimate_sent', 'expired'].includes(p.status) && latest?.status !== 'draft';
   return (
     <>
       <p className="mb-2">
@@ -43,7 +44,11 @@ function RequestPage({ id }: { id: string }) {
           <div className="mt-4 flex gap-3">
             {create.isError ? <Notice tone="error">{create.error.message}</Notice> : null}
             <Button onClick={() => create.mutate({ projectId: p.id, source: 'engine' })} disabled={create.isPending}>
-              {create.isPending ? 'Pricing the cut list and sheet layouts…' : latest ? 'Price a new revision' : 'Price an estimate'}
+              {create.isPending
+                ? 'Pricing the cut list and sheet layouts…'
+                : latest
+                  ? 'Price a new revision'
+                  : 'Price an estimate'}
             </Button>
             {latest ? (
               <Button variant="quiet" onClick={() => create.mutate({ projectId: p.id, source: 'copy' })}>
@@ -86,7 +91,9 @@ function Conversation({ project }: { project: Project }) {
         <ol className="mb-3 border-l-2 border-wood pl-4" aria-label="Comments">
           {comments.map((c) => (
             <li key={c.id} className="mb-2">
-              <span className="text-sm text-ink-soft">{new Date(c.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}</span>
+              <span className="text-sm text-ink-soft">
+                {new Date(c.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}
+              </span>
               <br />
               <span className="font-semibold">{c.by}: </span>
               {c.message}
@@ -96,7 +103,12 @@ function Conversation({ project }: { project: Project }) {
       ) : (
         <p className="mb-3 text-ink-soft">No comments yet.</p>
       )}
-      <CommentForm label={`Write to ${project.client.name}`} pending={comment.isPending} error={comment.error?.message} onSend={(message, done) => comment.mutate({ message }, { onSuccess: done })} />
+      <CommentForm
+        label={`Write to ${project.client.name}`}
+        pending={comment.isPending}
+        error={comment.error?.message}
+        onSend={(message, done) => comment.mutate({ message }, { onSuccess: done })}
+      />
     </Panel>
   );
 }

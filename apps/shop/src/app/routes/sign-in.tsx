@@ -9,7 +9,9 @@ export function SignInRoute() {
     <Panel title="Sign in to the shop">
       <SignInForm onDone={() => navigate(paths.home.getHref())} />
       <p className="mt-4">
-        <Link to={paths.forgotPassword.getHref()} className="text-wood underline">Forgot your password?</Link>
+        <Link to={paths.forgotPassword.getHref()} className="text-wood underline">
+          Forgot your password?
+        </Link>
       </p>
     </Panel>
   );

@@ -11,7 +11,9 @@ export function TeamRoute() {
         <TeamList />
       </Panel>
       <Panel title="Invite a builder">
-        <p className="mb-4 text-ink-soft">Builders see the production board, travellers and hour logs; never prices or payments.</p>
+        <p className="mb-4 text-ink-soft">
+          Builders see the production board, travellers and hour logs; never prices or payments.
+        </p>
         <InviteForm />
       </Panel>
     </RoleGate>

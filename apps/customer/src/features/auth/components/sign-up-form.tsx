@@ -24,7 +24,14 @@ export function SignUpForm({ onDone }: { onDone: () => void }) {
       {message ? <Notice tone="error">{message}</Notice> : null}
       <Field label="Your name" autoComplete="name" error={e.name?.message} {...form.register('name')} />
       <Field label="E-mail" type="email" autoComplete="email" error={e.email?.message} {...form.register('email')} />
-      <Field label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." error={e.password?.message} {...form.register('password')} />
+      <Field
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters."
+        error={e.password?.message}
+        {...form.register('password')}
+      />
       <Button type="submit" disabled={form.formState.isSubmitting}>
         Create account
       </Button>

@@ -12,7 +12,8 @@ export interface QuotePreview {
 export function usePreview(spec: unknown, quantity: number) {
   return useQuery({
     queryKey: ['quote-preview', spec, quantity],
-    queryFn: async () => (await api<{ quote: QuotePreview }>('/quotes/preview', { body: { items: [{ spec, quantity }] } })).quote,
+    queryFn: async () =>
+      (await api<{ quote: QuotePreview }>('/quotes/preview', { body: { items: [{ spec, quantity }] } })).quote,
     placeholderData: keepPreviousData,
     retry: false,
     staleTime: 5 * 60_000,

@@ -19,7 +19,10 @@ interface Bay {
   widthMm: number | null;
   compartments: Compartment[];
 }
-type Spec = { design: DesignSlug; widthMm: number; heightMm: number; depthMm: number; bays: Bay[] } & Record<string, unknown>;
+type Spec = { design: DesignSlug; widthMm: number; heightMm: number; depthMm: number; bays: Bay[] } & Record<
+  string,
+  unknown
+>;
 
 const KIND_LABELS: Record<Compartment['kind'], string> = { drawer: 'Drawer', door: 'Door', open: 'Open shelves' };
 const DIMENSIONS = [
@@ -54,7 +57,19 @@ function plainPath(path: string): string {
     .replace(/^, /, '');
 }
 
-function DimensionField({ label, mm, unit, limits, onChange }: { label: string; mm: number; unit: LengthUnit; limits: [number, number]; onChange: (mm: number) => void }) {
+function DimensionField({
+  label,
+  mm,
+  unit,
+  limits,
+  onChange,
+}: {
+  label: string;
+  mm: number;
+  unit: LengthUnit;
+  limits: [number, number];
+  onChange: (mm: number) => void;
+}) {
   const [text, setText] = useState(formatLength(mm, { unit }));
   const [error, setError] = useState<string | undefined>();
   return (
@@ -80,8 +95,19 @@ function DimensionField({ label, mm, unit, limits, onChange }: { label: string; 
   );
 }
 
-function BayEditor({ bay, index, onChange, onRemove }: { bay: Bay; index: number; onChange: (b: Bay) => void; onRemove?: () => void }) {
-  const set = (k: number, c: Partial<Compartment>) => onChange({ ...bay, compartments: bay.compartments.map((x, i) => (i === k ? { ...x, ...c } : x)) });
+function BayEditor({
+  bay,
+  index,
+  onChange,
+  onRemove,
+}: {
+  bay: Bay;
+  index: number;
+  onChange: (b: Bay) => void;
+  onRemove?: () => void;
+}) {
+  const set = (k: number, c: Partial<Compartment>) =>
+    onChange({ ...bay, compartments: bay.compartments.map((x, i) => (i === k ? { ...x, ...c } : x)) });
   return (
     <fieldset className="mb-3 rounded border border-rule p-3">
       <legend className="px-1 font-semibold">Bay {index + 1} (from the floor up)</legend>
@@ -89,7 +115,17 @@ function BayEditor({ bay, index, onChange, onRemove }: { bay: Bay; index: number
         <div key={k} className="mb-2 flex flex-wrap items-center gap-2 text-sm">
           <label>
             Section {k + 1}
-            <select aria-label={`Bay ${index + 1} section ${k + 1}`} className="ml-1 rounded border border-rule bg-white" value={c.kind} onChange={(e) => set(k, { kind: e.target.value as Compartment['kind'], ...(e.target.value === 'drawer' ? { adjustableShelves: 0, fixedShelves: 0 } : {}) })}>
+            <select
+              aria-label={`Bay ${index + 1} section ${k + 1}`}
+              className="ml-1 rounded border border-rule bg-white"
+              value={c.kind}
+              onChange={(e) =>
+                set(k, {
+                  kind: e.target.value as Compartment['kind'],
+                  ...(e.target.value === 'drawer' ? { adjustableShelves: 0, fixedShelves: 0 } : {}),
+                })
+              }
+            >
               {Object.entries(KIND_LABELS).map(([v, l]) => (
                 <option key={v} value={v}>
                   {l}
@@ -100,7 +136,11 @@ function BayEditor({ bay, index, onChange, onRemove }: { bay: Bay; index: number
           {c.kind === 'door' ? (
             <label>
               doors
-              <select className="ml-1 rounded border border-rule bg-white" value={c.doors} onChange={(e) => set(k, { doors: Number(e.target.value) as 1 | 2 })}>
+              <select
+                className="ml-1 rounded border border-rule bg-white"
+                value={c.doors}
+                onChange={(e) => set(k, { doors: Number(e.target.value) as 1 | 2 })}
+              >
                 <option value={1}>1</option>
                 <option value={2}>2</option>
               </select>
@@ -109,11 +149,26 @@ function BayEditor({ bay, index, onChange, onRemove }: { bay: Bay; index: number
           {c.kind !== 'drawer' ? (
             <label>
               shelves
-              <input aria-label={`Bay ${index + 1} section ${k + 1} shelves`} type="number" min={0} max={8} className="ml-1 w-14 rounded border border-rule bg-white px-1" value={c.adjustableShelves} onChange={(e) => set(k, { adjustableShelves: Math.max(0, Math.min(8, Math.round(Number(e.target.value) || 0))) })} />
+              <input
+                aria-label={`Bay ${index + 1} section ${k + 1} shelves`}
+                type="number"
+                min={0}
+                max={8}
+                className="ml-1 w-14 rounded border border-rule bg-white px-1"
+                value={c.adjustableShelves}
+                onChange={(e) =>
+                  set(k, { adjustableShelves: Math.max(0, Math.min(8, Math.round(Number(e.target.value) || 0))) })
+                }
+              />
             </label>
           ) : null}
           {bay.compartments.length > 1 ? (
-            <Button type="button" variant="quiet" className="px-1 py-0" onClick={() => onChange({ ...bay, compartments: bay.compartments.filter((_, i) => i !== k) })}>
+            <Button
+              type="button"
+              variant="quiet"
+              className="px-1 py-0"
+              onClick={() => onChange({ ...bay, compartments: bay.compartments.filter((_, i) => i !== k) })}
+            >
               Remove
             </Button>
           ) : null}
@@ -121,7 +176,20 @@ function BayEditor({ bay, index, onChange, onRemove }: { bay: Bay; index: number
       ))}
       <div className="flex gap-3">
         {bay.compartments.length < 8 ? (
-          <Button type="button" variant="quiet" className="px-0" onClick={() => onChange({ ...bay, compartments: [...bay.compartments, { kind: 'drawer', heightMm: null, doors: 1, adjustableShelves: 0, fixedShelves: 0 }] })}>
+          <Button
+            type="button"
+            variant="quiet"
+            className="px-0"
+            onClick={() =>
+              onChange({
+                ...bay,
+                compartments: [
+                  ...bay.compartments,
+                  { kind: 'drawer', heightMm: null, doors: 1, adjustableShelves: 0, fixedShelves: 0 },
+                ],
+              })
+            }
+          >
             Add a section
           </Button>
         ) : null}
@@ -144,7 +212,7 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
   const design = designs[slug];
   const [spec, setSpec] = useState<Spec>(() => {
     const saved = sessionStorage.getItem(draftKey(slug));
-    return saved ? (JSON.parse(saved) as Spec) : (defaultsOf(slug));
+    return saved ? (JSON.parse(saved) as Spec) : defaultsOf(slug);
   });
   const [quantity, setQuantity] = useState(1);
   const [unit, setUnit] = useState<LengthUnit>('in');
@@ -167,29 +235,64 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
         <div role="radiogroup" aria-label="Units" className="mb-3 flex gap-3 text-sm">
           {(['in', 'mm'] as const).map((u) => (
             <label key={u}>
-              <input type="radio" name="unit" checked={unit === u} onChange={() => setUnit(u)} /> {u === 'in' ? 'inches' : 'millimetres'}
+              <input type="radio" name="unit" checked={unit === u} onChange={() => setUnit(u)} />{' '}
+              {u === 'in' ? 'inches' : 'millimetres'}
             </label>
           ))}
         </div>
         {DIMENSIONS.map(([k, label]) => (
-          <DimensionField key={`${k}-${unit}-${resets}`} label={label} mm={spec[k]} unit={unit} limits={limits[k]} onChange={(mm) => setSpec((s) => ({ ...s, [k]: mm }))} />
+          <DimensionField
+            key={`${k}-${unit}-${resets}`}
+            label={label}
+            mm={spec[k]}
+            unit={unit}
+            limits={limits[k]}
+            onChange={(mm) => setSpec((s) => ({ ...s, [k]: mm }))}
+          />
         ))}
         {spec.bays.map((b, i) => (
-          <BayEditor key={i} bay={b} index={i} onChange={(nb) => setSpec((s) => ({ ...s, bays: s.bays.map((x, j) => (j === i ? nb : x)) }))} onRemove={spec.bays.length > limits.bays[0] ? () => setSpec((s) => ({ ...s, bays: s.bays.filter((_, j) => j !== i) })) : undefined} />
+          <BayEditor
+            key={i}
+            bay={b}
+            index={i}
+            onChange={(nb) => setSpec((s) => ({ ...s, bays: s.bays.map((x, j) => (j === i ? nb : x)) }))}
+            onRemove={
+              spec.bays.length > limits.bays[0]
+                ? () => setSpec((s) => ({ ...s, bays: s.bays.filter((_, j) => j !== i) }))
+                : undefined
+            }
+          />
         ))}
         {spec.bays.length < limits.bays[1] ? (
-          <Button type="button" variant="quiet" className="mb-3 px-0" onClick={() => setSpec((s) => ({ ...s, bays: [...s.bays, structuredClone(s.bays[s.bays.length - 1])] }))}>
+          <Button
+            type="button"
+            variant="quiet"
+            className="mb-3 px-0"
+            onClick={() => setSpec((s) => ({ ...s, bays: [...s.bays, structuredClone(s.bays[s.bays.length - 1])] }))}
+          >
             Add a bay
           </Button>
         ) : null}
         <label className="mb-3 block">
           <span className="block font-semibold">How many</span>
-          <input type="number" min={1} max={20} className="w-20 rounded border border-rule bg-white px-2 py-1" value={quantity} onChange={(e) => setQuantity(Math.max(1, Math.min(20, Math.round(Number(e.target.value) || 1))))} />
+          <input
+            type="number"
+            min={1}
+            max={20}
+            className="w-20 rounded border border-rule bg-white px-2 py-1"
+            value={quantity}
+            onChange={(e) => setQuantity(Math.max(1, Math.min(20, Math.round(Number(e.target.value) || 1))))}
+          />
         </label>
-        <Button type="button" variant="quiet" className="px-0" onClick={() => {
+        <Button
+          type="button"
+          variant="quiet"
+          className="px-0"
+          onClick={() => {
             setSpec(defaultsOf(slug));
             setResets((n) => n + 1);
-          }}>
+          }}
+        >
           Back to our standard size
         </Button>
       </Panel>
@@ -197,7 +300,11 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
       <div>
         <Panel title={design.name}>
           {q?.items[0] ? (
-            <figure aria-label={`Drawing of the ${design.name.toLowerCase()}`} className={`mb-3 [&>svg]:h-auto [&>svg]:max-h-[26rem] [&>svg]:w-full ${preview.isPlaceholderData ? 'opacity-60' : ''}`} dangerouslySetInnerHTML={{ __html: q.items[0].drawingSvg }} />
+            <figure
+              aria-label={`Drawing of the ${design.name.toLowerCase()}`}
+              className={`mb-3 [&>svg]:h-auto [&>svg]:max-h-[26rem] [&>svg]:w-full ${preview.isPlaceholderData ? 'opacity-60' : ''}`}
+              dangerouslySetInnerHTML={{ __html: q.items[0].drawingSvg }}
+            />
           ) : null}
           {issues.length ? (
             <Notice tone="error">
@@ -221,7 +328,8 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
                 {quantity > 1 ? ` for ${quantity}` : ''}
               </p>
               <p className="mb-3 text-sm text-ink-soft">
-                A budget from the real cut list and sheet layouts at today’s prices, tax included; your estimate will be exact. About {Math.round(q.items[0].massKg)} kg each.
+                A budget from the real cut list and sheet layouts at today’s prices, tax included; your estimate will be
+                exact. About {Math.round(q.items[0].massKg)} kg each.
               </p>
               {q.checks.length ? (
                 <ul className="mb-3 list-disc pl-5 text-sm">
@@ -244,7 +352,7 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
               onSubmit={(e) => {
                 e.preventDefault();
                 create.mutate(
-                  { items: [{ spec: spec as CreateProjectBody["items"][number]["spec"], quantity }], notes },
+                  { items: [{ spec: spec as CreateProjectBody['items'][number]['spec'], quantity }], notes },
                   {
                     onSuccess: (p) => {
                       sessionStorage.removeItem(draftKey(slug));
@@ -256,7 +364,13 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
             >
               <label className="mb-3 block">
                 <span className="block font-semibold">Anything the shop should know</span>
-                <textarea className="w-full rounded border border-rule bg-white px-2 py-1" rows={3} maxLength={4000} value={notes} onChange={(e) => setNotes(e.target.value)} />
+                <textarea
+                  className="w-full rounded border border-rule bg-white px-2 py-1"
+                  rows={3}
+                  maxLength={4000}
+                  value={notes}
+                  onChange={(e) => setNotes(e.target.value)}
+                />
               </label>
               {create.isError ? <Notice tone="error">{create.error.message}</Notice> : null}
               <Button type="submit" disabled={create.isPending || issues.length > 0}>

@@ -3,7 +3,8 @@ import { api } from '@benchwright/ui';
 import type { ClientEstimate } from './get-estimate';
 import { estimateQueryOptions } from './get-estimate';
 
-export const acceptEstimate = ({ id, acceptedName }: { id: string; acceptedName: string }) => api<{ estimate: ClientEstimate }>(`/estimates/${encodeURIComponent(id)}/accept`, { body: { acceptedName } });
+export const acceptEstimate = ({ id, acceptedName }: { id: string; acceptedName: string }) =>
+  api<{ estimate: ClientEstimate }>(`/estimates/${encodeURIComponent(id)}/accept`, { body: { acceptedName } });
 export function useAcceptEstimate() {
   const qc = useQueryClient();
   return useMutation({

@@ -79,8 +79,16 @@ function AcceptForm({ e }: { e: ClientEstimate }) {
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Accept the estimate">
       {message ? <Notice tone="error">{message}</Notice> : null}
-      <p className="mb-3">To accept revision {e.revision} for <Money cents={e.totals.totalCents} />, type your full name. It is recorded with the date and time.</p>
-      <Field label="Your full name" autoComplete="name" error={form.formState.errors.acceptedName?.message} {...form.register('acceptedName')} />
+      <p className="mb-3">
+        To accept revision {e.revision} for <Money cents={e.totals.totalCents} />, type your full name. It is recorded
+        with the date and time.
+      </p>
+      <Field
+        label="Your full name"
+        autoComplete="name"
+        error={form.formState.errors.acceptedName?.message}
+        {...form.register('acceptedName')}
+      />
       <Button type="submit" disabled={form.formState.isSubmitting}>
         Accept the estimate
       </Button>
@@ -94,7 +102,8 @@ function PayDeposit({ e }: { e: ClientEstimate }) {
     <div>
       {checkout.isError ? <Notice tone="error">{checkout.error.message}</Notice> : null}
       <p className="mb-3">
-        Accepted by {e.acceptedName}. The deposit of <Money cents={e.totals.depositCents} /> starts the work: we order material once it arrives.
+        Accepted by {e.acceptedName}. The deposit of <Money cents={e.totals.depositCents} /> starts the work: we order
+        material once it arrives.
       </p>
       <Button onClick={() => checkout.mutate(e.id)} disabled={checkout.isPending}>
         Pay the deposit
@@ -104,7 +113,15 @@ function PayDeposit({ e }: { e: ClientEstimate }) {
 }
 
 /** `depositDue`: the project waits for its deposit (once paid, the estimate stays accepted but asks for nothing). */
-export function EstimateView({ estimateId, canAct, depositDue }: { estimateId: string; canAct: boolean; depositDue: boolean }) {
+export function EstimateView({
+  estimateId,
+  canAct,
+  depositDue,
+}: {
+  estimateId: string;
+  canAct: boolean;
+  depositDue: boolean;
+}) {
   const q = useEstimate(estimateId);
   if (q.isPending) return <p>Loading the estimate…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
@@ -112,7 +129,9 @@ export function EstimateView({ estimateId, canAct, depositDue }: { estimateId: s
   return (
     <Panel title={`Estimate ${e.number}, revision ${e.revision}`}>
       <p className="mb-3 text-ink-soft">
-        {e.status === 'sent' && e.validUntil ? `Valid until ${new Date(e.validUntil).toLocaleDateString('en-US', { dateStyle: 'long' })}. ` : null}
+        {e.status === 'sent' && e.validUntil
+          ? `Valid until ${new Date(e.validUntil).toLocaleDateString('en-US', { dateStyle: 'long' })}. `
+          : null}
         <a href={paths.estimatePdf.getHref(e.id)} className="text-wood underline">
           Download the PDF
         </a>
@@ -136,7 +155,12 @@ export function EstimateView({ estimateId, canAct, depositDue }: { estimateId: s
       <div className="mt-6">
         {e.status === 'sent' && canAct ? <AcceptForm e={e} /> : null}
         {e.status === 'accepted' && canAct && depositDue ? <PayDeposit e={e} /> : null}
-        {e.status === 'accepted' && !depositDue ? <p className="text-ink-soft">Accepted by {e.acceptedName}{e.acceptedAt ? ` on ${new Date(e.acceptedAt).toLocaleDateString('en-US', { dateStyle: 'long' })}` : ''}.</p> : null}
+        {e.status === 'accepted' && !depositDue ? (
+          <p className="text-ink-soft">
+            Accepted by {e.acceptedName}
+            {e.acceptedAt ? ` on ${new Date(e.acceptedAt).toLocaleDateString('en-US', { dateStyle: 'long' })}` : ''}.
+          </p>
+        ) : null}
         {e.status === 'superseded' ? <Notice>A newer revision replaces this one.</Notice> : null}
         {e.status === 'expired' ? <Notice>This estimate expired; ask the shop for a new one.</Notice> : null}
       </div>

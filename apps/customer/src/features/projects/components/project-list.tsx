@@ -42,7 +42,8 @@ function ProjectRow({ p }: { p: Project }) {
         Asked on {new Date(p.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })}
         {latest ? (
           <>
-            {' '}· estimate revision {latest.revision}: <Money cents={latest.totals.totalCents} />
+            {' '}
+            · estimate revision {latest.revision}: <Money cents={latest.totals.totalCents} />
           </>
         ) : null}
       </p>
@@ -54,6 +55,17 @@ export function ProjectList() {
   const q = useProjects();
   if (q.isPending) return <p>Loading your projects…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
-  if (!q.data.length) return <p className="text-ink-soft">No projects yet. When you ask the shop for an estimate, it appears here with every step that follows.</p>;
-  return <ul aria-label="My projects">{q.data.map((p) => <ProjectRow key={p.id} p={p} />)}</ul>;
+  if (!q.data.length)
+    return (
+      <p className="text-ink-soft">
+        No projects yet. When you ask the shop for an estimate, it appears here with every step that follows.
+      </p>
+    );
+  return (
+    <ul aria-label="My projects">
+      {q.data.map((p) => (
+        <ProjectRow key={p.id} p={p} />
+      ))}
+    </ul>
+  );
 }

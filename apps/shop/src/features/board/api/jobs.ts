@@ -22,9 +22,19 @@ export interface Stage {
   position: number;
 }
 
-export const jobsQueryOptions = () => queryOptions({ queryKey: ['jobs'], queryFn: async () => (await api<{ jobs: Job[] }>('/jobs')).jobs, refetchInterval: 15_000 });
+export const jobsQueryOptions = () =>
+  queryOptions({
+    queryKey: ['jobs'],
+    queryFn: async () => (await api<{ jobs: Job[] }>('/jobs')).jobs,
+    refetchInterval: 15_000,
+  });
 export const useJobs = () => useQuery(jobsQueryOptions());
-export const stagesQueryOptions = () => queryOptions({ queryKey: ['stages'], queryFn: async () => (await api<{ stages: Stage[] }>('/jobs/stages')).stages, staleTime: 5 * 60_000 });
+export const stagesQueryOptions = () =>
+  queryOptions({
+    queryKey: ['stages'],
+    queryFn: async () => (await api<{ stages: Stage[] }>('/jobs/stages')).stages,
+    staleTime: 5 * 60_000,
+  });
 export const useStages = () => useQuery(stagesQueryOptions());
 
 /** Moves a job; the board shows the move at once and takes it back if the server refuses. */
@@ -32,11 +42,14 @@ export function useMoveJob() {
   const qc = useQueryClient();
   const key = jobsQueryOptions().queryKey;
   return useMutation({
-    mutationFn: ({ id, stageKey }: { id: string; stageKey: StageKey }) => api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}`, { method: 'PATCH', body: { stageKey } }),
+    mutationFn: ({ id, stageKey }: { id: string; stageKey: StageKey }) =>
+      api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}`, { method: 'PATCH', body: { stageKey } }),
     onMutate: async ({ id, stageKey }) => {
       await qc.cancelQueries({ queryKey: key });
       const before = qc.getQueryData(key);
-      qc.setQueryData(key, (jobs: Job[] | undefined) => jobs?.map((j) => (j.id === id ? { ...j, stage: stageKey } : j)));
+      qc.setQueryData(key, (jobs: Job[] | undefined) =>
+        jobs?.map((j) => (j.id === id ? { ...j, stage: stageKey } : j)),
+      );
       return { before };
     },
     onError: (_e, _v, ctx) => qc.setQueryData(key, ctx?.before),
@@ -47,7 +60,8 @@ export function useMoveJob() {
 export function useLogTime() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, stageKey, hours, note }: { id: string; stageKey: StageKey; hours: number; note: string }) => api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}/time`, { body: { stageKey, hours, note } }),
+    mutationFn: ({ id, stageKey, hours, note }: { id: string; stageKey: StageKey; hours: number; note: string }) =>
+      api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}/time`, { body: { stageKey, hours, note } }),
     onSuccess: () => qc.invalidateQueries({ queryKey: jobsQueryOptions().queryKey }),
   });
 }
@@ -55,14 +69,20 @@ export function useLogTime() {
 /** The job's traveller: cut list, sheet layouts, pick list, hours and cautions (laid out by the server; no prices). */
 export type JobTraveller = Traveller & { job: Job; units: LengthUnit };
 export const travellerQueryOptions = (id: string) =>
-  queryOptions({ queryKey: ['jobs', id, 'traveller'], queryFn: async () => (await api<{ traveller: JobTraveller }>(`/jobs/${encodeURIComponent(id)}/traveller`)).traveller, staleTime: 60_000 });
+  queryOptions({
+    queryKey: ['jobs', id, 'traveller'],
+    queryFn: async () =>
+      (await api<{ traveller: JobTraveller }>(`/jobs/${encodeURIComponent(id)}/traveller`)).traveller,
+    staleTime: 60_000,
+  });
 export const useTraveller = (id: string) => useQuery(travellerQueryOptions(id));
 
 /** The owner assigns a builder and a due date (either may be cleared with null). */
 export function useUpdateJob() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, ...body }: { id: string; builderId?: string | null; dueDate?: string | null }) => api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}`, { method: 'PATCH', body }),
+    mutationFn: ({ id, ...body }: { id: string; builderId?: string | null; dueDate?: string | null }) =>
+      api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}`, { method: 'PATCH', body }),
     onSuccess: (_r, v) => {
       void qc.invalidateQueries({ queryKey: jobsQueryOptions().queryKey });
       void qc.invalidateQueries({ queryKey: travellerQueryOptions(v.id).queryKey });

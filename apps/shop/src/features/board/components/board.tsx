@@ -1,4 +1,12 @@
-import { DndContext, PointerSensor, useDraggable, useDroppable, useSensor, useSensors, type DragEndEvent } from '@dnd-kit/core';
+import {
+  DndContext,
+  PointerSensor,
+  useDraggable,
+  useDroppable,
+  useSensor,
+  useSensors,
+  type DragEndEvent,
+} from '@dnd-kit/core';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button, Notice } from '@benchwright/ui';
@@ -7,9 +15,24 @@ import { useJobs, useLogTime, useMoveJob, useStages, type Job, type Stage, type 
 
 const h = (v: number | undefined) => (v ?? 0).toFixed(1);
 
-function StageSelect({ stages, value, onChange, label }: { stages: Stage[]; value: StageKey; onChange: (k: StageKey) => void; label?: string }) {
+function StageSelect({
+  stages,
+  value,
+  onChange,
+  label,
+}: {
+  stages: Stage[];
+  value: StageKey;
+  onChange: (k: StageKey) => void;
+  label?: string;
+}) {
   return (
-    <select aria-label={label} className="ml-1 rounded border border-rule bg-white" value={value} onChange={(e) => onChange(e.target.value as StageKey)}>
+    <select
+      aria-label={label}
+      className="ml-1 rounded border border-rule bg-white"
+      value={value}
+      onChange={(e) => onChange(e.target.value as StageKey)}
+    >
       {stages.map((s) => (
         <option key={s.key} value={s.key}>
           {s.label}
@@ -33,12 +56,20 @@ function LogHours({ job, stages }: { job: Job; stages: Stage[] }) {
         setError(null);
         const n = Number(hours);
         if (!(n > 0 && n <= 24)) return setError('enter between 0.1 and 24 hours');
-        log.mutate({ id: job.id, stageKey: stage, hours: n, note: '' }, { onSuccess: () => setHours(''), onError: (err) => setError(err.message) });
+        log.mutate(
+          { id: job.id, stageKey: stage, hours: n, note: '' },
+          { onSuccess: () => setHours(''), onError: (err) => setError(err.message) },
+        );
       }}
     >
       <label className="text-sm">
         Hours
-        <input className="ml-1 w-16 rounded border border-rule bg-white px-1" inputMode="decimal" value={hours} onChange={(e) => setHours(e.target.value)} />
+        <input
+          className="ml-1 w-16 rounded border border-rule bg-white px-1"
+          inputMode="decimal"
+          value={hours}
+          onChange={(e) => setHours(e.target.value)}
+        />
       </label>
       <label className="text-sm">
         on
@@ -76,7 +107,8 @@ function Card({ job, stages }: { job: Job; stages: Stage[] }) {
         {job.dueDate ? ` · due ${job.dueDate}` : ''}
       </p>
       <p className={`text-sm ${over ? 'font-semibold text-alert' : ''}`} aria-label="Hours used">
-        {h(job.hoursLogged.total)} of {h(job.hoursBudgeted.total)} h used; this stage {h(job.hoursLogged[job.stage])} of {h(job.hoursBudgeted[job.stage])} h
+        {h(job.hoursLogged.total)} of {h(job.hoursBudgeted.total)} h used; this stage {h(job.hoursLogged[job.stage])} of{' '}
+        {h(job.hoursBudgeted[job.stage])} h
       </p>
       <p className="mt-1 text-sm">
         <Link to={paths.job.getHref(job.id)} className="text-wood underline">
@@ -85,7 +117,12 @@ function Card({ job, stages }: { job: Job; stages: Stage[] }) {
       </p>
       <label className="mt-2 block text-sm">
         Move to{' '}
-        <StageSelect stages={stages} label={`Move ${job.clientName} to`} value={job.stage} onChange={(stageKey) => move.mutate({ id: job.id, stageKey })} />
+        <StageSelect
+          stages={stages}
+          label={`Move ${job.clientName} to`}
+          value={job.stage}
+          onChange={(stageKey) => move.mutate({ id: job.id, stageKey })}
+        />
       </label>
       <LogHours job={job} stages={stages} />
     </article>
@@ -95,7 +132,11 @@ function Card({ job, stages }: { job: Job; stages: Stage[] }) {
 function Column({ stage, jobs, stages }: { stage: Stage; jobs: Job[]; stages: Stage[] }) {
   const { setNodeRef, isOver } = useDroppable({ id: stage.key });
   return (
-    <section ref={setNodeRef} aria-label={stage.label} className={`min-h-40 w-64 shrink-0 rounded border-t-4 border-wood bg-paper-deep p-2 ${isOver ? 'outline-2 outline-sage' : ''}`}>
+    <section
+      ref={setNodeRef}
+      aria-label={stage.label}
+      className={`min-h-40 w-64 shrink-0 rounded border-t-4 border-wood bg-paper-deep p-2 ${isOver ? 'outline-2 outline-sage' : ''}`}
+    >
       <h2 className="mb-2 flex justify-between font-semibold">
         {stage.label} <span className="text-ink-soft">{jobs.length}</span>
       </h2>
@@ -123,7 +164,11 @@ export function Board() {
   return (
     <>
       {move.isError ? <Notice tone="error">{move.error.message}</Notice> : null}
-      {!jobs.data.length ? <p className="mb-3 text-ink-soft">No jobs in the shop yet. A job arrives here once its client has paid the deposit.</p> : null}
+      {!jobs.data.length ? (
+        <p className="mb-3 text-ink-soft">
+          No jobs in the shop yet. A job arrives here once its client has paid the deposit.
+        </p>
+      ) : null}
       <DndContext sensors={sensors} onDragEnd={onDragEnd}>
         <div className="flex gap-3 overflow-x-auto pb-4">
           {stages.data.map((s) => (

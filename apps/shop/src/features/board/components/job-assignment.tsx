@@ -15,12 +15,19 @@ export function JobAssignment({ job, staff }: { job: Job; staff: { id: string; n
       onSubmit={(e) => {
         e.preventDefault();
         setSaved(false);
-        update.mutate({ id: job.id, builderId: builderId || null, dueDate: dueDate || null }, { onSuccess: () => setSaved(true) });
+        update.mutate(
+          { id: job.id, builderId: builderId || null, dueDate: dueDate || null },
+          { onSuccess: () => setSaved(true) },
+        );
       }}
     >
       <label className="text-sm">
         Builder
-        <select className="ml-1 rounded border border-rule bg-white" value={builderId} onChange={(e) => setBuilderId(e.target.value)}>
+        <select
+          className="ml-1 rounded border border-rule bg-white"
+          value={builderId}
+          onChange={(e) => setBuilderId(e.target.value)}
+        >
           <option value="">not set</option>
           {staff.map((u) => (
             <option key={u.id} value={u.id}>
@@ -31,12 +38,21 @@ export function JobAssignment({ job, staff }: { job: Job; staff: { id: string; n
       </label>
       <label className="text-sm">
         Due
-        <input type="date" className="ml-1 rounded border border-rule bg-white px-1" value={dueDate} onChange={(e) => setDueDate(e.target.value)} />
+        <input
+          type="date"
+          className="ml-1 rounded border border-rule bg-white px-1"
+          value={dueDate}
+          onChange={(e) => setDueDate(e.target.value)}
+        />
       </label>
       <Button type="submit" variant="quiet" disabled={update.isPending}>
         Save
       </Button>
-      {saved ? <span role="status" className="text-sm text-sage">Saved.</span> : null}
+      {saved ? (
+        <span role="status" className="text-sm text-sage">
+          Saved.
+        </span>
+      ) : null}
       {update.isError ? <Notice tone="error">{update.error.message}</Notice> : null}
     </form>
   );

@@ -10,7 +10,13 @@ import { useStages, useTraveller, type JobTraveller } from '../api/jobs';
  * the budget, the cut list by piece, every sheet drawn with its cut order, the
  * hardware pick list, the banding to have on hand and the cautions.
  */
-export function TravellerPage({ id, assignment }: { id: string; assignment?: (job: JobTraveller['job']) => ReactNode }) {
+export function TravellerPage({
+  id,
+  assignment,
+}: {
+  id: string;
+  assignment?: (job: JobTraveller['job']) => ReactNode;
+}) {
   const q = useTraveller(id);
   const stages = useStages();
   if (q.isPending) return <p>Laying out the sheets for this job…</p>;
@@ -36,7 +42,8 @@ export function TravellerPage({ id, assignment }: { id: string; assignment?: (jo
         </span>
       </header>
       <p className="mb-4">
-        {t.job.project.notes ? `“${t.job.project.notes}” · ` : ''}now in {stageLabel(t.job.stage)} · builder {t.job.builder?.name ?? 'not set'}
+        {t.job.project.notes ? `“${t.job.project.notes}” · ` : ''}now in {stageLabel(t.job.stage)} · builder{' '}
+        {t.job.builder?.name ?? 'not set'}
         {t.job.dueDate ? ` · due ${t.job.dueDate}` : ''} · about {Math.round(t.massKg)} kg finished
       </p>
       {assignment?.(t.job)}

@@ -20,10 +20,18 @@ interface EditorForm {
   discount: string;
 }
 
-
 function formOf(e: OwnerEstimate): EditorForm {
   return {
-    lines: e.lines.map((l) => ({ id: l.id, group: l.group, description: l.description, quantity: String(l.quantity), unit: l.unit, unitPrice: toDollars(l.unitPriceCents), costCents: l.costCents, overrideReason: l.overrideReason ?? '' })),
+    lines: e.lines.map((l) => ({
+      id: l.id,
+      group: l.group,
+      description: l.description,
+      quantity: String(l.quantity),
+      unit: l.unit,
+      unitPrice: toDollars(l.unitPriceCents),
+      costCents: l.costCents,
+      overrideReason: l.overrideReason ?? '',
+    })),
     discount: toDollars(e.totals.discountCents),
   };
 }
@@ -49,14 +57,24 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
         body: {
           version: estimate.version,
           discountCents: toCents(v.discount || '0'),
-          lines: v.lines.map((l) => ({ id: l.id, group: l.group, description: l.description, quantity: Number(l.quantity), unit: l.unit, unitPriceCents: toCents(l.unitPrice), costCents: l.costCents, overrideReason: l.overrideReason.trim() || null })),
+          lines: v.lines.map((l) => ({
+            id: l.id,
+            group: l.group,
+            description: l.description,
+            quantity: Number(l.quantity),
+            unit: l.unit,
+            unitPriceCents: toCents(l.unitPrice),
+            costCents: l.costCents,
+            overrideReason: l.overrideReason.trim() || null,
+          })),
         },
       });
       setMessage({ tone: 'ok', text: 'Saved.' });
     } catch (err) {
       if (err instanceof ApiRequestError) {
         // the server names fields as lines[3].overrideReason; the form as lines.3.overrideReason
-        for (const i of err.issues) form.setError(i.path.replace(/\[(\d+)\]/g, '.$1') as never, { type: 'server', message: i.message });
+        for (const i of err.issues)
+          form.setError(i.path.replace(/\[(\d+)\]/g, '.$1') as never, { type: 'server', message: i.message });
         setMessage({ tone: 'error', text: err.message });
       } else setMessage({ tone: 'error', text: 'The server could not be reached.' });
     }
@@ -69,7 +87,12 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
       {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
       <p className="mb-3 text-ink-soft">
         Sheets:{' '}
-        {estimate.layouts.map((l) => `${l.materialName} ${l.sheetCount} (least possible ${l.lowerBound}, yield ${Math.round(l.yieldRatio * 100)} %)`).join('; ')}
+        {estimate.layouts
+          .map(
+            (l) =>
+              `${l.materialName} ${l.sheetCount} (least possible ${l.lowerBound}, yield ${Math.round(l.yieldRatio * 100)} %)`,
+          )
+          .join('; ')}
       </p>
       <form onSubmit={onSave} noValidate aria-label="Edit the estimate">
         <table className="w-full border-collapse text-left" aria-label="Line items">
@@ -89,17 +112,43 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
                 <tr key={f.id} className="border-b border-rule align-top">
                   <td className="py-1">
                     <span className="mr-2 text-xs uppercase text-ink-soft">{LINE_GROUP_LABELS[f.group]}</span>
-                    {f.id ? f.description : <input aria-label={`Line ${i + 1} description`} className="w-full rounded border border-rule bg-white px-2 py-1" {...form.register(`lines.${i}.description`)} />}
+                    {f.id ? (
+                      f.description
+                    ) : (
+                      <input
+                        aria-label={`Line ${i + 1} description`}
+                        className="w-full rounded border border-rule bg-white px-2 py-1"
+                        {...form.register(`lines.${i}.description`)}
+                      />
+                    )}
                   </td>
                   <td className="py-1">
-                    <input aria-label={`Line ${i + 1} quantity`} className={input} disabled={!draft} {...form.register(`lines.${i}.quantity`)} />
+                    <input
+                      aria-label={`Line ${i + 1} quantity`}
+                      className={input}
+                      disabled={!draft}
+                      {...form.register(`lines.${i}.quantity`)}
+                    />
                   </td>
                   <td className="py-1">
-                    <input aria-label={`Line ${i + 1} unit price`} className={input} disabled={!draft} {...form.register(`lines.${i}.unitPrice`)} />
+                    <input
+                      aria-label={`Line ${i + 1} unit price`}
+                      className={input}
+                      disabled={!draft}
+                      {...form.register(`lines.${i}.unitPrice`)}
+                    />
                   </td>
-                  <td className="py-1 text-right">{estimate.lines[i] ? <Money cents={estimate.lines[i].amountCents} /> : '—'}</td>
+                  <td className="py-1 text-right">
+                    {estimate.lines[i] ? <Money cents={estimate.lines[i].amountCents} /> : '—'}
+                  </td>
                   <td className="py-1 pl-4">
-                    <input aria-label={`Line ${i + 1} reason`} aria-invalid={err?.overrideReason ? true : undefined} className="w-full rounded border border-rule bg-white px-2 py-1" disabled={!draft} {...form.register(`lines.${i}.overrideReason`)} />
+                    <input
+                      aria-label={`Line ${i + 1} reason`}
+                      aria-invalid={err?.overrideReason ? true : undefined}
+                      className="w-full rounded border border-rule bg-white px-2 py-1"
+                      disabled={!draft}
+                      {...form.register(`lines.${i}.overrideReason`)}
+                    />
                     {err?.overrideReason ? (
                       <p role="alert" className="text-sm text-alert">
                         {err.overrideReason.message}
@@ -113,12 +162,29 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
         </table>
         {draft ? (
           <div className="mt-3 flex flex-wrap items-end gap-4">
-            <Button type="button" variant="quiet" onClick={() => lines.append({ group: 'other', description: '', quantity: '1', unit: 'each', unitPrice: '0.00', overrideReason: '' })}>
+            <Button
+              type="button"
+              variant="quiet"
+              onClick={() =>
+                lines.append({
+                  group: 'other',
+                  description: '',
+                  quantity: '1',
+                  unit: 'each',
+                  unitPrice: '0.00',
+                  overrideReason: '',
+                })
+              }
+            >
               Add a line
             </Button>
             <label className="font-semibold">
               Discount ($){' '}
-              <input aria-label="Discount" className="ml-2 w-28 rounded border border-rule bg-white px-2 py-1 text-right" {...form.register('discount')} />
+              <input
+                aria-label="Discount"
+                className="ml-2 w-28 rounded border border-rule bg-white px-2 py-1 text-right"
+                {...form.register('discount')}
+              />
             </label>
             <Button type="submit" disabled={update.isPending}>
               Save changes
@@ -128,24 +194,45 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
       </form>
       <dl className="mt-4 grid max-w-md grid-cols-2 gap-y-1">
         <dt>Subtotal</dt>
-        <dd className="text-right"><Money cents={estimate.totals.subtotalCents} /></dd>
+        <dd className="text-right">
+          <Money cents={estimate.totals.subtotalCents} />
+        </dd>
         <dt>Discount</dt>
-        <dd className="text-right">{estimate.totals.discountCents ? <Money cents={-estimate.totals.discountCents} /> : '—'}</dd>
+        <dd className="text-right">
+          {estimate.totals.discountCents ? <Money cents={-estimate.totals.discountCents} /> : '—'}
+        </dd>
         <dt>Tax</dt>
-        <dd className="text-right"><Money cents={estimate.totals.taxCents} /></dd>
+        <dd className="text-right">
+          <Money cents={estimate.totals.taxCents} />
+        </dd>
         <dt className="font-bold">Total</dt>
-        <dd className="text-right font-bold" aria-label="Total"><Money cents={estimate.totals.totalCents} /></dd>
+        <dd className="text-right font-bold" aria-label="Total">
+          <Money cents={estimate.totals.totalCents} />
+        </dd>
         <dt>Deposit</dt>
-        <dd className="text-right"><Money cents={estimate.totals.depositCents} /></dd>
+        <dd className="text-right">
+          <Money cents={estimate.totals.depositCents} />
+        </dd>
         <dt>Our cost</dt>
-        <dd className="text-right"><Money cents={estimate.costCents} /></dd>
+        <dd className="text-right">
+          <Money cents={estimate.costCents} />
+        </dd>
         <dt>Margin</dt>
-        <dd className="text-right"><Money cents={margin} /></dd>
+        <dd className="text-right">
+          <Money cents={margin} />
+        </dd>
       </dl>
       {draft ? (
         <div className="mt-4">
           {send.isError ? <Notice tone="error">{send.error.message}</Notice> : null}
-          <Button onClick={() => send.mutate(estimate.id, { onSuccess: () => setMessage({ tone: 'ok', text: 'Sent to the client with the PDF attached.' }) })} disabled={send.isPending || form.formState.isDirty}>
+          <Button
+            onClick={() =>
+              send.mutate(estimate.id, {
+                onSuccess: () => setMessage({ tone: 'ok', text: 'Sent to the client with the PDF attached.' }),
+              })
+            }
+            disabled={send.isPending || form.formState.isDirty}
+          >
             {form.formState.isDirty ? 'Save before sending' : 'Send to the client'}
           </Button>
         </div>

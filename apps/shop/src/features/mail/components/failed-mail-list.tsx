@@ -12,7 +12,10 @@ export function FailedMailList() {
   if (!q.data.length) return <Notice tone="ok">Every e-mail has gone out.</Notice>;
   return (
     <>
-      <p className="mb-3 text-ink-soft">These have not reached the mail server yet. Each is tried again by itself, waiting longer each time (up to five minutes); nothing is lost. Check the address, or the mail server settings, if the error says so.</p>
+      <p className="mb-3 text-ink-soft">
+        These have not reached the mail server yet. Each is tried again by itself, waiting longer each time (up to five
+        minutes); nothing is lost. Check the address, or the mail server settings, if the error says so.
+      </p>
       {retry.isError ? <Notice tone="error">{retry.error.message}</Notice> : null}
       <table className="w-full text-left" aria-label="Failed e-mails">
         <TableHead columns={['To', 'Subject', 'Tries', 'Last error', 'Next try', '']} />
@@ -25,7 +28,12 @@ export function FailedMailList() {
               <td className="text-sm">{m.lastError}</td>
               <td className="text-sm">{when(m.nextAttemptAt)}</td>
               <td>
-                <Button variant="quiet" className="px-1 py-0" disabled={retry.isPending} onClick={() => retry.mutate(m.id)}>
+                <Button
+                  variant="quiet"
+                  className="px-1 py-0"
+                  disabled={retry.isPending}
+                  onClick={() => retry.mutate(m.id)}
+                >
                   Try now
                 </Button>
               </td>

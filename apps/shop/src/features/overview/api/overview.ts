@@ -10,5 +10,10 @@ export interface Overview {
   hours: { jobId: string; clientName: string; stage: string; budgetHours: number; usedHours: number }[];
 }
 
-export const overviewQueryOptions = () => queryOptions({ queryKey: ['overview'], queryFn: async () => (await api<{ overview: Overview }>('/overview')).overview, refetchInterval: 60_000 });
+export const overviewQueryOptions = () =>
+  queryOptions({
+    queryKey: ['overview'],
+    queryFn: async () => (await api<{ overview: Overview }>('/overview')).overview,
+    refetchInterval: 60_000,
+  });
 export const useOverview = () => useQuery(overviewQueryOptions());

@@ -29,7 +29,12 @@ function Tile({ label, value, note }: { label: string; value: string; note?: str
 /** A bar to scale: the share of `max` that `value` is, drawn as a plain rule (prints in black and white). */
 function Bar({ value, max, tone }: { value: number; max: number; tone: 'budget' | 'used' | 'over' }) {
   const colour = tone === 'budget' ? 'bg-rule' : tone === 'over' ? 'bg-alert' : 'bg-wood';
-  return <div className={`h-3 rounded-sm ${colour}`} style={{ width: `${max > 0 ? Math.max(1, (value / max) * 100) : 0}%` }} />;
+  return (
+    <div
+      className={`h-3 rounded-sm ${colour}`}
+      style={{ width: `${max > 0 ? Math.max(1, (value / max) * 100) : 0}%` }}
+    />
+  );
 }
 
 /** The owner's overview: the pipeline, this month's money, the win rate, and hours estimated against hours used. */
@@ -45,9 +50,21 @@ export function OverviewPage() {
   return (
     <>
       <div className="mb-6 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <Tile label={`Accepted in ${month}`} value={formatMoney(o.acceptedThisMonth.totalCents)} note={`${o.acceptedThisMonth.count} ${o.acceptedThisMonth.count === 1 ? 'estimate' : 'estimates'}`} />
-        <Tile label={`Deposits collected in ${month}`} value={formatMoney(o.collectedThisMonth.depositsCents)} note="after refunds" />
-        <Tile label={`Balances collected in ${month}`} value={formatMoney(o.collectedThisMonth.balancesCents)} note="after refunds" />
+        <Tile
+          label={`Accepted in ${month}`}
+          value={formatMoney(o.acceptedThisMonth.totalCents)}
+          note={`${o.acceptedThisMonth.count} ${o.acceptedThisMonth.count === 1 ? 'estimate' : 'estimates'}`}
+        />
+        <Tile
+          label={`Deposits collected in ${month}`}
+          value={formatMoney(o.collectedThisMonth.depositsCents)}
+          note="after refunds"
+        />
+        <Tile
+          label={`Balances collected in ${month}`}
+          value={formatMoney(o.collectedThisMonth.balancesCents)}
+          note="after refunds"
+        />
         <Tile label="Win rate" value={rate} note={`${o.winRate.won} of ${o.winRate.quoted} quoted projects accepted`} />
       </div>
       <Panel title="Pipeline">
@@ -90,7 +107,9 @@ export function OverviewPage() {
         ) : (
           <p className="text-ink-soft">No jobs in the shop yet.</p>
         )}
-        <p className="mt-2 text-sm text-ink-soft">Upper bar: hours in the estimate; lower bar: hours logged (red once over).</p>
+        <p className="mt-2 text-sm text-ink-soft">
+          Upper bar: hours in the estimate; lower bar: hours logged (red once over).
+        </p>
       </Panel>
     </>
   );

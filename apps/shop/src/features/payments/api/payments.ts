@@ -13,14 +13,23 @@ export interface Payment {
   createdAt: string;
 }
 
-export const paymentsQueryOptions = () => queryOptions({ queryKey: ['payments'], queryFn: async () => (await api<{ payments: Payment[] }>('/payments')).payments });
+export const paymentsQueryOptions = () =>
+  queryOptions({
+    queryKey: ['payments'],
+    queryFn: async () => (await api<{ payments: Payment[] }>('/payments')).payments,
+  });
 /** Polls while a refund is on its way (the card processor confirms it by webhook). */
-export const usePayments = (waiting: boolean) => useQuery({ ...paymentsQueryOptions(), refetchInterval: waiting ? 1500 : false });
+export const usePayments = (waiting: boolean) =>
+  useQuery({ ...paymentsQueryOptions(), refetchInterval: waiting ? 1500 : false });
 
 export function useRefund() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, amountCents }: { id: string; amountCents: number }) => api<{ refund: { id: string; amountCents: number; status: string } }>(`/payments/${encodeURIComponent(id)}/refund`, { body: { amountCents } }),
+    mutationFn: ({ id, amountCents }: { id: string; amountCents: number }) =>
+      api<{ refund: { id: string; amountCents: number; status: string } }>(
+        `/payments/${encodeURIComponent(id)}/refund`,
+        { body: { amountCents } },
+      ),
     onSuccess: () => qc.invalidateQueries({ queryKey: paymentsQueryOptions().queryKey }),
   });
 }

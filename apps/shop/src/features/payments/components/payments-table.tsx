@@ -3,7 +3,13 @@ import { Button, formatMoney, Money, Notice, TableHead } from '@benchwright/ui';
 import { toCents, toDollars } from '../../../lib/money';
 import { usePayments, useRefund, type Payment } from '../api/payments';
 
-const STATUS: Record<Payment['status'], string> = { open: 'waiting for the client', paid: 'paid', expired: 'checkout expired', refunded: 'refunded', partially_refunded: 'partly refunded' };
+const STATUS: Record<Payment['status'], string> = {
+  open: 'waiting for the client',
+  paid: 'paid',
+  expired: 'checkout expired',
+  refunded: 'refunded',
+  partially_refunded: 'partly refunded',
+};
 
 /** A refund amount as typed ("25", "25.50") in cents, or null if it is not dollars and cents. */
 const refundCents = (text: string): number | null => (/^\s*\d+(\.\d{1,2})?\s*$/.test(text) ? toCents(text) : null);
@@ -24,12 +30,21 @@ function RefundForm({ p, onAsked }: { p: Payment; onAsked: (id: string, refunded
         if (cents > left) return setError(`at most ${formatMoney(left)} is left to refund`);
         if (!window.confirm(`Refund ${formatMoney(cents)} to ${p.clientName}'s card?`)) return;
         setError(null);
-        refund.mutate({ id: p.id, amountCents: cents }, { onSuccess: () => onAsked(p.id, p.refundedCents), onError: (err) => setError(err.message) });
+        refund.mutate(
+          { id: p.id, amountCents: cents },
+          { onSuccess: () => onAsked(p.id, p.refundedCents), onError: (err) => setError(err.message) },
+        );
       }}
     >
       <label className="text-sm">
         $
-        <input aria-label="Amount to refund" className="ml-1 w-24 rounded border border-rule bg-white px-1" inputMode="decimal" value={text} onChange={(e) => setText(e.target.value)} />
+        <input
+          aria-label="Amount to refund"
+          className="ml-1 w-24 rounded border border-rule bg-white px-1"
+          inputMode="decimal"
+          value={text}
+          onChange={(e) => setText(e.target.value)}
+        />
       </label>
       <Button type="submit" variant="quiet" className="px-1 py-0 text-sm" disabled={refund.isPending}>
         Refund
@@ -49,7 +64,9 @@ export function PaymentsTable() {
   const waiting = Object.keys(asked).length > 0;
   const q = usePayments(waiting);
   // a refund is confirmed once the webhook has raised the refunded amount
-  const pending = Object.entries(asked).filter(([id, before]) => (q.data?.find((p) => p.id === id)?.refundedCents ?? before) === before);
+  const pending = Object.entries(asked).filter(
+    ([id, before]) => (q.data?.find((p) => p.id === id)?.refundedCents ?? before) === before,
+  );
   useEffect(() => {
     if (waiting && pending.length === 0) setAsked({});
   }, [waiting, pending.length]);
@@ -72,7 +89,11 @@ export function PaymentsTable() {
               </td>
               <td>{p.refundedCents ? <Money cents={p.refundedCents} /> : '–'}</td>
               <td>{STATUS[p.status]}</td>
-              <td>{(p.status === 'paid' || p.status === 'partially_refunded') && p.amountCents > p.refundedCents ? <RefundForm p={p} onAsked={(id, before) => setAsked((a) => ({ ...a, [id]: before }))} /> : null}</td>
+              <td>
+                {(p.status === 'paid' || p.status === 'partially_refunded') && p.amountCents > p.refundedCents ? (
+                  <RefundForm p={p} onAsked={(id, before) => setAsked((a) => ({ ...a, [id]: before }))} />
+                ) : null}
+              </td>
             </tr>
           ))}
         </tbody>

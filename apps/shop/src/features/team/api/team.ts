@@ -9,5 +9,8 @@ export const useTeam = (enabled = true) => useQuery({ ...teamQueryOptions(), ena
 export const inviteBuilder = (body: InvitationBody) => api<{ user: User }>('/users/invitations', { body });
 export function useInviteBuilder() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: inviteBuilder, onSuccess: () => qc.invalidateQueries({ queryKey: teamQueryOptions().queryKey }) });
+  return useMutation({
+    mutationFn: inviteBuilder,
+    onSuccess: () => qc.invalidateQueries({ queryKey: teamQueryOptions().queryKey }),
+  });
 }
