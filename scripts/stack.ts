@@ -118,7 +118,7 @@ Benchwright is running (demo data: Fernhill Joinery, invented).
   client portal   http://127.0.0.1:5173
   shop app        http://127.0.0.1:5174
   API             http://127.0.0.1:3000/api  (health: /api/health)
-  mail inbox      http://127.0.0.1:1080      (maildev; SMTP on 127.0.0.1:1025)
+  mail inbox      http://127.0.0.1:1080/index.html (maildev; SMTP on 127.0.0.1:1025)
   Stripe stand-in http://127.0.0.1:12111     (test cards: 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)
 
 Demo sign-ins, all with the password bench-demo-2026:

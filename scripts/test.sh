@@ -19,15 +19,36 @@ failed=0
 reports=$(mktemp -d)
 export REPORT_DIR="$reports"
 
-echo "== typecheck"
-if ! pnpm -r typecheck; then status=1; failed=$((failed + 1)); fi
+# Each step below runs whatever the steps before it did; a step that fails counts, and a package whose
+# tests could not run (no report written) counts as one failed test, so the closing line never hides one.
+step() { # name, command...: runs a check that has no test count of its own; a failure counts as one
+  local name=$1; shift
+  echo "== $name"
+  if ! "$@"; then status=1; failed=$((failed + 1)); echo "-- $name failed"; fi
+}
+
+step "format (prettier --check)" pnpm exec prettier --check --log-level warn .
+for pkg in packages/* apps/*; do
+  [ -f "$pkg/package.json" ] || continue
+  step "typecheck $pkg" pnpm --dir "$pkg" exec tsc --noEmit
+done
 
 echo "== unit and API tests"
-if ! pnpm -r --workspace-concurrency=1 exec sh -c 'vitest run --reporter=default --reporter=json --outputFile.json="$REPORT_DIR/$(basename "$PWD").json"'; then status=1; fi
-for f in "$reports"/*.json; do
-  [ -f "$f" ] || continue
-  passed=$((passed + $(node -p "JSON.parse(require('fs').readFileSync('$f','utf8')).numPassedTests")))
-  failed=$((failed + $(node -p "JSON.parse(require('fs').readFileSync('$f','utf8')).numFailedTests")))
+for pkg in packages/* apps/*; do
+  [ -f "$pkg/package.json" ] || continue
+  grep -q '"test"' "$pkg/package.json" || continue
+  name=$(basename "$pkg")
+  echo "-- $pkg"
+  if ! (cd "$pkg" && pnpm exec vitest run --reporter=default --reporter=json --outputFile.json="$reports/$name.json"); then
+    status=1
+  fi
+  if [ -f "$reports/$name.json" ]; then
+    passed=$((passed + $(node -p "JSON.parse(require('fs').readFileSync('$reports/$name.json','utf8')).numPassedTests")))
+    failed=$((failed + $(node -p "const r=JSON.parse(require('fs').readFileSync('$reports/$name.json','utf8')); r.numFailedTests + r.testResults.filter((t) => t.status === 'failed' && t.assertionResults.length === 0).length")))
+  else
+    echo "-- $pkg: its tests did not run (no report); counted as one failure"
+    failed=$((failed + 1))
+  fi
 done
 
 echo "== end-to-end (Chromium against the running stack)"

@@ -16,9 +16,10 @@ import { DEMO_PASSWORD, seedDemo } from '../src/db/seed';
 import { jobs, outbox, payments, projects } from '../src/db/schema';
 import { loadEnv } from '../src/env';
 import { createMailWorker, type MailWorker } from '../src/lib/mailer';
+import { freePort } from './helpers';
 
-const SMTP = 12725;
-const WEB = 12780;
+const SMTP = await freePort();
+const WEB = await freePort();
 const SECRET = 'whsec_flow_test';
 let maildev: MailDev;
 let fake: ReturnType<typeof createStripeFake>;
@@ -154,39 +155,35 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
 
   it('PATCH /api/estimates/:id adds a manual line with a reason, and refuses a stale version (409)', async () => {
     const cur = (await owner.get(`/api/estimates/${estimateId}`)).body.estimate;
-    const noReason = await owner
-      .patch(`/api/estimates/${estimateId}`)
-      .send({
-        version: cur.version,
-        lines: [
-          ...cur.lines,
-          {
-            group: 'delivery',
-            description: 'Delivery to Alder Cross',
-            quantity: 1,
-            unit: 'trip',
-            unitPriceCents: 9500,
-          },
-        ],
-      });
+    const noReason = await owner.patch(`/api/estimates/${estimateId}`).send({
+      version: cur.version,
+      lines: [
+        ...cur.lines,
+        {
+          group: 'delivery',
+          description: 'Delivery to Alder Cross',
+          quantity: 1,
+          unit: 'trip',
+          unitPriceCents: 9500,
+        },
+      ],
+    });
     expect(noReason.status, JSON.stringify(noReason.body)).toBe(400);
     expect(noReason.body.error.issues[0].path).toMatch(/overrideReason/);
-    const r = await owner
-      .patch(`/api/estimates/${estimateId}`)
-      .send({
-        version: cur.version,
-        lines: [
-          ...cur.lines,
-          {
-            group: 'delivery',
-            description: 'Delivery to Alder Cross',
-            quantity: 1,
-            unit: 'trip',
-            unitPriceCents: 9500,
-            overrideReason: 'client asked for delivery',
-          },
-        ],
-      });
+    const r = await owner.patch(`/api/estimates/${estimateId}`).send({
+      version: cur.version,
+      lines: [
+        ...cur.lines,
+        {
+          group: 'delivery',
+          description: 'Delivery to Alder Cross',
+          quantity: 1,
+          unit: 'trip',
+          unitPriceCents: 9500,
+          overrideReason: 'client asked for delivery',
+        },
+      ],
+    });
     expect(r.status, JSON.stringify(r.body)).toBe(200);
     expect(r.body.estimate.version).toBe(cur.version + 1);
     expect(r.body.estimate.totals.subtotalCents).toBe(cur.totals.subtotalCents + 9500);

@@ -46,3 +46,16 @@ export function tokenFrom(text: string): string {
   if (!m) throw new Error(`no token in: ${text}`);
   return m[1];
 }
+
+/** A TCP port free on the loopback right now, so that test files running side by side never collide. */
+export async function freePort(): Promise<number> {
+  const { createServer } = await import('node:net');
+  return new Promise((resolve, reject) => {
+    const s = createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as import('node:net').AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}

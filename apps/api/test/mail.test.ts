@@ -4,10 +4,10 @@ import { join } from 'node:path';
 import { MailDev } from 'maildev';
 import { afterEach, describe, expect, it } from 'vitest';
 import { createMailWorker } from '../src/lib/mailer';
-import { testApp } from './helpers';
+import { freePort, testApp } from './helpers';
 
-const SMTP = 12525;
-const WEB = 12580;
+const SMTP = await freePort();
+const WEB = await freePort();
 const quiet = { warn: () => undefined };
 let maildev: MailDev | null = null;
 

@@ -1,6 +1,6 @@
 /**
  * Sheet-layout benchmark on the published 2D bin-packing instances in
- * ../shared/bench/nesting (2DPackLib: Bengtsson 1982, Berkey & Wang 1987,
+^ * bench/data/nesting-instances.txt (2DPackLib: Bengtsson 1982, Berkey & Wang 1987,
  * Martello & Vigo 1998, Macedo et al. 2010), against the best published
  * totals (Gonçalves & Resende 2013) and against a general-purpose rectangle
  * packer from the registry (maxrects-packer 2.7.4), run side by side.
@@ -23,7 +23,7 @@ import { nest, type NestPart } from '../src/nesting';
 import { validateLayout } from '../src/validate-layout';
 
 const here = dirname(fileURLToPath(import.meta.url));
-const file = process.env.BENCH_NESTING_FILE ?? resolve(here, '../../../../shared/bench/nesting/instances.txt');
+const file = process.env.BENCH_NESTING_FILE ?? resolve(here, 'data/nesting-instances.txt');
 if (!existsSync(file)) {
   console.error(`instances not found at ${file}; set BENCH_NESTING_FILE`);
   process.exit(2);

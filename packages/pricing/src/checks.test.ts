@@ -8,7 +8,7 @@ const PSF_TO_KPA = 0.0478803; // 1 lb/ft2 = 47.8803 Pa
 
 describe('maxShelfSpan', () => {
   // Architectural Woodwork Standards, 1st ed. (2009), section 4.4.14.10, adjustable-shelf spans for
-  // sag of no more than span/144 (../shared/bench/shelf-spans.md; the table rounds down to whole inches)
+  // sag of no more than span/144 (test/fixtures/shelf-spans.md; the table rounds down to whole inches)
   const rows: [string, number, number, number, number][] = [
     ['fir plywood', 950_000, 0.75, 40, 37],
     ['fir plywood', 950_000, 1, 53, 49],
@@ -41,8 +41,8 @@ describe('maxShelfSpan', () => {
     }
     expect(checked).toBe(12);
   });
-  it('uses the same table as the shared benchmark file states', () => {
-    const md = readFileSync(new URL('../../../../shared/bench/shelf-spans.md', import.meta.url), 'utf8');
+  it('uses the same table as the copy of the published table in test/fixtures states', () => {
+    const md = readFileSync(new URL('../test/fixtures/shelf-spans.md', import.meta.url), 'utf8');
     expect(md).toContain('| veneer core (Douglas fir) plywood | 950,000 | 3/4 | 40 | 37 |');
   });
   it('shortens the span by the cube root of the creep factor', () => {

@@ -187,7 +187,7 @@ describe('nest', () => {
   });
 
   it('fills a nearly full sheet that greedy fills miss: Berkey and Wang class II, instance cl02_040_01, grain-bound', () => {
-    // 40 parts, 895 of 900 square units on one 30 x 30 sheet (2DPackLib, Berkey & Wang 1987 class II; see ../shared/bench/nesting)
+    // 40 parts, 895 of 900 square units on one 30 x 30 sheet (2DPackLib, Berkey & Wang 1987 class II; see bench/data/README.md)
     const sizes =
       '1,1;1,2;1,3;1,5;1,9;1,9;2,2;2,2;2,2;2,8;3,1;3,4;3,8;3,9;3,10;4,1;4,1;4,2;4,3;4,4;4,7;4,7;6,3;6,5;6,8;6,9;7,1;7,1;7,2;8,3;8,4;9,2;9,5;9,5;9,5;9,7;9,8;10,2;10,4;10,6';
     const parts: NestPart[] = sizes.split(';').map((s, i) => {
