@@ -28,6 +28,7 @@ step() { # name, command...: runs a check that has no test count of its own; a f
 }
 
 step "format (prettier --check)" pnpm exec prettier --check --log-level warn .
+step "lint (eslint)" pnpm exec eslint .
 for pkg in packages/* apps/*; do
   [ -f "$pkg/package.json" ] || continue
   step "typecheck $pkg" pnpm --dir "$pkg" exec tsc --noEmit

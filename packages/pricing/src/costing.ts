@@ -10,7 +10,7 @@ import { nestByMaterial, type NestEffort, type NestPart, type NestResult } from 
 import { byId, STAGE_KEYS, type PriceBook, type ShopSettings, type StageKey } from './price-book';
 import { boardFeet, toInches } from './units';
 
-import { LINE_GROUPS, type LineGroup } from './line-groups';
+import type { LineGroup } from './line-groups';
 const MATERIAL_GROUPS: ReadonlySet<LineGroup> = new Set([
   'sheet_goods',
   'solid_wood',

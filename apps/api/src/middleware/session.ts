@@ -4,7 +4,7 @@ import type { AppLucia } from '../auth/lucia';
 import { Forbidden, Unauthenticated } from './errors';
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+  // eslint-disable-next-line @typescript-eslint/no-namespace -- Express types res.locals through its global namespace
   namespace Express {
     interface Locals {
       user: User | null;

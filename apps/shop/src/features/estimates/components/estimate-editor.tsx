@@ -43,7 +43,7 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
   // every saved version becomes the form's new starting point (the page keeps the editor mounted, so its notices stay)
   useEffect(() => {
     form.reset(formOf(estimate));
-  }, [estimate.version]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [estimate.version]); // eslint-disable-line react-hooks/exhaustive-deps -- reset only when a new version is saved, not on every refetch
   const lines = useFieldArray({ control: form.control, name: 'lines' });
   const update = useUpdateEstimate();
   const send = useSendEstimate();
