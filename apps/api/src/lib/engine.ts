@@ -10,7 +10,7 @@ import {
 } from '@benchwright/pricing';
 import type { Db } from '../db/client';
 import { priceBooks, projectItems, shopSettings } from '../db/schema';
-import { Invalid } from '../middleware/errors';
+import { Invalid } from './errors';
 
 /** The shop's price book and settings of record, read through the engine's own schemas. */
 export function loadPricing(db: Pick<Db, 'select'>): { book: Book; settings: Settings; shopName: string } {

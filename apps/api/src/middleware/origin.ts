@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { Forbidden } from './errors';
+import { Forbidden } from '../lib/errors';
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
 

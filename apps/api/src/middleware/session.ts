@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Role, User } from '@benchwright/contracts';
 import type { AppLucia } from '../auth/lucia';
-import { Forbidden, Unauthenticated } from './errors';
+import { Forbidden, Unauthenticated } from '../lib/errors';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace -- Express types res.locals through its global namespace

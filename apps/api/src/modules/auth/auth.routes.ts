@@ -9,7 +9,7 @@ import {
   VerifyEmailBody,
 } from '@benchwright/contracts';
 import type { AppLucia } from '../../auth/lucia';
-import { parse, RateLimited } from '../../middleware/errors';
+import { parse, RateLimited } from '../../lib/errors';
 import { currentUser, requireRole } from '../../middleware/session';
 import type { AuthService } from './auth.service';
 

@@ -7,7 +7,7 @@ import { hashPassword, verifyPassword } from '../../auth/password';
 import { consumeToken, issueToken } from '../../auth/tokens';
 import { queueMail } from '../../lib/mailer';
 import { invitationMail, resetMail, verificationMail } from '../../lib/mail-templates';
-import { Conflict, Invalid, Unauthenticated } from '../../middleware/errors';
+import { Conflict, Invalid, Unauthenticated } from '../../lib/errors';
 
 export interface AuthDeps {
   db: Db;

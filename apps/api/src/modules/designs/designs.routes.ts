@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { designs, type DesignSlug } from '@benchwright/pricing';
-import { NotFound } from '../../middleware/errors';
+import { NotFound } from '../../lib/errors';
 
 function view(slug: DesignSlug) {
   const d = designs[slug];

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { AcceptEstimateBody, CreateEstimateBody, UpdateEstimateBody } from '@benchwright/contracts';
-import { Forbidden, parse } from '../../middleware/errors';
+import { Forbidden, parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { PaymentsService } from '../payments/payments.service';
 import type { EstimatesService } from './estimates.service';

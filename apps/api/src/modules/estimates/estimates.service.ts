@@ -18,7 +18,7 @@ import { queueMail } from '../../lib/mailer';
 import { estimateMail } from '../../lib/mail-templates';
 import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
 import { addEvent, setStatus } from '../../lib/timeline';
-import { Conflict, Invalid, NotFound } from '../../middleware/errors';
+import { Conflict, Invalid, NotFound } from '../../lib/errors';
 
 export interface EstimateDeps {
   db: Db;

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { LogTimeBody, UpdateJobBody } from '@benchwright/contracts';
-import { parse } from '../../middleware/errors';
+import { parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { JobsService } from './jobs.service';
 

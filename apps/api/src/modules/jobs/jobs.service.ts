@@ -9,7 +9,7 @@ import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent, setStatus } from '../../lib/timeline';
-import { Invalid, NotFound } from '../../middleware/errors';
+import { Invalid, NotFound } from '../../lib/errors';
 
 export function createJobsService(db: Db, portalUrl: string) {
   function view(j: typeof jobs.$inferSelect) {

@@ -1,7 +1,7 @@
 import { and, asc, eq, gte } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { outbox } from '../../db/schema';
-import { Conflict, NotFound } from '../../middleware/errors';
+import { Conflict, NotFound } from '../../lib/errors';
 
 /** The owner's view of the outbox: mail the relay has refused so far, and a way to try again now. */
 export function createMailService(db: Db) {

@@ -1,6 +1,6 @@
 import express, { Router } from 'express';
 import { RefundBody } from '@benchwright/contracts';
-import { parse } from '../../middleware/errors';
+import { parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { PaymentsService } from './payments.service';
 

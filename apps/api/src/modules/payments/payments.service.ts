@@ -14,7 +14,7 @@ import {
   refundMail,
 } from '../../lib/mail-templates';
 import { addEvent, setStatus } from '../../lib/timeline';
-import { AppError, Conflict, Invalid, NotFound } from '../../middleware/errors';
+import { AppError, Conflict, Invalid, NotFound } from '../../lib/errors';
 import { estimateNumber } from '../estimates/estimates.service';
 
 export interface PaymentDeps {

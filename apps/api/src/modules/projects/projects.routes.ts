@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { CommentBody, CreateProjectBody } from '@benchwright/contracts';
-import { Forbidden, parse } from '../../middleware/errors';
+import { Forbidden, parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { ProjectsService } from './projects.service';
 

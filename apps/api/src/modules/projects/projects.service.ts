@@ -8,7 +8,7 @@ import { loadPricing, travellerFor } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
 import { commentMail } from '../../lib/mail-templates';
 import { addEvent } from '../../lib/timeline';
-import { Forbidden, Invalid, NotFound } from '../../middleware/errors';
+import { Forbidden, Invalid, NotFound } from '../../lib/errors';
 
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;

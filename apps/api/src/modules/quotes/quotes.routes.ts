@@ -4,7 +4,7 @@ import { QuotePreviewBody } from '@benchwright/contracts';
 import { estimate, rangeOf, toSvg, validateSpec } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { loadPricing } from '../../lib/engine';
-import { Invalid, parse, RateLimited } from '../../middleware/errors';
+import { Invalid, parse, RateLimited } from '../../lib/errors';
 
 /**
  * The budget range, checks and drawings for items, nothing stored. Cost

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { InvitationBody } from '@benchwright/contracts';
-import { parse } from '../../middleware/errors';
+import { parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { AuthService } from '../auth/auth.service';
 

@@ -1,0 +1,58 @@
+// The API's error classes and zod parsing: no Express here, so lib/ and the services throw them; middleware/errors.ts turns
+// them into responses.
+import * as z from 'zod';
+import type { ApiIssue, ErrorCode } from '@benchwright/contracts';
+import { formatPath } from '@benchwright/pricing/geometry';
+
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ErrorCode,
+    message: string,
+    readonly issues?: ApiIssue[],
+  ) {
+    super(message);
+  }
+}
+export class Invalid extends AppError {
+  constructor(message: string, issues?: ApiIssue[]) {
+    super(400, 'invalid_input', message, issues);
+  }
+}
+export class Unauthenticated extends AppError {
+  constructor(message = 'Sign in to continue.') {
+    super(401, 'unauthenticated', message);
+  }
+}
+export class Forbidden extends AppError {
+  constructor(message = 'Your role does not allow this.') {
+    super(403, 'forbidden', message);
+  }
+}
+export class NotFound extends AppError {
+  constructor(what = 'That') {
+    super(404, 'not_found', `${what} was not found.`);
+  }
+}
+export class Conflict extends AppError {
+  constructor(message: string) {
+    super(409, 'conflict', message);
+  }
+}
+export class RateLimited extends AppError {
+  constructor(message = 'Too many attempts; wait a few minutes and try again.') {
+    super(429, 'rate_limited', message);
+  }
+}
+
+/** zod issues as the API lists them: `{ path: 'items[0].spec.widthMm', message }`. */
+export function zodIssues(err: z.ZodError): ApiIssue[] {
+  return err.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));
+}
+
+/** Parses with a zod schema, throwing Invalid with the issues listed. */
+export function parse<S extends z.ZodType>(schema: S, input: unknown): z.infer<S> {
+  const r = schema.safeParse(input);
+  if (!r.success) throw new Invalid('Some fields need attention.', zodIssues(r.error));
+  return r.data;
+}
