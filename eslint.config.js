@@ -69,7 +69,6 @@ export default tseslint.config(
             {
               target: './apps/api/src/lib',
               from: ['./apps/api/src/modules', './apps/api/src/middleware'],
-              except: ['./errors.ts'], // until AppError moves to lib/errors.ts (next commit)
               message: 'lib/ may not import the HTTP layer (modules/, middleware/).',
             },
           ],
