@@ -1,5 +1,5 @@
 /**
- * Tuning bench for the exact sheet search (src/nesting-exact.ts): sheets of
+ * Tuning bench for the exact sheet search (src/nesting/exact.ts): sheets of
  * 30 x 30 cut at random into pieces of 1 to 10 a side (like Berkey and Wang's
  * class II), a few small pieces taken away to leave up to WASTE square units
  * free, then the search asked to put the rest back on one sheet within a work
@@ -8,7 +8,7 @@
  *   pnpm bench:nesting-exact              # 80 sheets, 150 M steps each (about half a second)
  *   N=40 STEPS=50000000 WASTE=5 pnpm bench:nesting-exact
  */
-import { packExact } from '../src/nesting-exact';
+import { packExact } from '../src/nesting/exact';
 import { seededRandom } from '../src/_lib/random';
 import { guillotinePieces, piecesByKind } from '../src/_lib/guillotine-pieces';
 

@@ -28,7 +28,8 @@
  * common practice in the cutting-stock literature (Christofides and Whitlock
  * 1977; Wang 1983); the rules above are ours.
  */
-import { seededRandom } from './_lib/random';
+import { seededRandom } from '../_lib/random';
+import { NESTING_TUNING } from './tuning';
 
 const EPS = 1e-6;
 
@@ -96,6 +97,7 @@ interface Rect {
 
 /** Searches for a guillotine layout of every unit of `types` on `sheets` identical sheets. */
 export function packExact(types: readonly ExactType[], o: ExactOptions): ExactResult {
+  const T = NESTING_TUNING.exact;
   const n = types.length;
   const counts = types.map((t) => t.count);
   const area = types.map((t) => t.l * t.w);
@@ -107,7 +109,7 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
   // row/column bounds work on whole numbers only (the benchmark's sizes, or mm cut lists in whole mm)
   const integral =
     [o.L, o.W, kerf, ...types.flatMap((t) => [t.l, t.w])].every((v) => Number.isInteger(v)) &&
-    Math.max(o.L, o.W) + kerf <= 1024;
+    Math.max(o.L, o.W) + kerf <= T.maxBoundSize;
   const rand = seededRandom(o.seed ?? 1);
   // per-type hash keys for the counts part of a state
   const ka = types.map(() => (rand() * 2 ** 32) | 1);
@@ -129,8 +131,9 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
   setOrder(area);
   let flip = false;
 
+  const stepsPerNode = T.stepsPerNode;
   const failed = new Set<number>();
-  const memoCap = 2_000_000;
+  const memoCap = T.memoCap;
   let work = 0;
   let run = 0;
   let runLimit = 0;
@@ -171,7 +174,7 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
 
   const dfs = (free: Rect[]): boolean => {
     if (remaining <= EPS) return true;
-    work += 250 + free.length * n;
+    work += stepsPerNode + free.length * n;
     if (work > runLimit) {
       gaveUp = true;
       return false;
@@ -303,14 +306,14 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
 
   const start = () => Array.from({ length: o.sheets }, (_, s) => rect(s, o.x0, o.y0, o.L, o.W, 0, 0));
   let found = false;
-  let budget = 500 * 16 * Math.max(8, n);
+  let budget = T.firstRunStepsPerKind * Math.max(T.minKinds, n);
   for (run = 0; !found && work < o.workLimit; run++) {
     gaveUp = false;
     runLimit = Math.min(o.workLimit, work + budget);
     found = dfs(start());
     if (!gaveUp) break;
-    budget = Math.ceil(budget * 1.1);
-    setOrder(area.map((a) => a * (1 + 1 * (rand() * 2 - 1))));
+    budget = Math.ceil(budget * T.budgetGrowth);
+    setOrder(area.map((a) => a * (1 + T.restartShake * (rand() * 2 - 1))));
     flip = rand() < 0.5;
   }
   return { status: found ? 'found' : gaveUp ? 'gave-up' : 'none', placements: found ? placements : [], work };

@@ -1,10 +1,10 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { packExact, type ExactResult, type ExactType } from './nesting-exact';
-import type { NestPart, NestResult } from './nesting';
-import { validateLayout } from './validate-layout';
-import { seededRandom } from './_lib/random';
-import { guillotinePieces, piecesByKind } from './_lib/guillotine-pieces';
+import { packExact, type ExactResult, type ExactType } from './exact';
+import type { NestPart, NestResult } from './types';
+import { validateLayout } from '../validate-layout';
+import { seededRandom } from '../_lib/random';
+import { guillotinePieces, piecesByKind } from '../_lib/guillotine-pieces';
 
 /** the exact search's answer as a layout the independent validator reads */
 function asLayout(

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { nest, nestByMaterial, nestLowerBound, type NestPart, type NestResult } from './nesting';
-import { validateLayout } from './validate-layout';
-import { toMm } from './units';
+import { nest, nestByMaterial, nestLowerBound, type NestPart, type NestResult } from './index';
+import { validateLayout } from '../validate-layout';
+import { toMm } from '../units';
 
 // a 4 x 8 ft sheet is 2438.4 x 1219.2 mm
 const SHEET = { lengthMm: toMm(96), widthMm: toMm(48) };
