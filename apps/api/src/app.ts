@@ -106,7 +106,10 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     '/api/projects',
     requireRole('client', 'owner', 'builder'),
     projectMoneyRoutes(estimatesService, paymentsService),
-    projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL })),
+    projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }), {
+      enabled: env.RATE_LIMITS,
+      commentsPerMinute: env.COMMENTS_PER_MINUTE,
+    }),
   );
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));

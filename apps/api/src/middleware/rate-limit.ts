@@ -1,4 +1,4 @@
-import type { Request, RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { RateLimited } from './errors';
 
@@ -8,7 +8,7 @@ export interface LimiterOptions {
   windowMs: number;
   limit: number;
   /** what is counted: by default the client's address (req.ip, which TRUST_PROXY decides) */
-  key?: (req: Request) => string;
+  key?: (req: Request, res: Response) => string;
   /** count only the requests that fail (status >= 400) */
   failuresOnly?: boolean;
   message?: string;
@@ -22,7 +22,7 @@ export const ipKey = (req: Request): string => ipKeyGenerator(req.ip ?? '');
  * the mails per address, are counted from the tokens table instead). Over the limit it answers 429 `rate_limited`
  * through the one error handler.
  */
-export function limiter(o: LimiterOptions): RequestHandler {
+export function limiter(o: LimiterOptions): RequestHandler<Record<string, string>> {
   return rateLimit({
     windowMs: o.windowMs,
     limit: o.limit,

@@ -6,6 +6,7 @@ import { users } from '../../db/schema';
 import { hashPassword, verifyPassword } from '../../auth/password';
 import { consumeToken, issueToken, tokensIssuedSince } from '../../auth/tokens';
 import { queueMail } from '../../lib/mailer';
+import { queueHeldRequestNotices } from '../../lib/request-notice';
 import { invitationMail, resetMail, verificationMail } from '../../lib/mail-templates';
 import { Conflict, Invalid, RateLimited, Unauthenticated } from '../../middleware/errors';
 
@@ -66,7 +67,11 @@ export function createAuthService({ db, shopName, portalUrl, shopUrl, mailLimits
       const user = db.transaction((tx) => {
         const userId = consumeToken(tx, token, 'verify_email');
         if (!userId) return null;
+        const before = tx.select().from(users).where(eq(users.id, userId)).get()!;
         tx.update(users).set({ emailVerifiedAt: new Date() }).where(eq(users.id, userId)).run();
+        // requests made before confirming were kept without telling the shop; tell it now, once
+        if (before.emailVerifiedAt === null && before.role === 'client')
+          queueHeldRequestNotices(tx, { shopName: shopName(), shopUrl }, userId);
         return tx.select().from(users).where(eq(users.id, userId)).get()!;
       });
       if (!user) throw new Invalid('This confirmation link has expired or was already used; sign in to get a new one.');
