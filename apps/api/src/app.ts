@@ -42,7 +42,8 @@ export interface AppDeps {
 export function createApp({ db, env, log, ready }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-For is believed only from the proxies named in TRUST_PROXY (none by default)
+  app.set('trust proxy', env.TRUST_PROXY);
   const secure = env.PORTAL_URL.startsWith('https:');
   const lucia = createLucia(db, secure);
   const auth = createAuthService({
@@ -50,6 +51,11 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     shopName: () => loadPricing(db).shopName,
     portalUrl: env.PORTAL_URL,
     shopUrl: env.SHOP_URL,
+    mailLimits: {
+      enabled: env.RATE_LIMITS,
+      resetsPerHour: env.RESET_MAILS_PER_HOUR,
+      verificationsPerHour: env.VERIFY_MAILS_PER_HOUR,
+    },
   });
 
   const estimatesService = createEstimatesService({ db, pdfDir: env.PDF_DIR, portalUrl: env.PORTAL_URL });
@@ -87,9 +93,10 @@ export function createApp({ db, env, log, ready }: AppDeps) {
 
   const limits = {
     enabled: env.RATE_LIMITS,
-    signInFailsPerEmail: env.SIGNIN_FAILS_PER_EMAIL,
+    signInFailsPerEmailIp: env.SIGNIN_FAILS_PER_EMAIL_IP,
     signInAttemptsPerIp: env.SIGNIN_ATTEMPTS_PER_IP,
     signUpsPerIp: env.SIGNUPS_PER_IP,
+    passwordResetsPerIp: env.PASSWORD_RESETS_PER_IP,
   };
   app.use('/api/auth', authRoutes(auth, lucia, limits));
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
@@ -99,7 +106,10 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     '/api/projects',
     requireRole('client', 'owner', 'builder'),
     projectMoneyRoutes(estimatesService, paymentsService),
-    projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL })),
+    projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }), {
+      enabled: env.RATE_LIMITS,
+      commentsPerMinute: env.COMMENTS_PER_MINUTE,
+    }),
   );
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));

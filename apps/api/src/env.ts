@@ -1,3 +1,4 @@
+import { isIP } from 'node:net';
 import { isAbsolute, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as z from 'zod';
@@ -7,6 +8,38 @@ export const REPO_ROOT = resolve(fileURLToPath(new URL('../../../', import.meta.
 const fromRoot = (p: string) => (p === ':memory:' || isAbsolute(p) ? p : resolve(REPO_ROOT, p));
 
 const bool = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
+
+/**
+ * Which proxies may set X-Forwarded-For: off (`false`, the default: the client is the TCP peer), a hop count, or a
+ * comma-separated list of addresses, subnets (CIDR) and Express's names `loopback`, `linklocal`, `uniquelocal`.
+ * `true` (trust every hop, so any client can name its own address) is refused.
+ */
+const trustProxy = z
+  .string()
+  .default('false')
+  .transform((v, ctx): false | number | string[] => {
+    const s = v.trim();
+    if (s === '' || s === 'false' || s === '0') return false;
+    if (/^\d+$/.test(s)) return Number(s);
+    const list = s
+      .split(',')
+      .map((x) => x.trim())
+      .filter(Boolean);
+    const bad = list.filter((x) => {
+      if (['loopback', 'linklocal', 'uniquelocal'].includes(x)) return false;
+      const [addr, bits, ...rest] = x.split('/');
+      if (rest.length || !addr || !isIP(addr)) return true;
+      return bits !== undefined && !/^\d{1,3}$/.test(bits);
+    });
+    if (bad.length || !list.length) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `name the proxies (addresses, subnets, loopback) or a hop count, or false; not ${JSON.stringify(s)}`,
+      });
+      return z.NEVER;
+    }
+    return list;
+  });
 
 const Env = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -21,10 +54,15 @@ const Env = z.object({
   SHOP_URL: z.url().default('http://127.0.0.1:5174'),
   SMTP_URL: z.string().default('smtp://127.0.0.1:1025'),
   MAIL_FROM: z.string().default('Fernhill Joinery <shop@fernhill.example>'),
+  TRUST_PROXY: trustProxy,
   RATE_LIMITS: bool.default(true),
-  SIGNIN_FAILS_PER_EMAIL: z.coerce.number().int().positive().default(10),
+  SIGNIN_FAILS_PER_EMAIL_IP: z.coerce.number().int().positive().default(10),
   SIGNIN_ATTEMPTS_PER_IP: z.coerce.number().int().positive().default(50),
   SIGNUPS_PER_IP: z.coerce.number().int().positive().default(20),
+  PASSWORD_RESETS_PER_IP: z.coerce.number().int().positive().default(30),
+  RESET_MAILS_PER_HOUR: z.coerce.number().int().positive().default(3),
+  VERIFY_MAILS_PER_HOUR: z.coerce.number().int().positive().default(3),
+  COMMENTS_PER_MINUTE: z.coerce.number().int().positive().default(10),
   PREVIEWS_PER_MINUTE: z.coerce.number().int().positive().default(120),
   JSON_LIMIT: z.string().default('100kb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

@@ -1,5 +1,5 @@
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
-import { and, eq, isNull } from 'drizzle-orm';
+import { and, count, eq, gt, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { tokens } from '../db/schema';
 
@@ -50,4 +50,14 @@ export function consumeToken(tx: Tx, token: string, kind: TokenKind, now = Date.
     .where(and(eq(tokens.id, row.id), isNull(tokens.usedAt)))
     .run();
   return r.changes === 1 ? row.userId : null;
+}
+
+/** How many tokens of a kind were issued to a user since a moment: the per-address mail limits count these rows. */
+export function tokensIssuedSince(tx: Pick<Db, 'select'>, userId: string, kind: TokenKind, since: number): number {
+  const row = tx
+    .select({ n: count() })
+    .from(tokens)
+    .where(and(eq(tokens.userId, userId), eq(tokens.kind, kind), gt(tokens.createdAt, new Date(since))))
+    .get();
+  return row?.n ?? 0;
 }

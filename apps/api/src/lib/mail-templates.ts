@@ -165,3 +165,20 @@ export function commentMail(shop: string, toName: string, fromName: string, comm
     html: layout(shop, `A comment from ${fromName}`, p, a),
   };
 }
+
+export function requestNotice(
+  shop: string,
+  ownerName: string,
+  client: string,
+  items: number,
+  url: string,
+): MailContent {
+  const what = items === 1 ? 'one piece' : `${items} pieces`;
+  const p = [`Hello ${ownerName},`, `${client} asked for an estimate for ${what}. The request is waiting in Requests.`];
+  const a = { label: 'Open the request', url };
+  return {
+    subject: `New request from ${client}`,
+    text: text(p, a, shop),
+    html: layout(shop, `A request from ${client}`, p, a),
+  };
+}

@@ -13,12 +13,35 @@ declare global {
   }
 }
 
+/**
+ * The session id from a Cookie header, or null. Lucia's parser decodes every cookie with decodeURIComponent and
+ * throws on broken %-encoding anywhere in the header (`bw_session=%zz`), which made every route answer 500; this one
+ * looks only at our cookie and takes a value it cannot decode as no session.
+ */
+export function sessionIdFromCookies(header: string | undefined, name: string): string | null {
+  if (!header) return null;
+  for (const part of header.split(';')) {
+    const eq = part.indexOf('=');
+    if (eq < 0 || part.slice(0, eq).trim() !== name) continue;
+    let value = part.slice(eq + 1).trim();
+    if (value.startsWith('"') && value.endsWith('"') && value.length >= 2) value = value.slice(1, -1);
+    try {
+      value = decodeURIComponent(value);
+    } catch {
+      return null;
+    }
+    // Lucia's ids are lowercase base32; anything else cannot be a session of ours
+    return /^[a-z0-9]{1,255}$/.test(value) ? value : null;
+  }
+  return null;
+}
+
 /** Reads the session cookie, refreshes it when Lucia says so, and sets res.locals.user. */
 export function sessionMiddleware(lucia: AppLucia): RequestHandler {
   return async (req, res, next) => {
     res.locals.user = null;
     res.locals.sessionId = null;
-    const id = lucia.readSessionCookie(req.headers.cookie ?? '');
+    const id = sessionIdFromCookies(req.headers.cookie, lucia.sessionCookieName);
     if (!id) return next();
     const { session, user } = await lucia.validateSession(id);
     if (session?.fresh) res.append('Set-Cookie', lucia.createSessionCookie(session.id).serialize());

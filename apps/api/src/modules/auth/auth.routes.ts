@@ -1,5 +1,4 @@
 import { Router, type Request } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import {
   AcceptInvitationBody,
   ForgotPasswordBody,
@@ -9,20 +8,21 @@ import {
   VerifyEmailBody,
 } from '@benchwright/contracts';
 import type { AppLucia } from '../../auth/lucia';
-import { parse, RateLimited } from '../../lib/errors';
+import { parse } from '../../lib/errors';
+import { ipKey, limiter } from '../../middleware/rate-limit';
 import { currentUser, requireRole } from '../../middleware/session';
 import type { AuthService } from './auth.service';
 
 export interface Limits {
   enabled: boolean;
-  signInFailsPerEmail: number;
+  /** failed sign-ins per (e-mail, client address) in 15 minutes */
+  signInFailsPerEmailIp: number;
+  /** failed sign-ins per client address in 15 minutes, whatever the e-mail */
   signInAttemptsPerIp: number;
   signUpsPerIp: number;
+  /** forgot-password requests per client address in an hour, whatever the answer */
+  passwordResetsPerIp: number;
 }
-
-const limited = () => {
-  throw new RateLimited();
-};
 
 function emailKey(req: Request): string {
   const e = (req.body as { email?: unknown } | undefined)?.email;
@@ -31,37 +31,21 @@ function emailKey(req: Request): string {
 
 export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits): Router {
   const r = Router();
-  const skip = () => !limits.enabled;
+  const { enabled } = limits;
   const window15 = 15 * 60_000;
-  // failed sign-ins only (successful ones are not counted), per e-mail and per IP
-  const perEmail = rateLimit({
+  // Failed sign-ins only (successful ones are not counted). Counted per (e-mail, address) together, so ten wrong
+  // passwords from one place do not lock the account for its owner elsewhere, and per address, so one place cannot
+  // try many accounts.
+  const perEmailIp = limiter({
+    enabled,
     windowMs: window15,
-    limit: limits.signInFailsPerEmail,
-    keyGenerator: emailKey,
-    skipSuccessfulRequests: true,
-    skip,
-    handler: limited,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    validate: false,
+    limit: limits.signInFailsPerEmailIp,
+    key: (req) => `${ipKey(req)} ${emailKey(req)}`,
+    failuresOnly: true,
   });
-  const perIp = rateLimit({
-    windowMs: window15,
-    limit: limits.signInAttemptsPerIp,
-    skipSuccessfulRequests: true,
-    skip,
-    handler: limited,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-  });
-  const signUps = rateLimit({
-    windowMs: 60 * 60_000,
-    limit: limits.signUpsPerIp,
-    skip,
-    handler: limited,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-  });
+  const perIp = limiter({ enabled, windowMs: window15, limit: limits.signInAttemptsPerIp, failuresOnly: true });
+  const signUps = limiter({ enabled, windowMs: 60 * 60_000, limit: limits.signUpsPerIp });
+  const resetsPerIp = limiter({ enabled, windowMs: 60 * 60_000, limit: limits.passwordResetsPerIp });
 
   const startSession = async (res: import('express').Response, userId: string) => {
     const session = await lucia.createSession(userId, {});
@@ -75,7 +59,7 @@ export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits
     res.status(201).json({ user });
   });
 
-  r.post('/sign-in', perIp, perEmail, async (req, res) => {
+  r.post('/sign-in', perIp, perEmailIp, async (req, res) => {
     const body = parse(SignInBody, req.body);
     const user = await service.signIn(body);
     await startSession(res, user.id);
@@ -102,7 +86,7 @@ export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits
     res.status(202).json({ sent: true });
   });
 
-  r.post('/forgot-password', perIp, (req, res) => {
+  r.post('/forgot-password', resetsPerIp, (req, res) => {
     const { email } = parse(ForgotPasswordBody, req.body);
     service.forgotPassword(email);
     res.status(202).json({ sent: true });

@@ -1,12 +1,24 @@
 import { Router } from 'express';
 import { CommentBody, CreateProjectBody } from '@benchwright/contracts';
 import { Forbidden, parse } from '../../lib/errors';
+import { limiter } from '../../middleware/rate-limit';
 import { currentUser } from '../../middleware/session';
 import type { ProjectsService } from './projects.service';
 
 /** Mounted behind requireRole('client', 'owner', 'builder'); ownership is checked in the service. */
-export function projectsRoutes(service: ProjectsService): Router {
+export function projectsRoutes(
+  service: ProjectsService,
+  limits: { enabled: boolean; commentsPerMinute: number } = { enabled: false, commentsPerMinute: 10 },
+): Router {
   const r = Router();
+  // per account (every comment mails the other side)
+  const comments = limiter({
+    enabled: limits.enabled,
+    windowMs: 60_000,
+    limit: limits.commentsPerMinute,
+    key: (_req, res) => `user ${currentUser(res).id}`,
+    message: 'That is a lot of comments in a minute; wait a moment and send it again.',
+  });
   r.get('/', (_req, res) => {
     res.json({ projects: service.list(currentUser(res)) });
   });
@@ -16,7 +28,7 @@ export function projectsRoutes(service: ProjectsService): Router {
   r.get('/:id/layouts', (req, res) => {
     res.json({ layouts: service.layouts(currentUser(res), req.params.id) });
   });
-  r.post('/:id/comments', (req, res) => {
+  r.post('/:id/comments', comments, (req, res) => {
     const { message } = parse(CommentBody, req.body);
     res.status(201).json({ project: service.comment(currentUser(res), req.params.id, message) });
   });

@@ -7,6 +7,7 @@ import { estimates, projectEvents, projectItems, projects, users } from '../../d
 import { loadPricing, travellerFor } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
 import { commentMail } from '../../lib/mail-templates';
+import { queueRequestNotice } from '../../lib/request-notice';
 import { addEvent } from '../../lib/timeline';
 import { Forbidden, Invalid, NotFound } from '../../lib/errors';
 
@@ -118,6 +119,10 @@ export function createProjectsService(
     /** A comment from the project's client or the owner: on the timeline, and by e-mail to the other side. */
     comment(viewer: User, id: string, message: string): Project {
       if (viewer.role === 'builder') throw new Forbidden('Comments are between the client and the owner.');
+      if (viewer.role === 'client' && !viewer.emailVerified)
+        throw new Forbidden(
+          'Confirm your e-mail address before commenting: open the link we sent you, or ask for a new one.',
+        );
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row || (viewer.role === 'client' && row.clientId !== viewer.id)) throw new NotFound('The project');
       const { shopName } = loadPricing(db);
@@ -176,6 +181,9 @@ export function createProjectsService(
             actorId: client.id,
           })
           .run();
+        // an unconfirmed client's request is kept; the shop hears of it when they confirm their address
+        if (client.emailVerified)
+          queueRequestNotice(tx, { shopName: loadPricing(db).shopName, shopUrl: urls.shopUrl }, id);
       });
       return this.get(client, id);
     },
