@@ -43,6 +43,11 @@ export class RateLimited extends AppError {
     super(429, 'rate_limited', message);
   }
 }
+export class Unavailable extends AppError {
+  constructor(message = 'This is unavailable for a moment; try again in a few minutes.') {
+    super(503, 'unavailable', message);
+  }
+}
 
 /** zod issues as the API lists them: `{ path: 'items[0].spec.widthMm', message }`. */
 export function zodIssues(err: z.ZodError): ApiIssue[] {
