@@ -106,6 +106,8 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
         const outcome = db.transaction((tx) => recordSession(tx, s, 'checkout'));
         if (outcome === 'mismatch')
           throw new Conflict(`The last ${kind} payment did not match this estimate; the shop has been told.`);
+        if (outcome === 'unpaid')
+          throw new Conflict(`The ${kind} payment is still being processed by the card processor; reload in a moment.`);
         throw new Conflict(`The ${kind} is already paid.`);
       }
       db.update(payments).set({ status: 'expired', updatedAt: new Date() }).where(eq(payments.id, last.id)).run();

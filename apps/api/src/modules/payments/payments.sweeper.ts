@@ -15,7 +15,7 @@ export interface PaymentSweeper {
 export function createPaymentSweeper(
   service: Pick<PaymentsService, 'sweep'>,
   { everyMs, olderThanMs }: { everyMs: number; olderThanMs: number },
-  log: { warn: (o: object, msg: string) => void; info?: (o: object, msg: string) => void },
+  log: { warn: (o: object, msg: string) => void },
 ): PaymentSweeper {
   let timer: NodeJS.Timeout | undefined;
   let running: Promise<{ checked: number; recorded: number; failed: number }> | undefined;
@@ -24,7 +24,8 @@ export function createPaymentSweeper(
     running ??= service
       .sweep(olderThanMs)
       .then((out) => {
-        if (out.recorded || out.failed) log.warn(out, 'payment sweep: recorded payments whose webhook had not come');
+        if (out.recorded) log.warn(out, 'payment sweep: recorded payments whose webhook had not come');
+        if (out.failed) log.warn(out, 'payment sweep: some open payments could not be looked up; trying again later');
         return out;
       })
       .finally(() => {
@@ -34,12 +35,13 @@ export function createPaymentSweeper(
   }
 
   return {
+    /** sweeps at once (payments made while the API was down) and then every `everyMs` */
     start() {
       if (timer) return;
-      timer = setInterval(() => {
-        tick().catch((err: unknown) => log.warn({ err: String(err) }, 'payment sweep failed'));
-      }, everyMs);
+      const run = () => void tick().catch((err: unknown) => log.warn({ err: String(err) }, 'payment sweep failed'));
+      timer = setInterval(run, everyMs);
       timer.unref();
+      run();
     },
     async stop() {
       if (timer) clearInterval(timer);
