@@ -107,4 +107,36 @@ describe('webhooks, delivered the way Stripe may deliver them', () => {
         .filter((m) => m.to === 'priya@example.com' && /Refund of \$25\.00/.test(m.subject)),
     ).toHaveLength(1);
   });
+
+  it('a refund whose payment Stripe does not show as paid is not stored as processed (503), so it comes again', async () => {
+    const { client, estimateId, projectId } = await depositDue(h, 'guild@example.com', 'Alder Cross Guild');
+    await checkout(client, estimateId);
+    const pay = ledger(h, projectId).payments[0];
+    const event = {
+      id: 'evt_refund_too_early',
+      object: 'event',
+      type: 'charge.refunded',
+      data: {
+        object: {
+          id: 'ch_test_early',
+          object: 'charge',
+          amount: pay.amountCents,
+          amount_refunded: 100,
+          refunded: false,
+          currency: 'usd',
+          payment_intent: 'pi_test_early',
+          metadata: { paymentId: pay.id },
+        },
+      },
+    };
+    const r = await deliver(h, event);
+    expect(r.status).toBe(503);
+    expect(((await r.json()) as { error: { code: string } }).error.code).toBe('unavailable');
+    expect(
+      h.db.$client.prepare("select count(*) as n from stripe_events where id = 'evt_refund_too_early'").get(),
+    ).toEqual({
+      n: 0,
+    });
+    expect(ledger(h, projectId).payments[0]).toMatchObject({ status: 'open', refundedCents: 0 });
+  });
 });
