@@ -502,7 +502,8 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
           }
           case 'charge.refunded':
             if (!facts.payment) break; // not one of ours
-            if (facts.session) recordSession(tx, facts.session, `${via} (payment asked of Stripe)`);
+            if (facts.session && recordSession(tx, facts.session, `${via} (payment asked of Stripe)`) === 'mismatch')
+              break; // recorded for the owner; acknowledged
             applyRefund(tx, facts.payment.id, event.data.object);
             break;
           default:
