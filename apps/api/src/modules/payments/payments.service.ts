@@ -31,6 +31,7 @@ type Payment = typeof payments.$inferSelect;
 /** Every Checkout Session is made in this currency; a payment reported in another is not ours to apply. */
 const CURRENCY = 'usd';
 const DOWN_MESSAGE = 'Payments are unavailable for a moment; nothing was charged. Try again in a few minutes.';
+const UNREACHABLE = 'Payments are unavailable for a moment; try again in a few minutes.';
 
 /** The card processor could not be reached or failed on its side (not a refusal of what we asked). */
 function processorDown(err: unknown): boolean {
@@ -44,11 +45,11 @@ function processorDown(err: unknown): boolean {
 }
 
 /** Calls the card processor; its being down answers 503 `unavailable` (a webhook is then redelivered by Stripe). */
-async function ask<T>(call: () => Promise<T>): Promise<T> {
+async function ask<T>(call: () => Promise<T>, message = UNREACHABLE): Promise<T> {
   try {
     return await call();
   } catch (err) {
-    if (processorDown(err)) throw new Unavailable(DOWN_MESSAGE);
+    if (processorDown(err)) throw new Unavailable(message);
     throw err;
   }
 }
@@ -99,7 +100,7 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     if (last?.status === 'paid' || last?.status === 'refunded' || last?.status === 'partially_refunded')
       throw new Conflict(`The ${kind} is already paid.`);
     if (last?.status === 'open' && last.stripeSessionId) {
-      const s = await ask(() => stripe.checkout.sessions.retrieve(last.stripeSessionId!));
+      const s = await ask(() => stripe.checkout.sessions.retrieve(last.stripeSessionId!), DOWN_MESSAGE);
       if (s.status === 'open' && s.url) return { url: s.url };
       if (s.status === 'complete') {
         // paid, but its webhook has not been applied yet: record it now rather than refuse until it comes
@@ -116,32 +117,34 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     const paymentId = randomUUID();
     const meta = { projectId, estimateId, kind, paymentId };
     const shop = loadPricing(db).shopName;
-    const session = await ask(() =>
-      stripe.checkout.sessions.create(
-        {
-          mode: 'payment',
-          line_items: [
-            {
-              quantity: 1,
-              price_data: {
-                currency: CURRENCY,
-                unit_amount: amount,
-                product_data: {
-                  name: `${kind === 'deposit' ? 'Deposit' : 'Balance'}: ${shop} estimate ${estimateNumber(projectId)}, revision ${est.revision}`,
+    const session = await ask(
+      () =>
+        stripe.checkout.sessions.create(
+          {
+            mode: 'payment',
+            line_items: [
+              {
+                quantity: 1,
+                price_data: {
+                  currency: CURRENCY,
+                  unit_amount: amount,
+                  product_data: {
+                    name: `${kind === 'deposit' ? 'Deposit' : 'Balance'}: ${shop} estimate ${estimateNumber(projectId)}, revision ${est.revision}`,
+                  },
                 },
               },
-            },
-          ],
-          customer_email: client.email,
-          client_reference_id: projectId,
-          metadata: meta,
-          payment_intent_data: { metadata: meta },
-          success_url: `${projectUrl(projectId)}?session_id={CHECKOUT_SESSION_ID}`,
-          cancel_url: projectUrl(projectId),
-          expires_at: Math.floor(Date.now() / 1000) + 23 * 3600,
-        },
-        { idempotencyKey: `${kind}-${estimateId}-r${est.revision}-a${attempt}` },
-      ),
+            ],
+            customer_email: client.email,
+            client_reference_id: projectId,
+            metadata: meta,
+            payment_intent_data: { metadata: meta },
+            success_url: `${projectUrl(projectId)}?session_id={CHECKOUT_SESSION_ID}`,
+            cancel_url: projectUrl(projectId),
+            expires_at: Math.floor(Date.now() / 1000) + 23 * 3600,
+          },
+          { idempotencyKey: `${kind}-${estimateId}-r${est.revision}-a${attempt}` },
+        ),
+      DOWN_MESSAGE,
     );
     db.insert(payments)
       .values({
