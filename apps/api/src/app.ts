@@ -26,7 +26,7 @@ import { overviewRoutes } from './modules/overview/overview.routes';
 import { createOverviewService } from './modules/overview/overview.service';
 import { createMailService } from './modules/mail/mail.service';
 import { createPaymentsService } from './modules/payments/payments.service';
-import { paymentsRoutes, webhookRoute } from './modules/payments/payments.routes';
+import { paymentConfirmRoute, paymentsRoutes, webhookRoute } from './modules/payments/payments.routes';
 
 export const VERSION = '0.1.0';
 
@@ -112,6 +112,7 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     }),
   );
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
+  app.use('/api/payments/confirm', requireRole('client'), paymentConfirmRoute(paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
   app.use('/api/mail', requireRole('owner'), mailRoutes(createMailService(db)));

@@ -7,6 +7,12 @@ import * as z from 'zod';
 export const REPO_ROOT = resolve(fileURLToPath(new URL('../../../', import.meta.url)));
 const fromRoot = (p: string) => (p === ':memory:' || isAbsolute(p) ? p : resolve(REPO_ROOT, p));
 
+/** Local stand-in values, fine on a laptop and refused in production (anyone can sign events with them). */
+const LOCAL_DEFAULTS = {
+  STRIPE_SECRET_KEY: 'sk_test_local_benchwright',
+  STRIPE_WEBHOOK_SECRET: 'whsec_local_benchwright',
+} as const;
+
 const bool = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
 
 /**
@@ -72,9 +78,16 @@ const Env = z.object({
   STRIPE_SECRET_KEY: z
     .string()
     .regex(/^sk_(test|live)_\w+$/, 'a Stripe secret key (sk_test_... or sk_live_...)')
-    .default('sk_test_local_benchwright'),
+    .default(LOCAL_DEFAULTS.STRIPE_SECRET_KEY),
   STRIPE_API_BASE: z.url().default('http://127.0.0.1:12111'),
-  STRIPE_WEBHOOK_SECRET: z.string().min(8).default('whsec_local_benchwright'),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).default(LOCAL_DEFAULTS.STRIPE_WEBHOOK_SECRET),
+  // open payments older than PAYMENT_SWEEP_AGE_MS are asked of Stripe every PAYMENT_SWEEP_MS
+  PAYMENT_SWEEP_MS: z.coerce.number().int().positive().default(60_000),
+  PAYMENT_SWEEP_AGE_MS: z.coerce
+    .number()
+    .int()
+    .min(0)
+    .default(5 * 60_000),
 });
 export type Env = z.infer<typeof Env>;
 
@@ -84,6 +97,15 @@ export function loadEnv(source: Record<string, string | undefined> = process.env
   if (!r.success) {
     const lines = r.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
     throw new Error(`The environment is not valid:\n${lines}`);
+  }
+  if (r.data.NODE_ENV === 'production') {
+    const local = (Object.keys(LOCAL_DEFAULTS) as (keyof typeof LOCAL_DEFAULTS)[]).filter(
+      (k) => r.data[k] === LOCAL_DEFAULTS[k],
+    );
+    if (local.length)
+      throw new Error(
+        `Refusing to start in production with the local default ${local.join(' and ')}: set the real values from the Stripe dashboard.`,
+      );
   }
   return r.data;
 }

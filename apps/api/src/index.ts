@@ -5,6 +5,7 @@ import { seedDemo, seedShop } from './db/seed';
 import { seedDemoFlow } from './db/seed-flow';
 import { loadEnv } from './env';
 import { createMailWorker } from './lib/mailer';
+import { createPaymentSweeper } from './modules/payments/payments.sweeper';
 
 const env = loadEnv();
 const log = pino({ level: env.LOG_LEVEL });
@@ -12,6 +13,11 @@ const db = openDb(env.DATABASE_PATH);
 let ready = false;
 const app = createApp({ db, env, log, ready: () => ready });
 const worker = createMailWorker(db, env.SMTP_URL, env.MAIL_FROM, log);
+const sweeper = createPaymentSweeper(
+  app.services.payments,
+  { everyMs: env.PAYMENT_SWEEP_MS, olderThanMs: env.PAYMENT_SWEEP_AGE_MS },
+  log,
+);
 
 const server = app.listen(env.PORT, env.HOST, () => log.info(`API listening on http://${env.HOST}:${env.PORT}/api`));
 
@@ -20,6 +26,7 @@ async function boot() {
   if (env.SEED_DEMO) await seedDemo(db);
   else seedShop(db);
   worker.start();
+  sweeper.start();
   if (env.SEED_DEMO) {
     try {
       await seedDemoFlow(db, app.services, log);
@@ -45,7 +52,7 @@ async function shutdown(signal: string) {
   log.info(`${signal}: shutting down`);
   server.close();
   server.closeIdleConnections();
-  await worker.stop();
+  await Promise.all([worker.stop(), sweeper.stop()]);
   db.$client.close();
   process.exit(0);
 }

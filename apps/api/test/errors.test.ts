@@ -31,6 +31,7 @@ const ROUTES: [string, string][] = [
   ['post', '/api/estimates/nope/deposit-checkout'],
   ['get', '/api/payments'],
   ['post', '/api/payments/nope/refund'],
+  ['post', '/api/payments/confirm'],
   ['post', '/api/webhooks/stripe'],
   ['get', '/api/jobs'],
   ['get', '/api/jobs/nope/traveller'],

@@ -14,6 +14,7 @@ export const ERROR_CODES = [
   'unsupported_media_type',
   'rate_limited',
   'internal',
+  'unavailable',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 export interface ApiIssue {
@@ -170,6 +171,15 @@ export const AcceptEstimateBody = z.object({
 export const RefundBody = z.object({
   amountCents: z.number().int().min(1, 'at least 1 cent').max(100_000_000).optional(),
 });
+/** The portal's return from Checkout: the session id Stripe put in `success_url`. */
+export const ConfirmPaymentBody = z.object({
+  sessionId: z
+    .string()
+    .min(1, 'the checkout session id is missing')
+    .max(255)
+    .regex(/^cs_\w+$/, 'a checkout session id (cs_...)'),
+});
+export type ConfirmPaymentBody = z.input<typeof ConfirmPaymentBody>;
 export const STAGE_KEYS = ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] as const;
 export const UpdateJobBody = z
   .object({

@@ -36,6 +36,8 @@ interface State {
   charges: Record<string, Obj>;
   refunds: Record<string, Obj>;
   events: Obj[];
+  /** webhook deliveries not yet acknowledged, kept with the state so that a restart resumes them */
+  pending?: { eventId: string; attempt: number; dueAt: number }[];
   idempotency: Record<string, { fingerprint: string; status: number; body: unknown }>;
 }
 
@@ -139,6 +141,9 @@ export function createStripeFake(opts: FakeOptions) {
   const retryBase = opts.retryBaseMs ?? 1000;
   const maxAttempts = opts.maxAttempts ?? 8;
   const timers = new Set<NodeJS.Timeout>();
+  state.pending ??= [];
+  const pending = state.pending;
+  let stopped = false;
 
   function save(): void {
     if (!opts.stateFile) return;
@@ -148,7 +153,40 @@ export function createStripeFake(opts: FakeOptions) {
     renameSync(tmp, opts.stateFile);
   }
 
-  function deliver(event: Obj, attempt = 1): void {
+  /**
+   * Queues a delivery of the event. Pending deliveries live in the state (saved to the state file), so
+   * that a restart of the stand-in resumes them, as Stripe keeps retrying through an outage of its own.
+   */
+  function deliver(event: Obj): void {
+    const entry = { eventId: String(event.id), attempt: 1, dueAt: Date.now() };
+    pending.push(entry);
+    save();
+    attempt(entry);
+  }
+
+  function later(entry: (typeof pending)[number]): void {
+    if (stopped) return;
+    const t = setTimeout(
+      () => {
+        timers.delete(t);
+        attempt(entry);
+      },
+      Math.max(0, entry.dueAt - Date.now()),
+    );
+    t.unref();
+    timers.add(t);
+  }
+
+  function settle(entry: (typeof pending)[number]): void {
+    const i = pending.indexOf(entry);
+    if (i >= 0) pending.splice(i, 1);
+    save();
+  }
+
+  function attempt(entry: (typeof pending)[number]): void {
+    if (stopped) return;
+    const event = state.events.find((e) => e.id === entry.eventId);
+    if (!event) return settle(entry);
     const payload = JSON.stringify(event, null, 2);
     fetch(opts.webhookUrl, {
       method: 'POST',
@@ -161,18 +199,15 @@ export function createStripeFake(opts: FakeOptions) {
     })
       .then((r) => {
         if (!r.ok) throw new Error(`status ${r.status}`);
+        if (!stopped) settle(entry);
       })
       .catch(() => {
-        if (attempt >= maxAttempts) return;
-        const t = setTimeout(
-          () => {
-            timers.delete(t);
-            deliver(event, attempt + 1);
-          },
-          retryBase * 2 ** (attempt - 1),
-        );
-        t.unref();
-        timers.add(t);
+        if (stopped) return; // left pending on disk for the next start
+        if (entry.attempt >= maxAttempts) return settle(entry); // given up, as Stripe does after its retries
+        entry.dueAt = Date.now() + retryBase * 2 ** (entry.attempt - 1);
+        entry.attempt += 1;
+        save();
+        later(entry);
       });
   }
 
@@ -214,6 +249,9 @@ export function createStripeFake(opts: FakeOptions) {
       save();
     }
   }
+
+  // deliveries left pending by the last run are resumed
+  for (const entry of pending) later(entry);
 
   const sweep = setInterval(() => {
     for (const s of Object.values(state.sessions)) expireIfDue(s);
@@ -442,16 +480,14 @@ export function createStripeFake(opts: FakeOptions) {
   app.post('/__fake/events/:id/resend', (req, res) => {
     const e = state.events.find((x) => x.id === req.params.id);
     if (!e)
-      return void res
-        .status(404)
-        .json({
-          error: {
-            type: 'invalid_request_error',
-            code: 'resource_missing',
-            message: `No such event: '${req.params.id}'`,
-            param: 'id',
-          },
-        });
+      return void res.status(404).json({
+        error: {
+          type: 'invalid_request_error',
+          code: 'resource_missing',
+          message: `No such event: '${req.params.id}'`,
+          param: 'id',
+        },
+      });
     deliver(e);
     res.json(e);
   });
@@ -563,6 +599,7 @@ export function createStripeFake(opts: FakeOptions) {
     app,
     state,
     stop() {
+      stopped = true;
       clearInterval(sweep);
       for (const t of timers) clearTimeout(t);
       timers.clear();

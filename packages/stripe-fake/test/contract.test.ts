@@ -243,4 +243,24 @@ describe('state on disk', () => {
     expect(again.payment_status).toBe('paid');
     expect((await stripe.paymentIntents.retrieve(again.payment_intent as string)).status).toBe('succeeded');
   });
+  it('keeps a webhook delivery that was not acknowledged across a restart, and delivers it once started again', async () => {
+    fail = 1_000_000; // the endpoint is down
+    const s = await stripe.checkout.sessions.create(sessionParams());
+    await payForm(s.url!, '4242424242424242');
+    const onDisk = () => JSON.parse(readFileSync(stateFile, 'utf8')) as { pending?: { attempt: number }[] };
+    for (let i = 0; i < 200 && !(onDisk().pending ?? []).some((p) => p.attempt >= 2); i++)
+      await new Promise((r) => setTimeout(r, 20));
+    expect(onDisk().pending?.length).toBeGreaterThan(0);
+    expect(received).toHaveLength(0);
+    await stop();
+    fail = 0; // the endpoint is back; the stand-in starts again from its file
+    await start(stateFile);
+    const [completed] = await eventsOf('checkout.session.completed');
+    expect(
+      (stripe.webhooks.constructEvent(completed.body, completed.signature, SECRET).data.object as { id: string }).id,
+    ).toBe(s.id);
+    expect(await eventsOf('payment_intent.succeeded')).toHaveLength(1);
+    for (let i = 0; i < 100 && (onDisk().pending ?? []).length > 0; i++) await new Promise((r) => setTimeout(r, 20));
+    expect(onDisk().pending).toEqual([]);
+  });
 });

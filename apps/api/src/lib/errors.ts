@@ -45,6 +45,12 @@ export class RateLimited extends AppError {
   }
 }
 
+export class Unavailable extends AppError {
+  constructor(message = 'This is unavailable for a moment; try again in a few minutes.') {
+    super(503, 'unavailable', message);
+  }
+}
+
 /** zod issues as the API lists them: `{ path: 'items[0].spec.widthMm', message }`. */
 export function zodIssues(err: z.ZodError): ApiIssue[] {
   return err.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));

@@ -1,19 +1,30 @@
+import { useEffect, useRef } from 'react';
 import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
 import { Button, CommentForm, Money, Notice, Panel, useComment } from '@benchwright/ui';
 import { useMe } from '@benchwright/ui/auth';
 import { paths } from '../../config/paths';
 import { useBalanceCheckout } from '../../features/estimates/api/checkout';
 import { EstimateView } from '../../features/estimates/components/estimate-view';
+import { useConfirmPayment } from '../../features/projects/api/confirm-payment';
 import { useProject } from '../../features/projects/api/get-project';
 import { STATUS_WORDS, itemName } from '../../features/projects/components/project-list';
 
 export function ProjectRoute() {
   const { id = '' } = useParams();
   const [params] = useSearchParams();
-  const returning = params.has('session_id');
+  const sessionId = params.get('session_id');
+  const returning = sessionId !== null;
   const me = useMe();
   const q = useProject(id, { waitingForPayment: returning });
   const balance = useBalanceCheckout();
+  // back from Checkout: ask once for the payment to be recorded, then poll as the webhook may also record it
+  const { mutate: confirmPayment } = useConfirmPayment();
+  const confirmed = useRef<string | null>(null);
+  useEffect(() => {
+    if (!sessionId || me.data?.role !== 'client' || confirmed.current === sessionId) return;
+    confirmed.current = sessionId;
+    confirmPayment({ sessionId });
+  }, [sessionId, me.data?.role, confirmPayment]);
   if (me.isPending) return <p>Loading…</p>;
   if (!me.data) return <Navigate to={paths.signIn.getHref(paths.project.getHref(id))} replace />;
   if (q.isPending) return <p>Loading the project…</p>;
