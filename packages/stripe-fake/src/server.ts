@@ -346,6 +346,7 @@ export function createStripeFake(opts: FakeOptions) {
         'payment_intent',
       );
     const ch = state.charges[pi.latest_charge as string];
+    if (!ch) throw new Error(`payment_intent ${piId} has no charge`); // pay() stores both together
     const left = (ch.amount as number) - (ch.amount_refunded as number);
     const amount = body.amount !== undefined ? int(body.amount, 'amount', { min: 1 }) : left;
     if (left <= 0)
@@ -442,16 +443,14 @@ export function createStripeFake(opts: FakeOptions) {
   app.post('/__fake/events/:id/resend', (req, res) => {
     const e = state.events.find((x) => x.id === req.params.id);
     if (!e)
-      return void res
-        .status(404)
-        .json({
-          error: {
-            type: 'invalid_request_error',
-            code: 'resource_missing',
-            message: `No such event: '${req.params.id}'`,
-            param: 'id',
-          },
-        });
+      return void res.status(404).json({
+        error: {
+          type: 'invalid_request_error',
+          code: 'resource_missing',
+          message: `No such event: '${req.params.id}'`,
+          param: 'id',
+        },
+      });
     deliver(e);
     res.json(e);
   });
