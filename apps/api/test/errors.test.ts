@@ -2,7 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { testApp } from './helpers';
 
-const ROUTES: [string, string][] = [
+type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
+const ROUTES: [Method, string][] = [
   ['post', '/api/auth/sign-up'],
   ['post', '/api/auth/sign-in'],
   ['post', '/api/auth/sign-out'],
@@ -95,7 +96,7 @@ describe('bad input on every route', () => {
         for (const body of bodies) {
           const r = await (
             a as never as Record<
-              string,
+              Method,
               (p: string) => { send: (b: unknown) => Promise<{ status: number; body: unknown }> }
             >
           )

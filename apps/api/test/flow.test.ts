@@ -9,7 +9,7 @@ import { pino } from 'pino';
 import request from 'supertest';
 import Stripe from 'stripe';
 import { createStripeFake, signPayload } from '@benchwright/stripe-fake';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, assert, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../src/app';
 import { applyMigrations, openDb, type Db } from '../src/db/client';
 import { DEMO_PASSWORD, seedDemo } from '../src/db/seed';
@@ -202,9 +202,9 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
       'the estimate mail',
     );
     const em = mail.find((x) => /Your estimate/.test(x.subject))!;
-    expect(em.to[0].address).toBe('priya@example.com');
+    expect(em.to[0]?.address).toBe('priya@example.com');
     expect(em.text).toContain(`/projects/${projectId}`);
-    expect(em.attachments?.[0].contentType).toBe('application/pdf');
+    expect(em.attachments?.[0]?.contentType).toBe('application/pdf');
     const pdf = await binary(priya.get(`/api/estimates/${estimateId}/pdf`));
     expect(pdf.headers['content-type']).toBe('application/pdf');
     const text = pdfText(pdf.body as Buffer);
@@ -290,11 +290,11 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     const mails = await until(inbox, (m) => m.some((x) => x.subject.startsWith('Deposit receipt')), 'the receipt');
     const receipts = mails.filter((m) => m.subject.startsWith('Deposit receipt'));
     expect(receipts).toHaveLength(1);
-    expect(receipts[0].to[0].address).toBe('priya@example.com');
-    expect(receipts[0].subject).toContain(
+    expect(receipts[0]?.to[0]?.address).toBe('priya@example.com');
+    expect(receipts[0]?.subject).toContain(
       new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(total.depositCents / 100),
     );
-    expect(mails.some((m) => m.to[0].address === 'maren@fernhill.example' && /deposit/.test(m.subject))).toBe(true);
+    expect(mails.some((m) => m.to[0]?.address === 'maren@fernhill.example' && /deposit/.test(m.subject))).toBe(true);
   });
 
   it('a resent event changes nothing: one payment, one job, one receipt', async () => {
@@ -542,6 +542,7 @@ describe('SMTP down while sending', () => {
     expect(listed.length).toBeGreaterThan(0);
     expect(listed.every((m) => m.attempts >= 1 && m.lastError)).toBe(true);
     const failed = listed[0];
+    assert(failed);
     expect((await guild.get('/api/mail/failed')).status).toBe(403);
     maildev = new MailDev({
       smtp: SMTP,
@@ -557,10 +558,10 @@ describe('SMTP down while sending', () => {
       expect((await owner.post(`/api/mail/${m.id}/retry`)).status).toBe(202);
     const mails = await until(
       inbox,
-      (m) => m.some((x) => x.to[0].address === 'guild@example.com'),
+      (m) => m.some((x) => x.to[0]?.address === 'guild@example.com'),
       'the estimate mail after SMTP came back',
     );
-    expect(mails.filter((x) => x.to[0].address === 'guild@example.com')).toHaveLength(1);
+    expect(mails.filter((x) => x.to[0]?.address === 'guild@example.com')).toHaveLength(1);
     await until(
       async () => (await owner.get('/api/mail/failed')).body.mails,
       (l) => l.length === 0,

@@ -41,9 +41,9 @@ export async function testApp(overrides: Record<string, string> = {}): Promise<T
 }
 
 /** The token in the last link of a mail's text. */
-export function tokenFrom(text: string): string {
-  const m = /token=([A-Za-z0-9_-]+)/.exec(text);
-  if (!m) throw new Error(`no token in: ${text}`);
+export function tokenFrom(text: string | undefined): string {
+  const m = /token=([A-Za-z0-9_-]+)/.exec(text ?? '');
+  if (!m?.[1]) throw new Error(`no token in: ${text}`);
   return m[1];
 }
 

@@ -384,6 +384,7 @@ export function createStripeFake(opts: FakeOptions) {
         'payment_intent',
       );
     const ch = state.charges[pi.latest_charge as string];
+    if (!ch) throw new Error(`payment_intent ${piId} has no charge`); // pay() stores both together
     const left = (ch.amount as number) - (ch.amount_refunded as number);
     const amount = body.amount !== undefined ? int(body.amount, 'amount', { min: 1 }) : left;
     if (left <= 0)

@@ -59,12 +59,12 @@ export async function seedDemo(db: Db): Promise<void> {
   db.transaction((tx) => {
     for (const u of DEMO_USERS) {
       const found = tx.select().from(users).where(eq(users.email, u.email)).get();
-      if (found) ids[u.email] = found.id;
-      else {
-        ids[u.email] = randomUUID();
+      const id = found?.id ?? randomUUID();
+      ids[u.email] = id;
+      if (!found) {
         tx.insert(users)
           .values({
-            id: ids[u.email],
+            id,
             email: u.email,
             name: u.name,
             role: u.role,
@@ -93,6 +93,7 @@ export async function seedDemo(db: Db): Promise<void> {
     ];
     for (const [email, notes, spec, quantity] of requests) {
       const clientId = ids[email];
+      if (!clientId) throw new Error(`the demo request's client ${email} is not a demo user`);
       if (tx.select({ id: projects.id }).from(projects).where(eq(projects.clientId, clientId)).get()) continue;
       const id = randomUUID();
       tx.insert(projects).values({ id, clientId, notes }).run();

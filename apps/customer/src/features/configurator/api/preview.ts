@@ -5,7 +5,7 @@ import { api } from '@benchwright/ui';
 export interface QuotePreview {
   budget: { lowCents: number; highCents: number };
   checks: Pick<Check, 'code' | 'level' | 'message'>[];
-  items: { drawingSvg: string; massKg: number }[];
+  items: [{ drawingSvg: string; massKg: number }]; // one piece is sent, so one comes back
 }
 
 /** The budget range, checks and drawing for one configured piece; the last good answer stays while the next loads. */

@@ -268,7 +268,9 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
             type="button"
             variant="quiet"
             className="mb-3 px-0"
-            onClick={() => setSpec((s) => ({ ...s, bays: [...s.bays, structuredClone(s.bays[s.bays.length - 1])] }))}
+            onClick={() =>
+              setSpec((s) => ({ ...s, bays: [...s.bays, ...s.bays.slice(-1).map((b) => structuredClone(b))] }))
+            }
           >
             Add a bay
           </Button>
