@@ -6,6 +6,7 @@ import { createLucia } from './auth/lucia';
 import { migrationLevel, type Db } from './db/client';
 import { appOrigins, type Env } from './env';
 import { errorHandler, notFoundRoute } from './middleware/errors';
+import { noStore } from './middleware/cache';
 import { originCheck } from './middleware/origin';
 import { requireRole, sessionMiddleware } from './middleware/session';
 import { authRoutes } from './modules/auth/auth.routes';
@@ -74,7 +75,9 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/webhooks/stripe', webhookRoute(paymentsService));
   app.use(express.json({ limit: env.JSON_LIMIT }));
   app.use(originCheck(appOrigins(env)));
-  app.use(sessionMiddleware(lucia));
+  app.use(sessionMiddleware(lucia, env.SESSION_MAX_DAYS * 24 * 3600_000));
+  // what the API answers is personal or changes by the minute: no cache keeps it (the estimate PDF says private)
+  app.use('/api', noStore);
 
   app.get('/api/health', (_req, res) => {
     let database = 'ok';

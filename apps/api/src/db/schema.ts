@@ -16,13 +16,20 @@ export const users = sqliteTable('users', {
   createdAt: createdAt(),
 });
 
-/** Lucia's session table: expires_at is an integer of seconds. */
+/**
+ * Lucia's session table: expires_at is an integer of seconds (sliding). created_at (ms) bounds the session's whole
+ * life (SESSION_MAX_DAYS) however active it is; it is set on sign-in, and the sessions older than the column (0) are
+ * over.
+ */
 export const sessions = sqliteTable('sessions', {
   id: text().primaryKey(),
   userId: text()
     .notNull()
     .references(() => users.id, { onDelete: 'cascade' }),
   expiresAt: integer().notNull(),
+  createdAt: integer({ mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`0`),
 });
 
 /** Single-use, expiring tokens, stored as SHA-256 hashes only. */

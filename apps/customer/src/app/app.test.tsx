@@ -92,3 +92,41 @@ describe('my projects', () => {
     expect(screen.getByText('Estimate requested')).toBeTruthy();
   });
 });
+
+describe('the sign-in page', () => {
+  const signedInApi = () => {
+    let signedIn = false;
+    mockApi((path) => {
+      if (path.endsWith('/auth/sign-in')) {
+        signedIn = true;
+        return [200, { user: { id: 'u', email: 'p@example.com', name: 'Priya', role: 'client', emailVerified: true } }];
+      }
+      if (path.endsWith('/auth/me') && signedIn)
+        return [200, { user: { id: 'u', email: 'p@example.com', name: 'Priya', role: 'client', emailVerified: true } }];
+      if (path.endsWith('/projects') && signedIn) return [200, { projects: [] }];
+      return [401, { error: { code: 'unauthenticated', message: 'Sign in to continue.' } }];
+    });
+  };
+  const signInAt = async (url: string) => {
+    signedInApi();
+    const router = createTestRouter(url);
+    render(<App router={router} />);
+    const user = userEvent.setup();
+    await user.type(await screen.findByLabelText('E-mail'), 'p@example.com');
+    await user.type(screen.getByLabelText('Password'), 'a-long-password');
+    await user.click(screen.getByRole('button', { name: 'Sign in' }));
+    return router;
+  };
+  it('goes on to the redirect when it is a path of the portal', async () => {
+    const router = await signInAt('/sign-in?redirect=%2Fdesigns%2Fbookcase');
+    await waitFor(() => expect(router.state.location.pathname).toBe('/designs/bookcase'));
+  });
+  it('ignores a redirect to another site (//host, /\\host) and goes to my projects', async () => {
+    for (const target of ['//evil.example/x', '/\\evil.example']) {
+      const router = await signInAt(`/sign-in?redirect=${encodeURIComponent(target)}`);
+      await waitFor(() => expect(router.state.location.pathname).toBe('/projects'));
+      router.dispose();
+      document.body.innerHTML = '';
+    }
+  });
+});
