@@ -7,6 +7,7 @@ import { migrationLevel, type Db } from './db/client';
 import { appOrigins, type Env } from './env';
 import { errorHandler, notFoundRoute } from './middleware/errors';
 import { noStore } from './middleware/cache';
+import { idempotency } from './middleware/idempotency';
 import { originCheck } from './middleware/origin';
 import { requireRole, sessionMiddleware } from './middleware/session';
 import { authRoutes } from './modules/auth/auth.routes';
@@ -109,10 +110,14 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     '/api/projects',
     requireRole('client', 'owner', 'builder'),
     projectMoneyRoutes(estimatesService, paymentsService),
-    projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }), {
-      enabled: env.RATE_LIMITS,
-      commentsPerMinute: env.COMMENTS_PER_MINUTE,
-    }),
+    projectsRoutes(
+      createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }),
+      {
+        enabled: env.RATE_LIMITS,
+        commentsPerMinute: env.COMMENTS_PER_MINUTE,
+      },
+      idempotency(db),
+    ),
   );
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));

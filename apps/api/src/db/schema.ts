@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
 
 const now = sql`(unixepoch() * 1000)`;
@@ -293,4 +293,25 @@ export const outbox = sqliteTable(
     sentAt: integer({ mode: 'timestamp_ms' }),
   },
   (t) => [index('outbox_pending').on(t.status, t.nextAttemptAt)],
+);
+
+/**
+ * Idempotency-Key records (middleware/idempotency.ts): the first answer to a creating request, per user and key, kept
+ * 24 hours so that a retry gets the same answer instead of doing the work again. status is null while the first
+ * request is being handled.
+ */
+export const idempotencyKeys = sqliteTable(
+  'idempotency_keys',
+  {
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    key: text().notNull(),
+    /** SHA-256 of the method, path and body: the same key with another request is refused */
+    requestHash: text().notNull(),
+    status: integer(),
+    body: text(),
+    createdAt: integer({ mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.key] }), index('idempotency_keys_created').on(t.createdAt)],
 );
