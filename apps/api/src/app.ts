@@ -6,6 +6,8 @@ import { createLucia } from './auth/lucia';
 import { migrationLevel, type Db } from './db/client';
 import { appOrigins, type Env } from './env';
 import { errorHandler, notFoundRoute } from './middleware/errors';
+import { noStore } from './middleware/cache';
+import { idempotency } from './middleware/idempotency';
 import { originCheck } from './middleware/origin';
 import { requireRole, sessionMiddleware } from './middleware/session';
 import { authRoutes } from './modules/auth/auth.routes';
@@ -74,7 +76,9 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/webhooks/stripe', webhookRoute(paymentsService));
   app.use(express.json({ limit: env.JSON_LIMIT }));
   app.use(originCheck(appOrigins(env)));
-  app.use(sessionMiddleware(lucia));
+  app.use(sessionMiddleware(lucia, env.SESSION_MAX_DAYS * 24 * 3600_000));
+  // what the API answers is personal or changes by the minute: no cache keeps it (the estimate PDF says private)
+  app.use('/api', noStore);
 
   app.get('/api/health', (_req, res) => {
     let database = 'ok';
@@ -106,10 +110,14 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     '/api/projects',
     requireRole('client', 'owner', 'builder'),
     projectMoneyRoutes(estimatesService, paymentsService),
-    projectsRoutes(createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }), {
-      enabled: env.RATE_LIMITS,
-      commentsPerMinute: env.COMMENTS_PER_MINUTE,
-    }),
+    projectsRoutes(
+      createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }),
+      {
+        enabled: env.RATE_LIMITS,
+        commentsPerMinute: env.COMMENTS_PER_MINUTE,
+      },
+      idempotency(db),
+    ),
   );
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments/confirm', requireRole('client'), paymentConfirmRoute(paymentsService));

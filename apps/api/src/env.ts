@@ -70,6 +70,8 @@ const Env = z.object({
   VERIFY_MAILS_PER_HOUR: z.coerce.number().int().positive().default(3),
   COMMENTS_PER_MINUTE: z.coerce.number().int().positive().default(10),
   PREVIEWS_PER_MINUTE: z.coerce.number().int().positive().default(120),
+  /** a session ends this many days after sign-in, however active (Lucia's own expiry slides 30 days on use) */
+  SESSION_MAX_DAYS: z.coerce.number().positive().max(365).default(30),
   JSON_LIMIT: z.string().default('100kb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: bool.default(true),

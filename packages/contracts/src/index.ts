@@ -1,7 +1,9 @@
 import * as z from 'zod';
 import { BuildSpec, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing/geometry';
+import { multiLine, singleLine } from './text';
 
 export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
+export { isPlainText, isSingleLine, multiLine, singleLine } from './text';
 
 /** Every error the API answers with (DESIGN.md section 10). */
 export const ERROR_CODES = [
@@ -38,7 +40,7 @@ const password = z
   .string()
   .min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`)
   .max(200, 'use at most 200 characters');
-const name = z.string().trim().min(1, 'enter your name').max(120, 'use at most 120 characters');
+const name = singleLine().min(1, 'enter your name').max(120, 'use at most 120 characters');
 const token = z.string().min(16, 'this link is not valid').max(200, 'this link is not valid');
 
 export const SignUpBody = z.object({ email, password, name });
@@ -74,12 +76,12 @@ export const QuotePreviewBody = z.object({
 export type QuotePreviewBody = z.input<typeof QuotePreviewBody>;
 export const CreateProjectBody = z.object({
   items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items'),
-  notes: z.string().max(4000, 'use at most 4000 characters').default(''),
+  notes: multiLine().max(4000, 'use at most 4000 characters').default(''),
 });
 export type CreateProjectBody = z.input<typeof CreateProjectBody>;
 /** A comment on a project, from its client or the owner; it goes on the timeline and by e-mail to the other side. */
 export const CommentBody = z.object({
-  message: z.string().trim().min(1, 'write a comment first').max(2000, 'use at most 2000 characters'),
+  message: multiLine().min(1, 'write a comment first').max(2000, 'use at most 2000 characters'),
 });
 export type CommentBody = z.input<typeof CommentBody>;
 
@@ -152,12 +154,12 @@ export const CreateEstimateBody = z.object({ source: z.enum(['engine', 'copy']).
 export const EstimateLineInput = z.object({
   id: z.string().max(64).optional(),
   group: z.enum(LINE_GROUPS),
-  description: z.string().trim().min(1, 'describe the line').max(300),
+  description: singleLine().min(1, 'describe the line').max(300),
   quantity: z.number().min(0, 'at least 0').max(100000),
-  unit: z.string().trim().min(1).max(20),
+  unit: singleLine().min(1).max(20),
   unitPriceCents: z.number().int('whole cents').min(-10_000_000).max(100_000_000),
   costCents: z.number().int().min(0).max(100_000_000).optional(),
-  overrideReason: z.string().trim().max(500).nullable().optional(),
+  overrideReason: singleLine().max(500).nullable().optional(),
 });
 export const UpdateEstimateBody = z.object({
   version: z.number().int().min(1),
@@ -166,7 +168,7 @@ export const UpdateEstimateBody = z.object({
 });
 export type UpdateEstimateBody = z.input<typeof UpdateEstimateBody>;
 export const AcceptEstimateBody = z.object({
-  acceptedName: z.string().trim().min(2, 'type your full name to accept').max(120),
+  acceptedName: singleLine().min(2, 'type your full name to accept').max(120),
 });
 export const RefundBody = z.object({
   amountCents: z.number().int().min(1, 'at least 1 cent').max(100_000_000).optional(),
@@ -192,7 +194,7 @@ export const UpdateJobBody = z
 export const LogTimeBody = z.object({
   stageKey: z.enum(STAGE_KEYS),
   hours: z.number().gt(0, 'more than 0 hours').max(24, 'at most 24 hours at a time'),
-  note: z.string().max(500).default(''),
+  note: multiLine().max(500).default(''),
 });
 
 /** `GET /api/estimates/:id`: what a client sees; the owner also gets the fields marked owner. */

@@ -13,11 +13,15 @@ export class ApiRequestError extends Error {
 }
 
 /** fetch against the app's own origin (Vite proxies /api), with the session cookie. */
-export async function api<T>(path: string, init: { method?: string; body?: unknown } = {}): Promise<T> {
+export async function api<T>(
+  path: string,
+  init: { method?: string; body?: unknown; headers?: Record<string, string> } = {},
+): Promise<T> {
+  const headers = { ...(init.body === undefined ? {} : { 'Content-Type': 'application/json' }), ...init.headers };
   const res = await fetch(`/api${path}`, {
     method: init.method ?? (init.body === undefined ? 'GET' : 'POST'),
     credentials: 'include',
-    headers: init.body === undefined ? undefined : { 'Content-Type': 'application/json' },
+    headers: Object.keys(headers).length ? headers : undefined,
     body: init.body === undefined ? undefined : JSON.stringify(init.body),
   });
   if (res.status === 204) return undefined as T;

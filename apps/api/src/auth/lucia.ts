@@ -8,6 +8,7 @@ export function createLucia(db: Db, secure: boolean) {
   return new Lucia(adapter, {
     sessionCookie: { name: 'bw_session', attributes: { secure, sameSite: 'lax' } },
     getUserAttributes: (u) => ({ email: u.email, name: u.name, role: u.role, emailVerifiedAt: u.emailVerifiedAt }),
+    getSessionAttributes: (s) => ({ createdAt: new Date(s.createdAt) }),
   });
 }
 export type AppLucia = ReturnType<typeof createLucia>;
@@ -15,6 +16,10 @@ export type AppLucia = ReturnType<typeof createLucia>;
 declare module 'lucia' {
   interface Register {
     Lucia: AppLucia;
+    DatabaseSessionAttributes: {
+      /** when the user signed in: the session ends SESSION_MAX_DAYS after it, however active */
+      createdAt: Date;
+    };
     DatabaseUserAttributes: {
       email: string;
       name: string;
@@ -22,4 +27,10 @@ declare module 'lucia' {
       emailVerifiedAt: number | Date | null;
     };
   }
+}
+
+/** Starts a session now (its absolute lifetime counts from here) and gives the cookie to set. */
+export async function startSession(lucia: AppLucia, userId: string): Promise<string> {
+  const session = await lucia.createSession(userId, { createdAt: new Date() });
+  return lucia.createSessionCookie(session.id).serialize();
 }

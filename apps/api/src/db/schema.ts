@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
 
 const now = sql`(unixepoch() * 1000)`;
@@ -16,13 +16,20 @@ export const users = sqliteTable('users', {
   createdAt: createdAt(),
 });
 
-/** Lucia's session table: expires_at is an integer of seconds. */
+/**
+ * Lucia's session table: expires_at is an integer of seconds (sliding). created_at (ms) bounds the session's whole
+ * life (SESSION_MAX_DAYS) however active it is; it is set on sign-in, and the sessions older than the column (0) are
+ * over.
+ */
 export const sessions = sqliteTable('sessions', {
   id: text().primaryKey(),
   userId: text()
     .notNull()
     .references(() => users.id, { onDelete: 'cascade' }),
   expiresAt: integer().notNull(),
+  createdAt: integer({ mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`0`),
 });
 
 /** Single-use, expiring tokens, stored as SHA-256 hashes only. */
@@ -286,4 +293,25 @@ export const outbox = sqliteTable(
     sentAt: integer({ mode: 'timestamp_ms' }),
   },
   (t) => [index('outbox_pending').on(t.status, t.nextAttemptAt)],
+);
+
+/**
+ * Idempotency-Key records (middleware/idempotency.ts): the first answer to a creating request, per user and key, kept
+ * 24 hours so that a retry gets the same answer instead of doing the work again. status is null while the first
+ * request is being handled.
+ */
+export const idempotencyKeys = sqliteTable(
+  'idempotency_keys',
+  {
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    key: text().notNull(),
+    /** SHA-256 of the method, path and body: the same key with another request is refused */
+    requestHash: text().notNull(),
+    status: integer(),
+    body: text(),
+    createdAt: integer({ mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.key] }), index('idempotency_keys_created').on(t.createdAt)],
 );

@@ -37,13 +37,19 @@ export function sessionIdFromCookies(header: string | undefined, name: string): 
 }
 
 /** Reads the session cookie, refreshes it when Lucia says so, and sets res.locals.user. */
-export function sessionMiddleware(lucia: AppLucia): RequestHandler {
+export function sessionMiddleware(lucia: AppLucia, maxAgeMs = 30 * 24 * 3600_000): RequestHandler {
   return async (req, res, next) => {
     res.locals.user = null;
     res.locals.sessionId = null;
     const id = sessionIdFromCookies(req.headers.cookie, lucia.sessionCookieName);
     if (!id) return next();
-    const { session, user } = await lucia.validateSession(id);
+    let { session, user } = await lucia.validateSession(id);
+    // Lucia slides the expiry on use; a session also ends maxAgeMs after sign-in, however active
+    if (session && Date.now() - session.createdAt.getTime() >= maxAgeMs) {
+      await lucia.invalidateSession(session.id);
+      session = null;
+      user = null;
+    }
     if (session?.fresh) res.append('Set-Cookie', lucia.createSessionCookie(session.id).serialize());
     if (!session || !user) {
       res.append('Set-Cookie', lucia.createBlankSessionCookie().serialize());

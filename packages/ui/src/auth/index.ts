@@ -4,4 +4,5 @@ export { signIn, useSignIn } from './sign-in';
 export { signOut, useSignOut } from './sign-out';
 export { forgotPassword, resetPassword, useForgotPassword, useResetPassword } from './password-reset';
 export { SignInForm } from './sign-in-form';
+export { safeRedirect } from './safe-redirect';
 export { ForgotPasswordForm, ResetPasswordForm } from './password-forms';

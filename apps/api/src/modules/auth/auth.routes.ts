@@ -7,7 +7,7 @@ import {
   SignUpBody,
   VerifyEmailBody,
 } from '@benchwright/contracts';
-import type { AppLucia } from '../../auth/lucia';
+import { startSession as newSession, type AppLucia } from '../../auth/lucia';
 import { parse } from '../../lib/errors';
 import { ipKey, limiter } from '../../middleware/rate-limit';
 import { currentUser, requireRole } from '../../middleware/session';
@@ -48,8 +48,7 @@ export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits
   const resetsPerIp = limiter({ enabled, windowMs: 60 * 60_000, limit: limits.passwordResetsPerIp });
 
   const startSession = async (res: import('express').Response, userId: string) => {
-    const session = await lucia.createSession(userId, {});
-    res.append('Set-Cookie', lucia.createSessionCookie(session.id).serialize());
+    res.append('Set-Cookie', await newSession(lucia, userId));
   };
 
   r.post('/sign-up', signUps, async (req, res) => {

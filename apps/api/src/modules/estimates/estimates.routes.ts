@@ -31,7 +31,11 @@ export function estimatesRoutes(service: EstimatesService, payments: PaymentsSer
   });
   r.get('/:id/pdf', (req, res) => {
     const { path, filename } = service.pdfPath(currentUser(res), req.params.id);
-    res.type('application/pdf').attachment(filename).sendFile(path);
+    // the client's own estimate: never kept by a shared cache
+    res
+      .type('application/pdf')
+      .attachment(filename)
+      .sendFile(path, { cacheControl: false, headers: { 'Cache-Control': 'private, no-store' } });
   });
   r.post('/:id/accept', (req, res) => {
     const u = client(res);

@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import { CommentBody, CreateProjectBody } from '@benchwright/contracts';
 import { Forbidden, parse } from '../../lib/errors';
 import { limiter } from '../../middleware/rate-limit';
@@ -9,6 +9,8 @@ import type { ProjectsService } from './projects.service';
 export function projectsRoutes(
   service: ProjectsService,
   limits: { enabled: boolean; commentsPerMinute: number } = { enabled: false, commentsPerMinute: 10 },
+  /** Idempotency-Key on the creating routes (middleware/idempotency.ts) */
+  idempotent: RequestHandler = (_req, _res, next) => next(),
 ): Router {
   const r = Router();
   // per account (every comment mails the other side)
@@ -28,11 +30,11 @@ export function projectsRoutes(
   r.get('/:id/layouts', (req, res) => {
     res.json({ layouts: service.layouts(currentUser(res), req.params.id) });
   });
-  r.post('/:id/comments', comments, (req, res) => {
+  r.post('/:id/comments', idempotent, comments, (req, res) => {
     const { message } = parse(CommentBody, req.body);
     res.status(201).json({ project: service.comment(currentUser(res), req.params.id, message) });
   });
-  r.post('/', (req, res) => {
+  r.post('/', idempotent, (req, res) => {
     const user = currentUser(res);
     if (user.role !== 'client') throw new Forbidden('Only a client can request an estimate.');
     const body = parse(CreateProjectBody, req.body);

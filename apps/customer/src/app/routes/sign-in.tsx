@@ -1,7 +1,7 @@
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Panel } from '@benchwright/ui';
 import { paths } from '../../config/paths';
-import { SignInForm } from '@benchwright/ui/auth';
+import { safeRedirect, SignInForm } from '@benchwright/ui/auth';
 
 export function SignInRoute() {
   const navigate = useNavigate();
@@ -9,7 +9,7 @@ export function SignInRoute() {
   const redirect = params.get('redirect');
   return (
     <Panel title="Sign in">
-      <SignInForm onDone={() => navigate(redirect?.startsWith('/') ? redirect : paths.projects.getHref())} />
+      <SignInForm onDone={() => navigate(safeRedirect(redirect, paths.projects.getHref()))} />
       <p className="mt-4">
         <Link to={paths.forgotPassword.getHref()} className="text-wood underline">
           Forgot your password?

@@ -353,7 +353,7 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
             <form
               onSubmit={(e) => {
                 e.preventDefault();
-                create.mutate(
+                create.send(
                   { items: [{ spec: spec as CreateProjectBody['items'][number]['spec'], quantity }], notes },
                   {
                     onSuccess: (p) => {
