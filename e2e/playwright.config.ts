@@ -3,8 +3,8 @@ import { defineConfig } from '@playwright/test';
 /** E2E specs against the stack as the start command runs it (scripts/stack.ts), in Debian's Chromium. */
 export default defineConfig({
   testDir: '.',
-  timeout: 45_000,
-  expect: { timeout: 10_000 },
+  timeout: 90_000,
+  expect: { timeout: 15_000 },
   workers: 1,
   retries: 0,
   reporter: [['list'], ['json', { outputFile: process.env.PW_JSON ?? 'test-results/e2e.json' }]],

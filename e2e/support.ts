@@ -16,14 +16,18 @@ interface Mail {
 
 /** Waits for a mail to `to` whose subject matches, read from maildev's REST API. */
 export async function mailTo(to: string, subject: RegExp, timeoutMs = 15_000): Promise<Mail> {
-  const until = Date.now() + timeoutMs;
-  while (Date.now() < until) {
-    const mails = (await (await fetch(`${MAILDEV}/api/email`)).json()) as Mail[];
-    const found = mails.filter((m) => m.to.some((t) => t.address === to) && subject.test(m.subject)).at(-1);
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`no mail to ${to} matching ${subject} within ${timeoutMs} ms`);
+  let found: Mail | undefined;
+  await expect
+    .poll(
+      async () => {
+        const mails = (await (await fetch(`${MAILDEV}/api/email`)).json()) as Mail[];
+        found = mails.filter((m) => m.to.some((t) => t.address === to) && subject.test(m.subject)).at(-1);
+        return found !== undefined;
+      },
+      { timeout: timeoutMs, message: `no mail to ${to} matching ${subject} within ${timeoutMs} ms` },
+    )
+    .toBe(true);
+  return found!;
 }
 
 export function linkIn(mail: Mail): string {
