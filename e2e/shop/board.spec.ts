@@ -1,5 +1,5 @@
 import { expect, test, type Locator, type Page } from '@playwright/test';
-import { SHOP, signIn } from '../support';
+import { SHOP, signIn, patient } from '../support';
 
 /** The server's answer to the next move of a job. */
 const savedMove = (page: Page) =>
@@ -90,13 +90,15 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   page,
 }) => {
   // the server lays the sheets out when the page opens: seconds on a busy machine
-  test.setTimeout(120_000);
+  test.setTimeout(patient(120_000));
   await signIn(page, SHOP, 'idris@fernhill.example');
   await page.goto('/board');
   const card = page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
   await card.getByRole('link', { name: /Traveller/ }).click();
   const paper = page.getByRole('article', { name: 'Traveller for Tomasz Wierzbicki' });
-  await expect(paper.getByRole('heading', { name: 'Traveller: Tomasz Wierzbicki' })).toBeVisible({ timeout: 60_000 });
+  await expect(paper.getByRole('heading', { name: 'Traveller: Tomasz Wierzbicki' })).toBeVisible({
+    timeout: patient(60_000),
+  });
   const cutList = paper.getByRole('table', { name: 'Cut list: Bookcase' });
   await expect(cutList.getByRole('row').nth(1)).toBeVisible();
   expect(await cutList.getByRole('row').count()).toBeGreaterThan(4);
