@@ -7,9 +7,15 @@
  *
  *   pnpm exec tsx scripts/stack.ts            # as the start command runs it
  *   STACK_DATA=data/e2e pnpm exec tsx scripts/stack.ts --fresh   # a fresh database (the e2e run)
+ *   pnpm exec tsx scripts/stack.ts --prod     # the built apps (pnpm build first), the API in production mode
+ *
+ * With --prod each app's dist/ is served by scripts/serve-app.ts on the same port (gzip, long-cached hashed
+ * assets, /api proxied), the API runs with NODE_ENV=production, and the secrets come from data/secrets.json,
+ * made with random values on the first run and read by both the API and the Stripe stand-in.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdirSync, rmSync } from 'node:fs';
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { MailDev } from 'maildev';
 
@@ -17,6 +23,24 @@ const root = resolve(import.meta.dirname, '..');
 const data = resolve(root, process.env.STACK_DATA ?? 'data');
 if (process.argv.includes('--fresh')) rmSync(data, { recursive: true, force: true });
 mkdirSync(resolve(data, 'maildev'), { recursive: true });
+const prod = process.argv.includes('--prod');
+
+/** The secrets the API refuses to run in production without; any missing one is generated and kept (mode 600). */
+function secrets(): Record<string, string> {
+  const file = resolve(data, 'secrets.json');
+  const kept = existsSync(file) ? (JSON.parse(readFileSync(file, 'utf8')) as Record<string, string>) : {};
+  const wanted: Record<string, () => string> = {
+    STRIPE_WEBHOOK_SECRET: () => `whsec_${randomBytes(24).toString('hex')}`,
+    STRIPE_SECRET_KEY: () => `sk_test_${randomBytes(24).toString('hex')}`,
+  };
+  const missing = Object.keys(wanted).filter((k) => !kept[k]);
+  for (const k of missing) kept[k] = wanted[k]!();
+  if (missing.length) {
+    writeFileSync(file, JSON.stringify(kept, null, 2) + '\n', { mode: 0o600 });
+    console.log(`secrets generated into ${file}: ${missing.join(', ')}`);
+  }
+  return kept;
+}
 
 const env = {
   ...process.env,
@@ -26,6 +50,7 @@ const env = {
   STRIPE_FAKE_STATE: resolve(data, 'stripe-fake.json'),
   SMTP_URL: process.env.SMTP_URL ?? 'smtp://127.0.0.1:1025',
   FORCE_COLOR: '0',
+  ...(prod ? { ...secrets(), NODE_ENV: 'production' } : {}),
 };
 
 const children: ChildProcess[] = [];
@@ -98,14 +123,28 @@ await waitFor('http://127.0.0.1:12111/__fake/events', 'the Stripe stand-in').cat
   await stop(1);
 });
 run('api', ['--filter', '@benchwright/api', 'start'], root);
-run('portal', ['--filter', '@benchwright/customer', 'dev'], root);
-run('shop', ['--filter', '@benchwright/shop', 'dev'], root);
+const serve = (dist: string, port: number) => [
+  'exec',
+  'tsx',
+  'scripts/serve-app.ts',
+  '--dir',
+  dist,
+  '--port',
+  String(port),
+];
+if (prod) {
+  run('portal', serve('apps/customer/dist', 5173), root);
+  run('shop', serve('apps/shop/dist', 5174), root);
+} else {
+  run('portal', ['--filter', '@benchwright/customer', 'dev'], root);
+  run('shop', ['--filter', '@benchwright/shop', 'dev'], root);
+}
 
 try {
   await waitFor('http://127.0.0.1:3000/api/health', 'the API');
   // the entry module answers once Vite has transformed it and optimised its dependencies
-  await waitFor('http://127.0.0.1:5173/src/main.tsx', 'the client portal');
-  await waitFor('http://127.0.0.1:5174/src/main.tsx', 'the shop app');
+  await waitFor(`http://127.0.0.1:5173/${prod ? '' : 'src/main.tsx'}`, 'the client portal');
+  await waitFor(`http://127.0.0.1:5174/${prod ? '' : 'src/main.tsx'}`, 'the shop app');
   await waitFor('http://127.0.0.1:1080/api/healthz', 'maildev');
 } catch (err) {
   console.error(String(err));
@@ -113,7 +152,7 @@ try {
 }
 
 console.log(`
-Benchwright is running (demo data: Fernhill Joinery, invented).
+Benchwright is running${prod ? ' (production build)' : ''} (demo data: Fernhill Joinery, invented).
 
   client portal   http://127.0.0.1:5173
   shop app        http://127.0.0.1:5174

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { authFile } from '../support';
+import { authFile, patient } from '../support';
 
 test.use({ storageState: authFile('priya') });
 
@@ -48,7 +48,7 @@ test('she reads the sent estimate, accepts it by typing her name, and pays the d
 
   await expect(page).toHaveURL(/127\.0\.0\.1:5173\/projects\/.+\?session_id=cs_test_/);
   await expect(page.getByText('your deposit is paid and your piece is on our production board')).toBeVisible({
-    timeout: 20_000,
+    timeout: patient(20_000),
   });
   await expect(page.getByLabel('Status')).toHaveText('Deposit paid');
   await expect(page.getByRole('list', { name: 'Timeline' })).toContainText('Deposit of');

@@ -1,5 +1,20 @@
-import { expect, test } from '@playwright/test';
-import { SHOP, signIn } from '../support';
+import { expect, test, type Locator, type Page } from '@playwright/test';
+import { SHOP, signIn, patient } from '../support';
+
+/** The server's answer to the next move of a job. */
+const savedMove = (page: Page) =>
+  page.waitForResponse((r) => r.request().method() === 'PATCH' && /\/api\/jobs\/[^/]+$/.test(r.url()));
+
+/** Picks a card up by its grip with the keyboard, moves it one column right, and drops it once `to` is the target. */
+async function dragOneColumnRight(page: Page, from: Locator, client: string, to: Locator) {
+  const card = from.getByRole('article', { name: `Job for ${client}` });
+  await card.getByRole('button', { name: new RegExp(`^${client}`) }).focus();
+  await page.keyboard.press('Space');
+  await expect(card).toHaveAttribute('data-dragging', 'true');
+  await page.keyboard.press('ArrowRight');
+  await expect(to).toHaveAttribute('data-over', 'true');
+  await page.keyboard.press('Space');
+}
 
 test('the builder moves the paid bookcase on the board, drags it on, and logs hours against its budget', async ({
   page,
@@ -11,22 +26,18 @@ test('the builder moves the paid bookcase on the board, drags it on, and logs ho
   await expect(card).toBeVisible();
   await expect(card.getByText('Builder: Idris Kane')).toBeVisible();
 
+  const saved = savedMove(page);
   await card.getByLabel('Move Tomasz Wierzbicki to').selectOption({ label: 'Drawers & doors' });
+  expect((await saved).ok()).toBe(true);
   const dd = page.getByRole('region', { name: 'Drawers & doors' });
   await expect(dd.getByRole('article', { name: 'Job for Tomasz Wierzbicki' })).toBeVisible();
 
-  // drag the card by its title to the Finish column
-  const handle = dd.getByRole('heading', { name: 'Tomasz Wierzbicki' });
+  // drag the card one column on, to Finish, with the keyboard: pick it up, wait for the column to be the
+  // drop target, drop it (no pointer arithmetic, so the board's own scrolling cannot move the target)
   const target = page.getByRole('region', { name: 'Finish' });
-  await target.scrollIntoViewIfNeeded();
-  await page.waitForTimeout(300); // let the scroll settle before measuring
-  const a = (await handle.boundingBox())!;
-  const b = (await target.boundingBox())!;
-  await page.mouse.move(a.x + 20, a.y + 5);
-  await page.mouse.down();
-  await page.mouse.move(a.x + 40, a.y + 5, { steps: 4 });
-  await page.mouse.move(b.x + b.width / 2, b.y + 80, { steps: 20 });
-  await page.mouse.up();
+  const dropped = savedMove(page);
+  await dragOneColumnRight(page, dd, 'Tomasz Wierzbicki', target);
+  expect((await dropped).ok()).toBe(true);
   const moved = target.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
   await expect(moved).toBeVisible();
 
@@ -43,15 +54,51 @@ test('the builder moves the paid bookcase on the board, drags it on, and logs ho
   ).toBeVisible();
 });
 
+test('a move to Ready asks first, however it is made, and cancelling leaves the job where it was', async ({ page }) => {
+  await signIn(page, SHOP, 'idris@fernhill.example');
+  await page.goto('/board');
+  const finish = page.getByRole('region', { name: 'Finish' });
+  const ready = page.getByRole('region', { name: 'Ready' });
+  const inFinish = finish.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
+  await expect(inFinish).toBeVisible();
+  // the seven columns do not fit: the board says there is more to the right
+  await expect(page.getByText('More columns to the right: scroll sideways')).toBeVisible();
+
+  // dragged (with the keyboard) onto Ready
+  await dragOneColumnRight(page, finish, 'Tomasz Wierzbicki', ready);
+  const ask = page.getByRole('dialog', { name: 'Move Tomasz Wierzbicki to Ready?' });
+  await expect(ask).toBeVisible();
+  await expect(ask).toContainText('ask for the balance');
+  await ask.getByRole('button', { name: 'Cancel' }).click();
+  await expect(ask).toBeHidden();
+  await expect(inFinish).toBeVisible();
+  await expect(ready.getByRole('article')).toHaveCount(0);
+
+  // chosen in its "Move to" list; Escape cancels too
+  await inFinish.getByLabel('Move Tomasz Wierzbicki to').selectOption({ label: 'Ready' });
+  await expect(ask).toBeVisible();
+  await page.keyboard.press('Escape');
+  await expect(ask).toBeHidden();
+  await expect(inFinish.getByLabel('Move Tomasz Wierzbicki to')).toHaveValue('finish');
+
+  await page.reload();
+  await expect(inFinish).toBeVisible();
+  await expect(ready.getByRole('article')).toHaveCount(0);
+});
+
 test('the builder opens the job’s traveller from its card: cut list, drawn sheets, pick list, cautions, no prices', async ({
   page,
 }) => {
+  // the server lays the sheets out when the page opens: seconds on a busy machine
+  test.setTimeout(patient(120_000));
   await signIn(page, SHOP, 'idris@fernhill.example');
   await page.goto('/board');
   const card = page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
   await card.getByRole('link', { name: /Traveller/ }).click();
   const paper = page.getByRole('article', { name: 'Traveller for Tomasz Wierzbicki' });
-  await expect(paper.getByRole('heading', { name: 'Traveller: Tomasz Wierzbicki' })).toBeVisible();
+  await expect(paper.getByRole('heading', { name: 'Traveller: Tomasz Wierzbicki' })).toBeVisible({
+    timeout: patient(60_000),
+  });
   const cutList = paper.getByRole('table', { name: 'Cut list: Bookcase' });
   await expect(cutList.getByRole('row').nth(1)).toBeVisible();
   expect(await cutList.getByRole('row').count()).toBeGreaterThan(4);

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { authFile, linkIn, mailTo, signIn, SHOP } from '../support';
+import { authFile, linkIn, mailTo, signIn, SHOP, patient } from '../support';
 
 test.describe('the owner', () => {
   test.use({ storageState: authFile('owner') });
@@ -99,7 +99,7 @@ test.describe('the owner, on payments', () => {
     await form.getByLabel('Amount to refund').fill('25');
     page.once('dialog', (d) => void d.accept());
     await form.getByRole('button', { name: 'Refund' }).click();
-    await expect(row.getByRole('cell', { name: 'partly refunded' })).toBeVisible({ timeout: 20_000 });
+    await expect(row.getByRole('cell', { name: 'partly refunded' })).toBeVisible({ timeout: patient(20_000) });
     await expect(row.getByRole('cell', { name: '$25.00' })).toBeVisible();
   });
 });

@@ -1,6 +1,7 @@
 import { pino } from 'pino';
 import { createApp } from './app';
 import { applyMigrations, openDb } from './db/client';
+import { relativeFilePaths } from './db/relative-paths';
 import { seedDemo, seedShop } from './db/seed';
 import { seedDemoFlow } from './db/seed-flow';
 import { loadEnv } from './env';
@@ -12,7 +13,7 @@ const log = pino({ level: env.LOG_LEVEL });
 const db = openDb(env.DATABASE_PATH);
 let ready = false;
 const app = createApp({ db, env, log, ready: () => ready });
-const worker = createMailWorker(db, env.SMTP_URL, env.MAIL_FROM, log);
+const worker = createMailWorker(db, env.SMTP_URL, env.MAIL_FROM, log, env.PDF_DIR);
 const sweeper = createPaymentSweeper(
   app.services.payments,
   { everyMs: env.PAYMENT_SWEEP_MS, olderThanMs: env.PAYMENT_SWEEP_AGE_MS },
@@ -23,6 +24,7 @@ const server = app.listen(env.PORT, env.HOST, () => log.info(`API listening on h
 
 async function boot() {
   applyMigrations(db);
+  relativeFilePaths(db, env.PDF_DIR);
   if (env.SEED_DEMO) await seedDemo(db);
   else seedShop(db);
   worker.start();

@@ -72,7 +72,7 @@ beforeAll(async () => {
   applyMigrations(db);
   await seedDemo(db);
   apiServer.on('request', createApp({ db, env, log: pino({ level: 'silent' }), ready: () => true }));
-  worker = createMailWorker(db, env.SMTP_URL, env.MAIL_FROM, { warn: () => undefined });
+  worker = createMailWorker(db, env.SMTP_URL, env.MAIL_FROM, { warn: () => undefined }, env.PDF_DIR);
 });
 afterAll(async () => {
   await worker.stop();

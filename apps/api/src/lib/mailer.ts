@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import { resolve } from 'node:path';
 import { and, asc, eq, lte } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../db/client';
@@ -7,7 +8,8 @@ import type { MailContent } from './mail-templates';
 
 type Tx = Pick<Db, 'insert'>;
 
-/** Queues a message in the caller's transaction; the worker sends it. */
+/** Queues a message in the caller's transaction; the worker sends it. Attachment paths are relative to the worker's
+ * `filesDir` (the PDF folder). */
 export function queueMail(
   tx: Tx,
   to: string,
@@ -46,6 +48,7 @@ export function createMailWorker(
   smtpUrl: string,
   from: string,
   log: { warn: (o: object, m: string) => void },
+  filesDir = '.',
 ): MailWorker {
   const url = new URL(smtpUrl);
   const transport: Transporter = nodemailer.createTransport({
@@ -81,7 +84,7 @@ export function createMailWorker(
             text: m.text,
             html: m.html,
             messageId: m.messageId,
-            attachments: m.attachments,
+            attachments: m.attachments?.map((a) => ({ ...a, path: resolve(filesDir, a.path) })),
           });
           db.update(outbox)
             .set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null })

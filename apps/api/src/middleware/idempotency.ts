@@ -3,7 +3,7 @@ import type { RequestHandler } from 'express';
 import { and, eq, lt } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { idempotencyKeys } from '../db/schema';
-import { AppError, Conflict, Invalid } from './errors';
+import { AppError, Conflict, Invalid } from '../lib/errors';
 
 export const IDEMPOTENCY_TTL_MS = 24 * 3600_000;
 /** a first request still marked in progress after this long is taken to have died with its process */

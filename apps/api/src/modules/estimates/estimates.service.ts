@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { and, asc, desc, eq, ne } from 'drizzle-orm';
 import type { User } from '@benchwright/contracts';
 import {
@@ -382,8 +382,9 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         depositRate: shop.settings.depositRate,
       });
       mkdirSync(pdfDir, { recursive: true });
-      const pdfPath = join(pdfDir, `${estimateNumber(e.projectId)}-r${e.revision}-${e.id.slice(0, 8)}.pdf`);
-      writeFileSync(pdfPath, pdf);
+      // stored relative to the PDF folder, so a restored backup works wherever the data folder now is
+      const pdfPath = `${estimateNumber(e.projectId)}-r${e.revision}-${e.id.slice(0, 8)}.pdf`;
+      writeFileSync(join(pdfDir, pdfPath), pdf);
       db.transaction((tx) => {
         const r = tx
           .update(estimates)
@@ -430,7 +431,10 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
     pdfPath(viewer: User, id: string): { path: string; filename: string } {
       const e = row(id);
       if (!visible(viewer, e) || !e.pdfPath) throw new NotFound('The estimate PDF');
-      return { path: e.pdfPath, filename: `${estimateNumber(e.projectId)}-revision-${e.revision}.pdf` };
+      return {
+        path: resolve(pdfDir, e.pdfPath),
+        filename: `${estimateNumber(e.projectId)}-revision-${e.revision}.pdf`,
+      };
     },
 
     /** The client accepts the latest sent revision before it expires, by typing their name. */

@@ -1,4 +1,4 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useIsMutating, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { STAGE_KEYS } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
 import type { LengthUnit, Traveller } from '@benchwright/pricing/geometry';
@@ -28,7 +28,12 @@ export const jobsQueryOptions = () =>
     queryFn: async () => (await api<{ jobs: Job[] }>('/jobs')).jobs,
     refetchInterval: 15_000,
   });
-export const useJobs = () => useQuery(jobsQueryOptions());
+const moveKey = ['jobs', 'move'];
+/** The jobs; the periodic refresh pauses while a move is on its way, so a list read before it cannot undo it on screen. */
+export function useJobs() {
+  const moving = useIsMutating({ mutationKey: moveKey }) > 0;
+  return useQuery({ ...jobsQueryOptions(), refetchInterval: moving ? false : 15_000 });
+}
 export const stagesQueryOptions = () =>
   queryOptions({
     queryKey: ['stages'],
@@ -42,6 +47,7 @@ export function useMoveJob() {
   const qc = useQueryClient();
   const key = jobsQueryOptions().queryKey;
   return useMutation({
+    mutationKey: moveKey,
     mutationFn: ({ id, stageKey }: { id: string; stageKey: StageKey }) =>
       api<{ job: Job }>(`/jobs/${encodeURIComponent(id)}`, { method: 'PATCH', body: { stageKey } }),
     onMutate: async ({ id, stageKey }) => {
