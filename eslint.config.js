@@ -2,6 +2,7 @@
 // stays fast), react-hooks in the React code, and the import boundaries of docs/CONVENTIONS.md.
 import { readdirSync } from 'node:fs';
 import js from '@eslint/js';
+import { defineConfig } from 'eslint/config';
 import comments from '@eslint-community/eslint-plugin-eslint-comments/configs';
 import { createNodeResolver, importX } from 'eslint-plugin-import-x';
 import reactHooks from 'eslint-plugin-react-hooks';
@@ -31,7 +32,7 @@ function clientZones(app) {
   ];
 }
 
-export default tseslint.config(
+export default defineConfig(
   { ignores: ['**/node_modules/', '**/dist/', 'data/', 'coverage/', 'test-results/', 'playwright-report/'] },
   { linterOptions: { reportUnusedDisableDirectives: 'error' } },
   js.configs.recommended,
@@ -52,7 +53,12 @@ export default tseslint.config(
   },
   {
     files: ['apps/customer/**/*.{ts,tsx}', 'apps/shop/**/*.{ts,tsx}', 'packages/ui/**/*.{ts,tsx}'],
-    ...reactHooks.configs['recommended-latest'],
+    plugins: { 'react-hooks': reactHooks },
+    rules: {
+      ...reactHooks.configs['recommended-latest'].rules,
+      // an error, not a warning: the test command fails only on errors, and a warning nobody reads is no check
+      'react-hooks/exhaustive-deps': 'error',
+    },
   },
   {
     plugins: { 'import-x': importX },
