@@ -1,3 +1,6 @@
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadEnv } from '../src/env';
 import { testApp } from './helpers';
@@ -32,6 +35,23 @@ describe('TRUST_PROXY', () => {
       .send(wrong('nobody9@example.com'));
     expect(r.status).toBe(429);
   });
+  it('when off, the acceptance record keeps the connection’s address, not one the client names', async () => {
+    const t = await testApp({ PDF_DIR: mkdtempSync(join(tmpdir(), 'bw-pdf-')) });
+    const owner = await t.signIn('maren@fernhill.example');
+    const priya = await t.signIn('priya@example.com');
+    const projectId = (await priya.get('/api/projects')).body.projects[0].id;
+    const e = (await owner.post(`/api/projects/${projectId}/estimates`).send({})).body.estimate;
+    expect((await owner.post(`/api/estimates/${e.id}/send`)).status).toBe(200);
+    const r = await priya
+      .post(`/api/estimates/${e.id}/accept`)
+      .set('X-Forwarded-For', '198.51.100.66')
+      .send({ acceptedName: 'Priya Natarajan' });
+    expect(r.status, JSON.stringify(r.body)).toBe(200);
+    const row = t.db.$client.prepare('select accepted_ip as ip from estimates where id = ?').get(e.id) as {
+      ip: string;
+    };
+    expect(row.ip).toMatch(/127\.0\.0\.1|::1/);
+  }, 60_000);
   it('when set to the loopback, X-Forwarded-For names the client', async () => {
     const t = await testApp({ RATE_LIMITS: 'true', SIGNIN_ATTEMPTS_PER_IP: '3', TRUST_PROXY: 'loopback' });
     for (let i = 0; i < 5; i++) {

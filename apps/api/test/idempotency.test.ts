@@ -73,6 +73,19 @@ describe('POST /api/projects with an Idempotency-Key', () => {
     expect(projectCount(t)).toBe(before + 2);
     expect(count(t, 'select count(*) as n from idempotency_keys')).toBe(1);
   });
+  it('when five copies arrive at once, makes one project; each copy gets it or a 409 to retry', async () => {
+    const t = await testApp();
+    const guild = await t.signIn('guild@example.com');
+    const before = projectCount(t);
+    const rs = await Promise.all(
+      Array.from({ length: 5 }, () => guild.post('/api/projects').set('Idempotency-Key', 'burst').send(body())),
+    );
+    const created = rs.filter((r) => r.status === 201);
+    expect(created.length).toBeGreaterThanOrEqual(1);
+    expect(new Set(created.map((r) => r.body.project.id)).size).toBe(1);
+    for (const r of rs) expect([201, 409]).toContain(r.status);
+    expect(projectCount(t)).toBe(before + 1);
+  });
   it('refuses a malformed key (400)', async () => {
     const t = await testApp();
     const guild = await t.signIn('guild@example.com');

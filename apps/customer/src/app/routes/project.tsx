@@ -86,7 +86,13 @@ export function ProjectRoute() {
             </li>
           ))}
         </ol>
-        {me.data.role === 'client' ? <ProjectComment projectId={p.id} /> : null}
+        {me.data.role === 'client' && !me.data.emailVerified ? (
+          <Notice tone="info">
+            Confirm your e-mail address to write to the shop: open the link we sent you when you signed up.
+          </Notice>
+        ) : me.data.role === 'client' ? (
+          <ProjectComment projectId={p.id} />
+        ) : null}
       </Panel>
     </>
   );
