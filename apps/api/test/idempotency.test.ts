@@ -27,7 +27,7 @@ describe('POST /api/projects with an Idempotency-Key', () => {
     const guild = await t.signIn('guild@example.com');
     const a = await guild.post('/api/projects').set('Idempotency-Key', 'k').send(body());
     const b = body();
-    const reordered = { notes: b.notes, items: [{ quantity: 1, spec: b.items[0].spec }] };
+    const reordered = { notes: b.notes, items: [{ quantity: 1, spec: b.items[0]!.spec }] };
     const r = await guild.post('/api/projects').set('Idempotency-Key', 'k').send(reordered);
     expect(r.status).toBe(201);
     expect(r.body.project.id).toBe(a.body.project.id);

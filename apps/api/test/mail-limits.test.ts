@@ -104,7 +104,7 @@ describe('POST /api/projects: the owner hears of a request', () => {
     expect(r.status).toBe(201);
     const notices = toOwner(t, /New request/);
     expect(notices).toHaveLength(1);
-    expect(notices[0].text).toContain(`/requests/${r.body.project.id}`);
+    expect(notices[0]?.text).toContain(`/requests/${r.body.project.id}`);
   });
   it('from an unconfirmed client only once they confirm their address (the request is kept meanwhile)', async () => {
     const t = await testApp();
@@ -116,7 +116,7 @@ describe('POST /api/projects: the owner hears of a request', () => {
     await confirm(t, 'nell@example.com');
     const notices = toOwner(t, /New request/);
     expect(notices).toHaveLength(1);
-    expect(notices[0].subject).toContain('Nell Unconfirmed');
-    expect(notices[0].text).toContain(`/requests/${r.body.project.id}`);
+    expect(notices[0]?.subject).toContain('Nell Unconfirmed');
+    expect(notices[0]?.text).toContain(`/requests/${r.body.project.id}`);
   });
 });

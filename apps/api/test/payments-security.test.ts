@@ -31,7 +31,7 @@ describe('a correctly signed payment report that does not match the payment', ()
   it('with amount_total 1: nothing is paid, no job, acknowledged, and the owner sees it on the timeline', async () => {
     const { client, owner, estimateId, projectId, depositCents } = await depositDue(h);
     const { sessionId } = await checkout(client, estimateId);
-    const pay = ledger(h, projectId).payments[0];
+    const pay = ledger(h, projectId).payments[0]!;
     const session = (amount: number, over: Record<string, unknown> = {}) => ({
       id: sessionId,
       object: 'checkout.session',
@@ -53,7 +53,7 @@ describe('a correctly signed payment report that does not match the payment', ()
     expect(l.status).toBe('accepted');
     expect(l.receipts).toBe(0);
     expect(l.mismatches).toHaveLength(1);
-    expect(l.mismatches[0].message).toMatch(/amount \$0\.01 instead of/);
+    expect(l.mismatches[0]?.message).toMatch(/amount \$0\.01 instead of/);
 
     // the right amount, but another session; then another currency
     const other = await deliver(

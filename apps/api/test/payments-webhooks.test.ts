@@ -27,6 +27,7 @@ afterAll(() => h?.close());
 async function paidQuietly(email: string, name: string) {
   const due = await depositDue(h, email, name);
   const { url, sessionId } = await checkout(due.client, due.estimateId);
+  if (!sessionId) throw new Error('the checkout answered no session id');
   h.hooksDown = true;
   try {
     await payAtStripe(url);
@@ -71,7 +72,7 @@ describe('webhooks, delivered the way Stripe may deliver them', () => {
     expectOnePaidDeposit(projectId);
     await ok(deliver(h, of('checkout.session.completed')));
     const l = expectOnePaidDeposit(projectId);
-    expect(l.paid[0].stripePaymentIntentId).toBe(of('payment_intent.succeeded').data.object.id);
+    expect(l.paid[0]?.stripePaymentIntentId).toBe(of('payment_intent.succeeded').data.object.id);
   });
 
   it('a refund reported before its payment: the payment ends paid with the refund applied', async () => {
@@ -111,7 +112,7 @@ describe('webhooks, delivered the way Stripe may deliver them', () => {
   it('a refund whose payment Stripe does not show as paid is not stored as processed (503), so it comes again', async () => {
     const { client, estimateId, projectId } = await depositDue(h, 'guild@example.com', 'Alder Cross Guild');
     await checkout(client, estimateId);
-    const pay = ledger(h, projectId).payments[0];
+    const pay = ledger(h, projectId).payments[0]!;
     const event = {
       id: 'evt_refund_too_early',
       object: 'event',

@@ -174,6 +174,7 @@ describe('the hosted test checkout page', () => {
     const pi = await stripe.paymentIntents.retrieve(done.payment_intent as string);
     expect(pi).toMatchObject({ status: 'succeeded', amount: 163678, metadata: { kind: 'deposit' } });
     const [completed] = await eventsOf('checkout.session.completed');
+    if (!completed) throw new Error('no checkout.session.completed event was delivered');
     assert(completed, 'no checkout.session.completed event');
     await eventsOf('payment_intent.succeeded');
     const event = stripe.webhooks.constructEvent(completed.body, completed.signature, SECRET);
@@ -259,6 +260,7 @@ describe('state on disk', () => {
     fail = 0; // the endpoint is back; the stand-in starts again from its file
     await start(stateFile);
     const [completed] = await eventsOf('checkout.session.completed');
+    if (!completed) throw new Error('no checkout.session.completed event was delivered');
     expect(
       (stripe.webhooks.constructEvent(completed.body, completed.signature, SECRET).data.object as { id: string }).id,
     ).toBe(s.id);

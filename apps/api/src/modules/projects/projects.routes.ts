@@ -32,7 +32,9 @@ export function projectsRoutes(
   });
   r.post('/:id/comments', idempotent, comments, (req, res) => {
     const { message } = parse(CommentBody, req.body);
-    res.status(201).json({ project: service.comment(currentUser(res), req.params.id, message) });
+    // the limiter's handler type widens the params: the path above guarantees the id
+    const { id } = req.params as { id: string };
+    res.status(201).json({ project: service.comment(currentUser(res), id, message) });
   });
   r.post('/', idempotent, (req, res) => {
     const user = currentUser(res);
