@@ -82,4 +82,19 @@ export default defineConfig(
       ],
     },
   },
+  {
+    // small CommonJS helpers that tests run as plain Node child processes
+    files: ['**/*.cjs'],
+    languageOptions: {
+      sourceType: 'commonjs',
+      globals: {
+        require: 'readonly',
+        process: 'readonly',
+        module: 'writable',
+        __dirname: 'readonly',
+        console: 'readonly',
+      },
+    },
+    rules: { '@typescript-eslint/no-require-imports': 'off' },
+  },
 );
