@@ -20,6 +20,7 @@ async function boot() {
   if (env.SEED_DEMO) await seedDemo(db);
   else seedShop(db);
   worker.start();
+  app.pool.warm().catch((err) => log.warn({ err: String(err) }, 'the engine pool did not start'));
   if (env.SEED_DEMO) {
     try {
       await seedDemoFlow(db, app.services, log);
@@ -46,6 +47,7 @@ async function shutdown(signal: string) {
   server.close();
   server.closeIdleConnections();
   await worker.stop();
+  await app.pool.close();
   db.$client.close();
   process.exit(0);
 }

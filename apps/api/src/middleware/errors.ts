@@ -9,6 +9,8 @@ export class AppError extends Error {
     readonly code: ErrorCode,
     message: string,
     readonly issues?: ApiIssue[],
+    /** response headers that go with the error (Retry-After) */
+    readonly headers?: Record<string, string>,
   ) {
     super(message);
   }
@@ -41,6 +43,20 @@ export class Conflict extends AppError {
 export class RateLimited extends AppError {
   constructor(message = 'Too many attempts; wait a few minutes and try again.') {
     super(429, 'rate_limited', message);
+  }
+}
+/** The engine's pool has no room for another task now: try again shortly. */
+export class Busy extends AppError {
+  constructor(retryAfterSeconds: number, message = 'The shop’s pricing engine is busy; try again in a few seconds.') {
+    super(503, 'busy', message, undefined, { 'Retry-After': String(retryAfterSeconds) });
+  }
+}
+/** The engine stopped a task that ran past its time limit. */
+export class TooComplex extends AppError {
+  constructor(
+    message = 'This is more than the pricing engine can work out in one go; split it into smaller requests or ask the shop.',
+  ) {
+    super(422, 'too_complex', message);
   }
 }
 
@@ -87,6 +103,7 @@ export function errorHandler(log: { error: (o: object, msg: string) => void }): 
       }
     }
     if (res.headersSent) return;
+    if (e.headers) res.set(e.headers);
     res
       .status(e.status)
       .json({ error: { code: e.code, message: e.message, ...(e.issues ? { issues: e.issues } : {}) } });

@@ -5,13 +5,14 @@ import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, jobs, payments, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, travellerFor } from '../../lib/engine';
+import type { EnginePool } from '../../lib/engine-pool';
 import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent, setStatus } from '../../lib/timeline';
 import { Invalid, NotFound } from '../../middleware/errors';
 
-export function createJobsService(db: Db, portalUrl: string) {
+export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
     const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
@@ -102,13 +103,13 @@ export function createJobsService(db: Db, portalUrl: string) {
       return view(row(id));
     },
     /** The job's traveller (lib/engine.ts travellerFor), with the job's board state. */
-    traveller(id: string) {
+    async traveller(id: string) {
       const j = row(id);
-      return { job: view(j), ...travellerFor(db, j.projectId) };
+      return { job: view(j), ...(await travellerFor(db, pool, j.projectId)) };
     },
     /** The traveller as a PDF for the shop floor. */
     async travellerPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {
-      const { job, units, ...t } = this.traveller(id);
+      const { job, units, ...t } = await this.traveller(id);
       const labels = Object.fromEntries(this.stages().map((x) => [x.key, x.label]));
       const pdf = await renderTravellerPdf({
         shopName: loadPricing(db).shopName,

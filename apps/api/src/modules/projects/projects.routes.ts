@@ -13,18 +13,18 @@ export function projectsRoutes(service: ProjectsService): Router {
   r.get('/:id', (req, res) => {
     res.json({ project: service.get(currentUser(res), req.params.id) });
   });
-  r.get('/:id/layouts', (req, res) => {
-    res.json({ layouts: service.layouts(currentUser(res), req.params.id) });
+  r.get('/:id/layouts', async (req, res) => {
+    res.json({ layouts: await service.layouts(currentUser(res), req.params.id) });
   });
   r.post('/:id/comments', (req, res) => {
     const { message } = parse(CommentBody, req.body);
     res.status(201).json({ project: service.comment(currentUser(res), req.params.id, message) });
   });
-  r.post('/', (req, res) => {
+  r.post('/', async (req, res) => {
     const user = currentUser(res);
     if (user.role !== 'client') throw new Forbidden('Only a client can request an estimate.');
     const body = parse(CreateProjectBody, req.body);
-    res.status(201).json({ project: service.create(user, body) });
+    res.status(201).json({ project: await service.create(user, body) });
   });
   return r;
 }

@@ -1,10 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Project, User } from '@benchwright/contracts';
-import { validateSpec } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
-import { loadPricing, travellerFor } from '../../lib/engine';
+import { checkItems, loadPricing, travellerFor } from '../../lib/engine';
+import type { EnginePool } from '../../lib/engine-pool';
 import { queueMail } from '../../lib/mailer';
 import { commentMail } from '../../lib/mail-templates';
 import { addEvent } from '../../lib/timeline';
@@ -13,10 +13,7 @@ import { Forbidden, Invalid, NotFound } from '../../middleware/errors';
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;
 
-export function createProjectsService(
-  db: Db,
-  urls: { portalUrl: string; shopUrl: string } = { portalUrl: '', shopUrl: '' },
-) {
+export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string }, pool: EnginePool) {
   function toProject(row: typeof projects.$inferSelect): Project {
     const client = db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, row.clientId)).get()!;
     const items = db
@@ -107,12 +104,12 @@ export function createProjectsService(
     },
 
     /** For the owner pricing a request: the items' cut list, sheet layouts and pick list, laid out at 'thorough'. */
-    layouts(viewer: User, id: string) {
+    async layouts(viewer: User, id: string) {
       if (viewer.role !== 'owner')
         throw new Forbidden('Only the owner sees a request’s layouts; builders have the job’s traveller.');
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row) throw new NotFound('The project');
-      return travellerFor(db, id);
+      return travellerFor(db, pool, id);
     },
 
     /** A comment from the project's client or the owner: on the timeline, and by e-mail to the other side. */
@@ -149,15 +146,9 @@ export function createProjectsService(
     },
 
     /** A client's request: every item checked against its design and the shop's price book. */
-    create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }): Project {
+    async create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }) {
       const { book, settings } = loadPricing(db);
-      const issues = input.items.flatMap((item, i) => {
-        const v = validateSpec(item.spec, book, settings);
-        return v.ok
-          ? []
-          : v.issues.map((x) => ({ path: `items[${i}].spec${x.path ? `.${x.path}` : ''}`, message: x.message }));
-      });
-      if (issues.length) throw new Invalid('Some items cannot be built as given.', issues);
+      await checkItems(pool, input.items, book, settings);
       const id = randomUUID();
       db.transaction((tx) => {
         tx.insert(projects).values({ id, clientId: client.id, notes: input.notes }).run();
