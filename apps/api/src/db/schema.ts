@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
+import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
 const now = sql`(unixepoch() * 1000)`;
 const createdAt = () => integer({ mode: 'timestamp_ms' }).notNull().default(now);
@@ -137,6 +138,12 @@ export const estimates = sqliteTable(
     hoursByStage: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
     /** the engine's layouts, drawings and checks, kept with the revision */
     engine: text({ mode: 'json' }),
+    /**
+     * The revision of record (lib/record.ts): the engine's whole result, its traveller and the price book and
+     * settings it used, written once when the revision is priced and never changed; null only for revisions
+     * priced before records were kept (filled once on first read).
+     */
+    record: text({ mode: 'json' }).$type<RevisionRecord>(),
     validUntil: integer({ mode: 'timestamp_ms' }),
     sentAt: integer({ mode: 'timestamp_ms' }),
     acceptedAt: integer({ mode: 'timestamp_ms' }),
@@ -218,6 +225,21 @@ export const jobs = sqliteTable('jobs', {
   createdAt: createdAt(),
   updatedAt: createdAt(),
 });
+
+/** A job's sheets laid out again with the stock of the day (owner's action); the revision's own layout stays. */
+export const jobLayouts = sqliteTable(
+  'job_layouts',
+  {
+    id: text().primaryKey(),
+    jobId: text()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    actorId: text().references(() => users.id),
+    record: text({ mode: 'json' }).$type<LayoutRecord>().notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('job_layouts_job').on(t.jobId)],
+);
 
 export const timeEntries = sqliteTable('time_entries', {
   id: text().primaryKey(),

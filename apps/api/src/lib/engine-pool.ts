@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
-import { Busy, TooComplex } from '../middleware/errors';
+import { Busy, Conflict, TooComplex } from '../middleware/errors';
 import type { EngineResult, EngineTask } from './engine-task';
 
 export interface EnginePoolOptions {
@@ -121,6 +121,9 @@ export function createEnginePool(opts: EnginePoolOptions): EnginePool {
         throw new TooComplex();
       }
       if (err instanceof Error && err.message === QUEUE_FULL) throw new Busy(retryAfter);
+      // the engine's RangeError: the price book cannot take these items (a part larger than any sheet in stock)
+      if (err instanceof Error && err.name === 'RangeError')
+        throw new Conflict(`The shop’s stock cannot take these items as they are: ${err.message}.`);
       throw err;
     } finally {
       if (timer) {

@@ -8,6 +8,7 @@ import type { Db } from '../../db/client';
 import { estimateLines, estimates, priceBooks, projectItems, projects, shopSettings, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
+import { priceRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail } from '../../lib/mail-templates';
 import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
@@ -166,6 +167,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
               balanceCents: latest.balanceCents,
               hoursByStage: latest.hoursByStage,
               engine: latest.engine,
+              // the same items and the same engine result: the copy keeps the record it was made from
+              record: latest.record,
             })
             .run();
           writeLines(
@@ -185,7 +188,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
         return view(owner, row(id));
       }
       const { book, settings } = loadPricing(db);
-      const { estimate: e } = await pool.run({ kind: 'price', items: projectSpecs(db, projectId), book, settings });
+      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings);
+      const e = record.estimate;
       const engine: EngineRecord = {
         drawings: e.pieces.map((p) => p.elevation),
         layouts: e.layouts.map((l) => ({
@@ -199,7 +203,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
         totalHours: e.totalHours,
         massKg: e.massKg,
       };
-      const hours = Object.fromEntries(Object.entries(e.hoursByStage).map(([k, v]) => [k, Math.round(v * 100) / 100]));
+      const hours = record.traveller.hoursByStage;
       db.transaction((tx) => {
         // the engine worked outside the request thread: another revision may have been made meanwhile
         const now = tx
@@ -211,7 +215,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
         if ((now?.revision ?? 0) !== revision - 1)
           throw new Conflict(`Revision ${now?.revision} was made while this one was being priced; reload the project.`);
         tx.insert(estimates)
-          .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine })
+          .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine, record })
           .run();
         writeLines(
           tx,
@@ -318,7 +322,9 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
       const project = db.select().from(projects).where(eq(projects.id, e.projectId)).get()!;
       const client = db.select().from(users).where(eq(users.id, project.clientId)).get()!;
       const shop = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
-      const book = db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
+      // names and the deposit rate as the revision was priced (its record), not as the book says today
+      const book = e.record?.book ?? db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
+      const depositRate = e.record?.settings.depositRate ?? shop.settings.depositRate;
       const items = db
         .select()
         .from(projectItems)
@@ -383,7 +389,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
           depositCents: e.depositCents,
           balanceCents: e.balanceCents,
         },
-        depositRate: shop.settings.depositRate,
+        depositRate,
       });
       mkdirSync(pdfDir, { recursive: true });
       const pdfPath = join(pdfDir, `${estimateNumber(e.projectId)}-r${e.revision}-${e.id.slice(0, 8)}.pdf`);

@@ -23,6 +23,9 @@ export function jobsRoutes(service: JobsService): Router {
   r.get('/:id/traveller', async (req, res) => {
     res.json({ traveller: await service.traveller(req.params.id) });
   });
+  r.post('/:id/relayout', async (req, res) => {
+    res.status(201).json({ traveller: await service.relayout(currentUser(res), req.params.id) });
+  });
   r.patch('/:id', (req, res) => {
     res.json({ job: service.update(currentUser(res), req.params.id, parse(UpdateJobBody, req.body)) });
   });

@@ -3,7 +3,8 @@ import { asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Project, User } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
-import { checkItems, loadPricing, travellerFor } from '../../lib/engine';
+import { checkItems, loadPricing, projectSpecs, travellerFor } from '../../lib/engine';
+import { recordOf } from '../../lib/record';
 import type { EnginePool } from '../../lib/engine-pool';
 import { queueMail } from '../../lib/mailer';
 import { commentMail } from '../../lib/mail-templates';
@@ -103,13 +104,25 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
       return forViewer(toProject(row), viewer);
     },
 
-    /** For the owner pricing a request: the items' cut list, sheet layouts and pick list, laid out at 'thorough'. */
+    /**
+     * For the owner pricing a request: the items' cut list, sheet layouts and
+     * pick list, from the latest revision's record; laid out at 'thorough' on
+     * the pool only while the request has no revision yet.
+     */
     async layouts(viewer: User, id: string) {
       if (viewer.role !== 'owner')
         throw new Forbidden('Only the owner sees a request’s layouts; builders have the job’s traveller.');
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row) throw new NotFound('The project');
-      return travellerFor(db, pool, id);
+      const latest = db
+        .select()
+        .from(estimates)
+        .where(eq(estimates.projectId, id))
+        .orderBy(desc(estimates.revision))
+        .get();
+      if (!latest) return travellerFor(db, pool, id);
+      const record = await recordOf(db, pool, latest, () => ({ ...loadPricing(db), items: projectSpecs(db, id) }));
+      return record.traveller;
     },
 
     /** A comment from the project's client or the owner: on the timeline, and by e-mail to the other side. */
