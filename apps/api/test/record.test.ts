@@ -7,7 +7,7 @@ import { eq } from 'drizzle-orm';
 import type request from 'supertest';
 import { PriceBook, ShopSettings } from '@benchwright/pricing';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { estimates, jobs, priceBooks, shopSettings } from '../src/db/schema';
+import { estimates, jobs, priceBooks, revisionRecords, shopSettings } from '../src/db/schema';
 import { testApp, type TestApp } from './helpers';
 
 function binary(req: request.Test) {
@@ -73,8 +73,10 @@ describe('the revision of record', () => {
       );
       // the job the paid deposit makes (modules/payments), with the revision's hours as its budget
       const est = t.db.select().from(estimates).where(eq(estimates.id, id)).get()!;
-      expect(est.record?.estimate.layouts[0].sheets[0].placements.length).toBeGreaterThan(0);
-      expect(est.record?.estimate.layouts[0].sheets[0].cuts.length).toBeGreaterThan(0);
+      const { record } = t.db.select().from(revisionRecords).where(eq(revisionRecords.estimateId, id)).get()!;
+      expect(record.estimate.layouts[0].sheets[0].placements.length).toBeGreaterThan(0);
+      expect(record.estimate.layouts[0].sheets[0].cuts.length).toBeGreaterThan(0);
+      expect(record.traveller.hoursByStage).toEqual(est.hoursByStage);
       const jobId = randomUUID();
       t.db.insert(jobs).values({ id: jobId, projectId, stageKey: 'material', hoursBudget: est.hoursByStage }).run();
 
@@ -135,7 +137,8 @@ describe('the revision of record', () => {
       expect(pdf).toContain('Laid out again on');
       // the revision's own record is kept as it was
       const est = t.db.select().from(estimates).where(eq(estimates.projectId, job.project.id)).get()!;
-      expect(est.record?.traveller.materials[0].materialName).not.toContain('(new supplier)');
+      const { record } = t.db.select().from(revisionRecords).where(eq(revisionRecords.estimateId, est.id)).get()!;
+      expect(record.traveller.materials[0].materialName).not.toContain('(new supplier)');
       expect((await owner.post('/api/jobs/no-such-job/relayout')).status).toBe(404);
     },
   );

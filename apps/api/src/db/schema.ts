@@ -138,12 +138,6 @@ export const estimates = sqliteTable(
     hoursByStage: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
     /** the engine's layouts, drawings and checks, kept with the revision */
     engine: text({ mode: 'json' }),
-    /**
-     * The revision of record (lib/record.ts): the engine's whole result, its traveller and the price book and
-     * settings it used, written once when the revision is priced and never changed; null only for revisions
-     * priced before records were kept (filled once on first read).
-     */
-    record: text({ mode: 'json' }).$type<RevisionRecord>(),
     validUntil: integer({ mode: 'timestamp_ms' }),
     sentAt: integer({ mode: 'timestamp_ms' }),
     acceptedAt: integer({ mode: 'timestamp_ms' }),
@@ -156,6 +150,20 @@ export const estimates = sqliteTable(
   },
   (t) => [uniqueIndex('estimates_project_revision').on(t.projectId, t.revision)],
 );
+
+/**
+ * The revision of record (lib/record.ts): the engine's whole result, its traveller and the price book and
+ * settings it used, written once when the revision is priced and never changed (a few hundred kilobytes, so
+ * kept apart from the estimates rows that lists read). A revision priced before records were kept gets its
+ * row on first read.
+ */
+export const revisionRecords = sqliteTable('revision_records', {
+  estimateId: text()
+    .primaryKey()
+    .references(() => estimates.id, { onDelete: 'cascade' }),
+  record: text({ mode: 'json' }).$type<RevisionRecord>().notNull(),
+  createdAt: createdAt(),
+});
 
 export const estimateLines = sqliteTable('estimate_lines', {
   id: text().primaryKey(),

@@ -9,7 +9,7 @@ import {
   type Traveller,
 } from '@benchwright/pricing';
 import type { Db } from '../db/client';
-import { estimates, jobLayouts } from '../db/schema';
+import { estimates, jobLayouts, revisionRecords } from '../db/schema';
 import type { EnginePool } from './engine-pool';
 import type { EngineItem, PricedResult } from './engine-task';
 
@@ -112,6 +112,15 @@ export function latestRelayout(db: Pick<Db, 'select'>, jobId: string) {
     .get();
 }
 
+/** A revision's stored record, if it has one. */
+export function storedRecord(db: Pick<Db, 'select'>, estimateId: string): RevisionRecord | undefined {
+  return db
+    .select({ record: revisionRecords.record })
+    .from(revisionRecords)
+    .where(eq(revisionRecords.estimateId, estimateId))
+    .get()?.record;
+}
+
 /** A revision's record; one priced before records were kept gets one now, once (the only time a stored revision is priced again). */
 export async function recordOf(
   db: Db,
@@ -119,11 +128,10 @@ export async function recordOf(
   row: typeof estimates.$inferSelect,
   load: () => { items: EngineItem[]; book: PriceBook; settings: ShopSettings },
 ): Promise<RevisionRecord> {
-  if (row.record) return row.record;
+  const stored = storedRecord(db, row.id);
+  if (stored) return stored;
   const { items, book, settings } = load();
   const record = { ...(await priceRecord(pool, items, book, settings)), backfilled: true };
-  const again = db.select({ record: estimates.record }).from(estimates).where(eq(estimates.id, row.id)).get();
-  if (again?.record) return again.record;
-  db.update(estimates).set({ record }).where(eq(estimates.id, row.id)).run();
-  return record;
+  db.insert(revisionRecords).values({ estimateId: row.id, record }).onConflictDoNothing().run();
+  return storedRecord(db, row.id)!;
 }

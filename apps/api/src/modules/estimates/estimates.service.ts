@@ -5,10 +5,19 @@ import { and, asc, desc, eq, ne } from 'drizzle-orm';
 import type { User } from '@benchwright/contracts';
 import { designs, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
-import { estimateLines, estimates, priceBooks, projectItems, projects, shopSettings, users } from '../../db/schema';
+import {
+  estimateLines,
+  estimates,
+  priceBooks,
+  projectItems,
+  projects,
+  revisionRecords,
+  shopSettings,
+  users,
+} from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
-import { priceRecord } from '../../lib/record';
+import { priceRecord, storedRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail } from '../../lib/mail-templates';
 import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
@@ -167,10 +176,11 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
               balanceCents: latest.balanceCents,
               hoursByStage: latest.hoursByStage,
               engine: latest.engine,
-              // the same items and the same engine result: the copy keeps the record it was made from
-              record: latest.record,
             })
             .run();
+          // the same items and the same engine result: the copy keeps the record it was made from
+          const record = storedRecord(tx, latest.id);
+          if (record) tx.insert(revisionRecords).values({ estimateId: id, record }).run();
           writeLines(
             tx,
             id,
@@ -215,8 +225,9 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
         if ((now?.revision ?? 0) !== revision - 1)
           throw new Conflict(`Revision ${now?.revision} was made while this one was being priced; reload the project.`);
         tx.insert(estimates)
-          .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine, record })
+          .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine })
           .run();
+        tx.insert(revisionRecords).values({ estimateId: id, record }).run();
         writeLines(
           tx,
           id,
@@ -323,8 +334,9 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
       const client = db.select().from(users).where(eq(users.id, project.clientId)).get()!;
       const shop = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
       // names and the deposit rate as the revision was priced (its record), not as the book says today
-      const book = e.record?.book ?? db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
-      const depositRate = e.record?.settings.depositRate ?? shop.settings.depositRate;
+      const record = storedRecord(db, e.id);
+      const book = record?.book ?? db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
+      const depositRate = record?.settings.depositRate ?? shop.settings.depositRate;
       const items = db
         .select()
         .from(projectItems)

@@ -9,4 +9,9 @@ CREATE TABLE `job_layouts` (
 );
 --> statement-breakpoint
 CREATE INDEX `job_layouts_job` ON `job_layouts` (`job_id`);--> statement-breakpoint
-ALTER TABLE `estimates` ADD `record` text;
+CREATE TABLE `revision_records` (
+	`estimate_id` text PRIMARY KEY NOT NULL,
+	`record` text NOT NULL,
+	`created_at` integer DEFAULT (unixepoch() * 1000) NOT NULL,
+	FOREIGN KEY (`estimate_id`) REFERENCES `estimates`(`id`) ON UPDATE no action ON DELETE cascade
+);
