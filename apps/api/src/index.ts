@@ -4,7 +4,9 @@ import { applyMigrations, openDb } from './db/client';
 import { seedDemo, seedShop } from './db/seed';
 import { seedDemoFlow } from './db/seed-flow';
 import { loadEnv } from './env';
+import { loadPricing, projectSpecs } from './lib/engine';
 import { createMailWorker } from './lib/mailer';
+import { backfillRecords } from './lib/record';
 
 const env = loadEnv();
 const log = pino({ level: env.LOG_LEVEL });
@@ -33,6 +35,9 @@ async function boot() {
   }
   ready = true;
   log.info('migrations and seed done; ready');
+  backfillRecords(db, app.pool, (projectId) => ({ ...loadPricing(db), items: projectSpecs(db, projectId) }))
+    .then((n) => n && log.info(`${n} revision(s) priced before records were kept now have their record`))
+    .catch((err) => log.warn({ err: String(err) }, 'revision records not filled in'));
 }
 boot().catch((err) => {
   log.fatal({ err }, 'start-up failed');

@@ -8,6 +8,8 @@ import type request from 'supertest';
 import { PriceBook, ShopSettings } from '@benchwright/pricing';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { estimates, jobs, priceBooks, revisionRecords, shopSettings } from '../src/db/schema';
+import { loadPricing, projectSpecs } from '../src/lib/engine';
+import { backfillRecords } from '../src/lib/record';
 import { testApp, type TestApp } from './helpers';
 
 function binary(req: request.Test) {
@@ -140,6 +142,26 @@ describe('the revision of record', () => {
       const { record } = t.db.select().from(revisionRecords).where(eq(revisionRecords.estimateId, est.id)).get()!;
       expect(record.traveller.materials[0].materialName).not.toContain('(new supplier)');
       expect((await owner.post('/api/jobs/no-such-job/relayout')).status).toBe(404);
+    },
+  );
+
+  it(
+    'gives a revision priced before records were kept its record once, marked as filled in later',
+    { timeout: 120_000 },
+    async () => {
+      const owner = await t.signIn('maren@fernhill.example');
+      const guild = (await owner.get('/api/projects')).body.projects.find((p: { client: { name: string } }) =>
+        p.client.name.includes('Guild'),
+      );
+      const created = await owner.post(`/api/projects/${guild.id}/estimates`).send({ source: 'engine' });
+      expect(created.status).toBe(201);
+      const id = created.body.estimate.id;
+      t.db.delete(revisionRecords).where(eq(revisionRecords.estimateId, id)).run();
+      const load = (projectId: string) => ({ ...loadPricing(t.db), items: projectSpecs(t.db, projectId) });
+      expect(await backfillRecords(t.db, t.app.pool, load)).toBe(1);
+      const row = t.db.select().from(revisionRecords).where(eq(revisionRecords.estimateId, id)).get()!;
+      expect(row.record.backfilled).toBe(true);
+      expect(await backfillRecords(t.db, t.app.pool, load)).toBe(0);
     },
   );
 });

@@ -1,4 +1,4 @@
-import { desc, eq } from 'drizzle-orm';
+import { desc, eq, isNull } from 'drizzle-orm';
 import {
   STAGE_KEYS,
   type Estimate,
@@ -134,4 +134,25 @@ export async function recordOf(
   const record = { ...(await priceRecord(pool, items, book, settings)), backfilled: true };
   db.insert(revisionRecords).values({ estimateId: row.id, record }).onConflictDoNothing().run();
   return storedRecord(db, row.id)!;
+}
+
+/**
+ * Gives every revision priced before records were kept its record, one at a
+ * time on the pool (index.ts runs it in the background after start-up), so
+ * that the routes find one ready; `recordOf` covers a read that comes first.
+ */
+export async function backfillRecords(
+  db: Db,
+  pool: EnginePool,
+  load: (projectId: string) => { items: EngineItem[]; book: PriceBook; settings: ShopSettings },
+): Promise<number> {
+  const missing = db
+    .select()
+    .from(estimates)
+    .leftJoin(revisionRecords, eq(revisionRecords.estimateId, estimates.id))
+    .where(isNull(revisionRecords.estimateId))
+    .all()
+    .map((r) => r.estimates);
+  for (const row of missing) await recordOf(db, pool, row, () => load(row.projectId));
+  return missing.length;
 }
