@@ -18,6 +18,7 @@ import { projectsRoutes } from './modules/projects/projects.routes';
 import { quotesRoutes } from './modules/quotes/quotes.routes';
 import { usersRoutes } from './modules/users/users.routes';
 import { loadPricing } from './lib/engine';
+import { createEnginePool, type EnginePool } from './lib/engine-pool';
 import { createStripe } from './lib/stripe';
 import { createEstimatesService } from './modules/estimates/estimates.service';
 import { estimatesRoutes, projectMoneyRoutes } from './modules/estimates/estimates.routes';
@@ -38,10 +39,12 @@ export interface AppDeps {
   log: Logger;
   /** true once migrations and the seed are done */
   ready: () => boolean;
+  /** the engine's worker pool; made from the environment when not given */
+  pool?: EnginePool;
 }
 
 /** Builds the API (no listen). */
-export function createApp({ db, env, log, ready }: AppDeps) {
+export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   // X-Forwarded-For is believed only from the proxies named in TRUST_PROXY (none by default)
@@ -60,7 +63,15 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     },
   });
 
-  const estimatesService = createEstimatesService({ db, pdfDir: env.PDF_DIR, portalUrl: env.PORTAL_URL });
+  const pool =
+    given ??
+    createEnginePool({
+      threads: env.ENGINE_THREADS,
+      maxQueue: env.ENGINE_QUEUE,
+      quickMs: env.ENGINE_QUICK_MS,
+      thoroughMs: env.ENGINE_THOROUGH_MS,
+    });
+  const estimatesService = createEstimatesService({ db, pdfDir: env.PDF_DIR, portalUrl: env.PORTAL_URL, pool });
   const paymentsService = createPaymentsService({
     db,
     stripe: createStripe(env),
@@ -68,7 +79,7 @@ export function createApp({ db, env, log, ready }: AppDeps) {
     portalUrl: env.PORTAL_URL,
     shopUrl: env.SHOP_URL,
   });
-  const jobsService = createJobsService(db, env.PORTAL_URL);
+  const jobsService = createJobsService(db, env.PORTAL_URL, pool);
 
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(helmet());
@@ -105,13 +116,13 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use('/api/auth', authRoutes(auth, lucia, limits));
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
-  app.use('/api/quotes', quotesRoutes(db, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
+  app.use('/api/quotes', quotesRoutes(db, pool, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
   app.use(
     '/api/projects',
     requireRole('client', 'owner', 'builder'),
     projectMoneyRoutes(estimatesService, paymentsService),
     projectsRoutes(
-      createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }),
+      createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }, pool),
       {
         enabled: env.RATE_LIMITS,
         commentsPerMinute: env.COMMENTS_PER_MINUTE,
@@ -129,5 +140,6 @@ export function createApp({ db, env, log, ready }: AppDeps) {
   app.use(errorHandler(log));
   return Object.assign(app, {
     services: { estimates: estimatesService, payments: paymentsService, jobs: jobsService, auth },
+    pool,
   });
 }

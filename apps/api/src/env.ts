@@ -72,6 +72,11 @@ const Env = z.object({
   PREVIEWS_PER_MINUTE: z.coerce.number().int().positive().default(120),
   /** a session ends this many days after sign-in, however active (Lucia's own expiry slides 30 days on use) */
   SESSION_MAX_DAYS: z.coerce.number().positive().max(365).default(30),
+  // the engine's worker pool (lib/engine-pool.ts): threads (default: cores - 1, at least 1), queue length, time limits
+  ENGINE_THREADS: z.coerce.number().int().positive().optional(),
+  ENGINE_QUEUE: z.coerce.number().int().min(0).default(16),
+  ENGINE_QUICK_MS: z.coerce.number().int().positive().default(2_000),
+  ENGINE_THOROUGH_MS: z.coerce.number().int().positive().default(10_000),
   JSON_LIMIT: z.string().default('100kb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: bool.default(true),

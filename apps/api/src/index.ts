@@ -5,8 +5,10 @@ import { relativeFilePaths } from './db/relative-paths';
 import { seedDemo, seedShop } from './db/seed';
 import { seedDemoFlow } from './db/seed-flow';
 import { loadEnv } from './env';
+import { loadPricing, projectSpecs } from './lib/engine';
 import { createMailWorker } from './lib/mailer';
 import { createPaymentSweeper } from './modules/payments/payments.sweeper';
+import { backfillRecords } from './lib/record';
 
 const env = loadEnv();
 const log = pino({ level: env.LOG_LEVEL });
@@ -29,6 +31,7 @@ async function boot() {
   else seedShop(db);
   worker.start();
   sweeper.start();
+  app.pool.warm().catch((err) => log.warn({ err: String(err) }, 'the engine pool did not start'));
   if (env.SEED_DEMO) {
     try {
       await seedDemoFlow(db, app.services, log);
@@ -41,6 +44,9 @@ async function boot() {
   }
   ready = true;
   log.info('migrations and seed done; ready');
+  backfillRecords(db, app.pool, (projectId) => ({ ...loadPricing(db), items: projectSpecs(db, projectId) }))
+    .then((n) => n && log.info(`${n} revision(s) priced before records were kept now have their record`))
+    .catch((err) => log.warn({ err: String(err) }, 'revision records not filled in'));
 }
 boot().catch((err) => {
   log.fatal({ err }, 'start-up failed');
@@ -55,6 +61,7 @@ async function shutdown(signal: string) {
   server.close();
   server.closeIdleConnections();
   await Promise.all([worker.stop(), sweeper.stop()]);
+  await app.pool.close();
   db.$client.close();
   process.exit(0);
 }

@@ -1,6 +1,6 @@
 import { designs } from '@benchwright/pricing/geometry';
 import { describe, expect, it } from 'vitest';
-import { CreateProjectBody, SignUpBody } from './index';
+import { CreateProjectBody, MAX_PIECES, QuotePreviewBody, SignUpBody } from './index';
 
 describe('SignUpBody', () => {
   it('trims and lower-cases the e-mail', () => {
@@ -27,6 +27,31 @@ describe('CreateProjectBody', () => {
       path: ['items', 0, 'spec', 'depthMm'],
       message: '50 mm is below the 229 mm minimum',
     });
+  });
+  it(`caps a request at ${MAX_PIECES} pieces, the sum of the quantities`, () => {
+    const spec = designs.bookcase.defaults;
+    const ok = {
+      items: [
+        { spec, quantity: 20 },
+        { spec, quantity: 20 },
+      ],
+    };
+    expect(CreateProjectBody.safeParse(ok).success).toBe(true);
+    expect(QuotePreviewBody.safeParse(ok).success).toBe(true);
+    for (const schema of [CreateProjectBody, QuotePreviewBody]) {
+      const r = schema.safeParse({
+        items: [
+          { spec, quantity: 20 },
+          { spec, quantity: 21 },
+        ],
+      });
+      expect(r.error?.issues).toEqual([
+        expect.objectContaining({
+          path: ['items'],
+          message: 'at most 40 pieces in one request; these items add up to 41',
+        }),
+      ]);
+    }
   });
   it('defaults the notes to empty', () => {
     expect(CreateProjectBody.parse({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] }).notes).toBe('');

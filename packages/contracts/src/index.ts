@@ -17,6 +17,8 @@ export const ERROR_CODES = [
   'rate_limited',
   'internal',
   'unavailable',
+  'busy',
+  'too_complex',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 export interface ApiIssue {
@@ -70,12 +72,25 @@ export const ItemInput = z.object({
   spec: BuildSpec,
   quantity: z.number().int('enter a whole number').min(1, 'at least 1').max(50, 'at most 50'),
 });
-export const QuotePreviewBody = z.object({
-  items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items'),
-});
+/**
+ * The most work one request may ask of the engine: pieces (the sum of the
+ * items' quantities) here; parts (counted from the cut list, which needs the
+ * price book) by the API before pricing.
+ */
+export const MAX_PIECES = 40;
+export const MAX_PARTS = 2000;
+const Items = z
+  .array(ItemInput)
+  .min(1, 'add at least one item')
+  .max(20, 'at most 20 items')
+  .refine((items) => items.reduce((s, i) => s + (Number.isFinite(i.quantity) ? i.quantity : 0), 0) <= MAX_PIECES, {
+    error: (iss) =>
+      `at most ${MAX_PIECES} pieces in one request; these items add up to ${(iss.input as { quantity: number }[]).reduce((s, i) => s + i.quantity, 0)}`,
+  });
+export const QuotePreviewBody = z.object({ items: Items });
 export type QuotePreviewBody = z.input<typeof QuotePreviewBody>;
 export const CreateProjectBody = z.object({
-  items: z.array(ItemInput).min(1, 'add at least one item').max(20, 'at most 20 items'),
+  items: Items,
   notes: multiLine().max(4000, 'use at most 4000 characters').default(''),
 });
 export type CreateProjectBody = z.input<typeof CreateProjectBody>;

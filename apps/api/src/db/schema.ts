@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
+import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
 const now = sql`(unixepoch() * 1000)`;
 const createdAt = () => integer({ mode: 'timestamp_ms' }).notNull().default(now);
@@ -157,6 +158,20 @@ export const estimates = sqliteTable(
   (t) => [uniqueIndex('estimates_project_revision').on(t.projectId, t.revision)],
 );
 
+/**
+ * The revision of record (lib/record.ts): the engine's whole result, its traveller and the price book and
+ * settings it used, written once when the revision is priced and never changed (a few hundred kilobytes, so
+ * kept apart from the estimates rows that lists read). A revision priced before records were kept gets its
+ * row on first read.
+ */
+export const revisionRecords = sqliteTable('revision_records', {
+  estimateId: text()
+    .primaryKey()
+    .references(() => estimates.id, { onDelete: 'cascade' }),
+  record: text({ mode: 'json' }).$type<RevisionRecord>().notNull(),
+  createdAt: createdAt(),
+});
+
 export const estimateLines = sqliteTable('estimate_lines', {
   id: text().primaryKey(),
   estimateId: text()
@@ -225,6 +240,21 @@ export const jobs = sqliteTable('jobs', {
   createdAt: createdAt(),
   updatedAt: createdAt(),
 });
+
+/** A job's sheets laid out again with the stock of the day (owner's action); the revision's own layout stays. */
+export const jobLayouts = sqliteTable(
+  'job_layouts',
+  {
+    id: text().primaryKey(),
+    jobId: text()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    actorId: text().references(() => users.id),
+    record: text({ mode: 'json' }).$type<LayoutRecord>().notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('job_layouts_job').on(t.jobId)],
+);
 
 export const timeEntries = sqliteTable('time_entries', {
   id: text().primaryKey(),

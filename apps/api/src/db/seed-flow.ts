@@ -32,14 +32,14 @@ export async function seedDemoFlow(db: Db, services: Services, log: Pick<Logger,
 
   let p = projectOf(db, priya.id);
   if (p.status === 'requested') {
-    const e = services.estimates.createRevision(owner, p.id, 'engine');
+    const e = await services.estimates.createRevision(owner, p.id, 'engine');
     await services.estimates.send(owner, e.id);
     log.info("demo: Priya's bench estimate sent");
   }
 
   p = projectOf(db, tomasz.id);
   if (p.status === 'requested') {
-    const e = services.estimates.createRevision(owner, p.id, 'engine');
+    const e = await services.estimates.createRevision(owner, p.id, 'engine');
     await services.estimates.send(owner, e.id);
     services.estimates.accept(tomasz, e.id, {
       acceptedName: 'Tomasz Wierzbicki',

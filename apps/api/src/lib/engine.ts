@@ -1,16 +1,16 @@
 import { asc, eq } from 'drizzle-orm';
 import {
-  estimate,
   parseSpec,
   PriceBook,
   ShopSettings,
-  traveller,
   type PriceBook as Book,
   type ShopSettings as Settings,
 } from '@benchwright/pricing';
 import type { Db } from '../db/client';
 import { priceBooks, projectItems, shopSettings } from '../db/schema';
 import { Invalid } from './errors';
+import type { EnginePool } from './engine-pool';
+import type { RequestItem } from './engine-task';
 
 /** The shop's price book and settings of record, read through the engine's own schemas. */
 export function loadPricing(db: Pick<Db, 'select'>): { book: Book; settings: Settings; shopName: string } {
@@ -36,14 +36,23 @@ export function projectSpecs(db: Pick<Db, 'select'>, projectId: string) {
 }
 
 /**
+ * Checks a request's items against their designs, the price book and the cap
+ * on parts, on a worker of the pool (engine-task.ts `checkItems`); Invalid
+ * (400) naming what is wrong.
+ */
+export async function checkItems(pool: EnginePool, items: RequestItem[], book: Book, settings: Settings) {
+  const r = await pool.run({ kind: 'check', items, book, settings });
+  if ('refused' in r) throw new Invalid(r.refused.message, r.refused.issues);
+  return r.items;
+}
+
+/**
  * The shop paper for a project's items (cut list, sheet drawings, pick list,
  * hours, cautions; no prices), laid out afresh at 'thorough' with today's
- * price book: the stock on the rack is what gets cut.
+ * price book on a worker of the engine pool.
  */
-export function travellerFor(db: Pick<Db, 'select'>, projectId: string) {
+export async function travellerFor(db: Pick<Db, 'select'>, pool: EnginePool, projectId: string) {
   const { book, settings } = loadPricing(db);
-  return {
-    units: settings.units,
-    ...traveller(estimate(projectSpecs(db, projectId), book, settings, { effort: 'thorough' }), book, settings),
-  };
+  const r = await pool.run({ kind: 'price', items: projectSpecs(db, projectId), book, settings });
+  return { units: settings.units, ...r.traveller };
 }

@@ -10,6 +10,8 @@ export class AppError extends Error {
     readonly code: ErrorCode,
     message: string,
     readonly issues?: ApiIssue[],
+    /** response headers that go with the error (Retry-After) */
+    readonly headers?: Record<string, string>,
   ) {
     super(message);
   }
@@ -48,6 +50,21 @@ export class RateLimited extends AppError {
 export class Unavailable extends AppError {
   constructor(message = 'This is unavailable for a moment; try again in a few minutes.') {
     super(503, 'unavailable', message);
+  }
+}
+
+/** The engine's pool has no room for another task now: try again shortly. */
+export class Busy extends AppError {
+  constructor(retryAfterSeconds: number, message = 'The shop’s pricing engine is busy; try again in a few seconds.') {
+    super(503, 'busy', message, undefined, { 'Retry-After': String(retryAfterSeconds) });
+  }
+}
+/** The engine stopped a task that ran past its time limit. */
+export class TooComplex extends AppError {
+  constructor(
+    message = 'This is more than the pricing engine can work out in one go; split it into smaller requests or ask the shop.',
+  ) {
+    super(422, 'too_complex', message);
   }
 }
 

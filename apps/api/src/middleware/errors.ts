@@ -33,6 +33,7 @@ export function errorHandler(log: { error: (o: object, msg: string) => void }): 
       }
     }
     if (res.headersSent) return;
+    if (e.headers) res.set(e.headers);
     res
       .status(e.status)
       .json({ error: { code: e.code, message: e.message, ...(e.issues ? { issues: e.issues } : {}) } });

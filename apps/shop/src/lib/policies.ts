@@ -6,6 +6,7 @@ export const canSeeBoard = isStaff;
 export const canSeeRequests = (u: User | null | undefined) => u?.role === 'owner';
 export const canInviteBuilders = (u: User | null | undefined) => u?.role === 'owner';
 export const canAssignJobs = (u: User | null | undefined) => u?.role === 'owner';
+export const canRelayoutJobs = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeePayments = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeeMail = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeeOverview = (u: User | null | undefined) => u?.role === 'owner';

@@ -30,6 +30,8 @@ export interface TravellerPdfInput {
   units: LengthUnit;
   stageLabels: Record<string, string>;
   hoursLogged: Record<string, number | undefined>;
+  /** where the sheets come from: the accepted revision's layout, or a later one (lay out again) */
+  layoutNote?: string;
   traveller: Traveller;
 }
 
@@ -62,6 +64,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
             <Text>Due: {d.dueDate ?? 'not set'}</Text>
           </View>
         </View>
+        {d.layoutNote ? <Text style={s.muted}>{d.layoutNote}</Text> : null}
 
         <Text style={s.h2}>Hours</Text>
         <View style={[s.row, s.th]}>

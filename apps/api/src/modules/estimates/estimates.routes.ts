@@ -57,11 +57,11 @@ export function estimatesRoutes(service: EstimatesService, payments: PaymentsSer
 /** POST /api/projects/:id/estimates (owner) and /balance-checkout (client), beside the project routes. */
 export function projectMoneyRoutes(service: EstimatesService, payments: PaymentsService): Router {
   const r = Router();
-  r.post('/:id/estimates', (req, res) => {
+  r.post('/:id/estimates', async (req, res) => {
     const u = currentUser(res);
     if (u.role !== 'owner') throw new Forbidden();
     const { source } = parse(CreateEstimateBody, req.body ?? {});
-    res.status(201).json({ estimate: service.createRevision(u, req.params.id, source) });
+    res.status(201).json({ estimate: await service.createRevision(u, req.params.id, source) });
   });
   r.post('/:id/balance-checkout', async (req, res) => {
     const u = currentUser(res);

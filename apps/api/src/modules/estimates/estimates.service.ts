@@ -3,17 +3,21 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { and, asc, desc, eq, ne } from 'drizzle-orm';
 import type { User } from '@benchwright/contracts';
-import {
-  designs,
-  estimate as priceItems,
-  totalsFor,
-  type BuildSpec,
-  type Drawing,
-  type LineGroup,
-} from '@benchwright/pricing';
+import { designs, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
-import { estimateLines, estimates, priceBooks, projectItems, projects, shopSettings, users } from '../../db/schema';
+import {
+  estimateLines,
+  estimates,
+  priceBooks,
+  projectItems,
+  projects,
+  revisionRecords,
+  shopSettings,
+  users,
+} from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
+import type { EnginePool } from '../../lib/engine-pool';
+import { priceRecord, storedRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail } from '../../lib/mail-templates';
 import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
@@ -24,6 +28,7 @@ export interface EstimateDeps {
   db: Db;
   pdfDir: string;
   portalUrl: string;
+  pool: EnginePool;
 }
 
 type EstimateRow = typeof estimates.$inferSelect;
@@ -51,7 +56,7 @@ export interface LineEdit {
 /** A short estimate number people can read over the phone: the project's first 6 characters. */
 export const estimateNumber = (projectId: string) => `E-${projectId.slice(0, 6).toUpperCase()}`;
 
-export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) {
+export function createEstimatesService({ db, pdfDir, portalUrl, pool }: EstimateDeps) {
   function row(id: string): EstimateRow {
     const e = db.select().from(estimates).where(eq(estimates.id, id)).get();
     if (!e) throw new NotFound('The estimate');
@@ -134,7 +139,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
     },
 
     /** The next revision as a draft: priced by the engine (thorough layouts), or a copy of the latest. */
-    createRevision(owner: User, projectId: string, source: 'engine' | 'copy') {
+    async createRevision(owner: User, projectId: string, source: 'engine' | 'copy') {
       const project = db.select().from(projects).where(eq(projects.id, projectId)).get();
       if (!project) throw new NotFound('The project');
       if (!['requested', 'estimating', 'estimate_sent', 'expired'].includes(project.status))
@@ -173,6 +178,9 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
               engine: latest.engine,
             })
             .run();
+          // the same items and the same engine result: the copy keeps the record it was made from
+          const record = storedRecord(tx, latest.id);
+          if (record) tx.insert(revisionRecords).values({ estimateId: id, record }).run();
           writeLines(
             tx,
             id,
@@ -190,7 +198,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         return view(owner, row(id));
       }
       const { book, settings } = loadPricing(db);
-      const e = priceItems(projectSpecs(db, projectId), book, settings, { effort: 'thorough' });
+      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings);
+      const e = record.estimate;
       const engine: EngineRecord = {
         drawings: e.pieces.map((p) => p.elevation),
         layouts: e.layouts.map((l) => ({
@@ -204,11 +213,21 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
         totalHours: e.totalHours,
         massKg: e.massKg,
       };
-      const hours = Object.fromEntries(Object.entries(e.hoursByStage).map(([k, v]) => [k, Math.round(v * 100) / 100]));
+      const hours = record.traveller.hoursByStage;
       db.transaction((tx) => {
+        // the engine worked outside the request thread: another revision may have been made meanwhile
+        const now = tx
+          .select({ revision: estimates.revision })
+          .from(estimates)
+          .where(eq(estimates.projectId, projectId))
+          .orderBy(desc(estimates.revision))
+          .get();
+        if ((now?.revision ?? 0) !== revision - 1)
+          throw new Conflict(`Revision ${now?.revision} was made while this one was being priced; reload the project.`);
         tx.insert(estimates)
           .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine })
           .run();
+        tx.insert(revisionRecords).values({ estimateId: id, record }).run();
         writeLines(
           tx,
           id,
@@ -314,7 +333,10 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
       const project = db.select().from(projects).where(eq(projects.id, e.projectId)).get()!;
       const client = db.select().from(users).where(eq(users.id, project.clientId)).get()!;
       const shop = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
-      const book = db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
+      // names and the deposit rate as the revision was priced (its record), not as the book says today
+      const record = storedRecord(db, e.id);
+      const book = record?.book ?? db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
+      const depositRate = record?.settings.depositRate ?? shop.settings.depositRate;
       const items = db
         .select()
         .from(projectItems)
@@ -379,7 +401,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl }: EstimateDeps) 
           depositCents: e.depositCents,
           balanceCents: e.balanceCents,
         },
-        depositRate: shop.settings.depositRate,
+        depositRate,
       });
       mkdirSync(pdfDir, { recursive: true });
       // stored relative to the PDF folder, so a restored backup works wherever the data folder now is

@@ -20,8 +20,11 @@ export function jobsRoutes(service: JobsService): Router {
     const { pdf, filename } = await service.travellerPdf(req.params.id);
     res.type('application/pdf').attachment(filename).send(pdf);
   });
-  r.get('/:id/traveller', (req, res) => {
-    res.json({ traveller: service.traveller(req.params.id) });
+  r.get('/:id/traveller', async (req, res) => {
+    res.json({ traveller: await service.traveller(req.params.id) });
+  });
+  r.post('/:id/relayout', async (req, res) => {
+    res.status(201).json({ traveller: await service.relayout(currentUser(res), req.params.id) });
   });
   r.patch('/:id', (req, res) => {
     res.json({ job: service.update(currentUser(res), req.params.id, parse(UpdateJobBody, req.body)) });

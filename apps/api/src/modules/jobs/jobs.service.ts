@@ -1,17 +1,19 @@
 import { randomUUID } from 'node:crypto';
-import { asc, eq } from 'drizzle-orm';
+import { asc, desc, eq } from 'drizzle-orm';
 import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
-import { estimates, jobs, payments, projects, stages, timeEntries, users } from '../../db/schema';
-import { loadPricing, travellerFor } from '../../lib/engine';
+import { estimates, jobLayouts, jobs, payments, projects, stages, timeEntries, users } from '../../db/schema';
+import { loadPricing, projectSpecs } from '../../lib/engine';
+import type { EnginePool } from '../../lib/engine-pool';
+import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from '../../lib/record';
 import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent, setStatus } from '../../lib/timeline';
-import { Invalid, NotFound } from '../../lib/errors';
+import { Conflict, Forbidden, Invalid, NotFound } from '../../lib/errors';
 
-export function createJobsService(db: Db, portalUrl: string) {
+export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
     const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
@@ -91,6 +93,21 @@ export function createJobsService(db: Db, portalUrl: string) {
     }
   }
 
+  /** The job's paper: the accepted revision and its record. */
+  async function accepted(j: typeof jobs.$inferSelect) {
+    const est =
+      db
+        .select()
+        .from(estimates)
+        .where(eq(estimates.projectId, j.projectId))
+        .all()
+        .find((e) => e.status === 'accepted') ??
+      db.select().from(estimates).where(eq(estimates.projectId, j.projectId)).orderBy(desc(estimates.revision)).get();
+    if (!est) throw new Conflict('The job has no estimate to work from.');
+    const record = await recordOf(db, pool, est, () => ({ ...loadPricing(db), items: projectSpecs(db, j.projectId) }));
+    return { est, record };
+  }
+
   return {
     stages() {
       return db.select().from(stages).orderBy(asc(stages.position)).all();
@@ -101,14 +118,59 @@ export function createJobsService(db: Db, portalUrl: string) {
     get(id: string) {
       return view(row(id));
     },
-    /** The job's traveller (lib/engine.ts travellerFor), with the job's board state. */
-    traveller(id: string) {
+    /**
+     * The job's traveller, read from the accepted revision's record (or the
+     * latest "lay out again", which says so), with the job's board state; the
+     * hours are the job's budget. Nothing is priced or laid out here.
+     */
+    async traveller(id: string) {
       const j = row(id);
-      return { job: view(j), ...travellerFor(db, j.projectId) };
+      const { est, record } = await accepted(j);
+      const again = latestRelayout(db, j.id);
+      const paper = again?.record.traveller ?? record.traveller;
+      const budget = roundedHours(j.hoursBudget);
+      const on = (iso: string) => new Date(iso).toLocaleDateString('en-US', { dateStyle: 'long', timeZone: 'UTC' });
+      return {
+        job: view(j),
+        ...paper,
+        hoursByStage: budget,
+        totalHours: totalOf(budget),
+        layout: again
+          ? {
+              source: 'relayout' as const,
+              revision: est.revision,
+              at: again.record.laidOutAt,
+              note: `Laid out again on ${on(again.record.laidOutAt)} with the stock of that day; the sheets of revision ${est.revision} as accepted are kept.`,
+            }
+          : {
+              source: 'revision' as const,
+              revision: est.revision,
+              at: record.pricedAt,
+              note: `Sheets as laid out for revision ${est.revision} on ${on(record.pricedAt)}.`,
+            },
+      };
+    },
+    /**
+     * "Lay out again with today's stock" (owner): the accepted revision's
+     * items laid out with today's price book and settings, kept as a new
+     * layout record beside the revision's own; the traveller then shows it and
+     * says so.
+     */
+    async relayout(actor: User, id: string) {
+      if (actor.role !== 'owner') throw new Forbidden('Only the owner lays a job out again.');
+      const j = row(id);
+      const { record } = await accepted(j);
+      const { book, settings } = loadPricing(db);
+      const layout = await relayoutRecord(pool, record.items, book, settings);
+      db.transaction((tx) => {
+        tx.insert(jobLayouts).values({ id: randomUUID(), jobId: j.id, actorId: actor.id, record: layout }).run();
+        addEvent(tx, j.projectId, 'relayout', 'The sheets were laid out again with today’s stock.', actor.id);
+      });
+      return this.traveller(id);
     },
     /** The traveller as a PDF for the shop floor. */
     async travellerPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {
-      const { job, units, ...t } = this.traveller(id);
+      const { job, units, layout, ...t } = await this.traveller(id);
       const labels = Object.fromEntries(this.stages().map((x) => [x.key, x.label]));
       const pdf = await renderTravellerPdf({
         shopName: loadPricing(db).shopName,
@@ -120,6 +182,7 @@ export function createJobsService(db: Db, portalUrl: string) {
         units,
         stageLabels: labels,
         hoursLogged: job.hoursLogged,
+        layoutNote: layout.note,
         traveller: t,
       });
       return { pdf, filename: `traveller-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };

@@ -27,8 +27,8 @@ export function projectsRoutes(
   r.get('/:id', (req, res) => {
     res.json({ project: service.get(currentUser(res), req.params.id) });
   });
-  r.get('/:id/layouts', (req, res) => {
-    res.json({ layouts: service.layouts(currentUser(res), req.params.id) });
+  r.get('/:id/layouts', async (req, res) => {
+    res.json({ layouts: await service.layouts(currentUser(res), req.params.id) });
   });
   r.post('/:id/comments', idempotent, comments, (req, res) => {
     const { message } = parse(CommentBody, req.body);
@@ -36,11 +36,11 @@ export function projectsRoutes(
     const { id } = req.params as { id: string };
     res.status(201).json({ project: service.comment(currentUser(res), id, message) });
   });
-  r.post('/', idempotent, (req, res) => {
+  r.post('/', idempotent, async (req, res) => {
     const user = currentUser(res);
     if (user.role !== 'client') throw new Forbidden('Only a client can request an estimate.');
     const body = parse(CreateProjectBody, req.body);
-    res.status(201).json({ project: service.create(user, body) });
+    res.status(201).json({ project: await service.create(user, body) });
   });
   return r;
 }

@@ -1,10 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import { asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Project, User } from '@benchwright/contracts';
-import { validateSpec } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
-import { loadPricing, travellerFor } from '../../lib/engine';
+import { checkItems, loadPricing, projectSpecs, travellerFor } from '../../lib/engine';
+import { recordOf } from '../../lib/record';
+import type { EnginePool } from '../../lib/engine-pool';
 import { queueMail } from '../../lib/mailer';
 import { commentMail } from '../../lib/mail-templates';
 import { queueRequestNotice } from '../../lib/request-notice';
@@ -14,10 +15,7 @@ import { Forbidden, Invalid, NotFound } from '../../lib/errors';
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;
 
-export function createProjectsService(
-  db: Db,
-  urls: { portalUrl: string; shopUrl: string } = { portalUrl: '', shopUrl: '' },
-) {
+export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string }, pool: EnginePool) {
   function toProject(row: typeof projects.$inferSelect): Project {
     const client = db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, row.clientId)).get()!;
     const items = db
@@ -107,13 +105,25 @@ export function createProjectsService(
       return forViewer(toProject(row), viewer);
     },
 
-    /** For the owner pricing a request: the items' cut list, sheet layouts and pick list, laid out at 'thorough'. */
-    layouts(viewer: User, id: string) {
+    /**
+     * For the owner pricing a request: the items' cut list, sheet layouts and
+     * pick list, from the latest revision's record; laid out at 'thorough' on
+     * the pool only while the request has no revision yet.
+     */
+    async layouts(viewer: User, id: string) {
       if (viewer.role !== 'owner')
         throw new Forbidden('Only the owner sees a request’s layouts; builders have the job’s traveller.');
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row) throw new NotFound('The project');
-      return travellerFor(db, id);
+      const latest = db
+        .select()
+        .from(estimates)
+        .where(eq(estimates.projectId, id))
+        .orderBy(desc(estimates.revision))
+        .get();
+      if (!latest) return travellerFor(db, pool, id);
+      const record = await recordOf(db, pool, latest, () => ({ ...loadPricing(db), items: projectSpecs(db, id) }));
+      return record.traveller;
     },
 
     /** A comment from the project's client or the owner: on the timeline, and by e-mail to the other side. */
@@ -154,15 +164,9 @@ export function createProjectsService(
     },
 
     /** A client's request: every item checked against its design and the shop's price book. */
-    create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }): Project {
+    async create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }) {
       const { book, settings } = loadPricing(db);
-      const issues = input.items.flatMap((item, i) => {
-        const v = validateSpec(item.spec, book, settings);
-        return v.ok
-          ? []
-          : v.issues.map((x) => ({ path: `items[${i}].spec${x.path ? `.${x.path}` : ''}`, message: x.message }));
-      });
-      if (issues.length) throw new Invalid('Some items cannot be built as given.', issues);
+      await checkItems(pool, input.items, book, settings);
       const id = randomUUID();
       db.transaction((tx) => {
         tx.insert(projects).values({ id, clientId: client.id, notes: input.notes }).run();

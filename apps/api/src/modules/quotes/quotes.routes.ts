@@ -1,16 +1,17 @@
 import { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { QuotePreviewBody } from '@benchwright/contracts';
-import { estimate, rangeOf, toSvg, validateSpec } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { loadPricing } from '../../lib/engine';
+import type { EnginePool } from '../../lib/engine-pool';
 import { Invalid, parse, RateLimited } from '../../lib/errors';
 
 /**
  * The budget range, checks and drawings for items, nothing stored. Cost
  * prices and markup never leave the shop: only the owner gets the lines.
+ * The engine runs on the pool at 'quick' (2 s limit by default).
  */
-export function quotesRoutes(db: Db, opts: { enabled: boolean; perMinute: number }): Router {
+export function quotesRoutes(db: Db, pool: EnginePool, opts: { enabled: boolean; perMinute: number }): Router {
   const r = Router();
   const limiter = rateLimit({
     windowMs: 60_000,
@@ -22,31 +23,24 @@ export function quotesRoutes(db: Db, opts: { enabled: boolean; perMinute: number
     standardHeaders: 'draft-8',
     legacyHeaders: false,
   });
-  r.post('/preview', limiter, (req, res) => {
+  r.post('/preview', limiter, async (req, res) => {
     const body = parse(QuotePreviewBody, req.body);
     const { book, settings } = loadPricing(db);
-    const issues = body.items.flatMap((item, i) => {
-      const v = validateSpec(item.spec, book, settings);
-      return v.ok
-        ? []
-        : v.issues.map((x) => ({ path: `items[${i}].spec${x.path ? `.${x.path}` : ''}`, message: x.message }));
-    });
-    if (issues.length) throw new Invalid('Some items cannot be built as given.', issues);
-    const e = estimate(body.items, book, settings, { effort: 'quick' });
-    const budget = rangeOf(e.totals.totalCents, settings.budgetSpread);
+    const q = await pool.run({ kind: 'preview', items: body.items, book, settings });
+    if ('refused' in q) throw new Invalid(q.refused.message, q.refused.issues);
     const owner = res.locals.user?.role === 'owner';
     res.json({
       quote: {
-        budget: { lowCents: budget.lowCents, highCents: budget.highCents },
-        checks: e.checks.map((c) => ({ code: c.code, level: c.level, message: c.message })),
-        items: e.pieces.map((p) => ({ drawingSvg: toSvg(p.elevation), massKg: Math.round(p.massKg * 10) / 10 })),
+        budget: q.budget,
+        checks: q.checks,
+        items: q.items,
         ...(owner
           ? {
-              lines: e.lines,
-              totals: e.totals,
-              hoursByStage: e.hoursByStage,
-              costCents: e.costCents,
-              marginCents: e.marginCents,
+              lines: q.lines,
+              totals: q.totals,
+              hoursByStage: q.hoursByStage,
+              costCents: q.costCents,
+              marginCents: q.marginCents,
             }
           : {}),
       },

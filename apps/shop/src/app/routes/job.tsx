@@ -4,7 +4,7 @@ import { RoleGate } from '../../components/layout';
 import { JobAssignment } from '../../features/board/components/job-assignment';
 import { TravellerPage } from '../../features/board/components/traveller';
 import { useTeam } from '../../features/team/api/team';
-import { canAssignJobs, canSeeBoard } from '../../lib/policies';
+import { canAssignJobs, canRelayoutJobs, canSeeBoard } from '../../lib/policies';
 
 export function JobRoute() {
   const { id = '' } = useParams();
@@ -17,6 +17,7 @@ export function JobRoute() {
     <RoleGate allow={canSeeBoard}>
       <TravellerPage
         id={id}
+        canRelayout={canRelayoutJobs(me.data)}
         assignment={owner && team.data ? (job) => <JobAssignment key={job.id} job={job} staff={staff} /> : undefined}
       />
     </RoleGate>

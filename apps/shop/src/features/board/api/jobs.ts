@@ -72,8 +72,15 @@ export function useLogTime() {
   });
 }
 
-/** The job's traveller: cut list, sheet layouts, pick list, hours and cautions (laid out by the server; no prices). */
-export type JobTraveller = Traveller & { job: Job; units: LengthUnit };
+/**
+ * The job's traveller: cut list, sheet layouts, pick list, hours and cautions, as kept with the accepted
+ * revision (or laid out again by the owner, which `layout` says); no prices.
+ */
+export type JobTraveller = Traveller & {
+  job: Job;
+  units: LengthUnit;
+  layout?: { source: 'revision' | 'relayout'; revision: number; at: string; note: string };
+};
 export const travellerQueryOptions = (id: string) =>
   queryOptions({
     queryKey: ['jobs', id, 'traveller'],
@@ -93,5 +100,15 @@ export function useUpdateJob() {
       void qc.invalidateQueries({ queryKey: jobsQueryOptions().queryKey });
       void qc.invalidateQueries({ queryKey: travellerQueryOptions(v.id).queryKey });
     },
+  });
+}
+
+/** The owner lays the job's sheets out again with today's stock; the accepted revision's layout is kept. */
+export function useRelayout() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) =>
+      api<{ traveller: JobTraveller }>(`/jobs/${encodeURIComponent(id)}/relayout`, { method: 'POST' }),
+    onSuccess: (r, id) => qc.setQueryData(travellerQueryOptions(id).queryKey, r.traveller),
   });
 }

@@ -3,7 +3,7 @@ import { Button, Notice, Panel, TableHead } from '@benchwright/ui';
 import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../../components/shop-paper';
 import { paths } from '../../../config/paths';
 import type { ReactNode } from 'react';
-import { useStages, useTraveller, type JobTraveller } from '../api/jobs';
+import { useRelayout, useStages, useTraveller, type JobTraveller } from '../api/jobs';
 
 /**
  * The builder's shop paper for one job, on screen and printed: hours against
@@ -13,12 +13,16 @@ import { useStages, useTraveller, type JobTraveller } from '../api/jobs';
 export function TravellerPage({
   id,
   assignment,
+  canRelayout = false,
 }: {
   id: string;
   assignment?: (job: JobTraveller['job']) => ReactNode;
+  /** the owner may lay the sheets out again with today's stock */
+  canRelayout?: boolean;
 }) {
   const q = useTraveller(id);
   const stages = useStages();
+  const relayout = useRelayout();
   if (q.isPending) return <p>Laying out the sheets for this job…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
   const t = q.data;
@@ -46,6 +50,29 @@ export function TravellerPage({
         {t.job.builder?.name ?? 'not set'}
         {t.job.dueDate ? ` · due ${t.job.dueDate}` : ''} · about {Math.round(t.massKg)} kg finished
       </p>
+      {t.layout ? (
+        <p className="mb-4 text-sm text-ink-soft">
+          {t.layout.note}{' '}
+          {canRelayout ? (
+            <Button
+              variant="quiet"
+              className="print:hidden"
+              disabled={relayout.isPending}
+              onClick={() => {
+                if (
+                  window.confirm(
+                    'Lay the sheets out again with the stock in today’s price book? The layout of the accepted estimate is kept.',
+                  )
+                )
+                  relayout.mutate(t.job.id);
+              }}
+            >
+              {relayout.isPending ? 'Laying out…' : 'Lay out again with today’s stock'}
+            </Button>
+          ) : null}
+        </p>
+      ) : null}
+      {relayout.isError ? <Notice tone="error">{relayout.error.message}</Notice> : null}
       {assignment?.(t.job)}
 
       <Panel title="Hours">

@@ -1,0 +1,79 @@
+import { fireEvent, render, screen } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { App } from '../../../app/app';
+import { createTestRouter } from '../../../app/router';
+
+const job = {
+  id: 'j1',
+  project: { id: 'p1', status: 'deposit_paid', notes: 'Walnut bookcase' },
+  clientName: 'Tomasz',
+  stage: 'material',
+  position: 0,
+  builder: null,
+  dueDate: null,
+  hoursBudgeted: { material: 1, total: 1 },
+  hoursLogged: { total: 0 },
+};
+const traveller = (layout: object) => ({
+  job,
+  units: 'in',
+  pieces: [],
+  materials: [],
+  pickList: [],
+  bandingMetres: [],
+  hoursByStage: { material: 1 },
+  totalHours: 1,
+  massKg: 40,
+  cautions: ['Eye and ear protection at every machine.'],
+  layout,
+});
+const asPriced = { source: 'revision', revision: 1, at: '', note: 'Sheets as laid out for revision 1 on May 4, 2026.' };
+const again = {
+  source: 'relayout',
+  revision: 1,
+  at: '',
+  note: 'Laid out again on May 9, 2026 with the stock of that day.',
+};
+
+function signedInAs(role: 'owner' | 'builder') {
+  const calls: { url: string; method: string }[] = [];
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (url: string, init?: RequestInit) => {
+      const u = String(url);
+      calls.push({ url: u, method: init?.method ?? 'GET' });
+      const body = u.endsWith('/auth/me')
+        ? { user: { id: 'u', email: 'x@example.com', name: `A ${role}`, role, emailVerified: true } }
+        : u.endsWith('/users')
+          ? { users: [] }
+          : u.endsWith('/jobs/stages')
+            ? { stages: [{ key: 'material', label: 'Material', position: 0 }] }
+            : u.endsWith('/relayout')
+              ? { traveller: traveller(again) }
+              : u.endsWith('/traveller')
+                ? { traveller: traveller(asPriced) }
+                : {};
+      return new Response(JSON.stringify(body), { status: 200, headers: { 'Content-Type': 'application/json' } });
+    }),
+  );
+  return calls;
+}
+afterEach(() => vi.unstubAllGlobals());
+
+describe('the traveller page', () => {
+  it('says where the sheets come from, and lets the owner lay them out again with today’s stock', async () => {
+    const calls = signedInAs('owner');
+    vi.stubGlobal('confirm', () => true);
+    render(<App router={createTestRouter('/jobs/j1')} />);
+    expect(await screen.findByText(/Sheets as laid out for revision 1/)).toBeTruthy();
+    fireEvent.click(screen.getByRole('button', { name: 'Lay out again with today’s stock' }));
+    expect(await screen.findByText(/Laid out again on May 9, 2026/)).toBeTruthy();
+    expect(calls.some((c) => c.method === 'POST' && c.url.endsWith('/jobs/j1/relayout'))).toBe(true);
+  });
+  it('gives a builder the note but not the button', async () => {
+    signedInAs('builder');
+    render(<App router={createTestRouter('/jobs/j1')} />);
+    expect(await screen.findByText(/Sheets as laid out for revision 1/)).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Lay out again with today’s stock' })).toBeNull();
+  });
+});
