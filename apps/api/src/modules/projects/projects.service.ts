@@ -10,7 +10,7 @@ import { queueMail } from '../../lib/mailer';
 import { commentMail } from '../../lib/mail-templates';
 import { queueRequestNotice } from '../../lib/request-notice';
 import { addEvent } from '../../lib/timeline';
-import { Forbidden, Invalid, NotFound } from '../../lib/errors';
+import { Forbidden, NotFound } from '../../lib/errors';
 
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;

@@ -1,7 +1,7 @@
 import { fireEvent, render, screen } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { App } from '../../../app/app';
-import { createTestRouter } from '../../../app/router';
+import { App } from './app';
+import { createTestRouter } from './router';
 
 const job = {
   id: 'j1',
