@@ -1,7 +1,9 @@
 import * as z from 'zod';
 import { BuildSpec, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing/geometry';
+import { STAGE_KEYS, type EstimateStatus, type ProjectStatus } from './lifecycle';
 
 export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
+export * from './lifecycle';
 
 /** Every error the API answers with (DESIGN.md section 10). */
 export const ERROR_CODES = [
@@ -82,24 +84,6 @@ export const CommentBody = z.object({
 });
 export type CommentBody = z.input<typeof CommentBody>;
 
-export const PROJECT_STATUSES = [
-  'requested',
-  'estimating',
-  'estimate_sent',
-  'accepted',
-  'deposit_paid',
-  'in_production',
-  'ready',
-  'delivered',
-  'closed',
-  'declined',
-  'expired',
-  'cancelled',
-] as const;
-export type ProjectStatus = (typeof PROJECT_STATUSES)[number];
-export const ESTIMATE_STATUSES = ['draft', 'sent', 'accepted', 'superseded', 'expired'] as const;
-export type EstimateStatus = (typeof ESTIMATE_STATUSES)[number];
-
 export interface EstimateSummary {
   id: string;
   revision: number;
@@ -167,10 +151,14 @@ export type UpdateEstimateBody = z.input<typeof UpdateEstimateBody>;
 export const AcceptEstimateBody = z.object({
   acceptedName: z.string().trim().min(2, 'type your full name to accept').max(120),
 });
+/** The owner takes back an accepted revision (before any deposit); the reason goes on the timeline and to the client. */
+export const WithdrawEstimateBody = z.object({
+  reason: z.string().trim().min(3, 'say why the revision is withdrawn').max(500, 'use at most 500 characters'),
+});
+export type WithdrawEstimateBody = z.input<typeof WithdrawEstimateBody>;
 export const RefundBody = z.object({
   amountCents: z.number().int().min(1, 'at least 1 cent').max(100_000_000).optional(),
 });
-export const STAGE_KEYS = ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] as const;
 export const UpdateJobBody = z
   .object({
     stageKey: z.enum(STAGE_KEYS).optional(),
