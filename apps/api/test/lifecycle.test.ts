@@ -1,9 +1,12 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { estimates, jobs, payments, projects } from '../src/db/schema';
 import { openJob } from '../src/modules/jobs/jobs.service';
 import { lifecycleApp, payDeposit, twoRevisions } from './project-states';
+
+// each test prices a revision at 'thorough' and renders its PDF: slow on a busy machine
+vi.setConfig({ testTimeout: 90_000 });
 
 const status = (t: Awaited<ReturnType<typeof lifecycleApp>>, projectId: string) =>
   t.db.select().from(projects).where(eq(projects.id, projectId)).get()!.status;
