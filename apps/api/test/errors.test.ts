@@ -29,6 +29,7 @@ const ROUTES: [string, string][] = [
   ['get', '/api/estimates/nope/pdf'],
   ['post', '/api/estimates/nope/accept'],
   ['post', '/api/estimates/nope/deposit-checkout'],
+  ['post', '/api/estimates/nope/withdraw'],
   ['get', '/api/payments'],
   ['post', '/api/payments/nope/refund'],
   ['post', '/api/webhooks/stripe'],
