@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
+import { ProjectResponse } from '@benchwright/contracts';
 import { describe, expect, it, vi } from 'vitest';
 import { estimates, jobs, payments, projects } from '../src/db/schema';
 import { openJob } from '../src/modules/jobs/jobs.service';
@@ -22,7 +23,7 @@ describe('POST /api/estimates/:id/send', () => {
     expect(sent.body.error.message).toMatch(/revision 1 is accepted/i);
     expect((await owner.get(`/api/estimates/${r2.id}`)).body.estimate.status).toBe('draft');
     expect((await owner.get(`/api/estimates/${r1.id}`)).body.estimate.status).toBe('accepted');
-    expect((await owner.get(`/api/projects/${projectId}`)).body.project.status).toBe('accepted');
+    expect(ProjectResponse.parse((await owner.get(`/api/projects/${projectId}`)).body).project.status).toBe('accepted');
     // and the client cannot accept it either
     expect((await tomasz.post(`/api/estimates/${r2.id}/accept`).send({ acceptedName: 'Tomasz W' })).status).toBe(404);
   });
@@ -63,7 +64,7 @@ describe('POST /api/estimates/:id/withdraw', () => {
     expect(r.status, JSON.stringify(r.body)).toBe(200);
     expect(r.body.estimate.status).toBe('withdrawn');
     expect(status(t, projectId)).toBe('estimating');
-    const seen = (await tomasz.get(`/api/projects/${projectId}`)).body.project.timeline.at(-1);
+    const seen = ProjectResponse.parse((await tomasz.get(`/api/projects/${projectId}`)).body).project.timeline.at(-1);
     expect(seen).toMatchObject({
       kind: 'estimate_withdrawn',
       message: 'The shop withdrew revision 1: The walnut price went up; revision 2 has the new price.',
@@ -124,11 +125,11 @@ describe('a paid deposit', () => {
     await payDeposit(t, r1.id);
     expect(status(t, projectId)).toBe('estimating');
     expect(t.db.select().from(jobs).where(eq(jobs.projectId, projectId)).all()).toHaveLength(0);
-    const timeline = (await owner.get(`/api/projects/${projectId}`)).body.project.timeline;
+    const timeline = ProjectResponse.parse((await owner.get(`/api/projects/${projectId}`)).body).project.timeline;
     expect(timeline.at(-1)).toMatchObject({ kind: 'deposit_unmatched' });
-    expect(timeline.at(-1).message).toMatch(/Refund it/);
+    expect(timeline.at(-1)!.message).toMatch(/Refund it/);
     expect(
-      (await tomasz.get(`/api/projects/${projectId}`)).body.project.timeline.some(
+      ProjectResponse.parse((await tomasz.get(`/api/projects/${projectId}`)).body).project.timeline.some(
         (e: { kind: string }) => e.kind === 'deposit_unmatched',
       ),
     ).toBe(false);

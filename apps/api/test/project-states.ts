@@ -3,6 +3,7 @@ import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
+import { ProjectsResponse } from '@benchwright/contracts';
 import { signPayload } from '@benchwright/stripe-fake';
 import { expect } from 'vitest';
 import { estimates, payments } from '../src/db/schema';
@@ -19,7 +20,7 @@ export async function twoRevisions(t?: TestApp) {
   t ??= await lifecycleApp();
   const owner = await t.signIn('maren@fernhill.example');
   const tomasz = await t.signIn('tomasz@example.com');
-  const projectId: string = (await tomasz.get('/api/projects')).body.projects[0].id;
+  const projectId: string = ProjectsResponse.parse((await tomasz.get('/api/projects')).body).projects[0].id;
   const r1 = (await owner.post(`/api/projects/${projectId}/estimates`).send({})).body.estimate;
   expect((await owner.post(`/api/estimates/${r1.id}/send`)).status).toBe(200);
   const r2 = (await owner.post(`/api/projects/${projectId}/estimates`).send({ source: 'copy' })).body.estimate;

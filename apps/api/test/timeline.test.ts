@@ -1,4 +1,5 @@
 import { eq } from 'drizzle-orm';
+import { ProjectResponse, ProjectsResponse } from '@benchwright/contracts';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { jobs, users } from '../src/db/schema';
 import { keysOf, lifecycleApp, payDeposit, twoRevisions } from './project-states';
@@ -56,7 +57,9 @@ beforeAll(async () => {
 describe('GET /api/projects/:id timeline', () => {
   it('gives the owner every event', async () => {
     const { owner, projectId } = told;
-    const kinds = (await owner.get(`/api/projects/${projectId}`)).body.project.timeline.map((e: Event) => e.kind);
+    const kinds = ProjectResponse.parse((await owner.get(`/api/projects/${projectId}`)).body).project.timeline.map(
+      (e: Event) => e.kind,
+    );
     for (const k of [
       'requested',
       'estimate_draft',
@@ -77,10 +80,10 @@ describe('GET /api/projects/:id timeline', () => {
     const { idris, projectId } = told;
     const r = await idris.get(`/api/projects/${projectId}`);
     expect(r.status).toBe(200);
-    const p = r.body.project;
+    const p = ProjectResponse.parse(r.body).project;
     const kinds = new Set(p.timeline.map((e: Event) => e.kind));
     expect([...kinds].sort()).toEqual(['assigned', 'deposit_paid', 'hours', 'requested', 'stage']);
-    expect(p.timeline.find((e: Event) => e.kind === 'deposit_paid').message).toBe(
+    expect(p.timeline.find((e: Event) => e.kind === 'deposit_paid')!.message).toBe(
       'Accepted as a job and put on the board.',
     );
     expect(p.timeline.map((e: Event) => e.message)).toContain('Assigned to Idris Kane.');
@@ -92,7 +95,8 @@ describe('GET /api/projects/:id timeline', () => {
 
   it('gives the client their request, sent estimates, acceptance, payments, refunds, stage news and comments; no drafts, no internal events', async () => {
     const { tomasz, projectId } = told;
-    const timeline: Event[] = (await tomasz.get(`/api/projects/${projectId}`)).body.project.timeline;
+    const timeline: Event[] = ProjectResponse.parse((await tomasz.get(`/api/projects/${projectId}`)).body).project
+      .timeline;
     const kinds = timeline.map((e) => e.kind);
     expect([...new Set(kinds)].sort()).toEqual([
       'comment',
@@ -113,10 +117,10 @@ describe('GET /api/projects', () => {
   it('gives the builder each project in the shop with no key ending in Cents and no money in the timeline', async () => {
     const { idris, tomasz, projectId } = told;
     const r = await idris.get('/api/projects');
-    expect(r.body.projects.map((p: { id: string }) => p.id)).toEqual([projectId]);
+    expect(ProjectsResponse.parse(r.body).projects.map((p: { id: string }) => p.id)).toEqual([projectId]);
     expect(keysOf(r.body).filter((k) => k.endsWith('Cents'))).toEqual([]);
     expect(JSON.stringify(r.body)).not.toMatch(/\$|lacquered|extra cost|refund/i);
-    const own = (await tomasz.get('/api/projects')).body.projects[0];
+    const own = ProjectsResponse.parse((await tomasz.get('/api/projects')).body).projects[0];
     expect(own.timeline.some((e: Event) => e.kind === 'refund_requested')).toBe(false);
     expect(own.timeline.some((e: Event) => e.kind === 'estimate_draft')).toBe(false);
   });

@@ -1,6 +1,6 @@
 import * as z from 'zod';
 import { BuildSpec, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing/geometry';
-import { STAGE_KEYS, type EstimateStatus, type ProjectStatus } from './lifecycle';
+import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS, type EstimateStatus } from './lifecycle';
 
 export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
 export * from './lifecycle';
@@ -84,37 +84,48 @@ export const CommentBody = z.object({
 });
 export type CommentBody = z.input<typeof CommentBody>;
 
-export interface EstimateSummary {
-  id: string;
-  revision: number;
-  status: EstimateStatus;
-  totals: {
-    subtotalCents: number;
-    discountCents: number;
-    taxCents: number;
-    totalCents: number;
-    depositCents: number;
-    balanceCents: number;
-  };
-}
-export interface TimelineEvent {
-  id: string;
-  kind: string;
-  message: string;
+/** Response schemas: the API's tests parse what it answers with these; the apps read the inferred types. */
+export const Totals = z.object({
+  subtotalCents: z.number().int(),
+  discountCents: z.number().int(),
+  taxCents: z.number().int(),
+  totalCents: z.number().int(),
+  depositCents: z.number().int(),
+  balanceCents: z.number().int(),
+});
+export const EstimateSummary = z.object({
+  id: z.string(),
+  revision: z.number().int().min(1),
+  status: z.enum(ESTIMATE_STATUSES),
+  totals: Totals,
+});
+export type EstimateSummary = z.infer<typeof EstimateSummary>;
+export const TimelineEvent = z.object({
+  id: z.string(),
+  kind: z.string(),
+  message: z.string(),
   /** who did it, when a person did (a comment's author) */
-  by: string | null;
-  at: string;
-}
-export interface Project {
-  id: string;
-  status: ProjectStatus;
-  notes: string;
-  client: { id: string; name: string };
-  items: { id: string; spec: unknown; quantity: number }[];
-  estimates: EstimateSummary[];
-  timeline: TimelineEvent[];
-  createdAt: string;
-}
+  by: z.string().nullable(),
+  at: z.iso.datetime(),
+});
+export type TimelineEvent = z.infer<typeof TimelineEvent>;
+export const Project = z.object({
+  id: z.string(),
+  status: z.enum(PROJECT_STATUSES),
+  notes: z.string(),
+  client: z.object({ id: z.string(), name: z.string() }),
+  items: z.array(z.object({ id: z.string(), spec: z.unknown(), quantity: z.number().int() })),
+  /** none for a builder: a builder sees no money */
+  estimates: z.array(EstimateSummary),
+  /** cut per viewer by the API's timelineFor */
+  timeline: z.array(TimelineEvent),
+  createdAt: z.iso.datetime(),
+});
+export type Project = z.infer<typeof Project>;
+/** `GET /api/projects/:id`, `POST /api/projects`, `POST /api/projects/:id/comments` */
+export const ProjectResponse = z.object({ project: Project });
+/** `GET /api/projects` */
+export const ProjectsResponse = z.object({ projects: z.array(Project) });
 export interface Design {
   slug: string;
   name: string;
