@@ -24,9 +24,6 @@ export function openJob(tx: Tx, projectId: string, hoursBudget: Partial<Record<S
     .run();
 }
 
-/** The work stages between Material and Ready. */
-const WORK_STAGES: readonly StageKey[] = ['cutting', 'casework', 'drawers_doors', 'finish'];
-
 export function createJobsService(db: Db, portalUrl: string) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
@@ -69,7 +66,7 @@ export function createJobsService(db: Db, portalUrl: string) {
    * caller's transaction through the project's lifecycle: leaving Material
    * starts production, Ready asks for the balance, Delivered closes the
    * project once the balance is settled; a move back from Ready or Delivered
-   * to a work stage resumes production. A move the lifecycle refuses is a 409.
+   * to an earlier stage resumes production. A move the lifecycle refuses is a 409.
    */
   function onStageChange(tx: Tx, job: typeof jobs.$inferSelect, from: StageKey, to: StageKey, actor: User): void {
     const project = tx.select().from(projects).where(eq(projects.id, job.projectId)).get()!;
@@ -99,8 +96,8 @@ export function createJobsService(db: Db, portalUrl: string) {
         stageMail(shop, client.name, 'Your piece has been delivered. Thank you for having us build it.', url),
       );
       closeIfSettled(tx, project.id);
-    } else if (WORK_STAGES.includes(to)) {
-      if (project.status === 'deposit_paid') {
+    } else {
+      if (project.status === 'deposit_paid' && to !== 'material') {
         moveProject(tx, project.id, 'start_production');
         queueMail(
           tx,
