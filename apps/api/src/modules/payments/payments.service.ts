@@ -214,7 +214,7 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
       if (!est) throw new NotFound('The estimate');
       const project = ownProject(client, est.projectId);
       if (est.status === 'draft') throw new NotFound('The estimate');
-      if (est.status !== 'accepted' || project.status !== 'accepted')
+      if (est.status !== 'accepted' || !canDo(project.status, 'pay_deposit'))
         throw new Conflict(
           project.status === 'deposit_paid' || project.status === 'in_production'
             ? 'The deposit is already paid.'
