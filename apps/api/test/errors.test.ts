@@ -30,6 +30,7 @@ const ROUTES: [Method, string][] = [
   ['get', '/api/estimates/nope/pdf'],
   ['post', '/api/estimates/nope/accept'],
   ['post', '/api/estimates/nope/deposit-checkout'],
+  ['post', '/api/estimates/nope/withdraw'],
   ['get', '/api/payments'],
   ['post', '/api/payments/nope/refund'],
   ['post', '/api/payments/confirm'],

@@ -572,6 +572,47 @@ describe('SMTP down while sending', () => {
   });
 });
 
+describe('POST /api/estimates/:id/withdraw with a deposit checkout open', () => {
+  it('expires the checkout at the card processor first, so the withdrawn revision can no longer be paid', async () => {
+    const owner = await agent('maren@fernhill.example');
+    const guild = await agent('guild@example.com');
+    const project = (await guild.get('/api/projects')).body.projects[0];
+    const sent = project.estimates.find((e: { status: string }) => e.status === 'sent');
+    expect(
+      (await guild.post(`/api/estimates/${sent.id}/accept`).send({ acceptedName: 'Alder Cross Guild' })).status,
+    ).toBe(200);
+    const { url } = (await guild.post(`/api/estimates/${sent.id}/deposit-checkout`)).body;
+    const sessionId = url.split('/pay/')[1];
+    const r = await owner
+      .post(`/api/estimates/${sent.id}/withdraw`)
+      .send({ reason: 'The cabinets need a deeper carcass.' });
+    expect(r.status, JSON.stringify(r.body)).toBe(200);
+    expect(r.body.estimate.status).toBe('withdrawn');
+    const sdk = new Stripe('sk_test_flow', {
+      host: '127.0.0.1',
+      port: Number(new URL(stripeBase).port),
+      protocol: 'http',
+    });
+    expect((await sdk.checkout.sessions.retrieve(sessionId)).status).toBe('expired');
+    expect(
+      db
+        .select()
+        .from(payments)
+        .all()
+        .find((p) => p.stripeSessionId === sessionId)!.status,
+    ).toBe('expired');
+    expect((await pay(url, '4242 4242 4242 4242')).status).not.toBe(303);
+    expect((await guild.get(`/api/projects/${project.id}`)).body.project.status).toBe('estimating');
+    expect(
+      db
+        .select()
+        .from(jobs)
+        .all()
+        .filter((j) => j.projectId === project.id),
+    ).toHaveLength(0);
+  });
+});
+
 // the SDK is what the API uses; make sure it is the one pinned
 it('uses the stripe SDK pinned to API version 2026-10-28.endive', () => {
   expect(Stripe.API_VERSION ?? new Stripe('sk_test_x').getApiField('version')).toMatch(/2026-10-28/);

@@ -1,9 +1,11 @@
 import * as z from 'zod';
 import { BuildSpec, LINE_GROUPS, type Drawing, type LineGroup } from '@benchwright/pricing/geometry';
 import { multiLine, singleLine } from './text';
+import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS, type EstimateStatus } from './lifecycle';
 
 export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
 export { isPlainText, isSingleLine, multiLine, singleLine } from './text';
+export * from './lifecycle';
 
 /** Every error the API answers with (DESIGN.md section 10). */
 export const ERROR_CODES = [
@@ -100,55 +102,48 @@ export const CommentBody = z.object({
 });
 export type CommentBody = z.input<typeof CommentBody>;
 
-export const PROJECT_STATUSES = [
-  'requested',
-  'estimating',
-  'estimate_sent',
-  'accepted',
-  'deposit_paid',
-  'in_production',
-  'ready',
-  'delivered',
-  'closed',
-  'declined',
-  'expired',
-  'cancelled',
-] as const;
-export type ProjectStatus = (typeof PROJECT_STATUSES)[number];
-export const ESTIMATE_STATUSES = ['draft', 'sent', 'accepted', 'superseded', 'expired'] as const;
-export type EstimateStatus = (typeof ESTIMATE_STATUSES)[number];
-
-export interface EstimateSummary {
-  id: string;
-  revision: number;
-  status: EstimateStatus;
-  totals: {
-    subtotalCents: number;
-    discountCents: number;
-    taxCents: number;
-    totalCents: number;
-    depositCents: number;
-    balanceCents: number;
-  };
-}
-export interface TimelineEvent {
-  id: string;
-  kind: string;
-  message: string;
+/** Response schemas: the API's tests parse what it answers with these; the apps read the inferred types. */
+export const Totals = z.object({
+  subtotalCents: z.number().int(),
+  discountCents: z.number().int(),
+  taxCents: z.number().int(),
+  totalCents: z.number().int(),
+  depositCents: z.number().int(),
+  balanceCents: z.number().int(),
+});
+export const EstimateSummary = z.object({
+  id: z.string(),
+  revision: z.number().int().min(1),
+  status: z.enum(ESTIMATE_STATUSES),
+  totals: Totals,
+});
+export type EstimateSummary = z.infer<typeof EstimateSummary>;
+export const TimelineEvent = z.object({
+  id: z.string(),
+  kind: z.string(),
+  message: z.string(),
   /** who did it, when a person did (a comment's author) */
-  by: string | null;
-  at: string;
-}
-export interface Project {
-  id: string;
-  status: ProjectStatus;
-  notes: string;
-  client: { id: string; name: string };
-  items: { id: string; spec: unknown; quantity: number }[];
-  estimates: EstimateSummary[];
-  timeline: TimelineEvent[];
-  createdAt: string;
-}
+  by: z.string().nullable(),
+  at: z.iso.datetime(),
+});
+export type TimelineEvent = z.infer<typeof TimelineEvent>;
+export const Project = z.object({
+  id: z.string(),
+  status: z.enum(PROJECT_STATUSES),
+  notes: z.string(),
+  client: z.object({ id: z.string(), name: z.string() }),
+  items: z.array(z.object({ id: z.string(), spec: z.unknown(), quantity: z.number().int() })),
+  /** none for a builder: a builder sees no money */
+  estimates: z.array(EstimateSummary),
+  /** cut per viewer by the API's timelineFor */
+  timeline: z.array(TimelineEvent),
+  createdAt: z.iso.datetime(),
+});
+export type Project = z.infer<typeof Project>;
+/** `GET /api/projects/:id`, `POST /api/projects`, `POST /api/projects/:id/comments` */
+export const ProjectResponse = z.object({ project: Project });
+/** `GET /api/projects` */
+export const ProjectsResponse = z.object({ projects: z.array(Project) });
 export interface Design {
   slug: string;
   name: string;
@@ -185,6 +180,11 @@ export type UpdateEstimateBody = z.input<typeof UpdateEstimateBody>;
 export const AcceptEstimateBody = z.object({
   acceptedName: singleLine().min(2, 'type your full name to accept').max(120),
 });
+/** The owner takes back an accepted revision (before any deposit); the reason goes on the timeline and to the client. */
+export const WithdrawEstimateBody = z.object({
+  reason: z.string().trim().min(3, 'say why the revision is withdrawn').max(500, 'use at most 500 characters'),
+});
+export type WithdrawEstimateBody = z.input<typeof WithdrawEstimateBody>;
 export const RefundBody = z.object({
   amountCents: z.number().int().min(1, 'at least 1 cent').max(100_000_000).optional(),
 });
@@ -197,7 +197,6 @@ export const ConfirmPaymentBody = z.object({
     .regex(/^cs_\w+$/, 'a checkout session id (cs_...)'),
 });
 export type ConfirmPaymentBody = z.input<typeof ConfirmPaymentBody>;
-export const STAGE_KEYS = ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] as const;
 export const UpdateJobBody = z
   .object({
     stageKey: z.enum(STAGE_KEYS).optional(),

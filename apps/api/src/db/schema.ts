@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS } from '@benchwright/contracts';
 import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
 import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
@@ -68,21 +69,6 @@ export const priceBooks = sqliteTable('price_books', {
   updatedAt: createdAt(),
 });
 
-export const PROJECT_STATUS = [
-  'requested',
-  'estimating',
-  'estimate_sent',
-  'accepted',
-  'deposit_paid',
-  'in_production',
-  'ready',
-  'delivered',
-  'closed',
-  'declined',
-  'expired',
-  'cancelled',
-] as const;
-
 export const projects = sqliteTable(
   'projects',
   {
@@ -90,7 +76,7 @@ export const projects = sqliteTable(
     clientId: text()
       .notNull()
       .references(() => users.id),
-    status: text({ enum: PROJECT_STATUS }).notNull().default('requested'),
+    status: text({ enum: PROJECT_STATUSES }).notNull().default('requested'),
     notes: text().notNull().default(''),
     createdAt: createdAt(),
     updatedAt: createdAt(),
@@ -131,9 +117,7 @@ export const estimates = sqliteTable(
       .notNull()
       .references(() => projects.id, { onDelete: 'cascade' }),
     revision: integer().notNull(),
-    status: text({ enum: ['draft', 'sent', 'accepted', 'superseded', 'expired'] })
-      .notNull()
-      .default('draft'),
+    status: text({ enum: ESTIMATE_STATUSES }).notNull().default('draft'),
     /** optimistic locking: every edit must name the version it read */
     version: integer().notNull().default(1),
     subtotalCents: integer().notNull().default(0),
@@ -217,9 +201,7 @@ export const stripeEvents = sqliteTable('stripe_events', {
 });
 
 export const stages = sqliteTable('stages', {
-  key: text({
-    enum: ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'],
-  }).primaryKey(),
+  key: text({ enum: STAGE_KEYS }).primaryKey(),
   label: text().notNull(),
   position: integer().notNull(),
 });
@@ -230,7 +212,7 @@ export const jobs = sqliteTable('jobs', {
     .notNull()
     .unique()
     .references(() => projects.id),
-  stageKey: text()
+  stageKey: text({ enum: STAGE_KEYS })
     .notNull()
     .references(() => stages.key),
   position: integer().notNull().default(0),

@@ -86,6 +86,22 @@ export function estimateMail(
   };
 }
 
+/** The owner took back an accepted revision (before any deposit): say so, with their reason. */
+export function withdrawnMail(shop: string, name: string, revision: number, reason: string, url: string): MailContent {
+  const p = [
+    `Hello ${name},`,
+    `${shop} has withdrawn revision ${revision} of your estimate, which you had accepted. No deposit was taken. Their reason:`,
+    `“${reason}”`,
+    'A new revision will follow in the portal; you can ask anything there.',
+  ];
+  const a = { label: 'Open the project', url };
+  return {
+    subject: `Revision ${revision} of your estimate from ${shop} is withdrawn`,
+    text: text(p, a, shop),
+    html: layout(shop, 'An estimate is withdrawn', p, a),
+  };
+}
+
 export function depositReceiptMail(shop: string, name: string, amountCents: number, url: string): MailContent {
   const p = [
     `Hello ${name},`,

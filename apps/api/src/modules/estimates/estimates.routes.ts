@@ -1,5 +1,10 @@
 import { Router } from 'express';
-import { AcceptEstimateBody, CreateEstimateBody, UpdateEstimateBody } from '@benchwright/contracts';
+import {
+  AcceptEstimateBody,
+  CreateEstimateBody,
+  UpdateEstimateBody,
+  WithdrawEstimateBody,
+} from '@benchwright/contracts';
 import { Forbidden, parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { PaymentsService } from '../payments/payments.service';
@@ -47,6 +52,14 @@ export function estimatesRoutes(service: EstimatesService, payments: PaymentsSer
         userAgent: req.get('user-agent') ?? '',
       }),
     });
+  });
+  /** The owner takes back an accepted revision, with a reason, while no deposit is paid (409 otherwise). */
+  r.post('/:id/withdraw', async (req, res) => {
+    const u = owner(res);
+    const { reason } = parse(WithdrawEstimateBody, req.body);
+    // 404 and "not accepted" before anything is asked of the card processor
+    if (service.get(u, req.params.id).status === 'accepted') await payments.closeDepositCheckouts(req.params.id);
+    res.json({ estimate: service.withdraw(u, req.params.id, reason) });
   });
   r.post('/:id/deposit-checkout', async (req, res) => {
     res.json(await payments.depositCheckout(client(res), req.params.id));

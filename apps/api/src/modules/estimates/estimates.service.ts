@@ -8,6 +8,7 @@ import type { Db } from '../../db/client';
 import {
   estimateLines,
   estimates,
+  payments,
   priceBooks,
   projectItems,
   projects,
@@ -19,10 +20,11 @@ import { loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
 import { priceRecord, storedRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
-import { estimateMail } from '../../lib/mail-templates';
+import { estimateMail, withdrawnMail } from '../../lib/mail-templates';
 import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
-import { addEvent, setStatus } from '../../lib/timeline';
+import { addEvent } from '../../lib/timeline';
 import { Conflict, Invalid, NotFound } from '../../lib/errors';
+import { assertCan, moveProject } from '../projects/lifecycle';
 
 export interface EstimateDeps {
   db: Db;
@@ -117,6 +119,15 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
     };
   }
 
+  /** The project's accepted revision other than `id`, if any: while one stands, no other is sent or accepted. */
+  function otherAccepted(projectId: string, id: string): EstimateRow | undefined {
+    return db
+      .select()
+      .from(estimates)
+      .where(and(eq(estimates.projectId, projectId), eq(estimates.status, 'accepted'), ne(estimates.id, id)))
+      .get();
+  }
+
   function writeLines(
     tx: Pick<Db, 'insert' | 'delete'>,
     estimateId: string,
@@ -142,8 +153,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
     async createRevision(owner: User, projectId: string, source: 'engine' | 'copy') {
       const project = db.select().from(projects).where(eq(projects.id, projectId)).get();
       if (!project) throw new NotFound('The project');
-      if (!['requested', 'estimating', 'estimate_sent', 'expired'].includes(project.status))
-        throw new Conflict(`A new estimate cannot be made while the project is ${project.status.replace(/_/g, ' ')}.`);
+      assertCan(db, projectId, 'start_revision');
       const latest = db
         .select()
         .from(estimates)
@@ -186,7 +196,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
             id,
             lines.map(({ id: _i, estimateId: _e, position: _p, ...l }) => l),
           );
-          if (project.status === 'requested' || project.status === 'expired') setStatus(tx, projectId, 'estimating');
+          moveProject(tx, projectId, 'start_revision');
           addEvent(
             tx,
             projectId,
@@ -243,7 +253,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
             overrideReason: null,
           })),
         );
-        if (project.status === 'requested' || project.status === 'expired') setStatus(tx, projectId, 'estimating');
+        moveProject(tx, projectId, 'start_revision');
         addEvent(
           tx,
           projectId,
@@ -330,6 +340,12 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
     async send(owner: User, id: string) {
       const e = row(id);
       if (e.status !== 'draft') throw new Conflict(`Revision ${e.revision} is already ${e.status}.`);
+      const accepted = otherAccepted(e.projectId, e.id);
+      if (accepted)
+        throw new Conflict(
+          `Revision ${accepted.revision} is accepted; withdraw it before sending revision ${e.revision}.`,
+        );
+      assertCan(db, e.projectId, 'send_revision');
       const project = db.select().from(projects).where(eq(projects.id, e.projectId)).get()!;
       const client = db.select().from(users).where(eq(users.id, project.clientId)).get()!;
       const shop = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
@@ -414,11 +430,11 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
           .where(and(eq(estimates.id, id), eq(estimates.status, 'draft')))
           .run();
         if (r.changes !== 1) throw new Conflict('The revision was sent or changed meanwhile.');
+        moveProject(tx, e.projectId, 'send_revision');
         tx.update(estimates)
           .set({ status: 'superseded', updatedAt: sentAt })
           .where(and(eq(estimates.projectId, e.projectId), eq(estimates.status, 'sent'), ne(estimates.id, id)))
           .run();
-        setStatus(tx, e.projectId, 'estimate_sent');
         addEvent(
           tx,
           e.projectId,
@@ -469,10 +485,14 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
             ? `Revision ${e.revision} was replaced by a newer one; accept the latest revision.`
             : `Revision ${e.revision} is ${e.status} and cannot be accepted.`,
         );
+      const accepted = otherAccepted(e.projectId, e.id);
+      if (accepted)
+        throw new Conflict(`Revision ${accepted.revision} is already accepted; revision ${e.revision} cannot be too.`);
+      assertCan(db, e.projectId, 'accept_revision');
       if (e.validUntil && e.validUntil.getTime() < Date.now()) {
         db.transaction((tx) => {
           tx.update(estimates).set({ status: 'expired', updatedAt: new Date() }).where(eq(estimates.id, id)).run();
-          setStatus(tx, e.projectId, 'expired');
+          moveProject(tx, e.projectId, 'expire_revision');
           addEvent(tx, e.projectId, 'estimate_expired', `Estimate revision ${e.revision} expired unaccepted.`);
         });
         throw new Conflict(
@@ -495,7 +515,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
           .where(and(eq(estimates.id, id), eq(estimates.status, 'sent')))
           .run();
         if (r.changes !== 1) throw new Conflict('The revision changed meanwhile; reload it.');
-        setStatus(tx, e.projectId, 'accepted');
+        moveProject(tx, e.projectId, 'accept_revision');
         addEvent(
           tx,
           e.projectId,
@@ -505,6 +525,57 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
         );
       });
       return view(client, row(id));
+    },
+
+    /**
+     * The owner takes back an accepted revision, saying why, while no deposit
+     * is paid (open checkouts are closed first by the payments service). The
+     * project can then be sent a revision again; the client is told.
+     */
+    withdraw(owner: User, id: string, reason: string) {
+      const e = row(id);
+      if (e.status !== 'accepted')
+        throw new Conflict(`Revision ${e.revision} is ${e.status}; only an accepted revision can be withdrawn.`);
+      const client = db
+        .select({ name: users.name, email: users.email })
+        .from(projects)
+        .innerJoin(users, eq(users.id, projects.clientId))
+        .where(eq(projects.id, e.projectId))
+        .get()!;
+      const shop = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
+      db.transaction((tx) => {
+        const deposits = tx
+          .select({ status: payments.status })
+          .from(payments)
+          .where(and(eq(payments.estimateId, id), eq(payments.kind, 'deposit')))
+          .all();
+        if (deposits.some((p) => p.status === 'open'))
+          throw new Conflict('The client is paying the deposit right now; try again in a few minutes.');
+        if (deposits.some((p) => p.status !== 'expired'))
+          throw new Conflict(
+            `The deposit for revision ${e.revision} is paid; an acceptance can be withdrawn only before that.`,
+          );
+        const r = tx
+          .update(estimates)
+          .set({ status: 'withdrawn', version: e.version + 1, updatedAt: new Date() })
+          .where(and(eq(estimates.id, id), eq(estimates.status, 'accepted')))
+          .run();
+        if (r.changes !== 1) throw new Conflict('The revision changed meanwhile; reload it.');
+        moveProject(tx, e.projectId, 'withdraw_acceptance');
+        addEvent(
+          tx,
+          e.projectId,
+          'estimate_withdrawn',
+          `The shop withdrew revision ${e.revision}: ${reason}`,
+          owner.id,
+        );
+        queueMail(
+          tx,
+          client.email,
+          withdrawnMail(shop.shopName, client.name, e.revision, reason, `${portalUrl}/projects/${e.projectId}`),
+        );
+      });
+      return view(owner, row(id));
     },
   };
 }

@@ -3,15 +3,28 @@ import { asc, desc, eq } from 'drizzle-orm';
 import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
-import { estimates, jobLayouts, jobs, payments, projects, stages, timeEntries, users } from '../../db/schema';
+import { estimates, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
 import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from '../../lib/record';
 import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
-import { addEvent, setStatus } from '../../lib/timeline';
+import { addEvent } from '../../lib/timeline';
 import { Conflict, Forbidden, Invalid, NotFound } from '../../lib/errors';
+import { balanceSettled, closeIfSettled, moveProject } from '../projects/lifecycle';
+
+/**
+ * A paid deposit puts the project's job on the board, in Material, with the
+ * accepted revision's hour budget: exactly one job a project (the payments
+ * service calls this in its transaction; only this module writes the jobs table).
+ */
+export function openJob(tx: Tx, projectId: string, hoursBudget: Partial<Record<StageKey, number>>): void {
+  tx.insert(jobs)
+    .values({ id: randomUUID(), projectId, stageKey: 'material', hoursBudget })
+    .onConflictDoNothing({ target: jobs.projectId })
+    .run();
+}
 
 export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
   function view(j: typeof jobs.$inferSelect) {
@@ -50,46 +63,50 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
     return j;
   }
 
-  /** The stage rules of the board (DESIGN.md section 3), applied in the caller's transaction. */
-  function onStageChange(tx: Tx, job: typeof jobs.$inferSelect, from: string, to: StageKey, actor: User): void {
+  /**
+   * The stage rules of the board (DESIGN.md section 3), applied in the
+   * caller's transaction through the project's lifecycle: leaving Material
+   * starts production, Ready asks for the balance, Delivered closes the
+   * project once the balance is settled; a move back from Ready or Delivered
+   * to an earlier stage resumes production. A move the lifecycle refuses is a 409.
+   */
+  function onStageChange(tx: Tx, job: typeof jobs.$inferSelect, from: StageKey, to: StageKey, actor: User): void {
     const project = tx.select().from(projects).where(eq(projects.id, job.projectId)).get()!;
     const client = tx.select().from(users).where(eq(users.id, project.clientId)).get()!;
     const label = tx.select().from(stages).where(eq(stages.key, to)).get()?.label ?? to;
     const shop = loadPricing(tx).shopName;
     const url = `${portalUrl}/projects/${project.id}`;
+    if (project.status === 'closed')
+      throw new Conflict('This project is closed: delivered and paid in full. Its job stays in Delivered.');
     addEvent(tx, project.id, 'stage', `Moved to ${label}.`, actor.id);
-    if (from === 'material' && to !== 'material' && project.status === 'deposit_paid') {
-      setStatus(tx, project.id, 'in_production');
-      queueMail(
-        tx,
-        client.email,
-        stageMail(shop, client.name, 'Your material is in and your piece is now being built in the shop.', url),
-      );
-    }
-    if (to === 'ready' && project.status !== 'ready') {
-      setStatus(tx, project.id, 'ready');
-      const est = tx
-        .select()
-        .from(estimates)
-        .where(eq(estimates.projectId, project.id))
-        .all()
-        .find((e) => e.status === 'accepted');
-      queueMail(tx, client.email, balanceRequestMail(shop, client.name, est?.balanceCents ?? 0, url));
-    }
-    if (to === 'delivered' && project.status !== 'delivered') {
-      // delivered with the balance paid closes the project; otherwise it waits for the balance
-      const balancePaid = tx
-        .select()
-        .from(payments)
-        .where(eq(payments.projectId, project.id))
-        .all()
-        .some((x) => x.kind === 'balance' && x.status === 'paid');
-      setStatus(tx, project.id, balancePaid ? 'closed' : 'delivered');
+    if (to === 'ready') {
+      moveProject(tx, project.id, 'mark_ready');
+      if (!balanceSettled(tx, project.id)) {
+        const est = tx
+          .select()
+          .from(estimates)
+          .where(eq(estimates.projectId, project.id))
+          .all()
+          .find((e) => e.status === 'accepted');
+        queueMail(tx, client.email, balanceRequestMail(shop, client.name, est?.balanceCents ?? 0, url));
+      }
+    } else if (to === 'delivered') {
+      moveProject(tx, project.id, 'deliver');
       queueMail(
         tx,
         client.email,
         stageMail(shop, client.name, 'Your piece has been delivered. Thank you for having us build it.', url),
       );
+      closeIfSettled(tx, project.id);
+    } else {
+      if (project.status === 'deposit_paid' && to !== 'material') {
+        moveProject(tx, project.id, 'start_production');
+        queueMail(
+          tx,
+          client.email,
+          stageMail(shop, client.name, 'Your material is in and your piece is now being built in the shop.', url),
+        );
+      } else if (from === 'ready' || from === 'delivered') moveProject(tx, project.id, 'resume_work');
     }
   }
 
@@ -193,6 +210,8 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
       input: { stageKey?: StageKey; position?: number; builderId?: string | null; dueDate?: string | null },
     ) {
       const j = row(id);
+      if (actor.role !== 'owner' && (input.builderId !== undefined || input.dueDate !== undefined))
+        throw new Forbidden('Only the owner assigns the builder and the due date.');
       if (input.builderId) {
         const b = db.select().from(users).where(eq(users.id, input.builderId)).get();
         if (!b || b.role === 'client')
@@ -212,21 +231,33 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
           .where(eq(jobs.id, id))
           .run();
         if (input.stageKey && input.stageKey !== j.stageKey) onStageChange(tx, j, j.stageKey, input.stageKey, actor);
+        if (input.builderId !== undefined && input.builderId !== j.builderId) {
+          const name = input.builderId
+            ? tx.select({ name: users.name }).from(users).where(eq(users.id, input.builderId)).get()!.name
+            : null;
+          addEvent(tx, j.projectId, 'assigned', name ? `Assigned to ${name}.` : 'No builder assigned.', actor.id);
+        }
+        if (input.dueDate !== undefined && input.dueDate !== j.dueDate)
+          addEvent(tx, j.projectId, 'assigned', input.dueDate ? `Due ${input.dueDate}.` : 'No due date.', actor.id);
       });
       return view(row(id));
     },
     logTime(actor: User, id: string, input: { stageKey: StageKey; hours: number; note: string }) {
       const j = row(id);
-      db.insert(timeEntries)
-        .values({
-          id: randomUUID(),
-          jobId: j.id,
-          userId: actor.id,
-          stageKey: input.stageKey,
-          hours: input.hours,
-          note: input.note,
-        })
-        .run();
+      const label = db.select().from(stages).where(eq(stages.key, input.stageKey)).get()?.label ?? input.stageKey;
+      db.transaction((tx) => {
+        tx.insert(timeEntries)
+          .values({
+            id: randomUUID(),
+            jobId: j.id,
+            userId: actor.id,
+            stageKey: input.stageKey,
+            hours: input.hours,
+            note: input.note,
+          })
+          .run();
+        addEvent(tx, j.projectId, 'hours', `${input.hours} h logged on ${label} by ${actor.name}.`, actor.id);
+      });
       return view(row(id));
     },
   };

@@ -1,7 +1,8 @@
 import { eq } from 'drizzle-orm';
+import { PROJECT_STATUSES } from '@benchwright/contracts';
 import { STAGE_KEYS } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
-import { estimates, jobs, payments, projects, timeEntries, users, PROJECT_STATUS } from '../../db/schema';
+import { estimates, jobs, payments, projects, timeEntries, users } from '../../db/schema';
 
 /** The owner's overview: the pipeline, this month's money, the win rate, and hours estimated against hours used. */
 export function createOverviewService(db: Db) {
@@ -9,7 +10,7 @@ export function createOverviewService(db: Db) {
     get(now = new Date()) {
       const monthStart = new Date(now.getFullYear(), now.getMonth(), 1);
       const all = db.select().from(projects).all();
-      const pipeline = Object.fromEntries(PROJECT_STATUS.map((s) => [s, all.filter((p) => p.status === s).length]));
+      const pipeline = Object.fromEntries(PROJECT_STATUSES.map((s) => [s, all.filter((p) => p.status === s).length]));
       const ests = db.select().from(estimates).all();
       const acceptedThisMonth = ests.filter(
         (e) => e.status === 'accepted' && e.acceptedAt && e.acceptedAt >= monthStart,

@@ -1,9 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { and, desc, eq, lt } from 'drizzle-orm';
 import type Stripe from 'stripe';
-import type { User } from '@benchwright/contracts';
+import { canDo, type User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
-import { estimates, jobs, payments, projectEvents, projects, stripeEvents, users } from '../../db/schema';
+import { estimates, payments, projectEvents, projects, stripeEvents, users } from '../../db/schema';
 import { loadPricing } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
 import {
@@ -13,9 +13,11 @@ import {
   ownerDepositNotice,
   refundMail,
 } from '../../lib/mail-templates';
-import { addEvent, setStatus } from '../../lib/timeline';
+import { addEvent } from '../../lib/timeline';
 import { Conflict, Invalid, NotFound, Unavailable } from '../../lib/errors';
 import { estimateNumber } from '../estimates/estimates.service';
+import { openJob } from '../jobs/jobs.service';
+import { closeIfSettled, moveProject } from '../projects/lifecycle';
 
 export interface PaymentDeps {
   db: Db;
@@ -238,12 +240,18 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     const shop = loadPricing(tx).shopName;
     if (pay.kind === 'deposit') {
       const est = tx.select().from(estimates).where(eq(estimates.id, pay.estimateId!)).get()!;
-      setStatus(tx, project.id, 'deposit_paid');
-      if (!tx.select({ id: jobs.id }).from(jobs).where(eq(jobs.projectId, project.id)).get()) {
-        tx.insert(jobs)
-          .values({ id: randomUUID(), projectId: project.id, stageKey: 'material', hoursBudget: est.hoursByStage })
-          .run();
+      if (est.status !== 'accepted' || !canDo(project.status, 'pay_deposit')) {
+        // money came in for a revision that no longer stands (withdrawn meanwhile) or a second deposit: the owner refunds it
+        addEvent(
+          tx,
+          project.id,
+          'deposit_unmatched',
+          `A deposit of ${dollars(pay.amountCents)} came in for revision ${est.revision}, which is ${est.status} while the project is ${project.status.replace(/_/g, ' ')}; no job was made. Refund it from the payments page.`,
+        );
+        return true; // the payment is recorded; only the job is withheld
       }
+      moveProject(tx, project.id, 'pay_deposit');
+      openJob(tx, project.id, est.hoursByStage);
       addEvent(
         tx,
         project.id,
@@ -255,7 +263,7 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
         queueMail(tx, owner.email, ownerDepositNotice(shop, client.name, pay.amountCents, `${shopUrl}/board`));
     } else {
       addEvent(tx, project.id, 'balance_paid', `Balance of ${dollars(pay.amountCents)} received.`);
-      if (project.status === 'delivered') setStatus(tx, project.id, 'closed');
+      closeIfSettled(tx, project.id);
       queueMail(tx, client.email, balanceReceiptMail(shop, client.name, pay.amountCents, projectUrl(project.id)));
     }
     return true;
@@ -339,12 +347,39 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
   }
 
   return {
+    /**
+     * Before the owner withdraws an accepted revision: every open deposit
+     * checkout for it is expired at the card processor, so it can no longer be
+     * paid; one already completed refuses the withdrawal (409).
+     */
+    async closeDepositCheckouts(estimateId: string): Promise<void> {
+      const open = db
+        .select()
+        .from(payments)
+        .where(and(eq(payments.estimateId, estimateId), eq(payments.kind, 'deposit'), eq(payments.status, 'open')))
+        .all();
+      for (const pay of open) {
+        if (pay.stripeSessionId) {
+          const s = await stripe.checkout.sessions.retrieve(pay.stripeSessionId);
+          if (s.status === 'complete')
+            throw new Conflict(
+              'The client has just paid the deposit; it is being recorded, so it cannot be withdrawn.',
+            );
+          if (s.status === 'open') await stripe.checkout.sessions.expire(pay.stripeSessionId);
+        }
+        db.update(payments)
+          .set({ status: 'expired', updatedAt: new Date() })
+          .where(and(eq(payments.id, pay.id), eq(payments.status, 'open')))
+          .run();
+      }
+    },
+
     async depositCheckout(client: User, estimateId: string) {
       const est = db.select().from(estimates).where(eq(estimates.id, estimateId)).get();
       if (!est) throw new NotFound('The estimate');
       const project = ownProject(client, est.projectId);
       if (est.status === 'draft') throw new NotFound('The estimate');
-      if (est.status !== 'accepted' || project.status !== 'accepted')
+      if (est.status !== 'accepted' || !canDo(project.status, 'pay_deposit'))
         throw new Conflict(
           project.status === 'deposit_paid' || project.status === 'in_production'
             ? 'The deposit is already paid.'

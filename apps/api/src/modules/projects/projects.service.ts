@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { asc, desc, eq, inArray } from 'drizzle-orm';
-import type { Project, User } from '@benchwright/contracts';
+import { IN_SHOP_STATUSES, isInShop, type Project, type User } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
 import { checkItems, loadPricing, projectSpecs, travellerFor } from '../../lib/engine';
@@ -9,14 +9,11 @@ import type { EnginePool } from '../../lib/engine-pool';
 import { queueMail } from '../../lib/mailer';
 import { commentMail } from '../../lib/mail-templates';
 import { queueRequestNotice } from '../../lib/request-notice';
-import { addEvent } from '../../lib/timeline';
+import { addEvent, timelineFor } from '../../lib/timeline';
 import { Forbidden, NotFound } from '../../lib/errors';
 
-/** Statuses a builder may see: the job is in the shop. */
-const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;
-
 export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string }, pool: EnginePool) {
-  function toProject(row: typeof projects.$inferSelect): Project {
+  function toProject(row: typeof projects.$inferSelect, viewer: User): Project {
     const client = db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, row.clientId)).get()!;
     const items = db
       .select()
@@ -62,19 +59,14 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
           balanceCents: e.balanceCents,
         },
       })),
-      timeline: events.map((e) => ({
-        id: e.id,
-        kind: e.kind,
-        message: e.message,
-        by: e.kind === 'comment' ? e.by : null,
-        at: e.createdAt.toISOString(),
-      })),
+      timeline: timelineFor(viewer, events),
       createdAt: row.createdAt.toISOString(),
     };
   }
 
-  /** Clients see their own drafts hidden: a client sees an estimate only once it is sent. */
-  function forViewer(p: Project, viewer: User): Project {
+  /** A client sees an estimate only once it is sent; a builder sees no estimates (no money) at all. */
+  function forViewer(row: typeof projects.$inferSelect, viewer: User): Project {
+    const p = toProject(row, viewer);
     if (viewer.role === 'client') return { ...p, estimates: p.estimates.filter((e) => e.status !== 'draft') };
     if (viewer.role === 'builder') return { ...p, estimates: [] };
     return p;
@@ -89,10 +81,10 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
           : viewer.role === 'client'
             ? q.where(eq(projects.clientId, viewer.id)).orderBy(desc(projects.createdAt)).all()
             : q
-                .where(inArray(projects.status, [...IN_SHOP]))
+                .where(inArray(projects.status, [...IN_SHOP_STATUSES]))
                 .orderBy(desc(projects.createdAt))
                 .all();
-      return rows.map((r) => forViewer(toProject(r), viewer));
+      return rows.map((r) => forViewer(r, viewer));
     },
 
     /** A project the viewer may not see answers 404, as if it did not exist. */
@@ -100,9 +92,8 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
       const row = db.select().from(projects).where(eq(projects.id, id)).get();
       if (!row) throw new NotFound('The project');
       if (viewer.role === 'client' && row.clientId !== viewer.id) throw new NotFound('The project');
-      if (viewer.role === 'builder' && !(IN_SHOP as readonly string[]).includes(row.status))
-        throw new NotFound('The project');
-      return forViewer(toProject(row), viewer);
+      if (viewer.role === 'builder' && !isInShop(row.status)) throw new NotFound('The project');
+      return forViewer(row, viewer);
     },
 
     /**

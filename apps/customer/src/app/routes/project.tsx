@@ -1,5 +1,6 @@
 import { useEffect, useRef } from 'react';
 import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { canDo } from '@benchwright/contracts';
 import { Button, CommentForm, Money, Notice, Panel, useComment } from '@benchwright/ui';
 import { useMe } from '@benchwright/ui/auth';
 import { paths } from '../../config/paths';
@@ -68,7 +69,7 @@ export function ProjectRoute() {
         <EstimateView
           estimateId={(accepted ?? latest).id}
           canAct={me.data.role === 'client'}
-          depositDue={p.status === 'accepted'}
+          depositDue={canDo(p.status, 'pay_deposit')}
         />
       ) : (
         <Panel title="Estimate">We are working out your estimate; you will get an e-mail when it is ready.</Panel>

@@ -1,7 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Button, CommentForm, Notice, Panel, useComment } from '@benchwright/ui';
-import type { Project } from '@benchwright/contracts';
+import { canStartRevision, type Project } from '@benchwright/contracts';
 import { RoleGate } from '../../components/layout';
 import { paths } from '../../config/paths';
 import { useCreateEstimate, useEstimate } from '../../features/estimates/api/estimates';
@@ -23,8 +23,7 @@ function RequestPage({ id }: { id: string }) {
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
   const p = q.data;
   const latest = p.estimates.at(-1);
-  const canStart =
-    ['requested', 'estimating', 'estimate_sent', 'expired'].includes(p.status) && latest?.status !== 'draft';
+  const canStart = canStartRevision(p.status) && latest?.status !== 'draft';
   return (
     <>
       <p className="mb-2">

@@ -163,6 +163,9 @@ export function EstimateView({
         ) : null}
         {e.status === 'superseded' ? <Notice>A newer revision replaces this one.</Notice> : null}
         {e.status === 'expired' ? <Notice>This estimate expired; ask the shop for a new one.</Notice> : null}
+        {e.status === 'withdrawn' ? (
+          <Notice>The shop withdrew this revision; the project page says why, and a new revision will follow.</Notice>
+        ) : null}
       </div>
     </Panel>
   );

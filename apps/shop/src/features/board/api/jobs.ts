@@ -1,13 +1,13 @@
 import { queryOptions, useIsMutating, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { STAGE_KEYS } from '@benchwright/contracts';
+import type { ProjectStatus, StageKey } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
 import type { LengthUnit, Traveller } from '@benchwright/pricing/geometry';
 
-export type StageKey = (typeof STAGE_KEYS)[number];
+export type { StageKey };
 type Hours = Partial<Record<StageKey, number>> & { total: number };
 export interface Job {
   id: string;
-  project: { id: string; status: string; notes: string };
+  project: { id: string; status: ProjectStatus; notes: string };
   clientName: string;
   stage: StageKey;
   position: number;

@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { EstimateView, UpdateEstimateBody } from '@benchwright/contracts';
+import type { EstimateView, UpdateEstimateBody, WithdrawEstimateBody } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
 
 /** The owner's view of an estimate: the contract's type with the owner-only fields present. */
@@ -37,3 +37,8 @@ export const useUpdateEstimate = () =>
   );
 export const useSendEstimate = () =>
   useEstimateMutation((id: string) => api<{ estimate: OwnerEstimate }>(`${path(id)}/send`, { method: 'POST' }));
+/** Takes back an accepted revision (before any deposit), saying why; the client is told. */
+export const useWithdrawEstimate = () =>
+  useEstimateMutation(({ id, body }: { id: string; body: WithdrawEstimateBody }) =>
+    api<{ estimate: OwnerEstimate }>(`${path(id)}/withdraw`, { body }),
+  );

@@ -3,6 +3,7 @@ import { useFieldArray, useForm } from 'react-hook-form';
 import { LINE_GROUP_LABELS, type LineGroup } from '@benchwright/contracts';
 import { ApiRequestError, Button, Money, Notice, Panel } from '@benchwright/ui';
 import { useSendEstimate, useUpdateEstimate, type OwnerEstimate } from '../api/estimates';
+import { WithdrawAcceptance } from './withdraw-acceptance';
 import { toCents, toDollars } from '../../../lib/money';
 
 interface LineForm {
@@ -237,6 +238,7 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
           </Button>
         </div>
       ) : null}
+      {estimate.status === 'accepted' ? <WithdrawAcceptance estimate={estimate} /> : null}
     </Panel>
   );
 }
