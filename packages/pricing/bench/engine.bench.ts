@@ -11,6 +11,7 @@
 import { readFileSync } from 'node:fs';
 import { gzipSync } from 'node:zlib';
 import { build } from 'esbuild';
+import { at } from '../src/_lib/at';
 import { designs, estimate, demoPriceBook, demoSettings, type EstimateItem } from '../src/index';
 
 function median(f: () => void, runs: number, warm = 5): number {
@@ -22,7 +23,7 @@ function median(f: () => void, runs: number, warm = 5): number {
     t.push(performance.now() - t0);
   }
   t.sort((a, b) => a - b);
-  return t[Math.floor(runs / 2)];
+  return at(t, Math.floor(runs / 2));
 }
 
 const bench: EstimateItem[] = [{ spec: designs['assembly-bench'].defaults, quantity: 1 }];
@@ -42,7 +43,9 @@ const out = await build({
   write: false,
   treeShaking: true,
 });
-const js = out.outputFiles[0].contents;
+const [bundle] = out.outputFiles;
+if (!bundle) throw new Error('esbuild wrote no bundle');
+const js = bundle.contents;
 const gz = gzipSync(js, { level: 9 }).length;
 
 const pieces = kitchen.reduce((s, i) => s + i.quantity, 0);

@@ -10,6 +10,7 @@ import { nestByMaterial, type NestEffort, type NestPart, type NestResult } from 
 import { byId, STAGE_KEYS, type PriceBook, type ShopSettings, type StageKey } from './price-book';
 import { boardFeet, toInches } from './units';
 
+import { at } from './_lib/at';
 import { LINE_GROUPS, type LineGroup } from './line-groups';
 const MATERIAL_GROUPS: ReadonlySet<LineGroup> = new Set([
   'sheet_goods',
@@ -106,6 +107,7 @@ export function splitDeposit(totalCents: number, rate: number): { depositCents: 
   if (r <= 0) return { depositCents: 0, balanceCents: totalCents };
   if (r >= 10000) return { depositCents: totalCents, balanceCents: 0 };
   const [dep, bal] = allocate(usd(totalCents), [r, 10000 - r]);
+  if (!dep || !bal) throw new Error('internal: a split in two gave fewer than two shares');
   return { depositCents: toSnapshot(dep).amount, balanceCents: toSnapshot(bal).amount };
 }
 
@@ -190,7 +192,7 @@ export function estimate(
   });
   const geos: PieceGeometry[] = lists.map((l) => l.geometry);
   const pieces: PieceResult[] = items.map((item, index) => {
-    const list = lists[index];
+    const list = at(lists, index);
     const first = pieceChecks(list, book, settings);
     const hardware = hardwareFor(list, book, { antiTip: first.needsAntiTip });
     const { checks, massKg } = pieceChecks(
@@ -364,7 +366,7 @@ export function estimate(
     });
   }
 
-  const sumQ = (f: (i: number) => number) => pieces.reduce((s, p, i) => s + f(i) * p.quantity, 0);
+  const sumQ = (f: (g: PieceGeometry) => number) => pieces.reduce((s, p, i) => s + f(at(geos, i)) * p.quantity, 0);
   const hours = labourHours(
     {
       jobs: 1,
@@ -372,14 +374,14 @@ export function estimate(
       parts: all.reduce((s, p) => s + p.quantity, 0),
       bandingMetres: bandingMetres(all),
       pocketHoles: all.reduce((s, p) => s + p.quantity * p.pocketHoles, 0),
-      cases: sumQ((i) => geos[i].caseCount),
-      drawers: sumQ((i) => geos[i].drawers.length),
-      slidePairs: sumQ((i) => geos[i].drawers.length),
-      doors: sumQ((i) => geos[i].doors.length),
-      torsionTops: sumQ((i) => geos[i].torsionTops),
-      trimPieces: sumQ((i) => geos[i].trimPieces),
+      cases: sumQ((g) => g.caseCount),
+      drawers: sumQ((g) => g.drawers.length),
+      slidePairs: sumQ((g) => g.drawers.length),
+      doors: sumQ((g) => g.doors.length),
+      torsionTops: sumQ((g) => g.torsionTops),
+      trimPieces: sumQ((g) => g.trimPieces),
       finishM2Coats,
-      casters: sumQ((i) => geos[i].casters + geos[i].feet),
+      casters: sumQ((g) => g.casters + g.feet),
     },
     book,
   );

@@ -9,6 +9,7 @@
 import { seededRandom } from '../_lib/random';
 import { ALL_CONFIGS, fillBin, poolBySize, QUICK_CONFIGS, SPACE_CONFIGS } from './bin';
 import { packExact } from './exact';
+import { at } from '../_lib/at';
 import { NESTING_TUNING } from './tuning';
 import { EPS, type Bin, type Config, type Ctx, type Item, type NestEffort, type Solution } from './types';
 
@@ -32,7 +33,8 @@ function packAllInOne(items: Item[], ctx: Ctx, configs: Config[], rand?: () => n
   }
   // random orders, for the moves that would empty the last sheet above the bound
   for (let t = 0; rand && t < tries && ctx.spent < ctx.limit; t++) {
-    const cfg = t % 2 ? { ...SPACE_CONFIGS[t % SPACE_CONFIGS.length], noise: rand } : configs[t % configs.length];
+    const cfg =
+      t % 2 ? { ...at(SPACE_CONFIGS, t % SPACE_CONFIGS.length), noise: rand } : at(configs, t % configs.length);
     const { bin, rest } = fillBin(perturb(items, rand, NESTING_TUNING.retryOrderNoise), cfg, ctx);
     if (rest.length === 0) return bin;
   }
@@ -135,9 +137,8 @@ function eliminateBins(
   while (progress && bins.length > lowerBound && budget.n > 0 && ctx.spent < ctx.limit) {
     progress = false;
     const order = bins.map((b, i) => ({ b, i })).sort((a, b) => a.b.used - b.b.used);
-    for (const { i: weakIdx } of order) {
+    for (const { b: weak, i: weakIdx } of order) {
       if (budget.n <= 0 || ctx.spent >= ctx.limit) break;
-      const weak = bins[weakIdx];
       const remaining = sortItems(
         weak.placed.map((p) => p.item),
         'area',
@@ -198,16 +199,23 @@ function eliminateBins(
  */
 function exactBins(items: Item[], sheets: number, ctx: Ctx, workLimit: number, seed: number): Bin[] | null {
   const kinds = poolBySize(items);
-  const types = kinds.map((k) => ({ l: k[0].l, w: k[0].w, canRotate: k[0].canRotate, count: k.length }));
+  const types = kinds.map((k) => {
+    const first = at(k, 0);
+    return { l: first.l, w: first.w, canRotate: first.canRotate, count: k.length };
+  });
   const r = packExact(types, { x0: ctx.x0, y0: ctx.y0, L: ctx.L, W: ctx.W, sheets, kerf: ctx.kerf, workLimit, seed });
   ctx.spent += Math.ceil(r.work / NESTING_TUNING.stepsPerVisit);
   if (r.status !== 'found') return null;
   const bins: Bin[] = Array.from({ length: sheets }, () => ({ free: [], placed: [], used: 0 }));
   const taken = kinds.map(() => 0);
   for (const p of r.placements) {
-    const item = kinds[p.type][taken[p.type]++];
-    bins[p.sheet].placed.push({ item, x: p.x, y: p.y, l: p.l, w: p.w, rotated: p.rotated });
-    bins[p.sheet].used += item.area;
+    // the units of a kind in order, so that parts of one size keep the order of the part list
+    const next = at(taken, p.type);
+    taken[p.type] = next + 1;
+    const item = at(at(kinds, p.type), next);
+    const bin = at(bins, p.sheet);
+    bin.placed.push({ item, x: p.x, y: p.y, l: p.l, w: p.w, rotated: p.rotated });
+    bin.used += item.area;
   }
   return bins.filter((b) => b.placed.length);
 }
