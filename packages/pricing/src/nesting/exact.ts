@@ -338,6 +338,8 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
 
   const start = () => Array.from({ length: o.sheets }, (_, s) => rect(s, o.x0, o.y0, o.L, o.W, 0, 0));
   let found = false;
+  // no run at all (no work allowed) proves nothing
+  gaveUp = o.workLimit <= 0;
   let budget = T.firstRunStepsPerKind * Math.max(T.minKinds, n);
   for (run = 0; !found && work < o.workLimit; run++) {
     gaveUp = false;

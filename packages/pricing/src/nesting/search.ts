@@ -195,9 +195,16 @@ function eliminateBins(
 /**
  * The exact search (exact.ts) over `sheets` sheets for all `items`;
  * parts of one size are pooled so the search sees them as one kind.
- * Returns the bins, or null if it found none within `workLimit` steps.
+ * Returns the bins, or null if it found none within `workLimit` steps,
+ * and whether it proved that there is none.
  */
-function exactBins(items: Item[], sheets: number, ctx: Ctx, workLimit: number, seed: number): Bin[] | null {
+function exactBins(
+  items: Item[],
+  sheets: number,
+  ctx: Ctx,
+  workLimit: number,
+  seed: number,
+): { bins: Bin[] | null; impossible: boolean } {
   const kinds = poolBySize(items);
   const types = kinds.map((k) => {
     const first = at(k, 0);
@@ -205,7 +212,7 @@ function exactBins(items: Item[], sheets: number, ctx: Ctx, workLimit: number, s
   });
   const r = packExact(types, { x0: ctx.x0, y0: ctx.y0, L: ctx.L, W: ctx.W, sheets, kerf: ctx.kerf, workLimit, seed });
   ctx.spent += Math.ceil(r.work / NESTING_TUNING.stepsPerVisit);
-  if (r.status !== 'found') return null;
+  if (r.status !== 'found') return { bins: null, impossible: r.status === 'none' };
   const bins: Bin[] = Array.from({ length: sheets }, () => ({ free: [], placed: [], used: 0 }));
   const taken = kinds.map(() => 0);
   for (const p of r.placements) {
@@ -217,7 +224,7 @@ function exactBins(items: Item[], sheets: number, ctx: Ctx, workLimit: number, s
     bin.placed.push({ item, x: p.x, y: p.y, l: p.l, w: p.w, rotated: p.rotated });
     bin.used += item.area;
   }
-  return bins.filter((b) => b.placed.length);
+  return { bins: bins.filter((b) => b.placed.length), impossible: false };
 }
 
 /**
@@ -236,24 +243,33 @@ export function searchLayout(
   const consider = (s: Solution) => {
     if (better(s, best)) best = s;
   };
-  const done = () => best !== null && best.bins.length <= lowerBound;
+  // the bound's sheets proven too few (by the exact search): a layout one sheet over it is the best there is
+  let boundUnreachable = false;
+  const done = () =>
+    best !== null && (best.bins.length <= lowerBound || (boundUnreachable && best.bins.length <= lowerBound + 1));
   if (!items.length) return best;
 
   const T = NESTING_TUNING;
   const thorough = effort === 'thorough';
-  ctx.limit = T.workLimit[effort];
+  const area = items.reduce((a, it) => a + it.area, 0);
+  // work allowed: at thorough, in proportion to the job's size in sheets (the parts' area over the usable sheet's)
+  ctx.limit = thorough
+    ? Math.round(
+        Math.min(T.thoroughWork.max, Math.max(T.thoroughWork.min, (T.thoroughWork.perSheet * area) / (ctx.L * ctx.W))),
+      )
+    : T.workLimit.quick;
   const keys: SortKey[] = thorough
     ? ['area', 'long', 'width', 'length', 'perimeter', 'short']
     : ['area', 'long', 'width'];
   // the exact search (exact.ts), for when the greedy fills stop one sheet over the bound
-  const area = items.reduce((a, it) => a + it.area, 0);
   // nearly full sheets: the greedy fills rarely get there, the exact search is the hope
   const tight = lowerBound > 0 && 1 - area / (lowerBound * ctx.L * ctx.W) < T.tightLeftover;
   let exactRan = false;
   const tryExact = (visits: number) => {
     exactRan = true;
-    const bins = exactBins(items, lowerBound, ctx, Math.max(0, visits) * T.stepsPerVisit, seed);
+    const { bins, impossible } = exactBins(items, lowerBound, ctx, Math.max(0, visits) * T.stepsPerVisit, seed);
     if (bins) consider({ bins });
+    if (impossible) boundUnreachable = true;
   };
   for (const key of keys) {
     const order = sortItems(items, key);
@@ -263,7 +279,8 @@ export function searchLayout(
     }
     if (done()) break;
     // nearly full sheets: search exactly after the first round of greedy fills, with most of the work allowed
-    if (thorough && tight && !exactRan && best!.bins.length === lowerBound + 1) tryExact(ctx.limit * T.exactEarlyShare);
+    if (thorough && tight && !exactRan && best!.bins.length === lowerBound + 1)
+      tryExact(T.thoroughWork.max * T.exactEarlyShare);
     if (done()) break;
   }
   for (const cfg of thorough ? SPACE_CONFIGS : []) if (!done()) consider(greedy(items, cfg, ctx));
@@ -276,11 +293,15 @@ export function searchLayout(
     const n = items.length;
     const trials = clampedShare(T.roundTrials, n);
     const rounds = clampedShare(T.rounds, n);
-    for (let r = 0; r < rounds && !done() && ctx.spent < ctx.limit; r++) {
+    // rounds until the bound is met, the work is spent, or `staleRounds` rounds in a row save no sheet
+    let stale = 0;
+    for (let r = 0; r < rounds && !done() && ctx.spent < ctx.limit && stale < T.staleRounds; r++) {
+      const before = best!.bins.length;
       const s = bestFillGreedy(items, QUICK_CONFIGS, trials, rand, ctx);
       consider(s);
       if (!done())
         consider(eliminateBins(s, ctx, QUICK_CONFIGS, lowerBound, { n: Math.floor(T.roundEmptyingMoves / n) }));
+      stale = best!.bins.length < before ? 0 : stale + 1;
     }
   }
   return best;
