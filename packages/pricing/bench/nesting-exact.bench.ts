@@ -23,10 +23,10 @@ for (let s = 1; s <= N; s++) {
   const rand = seededRandom(s * 7919);
   const pieces = guillotinePieces(30, 30, 10, rand, 0.8);
   let waste = 0;
-  const order = pieces.map((_, i) => i).sort(() => rand() - 0.5);
+  const order = [...pieces.entries()].sort(() => rand() - 0.5);
   const kept = new Set(pieces.keys());
-  for (const i of order) {
-    const a = pieces[i][0] * pieces[i][1];
+  for (const [i, [l, w]] of order) {
+    const a = l * w;
     if (waste + a <= WASTE) {
       kept.delete(i);
       waste += a;

@@ -10,6 +10,7 @@ import { nestByMaterial, type NestEffort, type NestPart, type NestResult } from 
 import { byId, STAGE_KEYS, type PriceBook, type ShopSettings, type StageKey } from './price-book';
 import { boardFeet, toInches } from './units';
 
+import { at } from './_lib/at';
 import type { LineGroup } from './line-groups';
 const MATERIAL_GROUPS: ReadonlySet<LineGroup> = new Set([
   'sheet_goods',
@@ -106,6 +107,7 @@ export function splitDeposit(totalCents: number, rate: number): { depositCents: 
   if (r <= 0) return { depositCents: 0, balanceCents: totalCents };
   if (r >= 10000) return { depositCents: totalCents, balanceCents: 0 };
   const [dep, bal] = allocate(usd(totalCents), [r, 10000 - r]);
+  if (!dep || !bal) throw new Error('internal: a split in two gave fewer than two shares');
   return { depositCents: toSnapshot(dep).amount, balanceCents: toSnapshot(bal).amount };
 }
 
@@ -165,11 +167,16 @@ function r3(v: number): number {
   return Math.round(v * 1000) / 1000;
 }
 
+/** One unit kind of the whole job: a piece's part, its id prefixed by the piece and its quantity for the item. */
+type JobPart = CutPart & { piece: number };
+
 /**
  * Prices a project's items: cut lists, sheet layouts per material (all
  * pieces sharing sheets, as the shop cuts them), banding, board feet,
  * hardware, finish, consumables, markup, labour by stage at the shop rate,
- * tax, deposit and balance, with the checks, weight and drawings.
+ * tax, deposit and balance, with the checks, weight and drawings. Each group
+ * of lines comes from its own builder below, in the order the estimate lists
+ * them.
  *
  * @example
  * estimate([{ spec: designs.bookcase.defaults, quantity: 1 }], demoPriceBook, demoSettings).totals.totalCents
@@ -181,224 +188,22 @@ export function estimate(
   options: EstimateOptions = {},
 ): Estimate {
   if (!items.length) throw new RangeError('an estimate needs at least one item');
-  const effort = options.effort ?? 'quick';
-  const markup = settings.materialMarkup;
-  const lists = items.map((item, index) => {
-    if (!Number.isInteger(item.quantity) || item.quantity < 1)
-      throw new RangeError(`item ${index + 1}: quantity must be a whole number of 1 or more`);
-    return cutList(item.spec, book, settings);
-  });
-  const geos: PieceGeometry[] = lists.map((l) => l.geometry);
-  const pieces: PieceResult[] = items.map((item, index) => {
-    const list = lists[index];
-    const first = pieceChecks(list, book, settings);
-    const hardware = hardwareFor(list, book, { antiTip: first.needsAntiTip });
-    const { checks, massKg } = pieceChecks(
-      list,
-      book,
-      settings,
-      hardware.reduce((s, h) => s + h.massKg, 0),
-    );
-    return {
-      index,
-      spec: item.spec,
-      quantity: item.quantity,
-      parts: list.parts,
-      hardware,
-      checks,
-      massKg,
-      elevation: elevationDrawing(item.spec, { list, unit: settings.units }),
-    };
-  });
+  const built = buildPieces(items, book, settings);
+  const pieces = built.map((b) => b.piece);
+  const all = jobParts(pieces);
+  const layouts = nestJob(all, book, options.effort ?? 'quick', options.seed);
 
-  // every unit of every piece, nested together per material
-  const all: (CutPart & { piece: number })[] = pieces.flatMap((p) =>
-    p.parts.map((part) => ({
-      ...part,
-      id: `i${p.index + 1}-${part.id}`,
-      quantity: part.quantity * p.quantity,
-      piece: p.index,
-    })),
-  );
-  const sheetParts = all.filter((p) => p.stock === 'sheet');
-  const nestParts: NestPart[] = sheetParts.map((p) => ({
-    id: p.id,
-    name: p.name,
-    lengthMm: p.lengthMm,
-    widthMm: p.widthMm,
-    quantity: p.quantity,
-    canRotate: p.grain === 'free',
-    materialId: p.materialId,
-  }));
-  const stock = Object.fromEntries(
-    book.sheetGoods.map((s) => [s.id, { lengthMm: s.sheetLengthMm, widthMm: s.sheetWidthMm }]),
-  );
-  const nested = nestByMaterial(nestParts, stock, {
-    kerfMm: book.kerfMm,
-    trimMm: book.sheetTrimMm,
-    effort,
-    seed: options.seed,
-  });
-  const layouts: MaterialLayout[] = Object.entries(nested).map(([materialId, r]) => ({
-    ...r,
-    materialId,
-    materialName: byId(book.sheetGoods, materialId, 'sheet good').name,
-    parts: nestParts.filter((p) => p.materialId === materialId),
-  }));
-  const unplaced = layouts.flatMap((l) => l.unplaced);
-  if (unplaced.length)
-    throw new RangeError(`some parts fit no sheet: ${unplaced.map((u) => `${u.partId} (${u.reason})`).join('; ')}`);
-
-  const lines: EstimateLine[] = [];
-  let sheets = 0;
-  for (const l of layouts) {
-    const m = byId(book.sheetGoods, l.materialId, 'sheet good');
-    sheets += l.sheetCount;
-    const sheetArea = m.sheetLengthMm * m.sheetWidthMm;
-    const used = l.sheets.reduce((s, x) => s + x.usedAreaMm2, 0) / sheetArea;
-    const qty =
-      settings.sheetCharging === 'whole'
-        ? l.sheetCount
-        : Math.max(settings.minSheetFraction, Math.ceil(used * 100) / 100);
-    lines.push(
-      line(
-        'sheet_goods',
-        m.id,
-        `${m.name}, ${toInches(m.sheetLengthMm / 12).toFixed(0)} x ${toInches(m.sheetWidthMm / 12).toFixed(0)} ft sheets${settings.sheetCharging === 'used_fraction' ? ' (used fraction)' : ''}`,
-        qty,
-        'sheet',
-        m.priceCents,
-        markup,
-      ),
-    );
-  }
-  // solid wood: board feet on the rough thickness, with waste
-  const lumberBf = new Map<string, number>();
-  for (const p of all.filter((x) => x.stock === 'lumber')) {
-    const lum = byId(book.lumber, p.materialId, 'lumber');
-    lumberBf.set(
-      lum.id,
-      (lumberBf.get(lum.id) ?? 0) +
-        p.quantity * boardFeet(lum.roughThicknessIn, toInches(p.widthMm), toInches(p.lengthMm)),
-    );
-  }
-  for (const [id, bf] of lumberBf) {
-    const lum = byId(book.lumber, id, 'lumber');
-    lines.push(
-      line(
-        'solid_wood',
-        id,
-        `${lum.name}, with ${Math.round(settings.lumberWaste * 100)} % waste`,
-        r3(bf * (1 + settings.lumberWaste)),
-        'bd ft',
-        lum.pricePerBoardFootCents,
-        markup,
-      ),
-    );
-  }
-  const bandById = new Map<string, number>();
-  for (const p of all)
-    if (p.bandingId) bandById.set(p.bandingId, (bandById.get(p.bandingId) ?? 0) + bandingMetres([p]));
-  for (const [id, metres] of bandById) {
-    const b = byId(book.edgeBanding, id, 'edge banding');
-    lines.push(
-      line(
-        'edge_banding',
-        id,
-        `${b.name}, with ${Math.round(settings.bandingWaste * 100)} % waste`,
-        r3(metres * (1 + settings.bandingWaste)),
-        'm',
-        b.pricePerMetreCents,
-        markup,
-      ),
-    );
-  }
-  const hw = new Map<string, HardwareLine>();
-  for (const p of pieces) {
-    for (const h of p.hardware) {
-      const cur = hw.get(h.itemId);
-      hw.set(
-        h.itemId,
-        cur ? { ...cur, pieces: cur.pieces + h.pieces * p.quantity } : { ...h, pieces: h.pieces * p.quantity },
-      );
-    }
-  }
-  for (const h of hw.values()) {
-    const item = byId(book.hardware, h.itemId, 'hardware');
-    const per = item.unit === 'pair' ? 2 : item.perUnit;
-    lines.push(line('hardware', h.itemId, h.name, Math.ceil(h.pieces / per), item.unit, item.priceCents, markup));
-  }
-  let finishM2Coats = 0;
-  const finishGal = new Map<string, number>();
-  for (const p of pieces) {
-    if (!p.spec.finishId) continue;
-    const f = byId(book.finishes, p.spec.finishId, 'finish');
-    const coats = p.spec.coats ?? f.defaultCoats;
-    const areaM2 =
-      p.parts.reduce((s, x) => s + (x.quantity * x.finishFaces * x.lengthMm * x.widthMm) / 1e6, 0) * p.quantity;
-    finishM2Coats += areaM2 * coats;
-    const coverage = finishCoverage({
-      volumeSolids: f.volumeSolids,
-      dryFilmMils: f.dryFilmMilsPerCoat,
-      transferEfficiency: f.transferEfficiency,
-    });
-    finishGal.set(f.id, (finishGal.get(f.id) ?? 0) + finishGallons({ areaM2, coats, coverageFt2PerGallon: coverage }));
-  }
-  for (const [id, gal] of finishGal) {
-    const f = byId(book.finishes, id, 'finish');
-    lines.push(line('finish', id, f.name, r3(gal), 'gal', f.pricePerGallonCents, markup));
-  }
-  const materialCost = lines.reduce((s, l) => s + l.costCents, 0);
-  if (settings.consumablesRate > 0 && materialCost > 0) {
-    const c = times(materialCost, settings.consumablesRate);
-    lines.push({
-      group: 'consumables',
-      ref: 'consumables',
-      description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)} % of materials)`,
-      quantity: 1,
-      unit: 'lot',
-      unitPriceCents: times(c, 1 + markup),
-      amountCents: times(c, 1 + markup),
-      costCents: c,
-      source: 'computed',
-    });
-  }
-
-  const sumQ = (f: (i: number) => number) => pieces.reduce((s, p, i) => s + f(i) * p.quantity, 0);
-  const hours = labourHours(
-    {
-      jobs: 1,
-      sheets,
-      parts: all.reduce((s, p) => s + p.quantity, 0),
-      bandingMetres: bandingMetres(all),
-      pocketHoles: all.reduce((s, p) => s + p.quantity * p.pocketHoles, 0),
-      cases: sumQ((i) => geos[i].caseCount),
-      drawers: sumQ((i) => geos[i].drawers.length),
-      slidePairs: sumQ((i) => geos[i].drawers.length),
-      doors: sumQ((i) => geos[i].doors.length),
-      torsionTops: sumQ((i) => geos[i].torsionTops),
-      trimPieces: sumQ((i) => geos[i].trimPieces),
-      finishM2Coats,
-      casters: sumQ((i) => geos[i].casters + geos[i].feet),
-    },
-    book,
-  );
-  const stageNames: Record<StageKey, string> = {
-    material: 'material and set-up',
-    cutting: 'cutting',
-    casework: 'casework',
-    drawers_doors: 'drawers and doors',
-    finish: 'finishing',
-    ready: 'final check',
-    delivered: 'delivery',
-  };
-  for (const stage of STAGE_KEYS) {
-    const h = Math.round(hours.byStage[stage] * 100) / 100;
-    if (h <= 0) continue;
-    const l = line('labour', stage, `Shop time: ${stageNames[stage]}`, h, 'h', book.shopRateCents, 0);
-    l.costCents = times(book.labourCostPerHourCents, h);
-    lines.push(l);
-  }
+  const finish = finishLines(pieces, book, settings);
+  const lines: EstimateLine[] = [
+    ...sheetGoodLines(layouts, book, settings),
+    ...lumberLines(all, book, settings),
+    ...bandingLines(all, book, settings),
+    ...hardwareLines(pieces, book, settings),
+    ...finish.lines,
+  ];
+  lines.push(...consumablesLines(lines, settings));
+  const hours = jobHours(built, all, layouts, finish.m2Coats, book);
+  lines.push(...labourLines(hours.byStage, book));
 
   const totals = totalsFor(lines, settings, options.discountCents ?? 0);
   const costCents = lines.reduce((s, l) => s + l.costCents, 0);
@@ -416,6 +221,282 @@ export function estimate(
     costCents,
     marginCents: totals.subtotalCents - totals.discountCents - costCents,
   };
+}
+
+/** Each item's cut list, hardware, checks, weight and drawing, with its geometry for the labour counts. */
+function buildPieces(
+  items: readonly EstimateItem[],
+  book: PriceBook,
+  settings: ShopSettings,
+): { piece: PieceResult; geometry: PieceGeometry }[] {
+  const lists = items.map((item, index) => {
+    if (!Number.isInteger(item.quantity) || item.quantity < 1)
+      throw new RangeError(`item ${index + 1}: quantity must be a whole number of 1 or more`);
+    return cutList(item.spec, book, settings);
+  });
+  return items.map((item, index) => {
+    const list = at(lists, index);
+    const first = pieceChecks(list, book, settings);
+    const hardware = hardwareFor(list, book, { antiTip: first.needsAntiTip });
+    const { checks, massKg } = pieceChecks(
+      list,
+      book,
+      settings,
+      hardware.reduce((s, h) => s + h.massKg, 0),
+    );
+    const piece: PieceResult = {
+      index,
+      spec: item.spec,
+      quantity: item.quantity,
+      parts: list.parts,
+      hardware,
+      checks,
+      massKg,
+      elevation: elevationDrawing(item.spec, { list, unit: settings.units }),
+    };
+    return { piece, geometry: list.geometry };
+  });
+}
+
+/** Every part of every piece, counted for the item's quantity, ids prefixed by the piece. */
+function jobParts(pieces: readonly PieceResult[]): JobPart[] {
+  return pieces.flatMap((p) =>
+    p.parts.map((part) => ({
+      ...part,
+      id: `i${p.index + 1}-${part.id}`,
+      quantity: part.quantity * p.quantity,
+      piece: p.index,
+    })),
+  );
+}
+
+/** The sheet parts of the whole job nested together per material; throws if a part fits no sheet. */
+function nestJob(
+  all: readonly JobPart[],
+  book: PriceBook,
+  effort: NestEffort,
+  seed: number | undefined,
+): MaterialLayout[] {
+  const nestParts: NestPart[] = all
+    .filter((p) => p.stock === 'sheet')
+    .map((p) => ({
+      id: p.id,
+      name: p.name,
+      lengthMm: p.lengthMm,
+      widthMm: p.widthMm,
+      quantity: p.quantity,
+      canRotate: p.grain === 'free',
+      materialId: p.materialId,
+    }));
+  const stock = Object.fromEntries(
+    book.sheetGoods.map((s) => [s.id, { lengthMm: s.sheetLengthMm, widthMm: s.sheetWidthMm }]),
+  );
+  const nested = nestByMaterial(nestParts, stock, { kerfMm: book.kerfMm, trimMm: book.sheetTrimMm, effort, seed });
+  const layouts: MaterialLayout[] = Object.entries(nested).map(([materialId, r]) => ({
+    ...r,
+    materialId,
+    materialName: byId(book.sheetGoods, materialId, 'sheet good').name,
+    parts: nestParts.filter((p) => p.materialId === materialId),
+  }));
+  const unplaced = layouts.flatMap((l) => l.unplaced);
+  if (unplaced.length)
+    throw new RangeError(`some parts fit no sheet: ${unplaced.map((u) => `${u.partId} (${u.reason})`).join('; ')}`);
+  return layouts;
+}
+
+/** Sheet goods: whole sheets or the used fraction of each material's layouts. */
+function sheetGoodLines(layouts: readonly MaterialLayout[], book: PriceBook, settings: ShopSettings): EstimateLine[] {
+  return layouts.map((l) => {
+    const m = byId(book.sheetGoods, l.materialId, 'sheet good');
+    const sheetArea = m.sheetLengthMm * m.sheetWidthMm;
+    const used = l.sheets.reduce((s, x) => s + x.usedAreaMm2, 0) / sheetArea;
+    const qty =
+      settings.sheetCharging === 'whole'
+        ? l.sheetCount
+        : Math.max(settings.minSheetFraction, Math.ceil(used * 100) / 100);
+    return line(
+      'sheet_goods',
+      m.id,
+      `${m.name}, ${toInches(m.sheetLengthMm / 12).toFixed(0)} x ${toInches(m.sheetWidthMm / 12).toFixed(0)} ft sheets${settings.sheetCharging === 'used_fraction' ? ' (used fraction)' : ''}`,
+      qty,
+      'sheet',
+      m.priceCents,
+      settings.materialMarkup,
+    );
+  });
+}
+
+/** Solid wood: board feet on the rough thickness, with waste, per lumber. */
+function lumberLines(all: readonly JobPart[], book: PriceBook, settings: ShopSettings): EstimateLine[] {
+  const lumberBf = new Map<string, number>();
+  for (const p of all.filter((x) => x.stock === 'lumber')) {
+    const lum = byId(book.lumber, p.materialId, 'lumber');
+    lumberBf.set(
+      lum.id,
+      (lumberBf.get(lum.id) ?? 0) +
+        p.quantity * boardFeet(lum.roughThicknessIn, toInches(p.widthMm), toInches(p.lengthMm)),
+    );
+  }
+  return [...lumberBf].map(([id, bf]) => {
+    const lum = byId(book.lumber, id, 'lumber');
+    return line(
+      'solid_wood',
+      id,
+      `${lum.name}, with ${Math.round(settings.lumberWaste * 100)} % waste`,
+      r3(bf * (1 + settings.lumberWaste)),
+      'bd ft',
+      lum.pricePerBoardFootCents,
+      settings.materialMarkup,
+    );
+  });
+}
+
+/** Edge banding: metres per banding, with waste. */
+function bandingLines(all: readonly JobPart[], book: PriceBook, settings: ShopSettings): EstimateLine[] {
+  const bandById = new Map<string, number>();
+  for (const p of all)
+    if (p.bandingId) bandById.set(p.bandingId, (bandById.get(p.bandingId) ?? 0) + bandingMetres([p]));
+  return [...bandById].map(([id, metres]) => {
+    const b = byId(book.edgeBanding, id, 'edge banding');
+    return line(
+      'edge_banding',
+      id,
+      `${b.name}, with ${Math.round(settings.bandingWaste * 100)} % waste`,
+      r3(metres * (1 + settings.bandingWaste)),
+      'm',
+      b.pricePerMetreCents,
+      settings.materialMarkup,
+    );
+  });
+}
+
+/** Hardware: the pieces' hardware summed over the job, in the price book's selling units. */
+function hardwareLines(pieces: readonly PieceResult[], book: PriceBook, settings: ShopSettings): EstimateLine[] {
+  const hw = new Map<string, HardwareLine>();
+  for (const p of pieces) {
+    for (const h of p.hardware) {
+      const cur = hw.get(h.itemId);
+      hw.set(
+        h.itemId,
+        cur ? { ...cur, pieces: cur.pieces + h.pieces * p.quantity } : { ...h, pieces: h.pieces * p.quantity },
+      );
+    }
+  }
+  return [...hw.values()].map((h) => {
+    const item = byId(book.hardware, h.itemId, 'hardware');
+    const per = item.unit === 'pair' ? 2 : item.perUnit;
+    return line(
+      'hardware',
+      h.itemId,
+      h.name,
+      Math.ceil(h.pieces / per),
+      item.unit,
+      item.priceCents,
+      settings.materialMarkup,
+    );
+  });
+}
+
+/** Finish: gallons per finish from the finished faces and coats; also the square metres times coats, for labour. */
+function finishLines(
+  pieces: readonly PieceResult[],
+  book: PriceBook,
+  settings: ShopSettings,
+): { lines: EstimateLine[]; m2Coats: number } {
+  let m2Coats = 0;
+  const finishGal = new Map<string, number>();
+  for (const p of pieces) {
+    if (!p.spec.finishId) continue;
+    const f = byId(book.finishes, p.spec.finishId, 'finish');
+    const coats = p.spec.coats ?? f.defaultCoats;
+    const areaM2 =
+      p.parts.reduce((s, x) => s + (x.quantity * x.finishFaces * x.lengthMm * x.widthMm) / 1e6, 0) * p.quantity;
+    m2Coats += areaM2 * coats;
+    const coverage = finishCoverage({
+      volumeSolids: f.volumeSolids,
+      dryFilmMils: f.dryFilmMilsPerCoat,
+      transferEfficiency: f.transferEfficiency,
+    });
+    finishGal.set(f.id, (finishGal.get(f.id) ?? 0) + finishGallons({ areaM2, coats, coverageFt2PerGallon: coverage }));
+  }
+  const lines = [...finishGal].map(([id, gal]) => {
+    const f = byId(book.finishes, id, 'finish');
+    return line('finish', id, f.name, r3(gal), 'gal', f.pricePerGallonCents, settings.materialMarkup);
+  });
+  return { lines, m2Coats };
+}
+
+/** Consumables: a share of the material cost of `materialLines`, as one lot (none when the rate or cost is 0). */
+function consumablesLines(materialLines: readonly EstimateLine[], settings: ShopSettings): EstimateLine[] {
+  const materialCost = materialLines.reduce((s, l) => s + l.costCents, 0);
+  if (!(settings.consumablesRate > 0 && materialCost > 0)) return [];
+  const c = times(materialCost, settings.consumablesRate);
+  const markup = settings.materialMarkup;
+  return [
+    {
+      group: 'consumables',
+      ref: 'consumables',
+      description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)} % of materials)`,
+      quantity: 1,
+      unit: 'lot',
+      unitPriceCents: times(c, 1 + markup),
+      amountCents: times(c, 1 + markup),
+      costCents: c,
+      source: 'computed',
+    },
+  ];
+}
+
+/** Shop hours by stage from the job's counts (sheets, parts, banding, cases, fronts, finish...). */
+function jobHours(
+  built: readonly { piece: PieceResult; geometry: PieceGeometry }[],
+  all: readonly JobPart[],
+  layouts: readonly MaterialLayout[],
+  finishM2Coats: number,
+  book: PriceBook,
+): ReturnType<typeof labourHours> {
+  const sumQ = (f: (g: PieceGeometry) => number) => built.reduce((s, b) => s + f(b.geometry) * b.piece.quantity, 0);
+  return labourHours(
+    {
+      jobs: 1,
+      sheets: layouts.reduce((s, l) => s + l.sheetCount, 0),
+      parts: all.reduce((s, p) => s + p.quantity, 0),
+      bandingMetres: bandingMetres(all),
+      pocketHoles: all.reduce((s, p) => s + p.quantity * p.pocketHoles, 0),
+      cases: sumQ((g) => g.caseCount),
+      drawers: sumQ((g) => g.drawers.length),
+      slidePairs: sumQ((g) => g.drawers.length),
+      doors: sumQ((g) => g.doors.length),
+      torsionTops: sumQ((g) => g.torsionTops),
+      trimPieces: sumQ((g) => g.trimPieces),
+      finishM2Coats,
+      casters: sumQ((g) => g.casters + g.feet),
+    },
+    book,
+  );
+}
+
+const STAGE_NAMES: Record<StageKey, string> = {
+  material: 'material and set-up',
+  cutting: 'cutting',
+  casework: 'casework',
+  drawers_doors: 'drawers and doors',
+  finish: 'finishing',
+  ready: 'final check',
+  delivered: 'delivery',
+};
+
+/** Labour: one line per stage with hours, at the shop rate, costed at the labour cost per hour. */
+function labourLines(byStage: Record<StageKey, number>, book: PriceBook): EstimateLine[] {
+  const lines: EstimateLine[] = [];
+  for (const stage of STAGE_KEYS) {
+    const h = Math.round(byStage[stage] * 100) / 100;
+    if (h <= 0) continue;
+    const l = line('labour', stage, `Shop time: ${STAGE_NAMES[stage]}`, h, 'h', book.shopRateCents, 0);
+    l.costCents = times(book.labourCostPerHourCents, h);
+    lines.push(l);
+  }
+  return lines;
 }
 
 /**

@@ -4,6 +4,7 @@ import { cutList, drawerBox } from './cut-list';
 import { demoPriceBook, demoSettings } from './demo-data';
 import { designs, DESIGN_SLUGS, parseSpec } from './designs';
 import { toMm } from './units';
+import { at } from './_lib/at';
 
 const UPDATE = process.env.UPDATE_GOLDEN === '1';
 
@@ -53,7 +54,7 @@ describe('cutList', () => {
     const get = (name: string) => {
       const p = parts.filter((x) => x.name === name);
       expect(p.length, name).toBeGreaterThan(0);
-      return p[0];
+      return at(p, 0);
     };
     const near = (a: number, b: number) => expect(a).toBeCloseTo(b, 2);
     const side = get('side');
@@ -168,14 +169,12 @@ describe('parseSpec', () => {
     const spec = structuredClone(designs['base-cabinet'].defaults) as unknown as {
       bays: { compartments: { heightMm: number | null }[] }[];
     };
+    const bay = at(spec.bays, 0);
+    const compartment = at(bay.compartments, 0);
     spec.bays = [
-      spec.bays[0],
+      bay,
       {
-        compartments: [
-          { ...spec.bays[0].compartments[0] },
-          { ...spec.bays[0].compartments[0] },
-          { ...spec.bays[0].compartments[0], heightMm: 38 },
-        ],
+        compartments: [{ ...compartment }, { ...compartment }, { ...compartment, heightMm: 38 }],
       } as never,
     ];
     const r = parseSpec({ ...designs['base-cabinet'].defaults, widthMm: toMm(30), bays: spec.bays });

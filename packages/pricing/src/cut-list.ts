@@ -1,6 +1,7 @@
 import type { BuildSpec, Compartment } from './designs';
 import { dividerCount } from './designs';
 import { byId, type PriceBook, type SheetGood, type ShopSettings } from './price-book';
+import { at } from './_lib/at';
 import { toMm } from './units';
 
 export type Grain = 'fixed' | 'free';
@@ -138,13 +139,13 @@ export function drawerBox(
   const hc = rules.heightClearanceMm ?? toMm(1);
   const sc = rules.sideClearanceMm ?? SLIDE_SIDE_CLEARANCE_MM;
   const room = opening.depthMm - SLIDE_REAR_CLEARANCE_MM;
-  const fits = SLIDE_LENGTHS_IN.filter((l) => toMm(l) <= room + 1e-9);
-  if (!fits.length) {
+  // the longest slide that fits
+  const slideIn = SLIDE_LENGTHS_IN.filter((l) => toMm(l) <= room + 1e-9).at(-1);
+  if (slideIn === undefined) {
     throw new RangeError(
       `no drawer slide fits ${round(opening.depthMm)} mm of inside depth; the shortest (10 in) needs at least ${round(toMm(10) + SLIDE_REAR_CLEARANCE_MM)} mm`,
     );
   }
-  const slideIn = fits[fits.length - 1];
   const boxWidthMm = opening.widthMm - 2 * sc;
   const boxHeightMm = opening.heightMm - hc;
   if (boxWidthMm < toMm(4))
@@ -199,7 +200,8 @@ function share(sizes: (number | null)[], total: number): number[] {
   const open = sizes.filter((v) => v === null).length;
   const each = open ? (total - set) / open : 0;
   const out = sizes.map((v) => v ?? each);
-  if (!open && out.length) out[out.length - 1] += total - set; // the top compartment takes what is left
+  const top = out.length - 1;
+  if (!open && top >= 0) out[top] = at(out, top) + total - set; // the top compartment takes what is left
   return out;
 }
 
@@ -358,7 +360,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
         widthMm: geo.top.heightMm,
       });
     } else {
-      const cs = cases[0];
+      const cs = at(cases, 0);
       // a mitred face frame of solid trim over the case's front edges
       list.add({ ...common, id: 'trim-stile', name: 'trim, stile', quantity: 2, lengthMm: cs.heightMm - cs.toeKickMm });
       list.add({ ...common, id: 'trim-rail', name: 'trim, rail', quantity: 2, lengthMm: cs.widthMm });
@@ -414,7 +416,7 @@ function buildCase(
     throw new RangeError('the bays do not fit the case: make them narrower or the case wider');
 
   // sides: full height (notched for the toe kick), dadoes for bottom, top panel and the outer bays' dividers, and the back groove
-  const sideDados = [0, bays.length - 1].map((b) => horizontals + dividersPerBay[b] + (grooved ? 1 : 0));
+  const sideDados = [0, bays.length - 1].map((b) => horizontals + at(dividersPerBay, b) + (grooved ? 1 : 0));
   list.add({
     id: `${k}-side`,
     name: 'side',
@@ -575,7 +577,7 @@ function buildCase(
 
   let x = cs.xMm + t;
   bays.forEach((bay, b) => {
-    const bw = bayWidths[b];
+    const bw = at(bayWidths, b);
     const bk = `${k}-b${b + 1}`;
     const dividers = dividerCount(bay.compartments);
     const heights = share(
@@ -608,16 +610,12 @@ function buildCase(
     const right = b === bays.length - 1 ? cs.xMm + cs.widthMm - outerInset : x + bw + t / 2 - half;
     let y = insideBottom;
     bay.compartments.forEach((c: Compartment, j) => {
-      const h = heights[j];
+      const h = at(heights, j);
       const ck = `${bk}-k${j + 1}`;
-      const below =
-        j === 0 ? 'edge' : bay.compartments[j - 1].kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
-      const above =
-        j === bay.compartments.length - 1
-          ? 'edge'
-          : bay.compartments[j + 1].kind === 'drawer' && c.kind === 'drawer'
-            ? 'joint'
-            : 'divider';
+      const prev = bay.compartments[j - 1];
+      const next = bay.compartments[j + 1];
+      const below = !prev ? 'edge' : prev.kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
+      const above = !next ? 'edge' : next.kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
       const bottom =
         below === 'edge' ? cs.yMm + cs.toeKickMm + outerInset : below === 'divider' ? y - t / 2 + half : y + half;
       const top =

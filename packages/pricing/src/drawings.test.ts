@@ -3,6 +3,7 @@ import { demoPriceBook, demoSettings } from './demo-data';
 import { designs, DESIGN_SLUGS } from './designs';
 import { elevationDrawing, sheetLayoutDrawing, toSvg } from './drawings';
 import { nest, type NestPart } from './nesting';
+import { at } from './_lib/at';
 
 describe('elevationDrawing', () => {
   it.each(DESIGN_SLUGS)('draws the %s defaults to scale with its fronts and overall sizes', (slug) => {
@@ -35,7 +36,8 @@ describe('sheetLayoutDrawing', () => {
   ];
   const sheet = { lengthMm: 2438.4, widthMm: 1219.2 };
   const r = nest(parts, sheet, { kerfMm: 3.2, trimMm: 6, effort: 'quick' });
-  const d = sheetLayoutDrawing(r.sheets[0], parts, { title: 'Test sheet' });
+  const sheet0 = at(r.sheets, 0);
+  const d = sheetLayoutDrawing(sheet0, parts, { title: 'Test sheet' });
   it('labels each part with its name and size, and marks grain on grain-bound parts only', () => {
     const texts = d.shapes.flatMap((s) => (s.type === 'text' ? [s.text] : []));
     expect(texts.filter((t) => t === 'side')).toHaveLength(2);
@@ -44,8 +46,8 @@ describe('sheetLayoutDrawing', () => {
   });
   it('numbers every cut, hatches the offcuts and states the sheet size and yield', () => {
     const texts = d.shapes.flatMap((s) => (s.type === 'text' ? [s.text] : []));
-    for (const c of r.sheets[0].cuts) expect(texts).toContain(String(c.order));
-    expect(d.shapes.filter((s) => s.type === 'rect' && s.style === 'offcut')).toHaveLength(r.sheets[0].offcuts.length);
+    for (const c of sheet0.cuts) expect(texts).toContain(String(c.order));
+    expect(d.shapes.filter((s) => s.type === 'rect' && s.style === 'offcut')).toHaveLength(sheet0.offcuts.length);
     expect(texts[texts.length - 2]).toMatch(/^Test sheet: 96" x 48", yield \d+ %$/);
   });
 });

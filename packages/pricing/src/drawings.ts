@@ -348,10 +348,11 @@ export function toSvg(drawing: Drawing, options: { widthPx?: number } = {}): str
         const tick = sh.size * 0.5;
         const w = n(0.8 * scale);
         out.push(`<line x1="${n(ax)}" y1="${n(ay)}" x2="${n(bx)}" y2="${n(by)}" stroke="${INK}" stroke-width="${w}"/>`);
-        for (const [x, y] of [
+        const ends: [number, number][] = [
           [ax, ay],
           [bx, by],
-        ]) {
+        ];
+        for (const [x, y] of ends) {
           out.push(
             horizontal
               ? `<line x1="${n(x)}" y1="${n(y - tick)}" x2="${n(x)}" y2="${n(y + tick)}" stroke="${INK}" stroke-width="${w}"/>`

@@ -4,6 +4,7 @@ import { demoPriceBook, demoSettings } from './demo-data';
 import { designs, parseSpec } from './designs';
 import { SHOP_CAUTIONS, traveller } from './traveller';
 import { toSvg } from './drawings';
+import { at } from './_lib/at';
 
 const spec = (slug: keyof typeof designs) => {
   const r = parseSpec({ ...designs[slug].defaults, design: slug });
@@ -24,11 +25,12 @@ describe('traveller', () => {
       ['Base cabinet', 2],
       ['Bookcase', 1],
     ]);
-    const cabinetSides = e.pieces[0].parts.filter((p) => /side/i.test(p.name));
+    const cabinetSides = at(e.pieces, 0).parts.filter((p) => /side/i.test(p.name));
     expect(cabinetSides.length).toBeGreaterThan(0);
-    const row = t.pieces[0].parts.find((p) => p.name === cabinetSides[0].name)!;
-    expect(row.quantity).toBe(cabinetSides[0].quantity * 2);
-    expect(row.materialName).toBe(demoPriceBook.sheetGoods.find((s) => s.id === cabinetSides[0].materialId)!.name);
+    const side = at(cabinetSides, 0);
+    const row = at(t.pieces, 0).parts.find((p) => p.name === side.name)!;
+    expect(row.quantity).toBe(side.quantity * 2);
+    expect(row.materialName).toBe(demoPriceBook.sheetGoods.find((s) => s.id === side.materialId)!.name);
     // the sheet parts on the cut list are exactly the units the layouts place
     const listed = t.pieces
       .flatMap((p) => p.parts)
@@ -40,15 +42,16 @@ describe('traveller', () => {
 
   it('draws every sheet of every material, numbered, with its cut order', () => {
     expect(t.materials.map((m) => m.sheets.length)).toEqual(e.layouts.map((l) => l.sheetCount));
-    const first = t.materials[0].sheets[0];
+    const material = at(t.materials, 0);
+    const first = at(material.sheets, 0);
     expect(first.number).toBe(1);
     expect(first.cuts.length).toBeGreaterThan(0);
-    expect(first.drawing.title).toBe(`${t.materials[0].materialName}: sheet 1 of ${t.materials[0].sheetCount}`);
+    expect(first.drawing.title).toBe(`${material.materialName}: sheet 1 of ${material.sheetCount}`);
     expect(toSvg(first.drawing)).toMatch(/^<svg[\s\S]*<\/svg>$/);
   });
 
   it('sums the hardware into one pick list for the job', () => {
-    const hinge = e.pieces[0].hardware.find((h) => h.kind === 'hinge');
+    const hinge = at(e.pieces, 0).hardware.find((h) => h.kind === 'hinge');
     expect(hinge).toBeDefined();
     const line = t.pickList.find((p) => p.name === hinge!.name)!;
     const expected = e.pieces.reduce(

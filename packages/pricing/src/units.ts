@@ -1,3 +1,5 @@
+import { at } from './_lib/at';
+
 /** Millimetres in one inch: the international inch (1959) is exactly 25.4 mm. */
 export const MM_PER_INCH = 25.4;
 
@@ -78,7 +80,7 @@ export function parseLength(text: string, defaultUnit: LengthUnit): number {
   const fi = FEET_INCHES.exec(t);
   let mm: number;
   if (fi) {
-    mm = toMm(amount(fi[1], input) * 12 + (fi[2] ? amount(fi[2], input) : 0));
+    mm = toMm(amount(at(fi, 1), input) * 12 + (fi[2] ? amount(fi[2], input) : 0));
   } else {
     const m = WITH_UNIT.exec(t);
     if (!m)
@@ -86,7 +88,7 @@ export function parseLength(text: string, defaultUnit: LengthUnit): number {
         input,
         'write a number with an optional unit, e.g. 23 3/4", 1\' 11 3/4", 603 mm or 60.3 cm',
       );
-    const value = amount(m[1], input);
+    const value = amount(at(m, 1), input);
     const unit = (m[2] ?? '').toLowerCase();
     if (unit === '') mm = defaultUnit === 'in' ? toMm(value) : value;
     else if (unit === '"' || unit === "''" || unit.startsWith('in')) mm = toMm(value);

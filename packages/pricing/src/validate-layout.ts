@@ -1,3 +1,4 @@
+import { at } from './_lib/at';
 import type { NestOptions, NestPart, NestResult, Placement, StockSheet } from './nesting';
 
 export interface LayoutValidation {
@@ -38,7 +39,7 @@ export function validateLayout(
         continue;
       }
       count.set(p.partId, (count.get(p.partId) ?? 0) + 1);
-      const expected = p.rotated ? [part.widthMm, part.lengthMm] : [part.lengthMm, part.widthMm];
+      const expected: [number, number] = p.rotated ? [part.widthMm, part.lengthMm] : [part.lengthMm, part.widthMm];
       if (Math.abs(p.lengthMm - expected[0]) > EPS || Math.abs(p.widthMm - expected[1]) > EPS) {
         errors.push(
           `${label}: part "${p.partId}" is placed as ${p.lengthMm} x ${p.widthMm} mm, not ${expected[0]} x ${expected[1]} mm`,
@@ -57,10 +58,8 @@ export function validateLayout(
       }
     }
     const ps = s.placements;
-    for (let i = 0; i < ps.length; i++) {
-      for (let j = i + 1; j < ps.length; j++) {
-        const a = ps[i];
-        const b = ps[j];
+    for (const [i, a] of ps.entries()) {
+      for (const b of ps.slice(i + 1)) {
         const gapX = Math.max(b.xMm - (a.xMm + a.lengthMm), a.xMm - (b.xMm + b.lengthMm));
         const gapY = Math.max(b.yMm - (a.yMm + a.widthMm), a.yMm - (b.yMm + b.widthMm));
         const gap = Math.max(gapX, gapY);
@@ -95,8 +94,8 @@ function separable(rects: readonly Placement[], kerf: number): boolean {
     const sorted = [...rects].sort((a, b) => start(a, axis) - start(b, axis));
     let reach = -Infinity;
     for (let i = 0; i < sorted.length - 1; i++) {
-      reach = Math.max(reach, end(sorted[i], axis));
-      if (start(sorted[i + 1], axis) >= reach + kerf - EPS) {
+      reach = Math.max(reach, end(at(sorted, i), axis));
+      if (start(at(sorted, i + 1), axis) >= reach + kerf - EPS) {
         return separable(sorted.slice(0, i + 1), kerf) && separable(sorted.slice(i + 1), kerf);
       }
     }

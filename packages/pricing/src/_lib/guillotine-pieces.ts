@@ -35,10 +35,11 @@ export function piecesByKind(
   pieces: [number, number][],
   canRotate: boolean,
 ): { l: number; w: number; canRotate: boolean; count: number }[] {
-  const m = new Map<string, number>();
-  for (const [l, w] of pieces) m.set(`${l},${w}`, (m.get(`${l},${w}`) ?? 0) + 1);
-  return [...m].map(([k, count]) => {
-    const [l, w] = k.split(',').map(Number);
-    return { l, w, canRotate, count };
-  });
+  const m = new Map<string, { l: number; w: number; canRotate: boolean; count: number }>();
+  for (const [l, w] of pieces) {
+    const kind = m.get(`${l},${w}`);
+    if (kind) kind.count++;
+    else m.set(`${l},${w}`, { l, w, canRotate, count: 1 });
+  }
+  return [...m.values()];
 }

@@ -163,8 +163,10 @@ export function checkInterior(
 /** Fixed dividers between compartments: one wherever a drawer does not sit directly on another drawer. */
 export function dividerCount(compartments: readonly Compartment[]): number {
   let n = 0;
-  for (let i = 1; i < compartments.length; i++) {
-    if (!(compartments[i].kind === 'drawer' && compartments[i - 1].kind === 'drawer')) n++;
+  let below: Compartment | undefined;
+  for (const c of compartments) {
+    if (below && !(c.kind === 'drawer' && below.kind === 'drawer')) n++;
+    below = c;
   }
   return n;
 }

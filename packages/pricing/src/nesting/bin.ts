@@ -6,6 +6,7 @@
  * best part).
  */
 import { EPS, type Bin, type Config, type Ctx, type FitRule, type Free, type Item, type SplitRule } from './types';
+import { at } from '../_lib/at';
 import { NESTING_TUNING } from './tuning';
 
 const FITS: FitRule[] = ['area', 'short', 'long', 'bottom'];
@@ -65,7 +66,7 @@ function insert(bin: Bin, item: Item, cfg: Config, ctx: Ctx): boolean {
   let s1 = Infinity;
   const free = bin.free;
   for (let i = 0; i < free.length; i++) {
-    const f = free[i];
+    const f = free[i]!; // i < free.length
     if (item.l <= f.l + EPS && item.w <= f.w + EPS) {
       score(cfg.fit, f, item.l, item.w);
       if (score0 < s0 - EPS || (score0 < s0 + EPS && score1 < s1)) {
@@ -93,7 +94,7 @@ function insert(bin: Bin, item: Item, cfg: Config, ctx: Ctx): boolean {
 /** Puts `item` at the corner of free rectangle `index` and splits what is left by one guillotine rule. */
 function place(bin: Bin, index: number, item: Item, rotated: boolean, split: SplitRule, ctx: Ctx): void {
   const free = bin.free;
-  const f = free[index];
+  const f = at(free, index);
   const l = rotated ? item.w : item.l;
   const w = rotated ? item.l : item.w;
   bin.placed.push({ item, x: f.x, y: f.y, l, w, rotated });
@@ -168,27 +169,29 @@ export function fillBin(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest:
  */
 function fillBinBySpace(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest: Item[] } {
   const bin = newBin(ctx);
-  const kinds = poolBySize(items).sort((a, b) => b[0].area - a[0].area);
+  const kinds = poolBySize(items).sort((a, b) => at(b, 0).area - at(a, 0).area);
   while (bin.free.length) {
     let fi = 0;
+    let f = at(bin.free, 0);
     for (let i = 1; i < bin.free.length; i++) {
-      const a = bin.free[i];
-      const b = bin.free[fi];
+      const a = bin.free[i]!; // i < bin.free.length
+      const b = f;
       const before =
         cfg.fit === 'area'
           ? a.l * a.w < b.l * b.w - EPS || (Math.abs(a.l * a.w - b.l * b.w) < EPS && a.y < b.y)
           : a.y < b.y - EPS || (Math.abs(a.y - b.y) < EPS && a.x < b.x);
-      if (before) fi = i;
+      if (before) {
+        fi = i;
+        f = a;
+      }
     }
-    const f = bin.free[fi];
     let pick = -1;
     let rot = false;
     let bestArea = -1;
     let bestSide = Infinity;
     for (let k = 0; k < kinds.length; k++) {
-      const pool = kinds[k];
-      if (!pool.length) continue;
-      const it = pool[0];
+      const it = kinds[k]![0]; // k < kinds.length
+      if (!it) continue;
       if (it.area < bestArea - EPS) continue;
       if (it.l <= f.l + EPS && it.w <= f.w + EPS) {
         const side = Math.min(f.l - it.l, f.w - it.w);
@@ -217,15 +220,17 @@ function fillBinBySpace(items: Item[], cfg: Config, ctx: Ctx): { bin: Bin; rest:
       // now and then take a smaller part that also fits, to leave room differently
       const alt: [number, boolean][] = [];
       for (let k = 0; k < kinds.length; k++) {
-        const it = kinds[k][0];
+        const it = kinds[k]![0]; // k < kinds.length
         if (!it || k === pick) continue;
         if (it.l <= f.l + EPS && it.w <= f.w + EPS) alt.push([k, false]);
         else if (it.canRotate && it.w <= f.l + EPS && it.l <= f.w + EPS) alt.push([k, true]);
       }
       if (alt.length)
-        [pick, rot] = alt[Math.floor(cfg.noise() * Math.min(alt.length, NESTING_TUNING.spaceNoiseChoices))];
+        [pick, rot] = at(alt, Math.floor(cfg.noise() * Math.min(alt.length, NESTING_TUNING.spaceNoiseChoices)));
     }
-    place(bin, fi, kinds[pick].pop()!, rot, cfg.split, ctx);
+    const it = at(kinds, pick).pop();
+    if (!it) throw new Error('internal: the part picked has none left');
+    place(bin, fi, it, rot, cfg.split, ctx);
   }
   const rest: Item[] = [];
   for (const pool of kinds) rest.push(...pool);

@@ -3,6 +3,7 @@
  * recursive through-cuts, rips (along the length) first, then crosscuts of
  * each strip, and so on; the pieces no part uses are the offcuts.
  */
+import { at } from '../_lib/at';
 import {
   EPS,
   type Bin,
@@ -37,16 +38,16 @@ function planCuts(placed: Placed[], ctx: Ctx): { cuts: Omit<Cut, 'order'>[]; off
         if (r.l > EPS && r.w > EPS) offcuts.push({ xMm: r.x, yMm: r.y, lengthMm: r.l, widthMm: r.w });
         continue;
       }
-      if (r.parts.length === 1) {
-        const p = r.parts[0];
-        if (
-          Math.abs(p.x - r.x) < EPS &&
-          Math.abs(p.y - r.y) < EPS &&
-          Math.abs(p.l - r.l) < EPS &&
-          Math.abs(p.w - r.w) < EPS
-        )
-          continue;
-      }
+      // a region that is exactly its one part needs no more cuts
+      const p = r.parts.length === 1 ? r.parts[0] : undefined;
+      if (
+        p &&
+        Math.abs(p.x - r.x) < EPS &&
+        Math.abs(p.y - r.y) < EPS &&
+        Math.abs(p.l - r.l) < EPS &&
+        Math.abs(p.w - r.w) < EPS
+      )
+        continue;
       let pieces = splitRegion(r, r.dir, k, cuts);
       let dir = r.dir;
       if (!pieces) {
@@ -78,11 +79,13 @@ function splitRegion(
   const positions: number[] = [];
   // a leading gap is cut off so that the kerf ends where the first part starts
   // (a gap narrower than the kerf is trimmed with the blade partly past the edge)
-  if (spans[0][0] > lo + EPS) positions.push(spans[0][0] - k);
+  const [firstStart] = at(spans, 0); // the region holds parts
+  if (firstStart > lo + EPS) positions.push(firstStart - k);
   let reach = -Infinity;
   for (let i = 0; i < spans.length; i++) {
-    reach = Math.max(reach, spans[i][1]);
-    const nextStart = i + 1 < spans.length ? spans[i + 1][0] : Infinity;
+    const [, end] = spans[i]!; // i < spans.length
+    reach = Math.max(reach, end);
+    const nextStart = spans[i + 1]?.[0] ?? Infinity;
     // a cut starting at `reach` takes k; it must stop short of the next part and of the region's edge
     if (nextStart >= reach + k - EPS && reach < hi - EPS && reach > lo + EPS) positions.push(reach);
   }
@@ -135,7 +138,7 @@ export function sheetLayouts(
       lengthMm: sheet.lengthMm,
       widthMm: sheet.widthMm,
       placements: placed.map((p) => ({
-        partId: parts[p.item.type].id,
+        partId: at(parts, p.item.type).id,
         xMm: p.x,
         yMm: p.y,
         lengthMm: p.l,

@@ -103,4 +103,11 @@ describe('packExact', () => {
     expect(r.status).toBe('gave-up');
     expect(r.work).toBeLessThan(300 + 10_000);
   });
+
+  it('gives up, rather than calling it impossible, when it is allowed no work at all', () => {
+    // the nester reads 'none' as a proof that the lower bound cannot be met, so it must never mean "not tried"
+    const types: ExactType[] = [{ l: 50, w: 50, canRotate: false, count: 4 }];
+    const r = packExact(types, { x0: 0, y0: 0, L: 100, W: 100, sheets: 1, kerf: 0, workLimit: 0 });
+    expect(r).toEqual({ status: 'gave-up', placements: [], work: 0 });
+  });
 });

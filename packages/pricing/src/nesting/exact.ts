@@ -95,14 +95,40 @@ interface Rect {
   hb: number;
 }
 
+/** One kind of part as the search tracks it. */
+interface Kind {
+  /** index into the types */
+  t: number;
+  l: number;
+  w: number;
+  canRotate: boolean;
+  /** units not yet placed */
+  count: number;
+  area: number;
+  /** hash keys for this kind's count in a state */
+  ka: number;
+  kb: number;
+  /** place in the order parts are tried (falling area, shaken on restarts) */
+  rank: number;
+}
+
 /** Searches for a guillotine layout of every unit of `types` on `sheets` identical sheets. */
 export function packExact(types: readonly ExactType[], o: ExactOptions): ExactResult {
   const T = NESTING_TUNING.exact;
   const n = types.length;
-  const counts = types.map((t) => t.count);
-  const area = types.map((t) => t.l * t.w);
+  const kinds: Kind[] = types.map((t, i) => ({
+    t: i,
+    l: t.l,
+    w: t.w,
+    canRotate: t.canRotate,
+    count: t.count,
+    area: t.l * t.w,
+    ka: 0,
+    kb: 0,
+    rank: i,
+  }));
   let remaining = 0;
-  for (let i = 0; i < n; i++) remaining += area[i] * counts[i];
+  for (const k of kinds) remaining += k.area * k.count;
   const placements: ExactPlacement[] = [];
   if (remaining > o.sheets * o.L * o.W + EPS) return { status: 'none', placements, work: 0 };
   const kerf = o.kerf;
@@ -111,24 +137,24 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
     [o.L, o.W, kerf, ...types.flatMap((t) => [t.l, t.w])].every((v) => Number.isInteger(v)) &&
     Math.max(o.L, o.W) + kerf <= T.maxBoundSize;
   const rand = seededRandom(o.seed ?? 1);
-  // per-type hash keys for the counts part of a state
-  const ka = types.map(() => (rand() * 2 ** 32) | 1);
-  const kb = types.map(() => (rand() * 2 ** 32) | 1);
+  // per-kind hash keys for the counts part of a state (all the first keys, then all the second)
+  for (const k of kinds) k.ka = (rand() * 2 ** 32) | 1;
+  for (const k of kinds) k.kb = (rand() * 2 ** 32) | 1;
   let hCountA = 0;
   let hCountB = 0;
-  for (let t = 0; t < n; t++) {
-    hCountA = (hCountA + Math.imul(ka[t], counts[t])) | 0;
-    hCountB = (hCountB + Math.imul(kb[t], counts[t])) | 0;
+  for (const k of kinds) {
+    hCountA = (hCountA + Math.imul(k.ka, k.count)) | 0;
+    hCountB = (hCountB + Math.imul(k.kb, k.count)) | 0;
   }
 
   // parts in order of falling area, shaken on restarts; `flip` swaps which cut is tried first
-  let rank: number[] = [];
-  const setOrder = (weights: number[]) => {
-    const order = [...types.keys()].sort((a, b) => weights[b] - weights[a] || types[b].l - types[a].l);
-    rank = new Array<number>(n);
-    order.forEach((t, i) => (rank[t] = i));
+  const setOrder = (weight: (k: Kind) => number) => {
+    kinds
+      .map((k) => ({ k, weight: weight(k) }))
+      .sort((a, b) => b.weight - a.weight || b.k.l - a.k.l)
+      .forEach(({ k }, i) => (k.rank = i));
   };
-  setOrder(area);
+  setOrder((k) => k.area);
   let flip = false;
 
   const stepsPerNode = T.stepsPerNode;
@@ -139,9 +165,9 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
   let runLimit = 0;
   let gaveUp = false;
 
-  const fitsAs = (t: number, r: Rect, rot: boolean) =>
-    rot ? types[t].w <= r.l + EPS && types[t].l <= r.w + EPS : types[t].l <= r.l + EPS && types[t].w <= r.w + EPS;
-  const fits = (t: number, r: Rect) => fitsAs(t, r, false) || (types[t].canRotate && fitsAs(t, r, true));
+  const fitsAs = (k: Kind, r: Rect, rot: boolean) =>
+    rot ? k.w <= r.l + EPS && k.l <= r.w + EPS : k.l <= r.l + EPS && k.w <= r.w + EPS;
+  const fits = (k: Kind, r: Rect) => fitsAs(k, r, false) || (k.canRotate && fitsAs(k, r, true));
 
   const words = integral ? Math.ceil((Math.max(o.L, o.W) + kerf + 1) / 32) : 0;
   const bits = new Uint32Array(words);
@@ -151,17 +177,17 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
     const cap = Math.round((along === 'l' ? r.l : r.w) + kerf);
     bits.fill(0);
     bits[0] = 1;
-    for (let t = 0; t < n; t++) {
-      if (!counts[t] || !fits(t, r)) continue;
+    for (const k of kinds) {
+      if (!k.count || !fits(k, r)) continue;
       // a turnable part may lie either way: the shorter side is the looser bound
-      const own = along === 'l' ? types[t].l : types[t].w;
-      const other = along === 'l' ? types[t].w : types[t].l;
-      const size = (types[t].canRotate && fitsAs(t, r, true) ? Math.min(own, other) : own) + kerf;
-      const reps = Math.min(counts[t], Math.floor(cap / size));
-      for (let k = 0; k < reps; k++) shiftOr(bits, tmp, size, cap);
+      const own = along === 'l' ? k.l : k.w;
+      const other = along === 'l' ? k.w : k.l;
+      const size = (k.canRotate && fitsAs(k, r, true) ? Math.min(own, other) : own) + kerf;
+      const reps = Math.min(k.count, Math.floor(cap / size));
+      for (let i = 0; i < reps; i++) shiftOr(bits, tmp, size, cap);
       work += n + reps * words;
     }
-    for (let v = cap; v > 0; v--) if (bits[v >>> 5] & (1 << (v & 31))) return v;
+    for (let v = cap; v > 0; v--) if (bitAt(bits, v)) return v;
     return 0;
   };
 
@@ -185,8 +211,8 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
     let ha = hCountA;
     let hb = hCountB;
     for (const r of free) {
-      for (let t = 0; t < n; t++) {
-        if (counts[t] && fits(t, r)) {
+      for (const k of kinds) {
+        if (k.count && fits(k, r)) {
           live.push(r);
           freeArea += r.l * r.w;
           ha = (ha + r.ha) | 0;
@@ -197,11 +223,11 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
     }
     if (freeArea < remaining - EPS) return false;
     // every part left must fit somewhere
-    for (let t = 0; t < n; t++) {
-      if (!counts[t]) continue;
+    for (const k of kinds) {
+      if (!k.count) continue;
       let ok = false;
       for (const r of live) {
-        if (fits(t, r)) {
+        if (fits(k, r)) {
           ok = true;
           break;
         }
@@ -213,41 +239,47 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
     // what each rectangle can hold at most; fill the smallest first
     let holdable = 0;
     let pick = -1;
-    for (let i = 0; i < live.length; i++) {
-      const r = live[i];
+    let r: Rect | undefined;
+    let i = -1;
+    for (const x of live) {
+      i++;
       let sum = 0;
-      for (let t = 0; t < n; t++) if (counts[t] && fits(t, r)) sum += area[t] * counts[t];
-      let cap = Math.min(r.l * r.w, sum);
-      if (integral) cap = Math.min(cap, longestRun(r, 'l') * r.w, longestRun(r, 'w') * r.l);
+      for (const k of kinds) if (k.count && fits(k, x)) sum += k.area * k.count;
+      let cap = Math.min(x.l * x.w, sum);
+      if (integral) cap = Math.min(cap, longestRun(x, 'l') * x.w, longestRun(x, 'w') * x.l);
       holdable += cap;
-      if (pick < 0 || r.l * r.w < live[pick].l * live[pick].w - EPS) pick = i;
+      if (!r || x.l * x.w < r.l * r.w - EPS) {
+        pick = i;
+        r = x;
+      }
     }
+    // no live rectangle left with parts to place: the area check above has already failed
+    if (!r) return false;
     if (holdable < remaining - EPS) {
       remember(key);
       return false;
     }
-    const r = live[pick];
     const rest = live.filter((_, i) => i !== pick);
     // parts that match a side of the rectangle first, then by size
-    const cands: { t: number; rot: boolean; exact: number; order: number }[] = [];
-    for (let t = 0; t < n; t++) {
-      if (!counts[t]) continue;
-      for (const rot of types[t].canRotate && types[t].l !== types[t].w ? [false, true] : [false]) {
-        if (!fitsAs(t, r, rot)) continue;
-        const pl = rot ? types[t].w : types[t].l;
-        const pw = rot ? types[t].l : types[t].w;
+    const cands: { k: Kind; rot: boolean; exact: number; order: number }[] = [];
+    for (const k of kinds) {
+      if (!k.count) continue;
+      for (const rot of k.canRotate && k.l !== k.w ? [false, true] : [false]) {
+        if (!fitsAs(k, r, rot)) continue;
+        const pl = rot ? k.w : k.l;
+        const pw = rot ? k.l : k.w;
         const exact = (Math.abs(r.l - pl) < EPS ? 1 : 0) + (Math.abs(r.w - pw) < EPS ? 1 : 0);
-        cands.push({ t, rot, exact, order: rank[t] + (run > 0 ? 0.5 * n * rand() : 0) });
+        cands.push({ k, rot, exact, order: k.rank + (run > 0 ? 0.5 * n * rand() : 0) });
       }
     }
     cands.sort((a, b) => b.exact - a.exact || a.order - b.order);
     // a part the rectangle's exact size goes there: in any layout that puts it
     // elsewhere, swapping it with what fills this rectangle gives another layout
-    const forced = cands.length > 0 && cands[0].exact === 2;
+    const forced = cands[0]?.exact === 2;
     if (forced) cands.length = 1;
-    for (const { t, rot } of cands) {
-      const pl = rot ? types[t].w : types[t].l;
-      const pw = rot ? types[t].l : types[t].w;
+    for (const { k, rot } of cands) {
+      const pl = rot ? k.w : k.l;
+      const pw = rot ? k.l : k.w;
       const dl = r.l - pl - kerf;
       const dw = r.w - pw - kerf;
       const endOk = r.seq !== 'l' || pl <= r.bound + EPS;
@@ -262,20 +294,20 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
         splits.push(dw > EPS ? endOk : !sideOk);
       }
       if (!splits.length) continue;
-      counts[t]--;
-      remaining -= area[t];
-      hCountA = (hCountA - ka[t]) | 0;
-      hCountB = (hCountB - kb[t]) | 0;
-      placements.push({ type: t, sheet: r.sheet, x: r.x, y: r.y, l: pl, w: pw, rotated: rot });
+      k.count--;
+      remaining -= k.area;
+      hCountA = (hCountA - k.ka) | 0;
+      hCountB = (hCountB - k.kb) | 0;
+      placements.push({ type: k.t, sheet: r.sheet, x: r.x, y: r.y, l: pl, w: pw, rotated: rot });
       for (const endFirst of splits) {
         if (dfs([...rest, ...pieces(r, pl, pw, dl, dw, endFirst)])) return true;
         if (gaveUp) break;
       }
       placements.pop();
-      remaining += area[t];
-      counts[t]++;
-      hCountA = (hCountA + ka[t]) | 0;
-      hCountB = (hCountB + kb[t]) | 0;
+      remaining += k.area;
+      k.count++;
+      hCountA = (hCountA + k.ka) | 0;
+      hCountB = (hCountB + k.kb) | 0;
       if (gaveUp) return false;
     }
     // or leave the rectangle as waste, if the area left allows
@@ -306,6 +338,8 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
 
   const start = () => Array.from({ length: o.sheets }, (_, s) => rect(s, o.x0, o.y0, o.L, o.W, 0, 0));
   let found = false;
+  // no run at all (no work allowed) proves nothing
+  gaveUp = o.workLimit <= 0;
   let budget = T.firstRunStepsPerKind * Math.max(T.minKinds, n);
   for (run = 0; !found && work < o.workLimit; run++) {
     gaveUp = false;
@@ -313,7 +347,7 @@ export function packExact(types: readonly ExactType[], o: ExactOptions): ExactRe
     found = dfs(start());
     if (!gaveUp) break;
     budget = Math.ceil(budget * T.budgetGrowth);
-    setOrder(area.map((a) => a * (1 + T.restartShake * (rand() * 2 - 1))));
+    setOrder((k) => k.area * (1 + T.restartShake * (rand() * 2 - 1)));
     flip = rand() < 0.5;
   }
   return { status: found ? 'found' : gaveUp ? 'gave-up' : 'none', placements: found ? placements : [], work };
@@ -327,6 +361,14 @@ function mix(a: number, b: number, c: number, seed: number): number {
   return (h ^ (h >>> 13)) | 0;
 }
 
+// The bitsets below read 0 past their end (`?? 0`): every index is in range by the loop bounds, and 0 is
+// what a bit past the end means.
+
+/** whether bit v of the set is on */
+function bitAt(bits: Uint32Array, v: number): boolean {
+  return ((bits[v >>> 5] ?? 0) & (1 << (v & 31))) !== 0;
+}
+
 /** bits |= bits << s, keeping bits 0..cap */
 function shiftOr(bits: Uint32Array, tmp: Uint32Array, s: number, cap: number): void {
   const words = bits.length;
@@ -334,14 +376,14 @@ function shiftOr(bits: Uint32Array, tmp: Uint32Array, s: number, cap: number): v
   const bs = s & 31;
   tmp.fill(0);
   for (let i = words - 1; i >= ws; i--) {
-    let v = bits[i - ws] << bs;
-    if (bs && i - ws - 1 >= 0) v |= bits[i - ws - 1] >>> (32 - bs);
+    let v = (bits[i - ws] ?? 0) << bs;
+    if (bs && i - ws - 1 >= 0) v |= (bits[i - ws - 1] ?? 0) >>> (32 - bs);
     tmp[i] = v;
   }
-  for (let i = 0; i < words; i++) bits[i] |= tmp[i];
+  for (let i = 0; i < words; i++) bits[i] = (bits[i] ?? 0) | (tmp[i] ?? 0);
   const top = cap >>> 5;
   if (top < words) {
-    bits[top] &= (cap & 31) === 31 ? 0xffffffff : (1 << ((cap & 31) + 1)) - 1;
+    bits[top] = (bits[top] ?? 0) & ((cap & 31) === 31 ? 0xffffffff : (1 << ((cap & 31) + 1)) - 1);
     for (let i = top + 1; i < words; i++) bits[i] = 0;
   }
 }

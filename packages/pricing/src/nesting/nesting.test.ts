@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { nest, nestByMaterial, nestLowerBound, type NestPart, type NestResult } from './index';
 import { validateLayout } from '../validate-layout';
 import { toMm } from '../units';
+import { at } from '../_lib/at';
 
 // a 4 x 8 ft sheet is 2438.4 x 1219.2 mm
 const SHEET = { lengthMm: toMm(96), widthMm: toMm(48) };
@@ -132,7 +133,7 @@ describe('nest', () => {
     expect(validateLayout(r, parts, SHEET, opts)).toEqual({ ok: true, errors: [] });
     expect(r.sheetCount).toBe(1);
     expect(r.lowerBound).toBe(1);
-    const s = r.sheets[0];
+    const s = at(r.sheets, 0);
     expect(s.placements).toHaveLength(5);
     expect(s.cuts[0]).toMatchObject({ order: 1, stage: 0 }); // edge trims first
     expect(
@@ -144,33 +145,32 @@ describe('nest', () => {
   });
 
   it('does not fit two 1219.2 mm parts end to end on a 2438.4 mm sheet with a 3.2 mm kerf', () => {
-    const parts: NestPart[] = [{ id: 'p', lengthMm: 1219.2, widthMm: 1219.2, quantity: 2, canRotate: false }];
+    const part: NestPart = { id: 'p', lengthMm: 1219.2, widthMm: 1219.2, quantity: 2, canRotate: false };
+    const parts = [part];
     const r = nest(parts, SHEET, OPTS);
     expect(r.sheetCount).toBe(2);
     expect(validateLayout(r, parts, SHEET, OPTS).ok).toBe(true);
-    const fit = nest([{ ...parts[0], lengthMm: 1217.6 }], SHEET, OPTS);
+    const fit = nest([{ ...part, lengthMm: 1217.6 }], SHEET, OPTS);
     expect(fit.sheetCount).toBe(1);
   });
 
   it('keeps parts inside the edge trim', () => {
-    const parts: NestPart[] = [{ id: 'p', lengthMm: 2438.4 - 12, widthMm: 1219.2 - 12, quantity: 1, canRotate: false }];
-    const r = nest(parts, SHEET, { ...OPTS, trimMm: 6 });
-    expect(r.sheets[0].placements[0]).toMatchObject({ xMm: 6, yMm: 6 });
-    expect(nest([{ ...parts[0], lengthMm: 2438.4 - 11 }], SHEET, { ...OPTS, trimMm: 6 }).unplaced).toHaveLength(1);
+    const part: NestPart = { id: 'p', lengthMm: 2438.4 - 12, widthMm: 1219.2 - 12, quantity: 1, canRotate: false };
+    const r = nest([part], SHEET, { ...OPTS, trimMm: 6 });
+    expect(r.sheets[0]?.placements[0]).toMatchObject({ xMm: 6, yMm: 6 });
+    expect(nest([{ ...part, lengthMm: 2438.4 - 11 }], SHEET, { ...OPTS, trimMm: 6 }).unplaced).toHaveLength(1);
   });
 
   it('sends a grain-bound part that fits only rotated to unplaced, with a reason', () => {
-    const parts: NestPart[] = [
-      { id: 'tall', lengthMm: 1000, widthMm: 1500, quantity: 2, canRotate: false },
-      { id: 'ok', lengthMm: 500, widthMm: 300, quantity: 1, canRotate: false },
-    ];
+    const tall: NestPart = { id: 'tall', lengthMm: 1000, widthMm: 1500, quantity: 2, canRotate: false };
+    const parts: NestPart[] = [tall, { id: 'ok', lengthMm: 500, widthMm: 300, quantity: 1, canRotate: false }];
     const r = nest(parts, SHEET, OPTS);
     expect(r.unplaced).toEqual([
       { partId: 'tall', quantity: 2, reason: expect.stringMatching(/fits only turned across the grain/) },
     ]);
     expect(r.sheetCount).toBe(1);
     expect(validateLayout(r, parts, SHEET, OPTS).ok).toBe(true);
-    expect(nest([{ ...parts[0], canRotate: true }], SHEET, OPTS).unplaced).toEqual([]);
+    expect(nest([{ ...tall, canRotate: true }], SHEET, OPTS).unplaced).toEqual([]);
   });
 
   it('gives the same layout for the same seed', () => {
@@ -191,18 +191,18 @@ describe('nest', () => {
     const sizes =
       '1,1;1,2;1,3;1,5;1,9;1,9;2,2;2,2;2,2;2,8;3,1;3,4;3,8;3,9;3,10;4,1;4,1;4,2;4,3;4,4;4,7;4,7;6,3;6,5;6,8;6,9;7,1;7,1;7,2;8,3;8,4;9,2;9,5;9,5;9,5;9,7;9,8;10,2;10,4;10,6';
     const parts: NestPart[] = sizes.split(';').map((s, i) => {
-      const [l, w] = s.split(',').map(Number);
-      return { id: `p${i}`, lengthMm: l, widthMm: w, quantity: 1, canRotate: false };
+      const size = s.split(',').map(Number);
+      return { id: `p${i}`, lengthMm: at(size, 0), widthMm: at(size, 1), quantity: 1, canRotate: false };
     });
     const sheet = { lengthMm: 30, widthMm: 30 };
     const opts = { kerfMm: 0, trimMm: 0, effort: 'thorough' as const };
     const r = nest(parts, sheet, opts);
     expect(r.lowerBound).toBe(1);
     expect(r.sheetCount).toBe(1);
-    expect(r.sheets[0].yieldRatio).toBeCloseTo(895 / 900, 6);
+    expect(r.sheets[0]?.yieldRatio).toBeCloseTo(895 / 900, 6);
     expect(validateLayout(r, parts, sheet, opts)).toEqual({ ok: true, errors: [] });
     // the builder still gets a cut order for it
-    expect(r.sheets[0].cuts.length).toBeGreaterThan(30);
+    expect(r.sheets[0]?.cuts.length).toBeGreaterThan(30);
   });
   it('does not mutate its inputs', () => {
     const parts: NestPart[] = [{ id: 'p', lengthMm: 500, widthMm: 400, quantity: 3, canRotate: true }];
@@ -275,9 +275,9 @@ describe('nestByMaterial', () => {
       { id: 'c', lengthMm: 100, widthMm: 100, quantity: 1, canRotate: true, materialId: 'unknown' },
     ];
     const r = nestByMaterial(parts, { ply: SHEET, mdf: SHEET }, OPTS);
-    expect(r.ply.sheets[0].placements.map((p) => p.partId)).toEqual(['a', 'a']);
-    expect(r.mdf.sheetCount).toBe(1);
-    expect(r.unknown.unplaced[0].reason).toMatch(/no stock sheet/);
+    expect(r.ply?.sheets[0]?.placements.map((p) => p.partId)).toEqual(['a', 'a']);
+    expect(r.mdf?.sheetCount).toBe(1);
+    expect(r.unknown?.unplaced[0]?.reason).toMatch(/no stock sheet/);
   });
 });
 

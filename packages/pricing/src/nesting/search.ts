@@ -9,6 +9,7 @@
 import { seededRandom } from '../_lib/random';
 import { ALL_CONFIGS, fillBin, poolBySize, QUICK_CONFIGS, SPACE_CONFIGS } from './bin';
 import { packExact } from './exact';
+import { at } from '../_lib/at';
 import { NESTING_TUNING } from './tuning';
 import { EPS, type Bin, type Config, type Ctx, type Item, type NestEffort, type Solution } from './types';
 
@@ -32,7 +33,8 @@ function packAllInOne(items: Item[], ctx: Ctx, configs: Config[], rand?: () => n
   }
   // random orders, for the moves that would empty the last sheet above the bound
   for (let t = 0; rand && t < tries && ctx.spent < ctx.limit; t++) {
-    const cfg = t % 2 ? { ...SPACE_CONFIGS[t % SPACE_CONFIGS.length], noise: rand } : configs[t % configs.length];
+    const cfg =
+      t % 2 ? { ...at(SPACE_CONFIGS, t % SPACE_CONFIGS.length), noise: rand } : at(configs, t % configs.length);
     const { bin, rest } = fillBin(perturb(items, rand, NESTING_TUNING.retryOrderNoise), cfg, ctx);
     if (rest.length === 0) return bin;
   }
@@ -135,9 +137,8 @@ function eliminateBins(
   while (progress && bins.length > lowerBound && budget.n > 0 && ctx.spent < ctx.limit) {
     progress = false;
     const order = bins.map((b, i) => ({ b, i })).sort((a, b) => a.b.used - b.b.used);
-    for (const { i: weakIdx } of order) {
+    for (const { b: weak, i: weakIdx } of order) {
       if (budget.n <= 0 || ctx.spent >= ctx.limit) break;
-      const weak = bins[weakIdx];
       const remaining = sortItems(
         weak.placed.map((p) => p.item),
         'area',
@@ -194,22 +195,36 @@ function eliminateBins(
 /**
  * The exact search (exact.ts) over `sheets` sheets for all `items`;
  * parts of one size are pooled so the search sees them as one kind.
- * Returns the bins, or null if it found none within `workLimit` steps.
+ * Returns the bins, or null if it found none within `workLimit` steps,
+ * and whether it proved that there is none.
  */
-function exactBins(items: Item[], sheets: number, ctx: Ctx, workLimit: number, seed: number): Bin[] | null {
+function exactBins(
+  items: Item[],
+  sheets: number,
+  ctx: Ctx,
+  workLimit: number,
+  seed: number,
+): { bins: Bin[] | null; impossible: boolean } {
   const kinds = poolBySize(items);
-  const types = kinds.map((k) => ({ l: k[0].l, w: k[0].w, canRotate: k[0].canRotate, count: k.length }));
+  const types = kinds.map((k) => {
+    const first = at(k, 0);
+    return { l: first.l, w: first.w, canRotate: first.canRotate, count: k.length };
+  });
   const r = packExact(types, { x0: ctx.x0, y0: ctx.y0, L: ctx.L, W: ctx.W, sheets, kerf: ctx.kerf, workLimit, seed });
   ctx.spent += Math.ceil(r.work / NESTING_TUNING.stepsPerVisit);
-  if (r.status !== 'found') return null;
+  if (r.status !== 'found') return { bins: null, impossible: r.status === 'none' };
   const bins: Bin[] = Array.from({ length: sheets }, () => ({ free: [], placed: [], used: 0 }));
   const taken = kinds.map(() => 0);
   for (const p of r.placements) {
-    const item = kinds[p.type][taken[p.type]++];
-    bins[p.sheet].placed.push({ item, x: p.x, y: p.y, l: p.l, w: p.w, rotated: p.rotated });
-    bins[p.sheet].used += item.area;
+    // the units of a kind in order, so that parts of one size keep the order of the part list
+    const next = at(taken, p.type);
+    taken[p.type] = next + 1;
+    const item = at(at(kinds, p.type), next);
+    const bin = at(bins, p.sheet);
+    bin.placed.push({ item, x: p.x, y: p.y, l: p.l, w: p.w, rotated: p.rotated });
+    bin.used += item.area;
   }
-  return bins.filter((b) => b.placed.length);
+  return { bins: bins.filter((b) => b.placed.length), impossible: false };
 }
 
 /**
@@ -228,24 +243,33 @@ export function searchLayout(
   const consider = (s: Solution) => {
     if (better(s, best)) best = s;
   };
-  const done = () => best !== null && best.bins.length <= lowerBound;
+  // the bound's sheets proven too few (by the exact search): a layout one sheet over it is the best there is
+  let boundUnreachable = false;
+  const done = () =>
+    best !== null && (best.bins.length <= lowerBound || (boundUnreachable && best.bins.length <= lowerBound + 1));
   if (!items.length) return best;
 
   const T = NESTING_TUNING;
   const thorough = effort === 'thorough';
-  ctx.limit = T.workLimit[effort];
+  const area = items.reduce((a, it) => a + it.area, 0);
+  // work allowed: at thorough, in proportion to the job's size in sheets (the parts' area over the usable sheet's)
+  ctx.limit = thorough
+    ? Math.round(
+        Math.min(T.thoroughWork.max, Math.max(T.thoroughWork.min, (T.thoroughWork.perSheet * area) / (ctx.L * ctx.W))),
+      )
+    : T.workLimit.quick;
   const keys: SortKey[] = thorough
     ? ['area', 'long', 'width', 'length', 'perimeter', 'short']
     : ['area', 'long', 'width'];
   // the exact search (exact.ts), for when the greedy fills stop one sheet over the bound
-  const area = items.reduce((a, it) => a + it.area, 0);
   // nearly full sheets: the greedy fills rarely get there, the exact search is the hope
   const tight = lowerBound > 0 && 1 - area / (lowerBound * ctx.L * ctx.W) < T.tightLeftover;
   let exactRan = false;
   const tryExact = (visits: number) => {
     exactRan = true;
-    const bins = exactBins(items, lowerBound, ctx, Math.max(0, visits) * T.stepsPerVisit, seed);
+    const { bins, impossible } = exactBins(items, lowerBound, ctx, Math.max(0, visits) * T.stepsPerVisit, seed);
     if (bins) consider({ bins });
+    if (impossible) boundUnreachable = true;
   };
   for (const key of keys) {
     const order = sortItems(items, key);
@@ -255,7 +279,8 @@ export function searchLayout(
     }
     if (done()) break;
     // nearly full sheets: search exactly after the first round of greedy fills, with most of the work allowed
-    if (thorough && tight && !exactRan && best!.bins.length === lowerBound + 1) tryExact(ctx.limit * T.exactEarlyShare);
+    if (thorough && tight && !exactRan && best!.bins.length === lowerBound + 1)
+      tryExact(T.thoroughWork.max * T.exactEarlyShare);
     if (done()) break;
   }
   for (const cfg of thorough ? SPACE_CONFIGS : []) if (!done()) consider(greedy(items, cfg, ctx));
@@ -268,11 +293,15 @@ export function searchLayout(
     const n = items.length;
     const trials = clampedShare(T.roundTrials, n);
     const rounds = clampedShare(T.rounds, n);
-    for (let r = 0; r < rounds && !done() && ctx.spent < ctx.limit; r++) {
+    // rounds until the bound is met, the work is spent, or `staleRounds` rounds in a row save no sheet
+    let stale = 0;
+    for (let r = 0; r < rounds && !done() && ctx.spent < ctx.limit && stale < T.staleRounds; r++) {
+      const before = best!.bins.length;
       const s = bestFillGreedy(items, QUICK_CONFIGS, trials, rand, ctx);
       consider(s);
       if (!done())
         consider(eliminateBins(s, ctx, QUICK_CONFIGS, lowerBound, { n: Math.floor(T.roundEmptyingMoves / n) }));
+      stale = best!.bins.length < before ? 0 : stale + 1;
     }
   }
   return best;

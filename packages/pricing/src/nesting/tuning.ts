@@ -4,8 +4,16 @@
  * heuristics count part visits, the exact search counts its own steps.
  */
 export const NESTING_TUNING = {
-  /** part visits allowed per `nest` call: thorough bounds the hardest instances to about 1.3 s here, under the 2 s target */
-  workLimit: { quick: 30_000, thorough: 2_400_000 },
+  /** part visits allowed per `nest` call at quick */
+  workLimit: { quick: 30_000 },
+  /**
+   * Part visits allowed per `nest` call at thorough: `perSheet` times the job's size in sheets (the parts'
+   * area over the usable sheet's), kept within [min, max]; `max` bounds the hardest instances to about
+   * 1.3 s here, under the 2 s target.
+   */
+  thoroughWork: { perSheet: 100_000, min: 300_000, max: 2_400_000 },
+  /** thorough rounds stop after this many rounds in a row that save no sheet */
+  staleRounds: 2,
   /** the seed of the nester's random choices when the caller gives none */
   defaultSeed: 20261201,
   /** a part visit of the heuristics costs about as much time as this many steps of the exact search */
