@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ACCESS, defaultParams, type RouteAccess } from './access-table';
 import { pino } from 'pino';
 import { createApp } from '../src/app';
-import { openDb } from '../src/db/client';
+import { applyMigrations, openDb } from '../src/db/client';
 import { loadEnv } from '../src/env';
 import { appRoutes, routeKey } from './routes';
 import { EMAILS, seededWorld, type World } from './world';
@@ -139,7 +139,9 @@ function realParamsFor(path: string, role: 'owner' | 'client'): Record<string, s
 /** the routes as Express has them, each with its row of the access table (for a near-valid body) */
 const ROUTES = (() => {
   const env = loadEnv({ DATABASE_PATH: ':memory:', LOG_LEVEL: 'silent' });
-  const app = createApp({ db: openDb(':memory:'), env, log: pino({ level: 'silent' }), ready: () => true });
+  const db = openDb(':memory:');
+  applyMigrations(db);
+  const app = createApp({ db, env, log: pino({ level: 'silent' }), ready: () => true });
   const table = new Map(ACCESS.map((r) => [`${r.method} ${r.path}`, r]));
   return appRoutes(app as never).map(
     (r): RouteAccess =>
