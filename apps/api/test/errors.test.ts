@@ -1,4 +1,3 @@
-import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { testApp } from './helpers';
 
@@ -107,19 +106,7 @@ describe('bad input on every route', () => {
         }
       }
     }
-  });
-  it('answers random JSON on every POST route without a 500 (fast-check)', async () => {
-    const t = await testApp();
-    const a = await t.signIn('maren@fernhill.example');
-    const posts = ROUTES.filter(([m]) => m === 'post' || m === 'patch').map(([, p]) => p);
-    await fc.assert(
-      fc.asyncProperty(fc.constantFrom(...posts), fc.jsonValue(), async (path, body) => {
-        const r = await a.post(path).set('Content-Type', 'application/json').send(JSON.stringify(body));
-        checkShape(r.status, r.body);
-      }),
-      { numRuns: 150, seed: 3 },
-    );
-  });
+  }, 120_000); // about 2,000 requests: allow for a busy machine
   it('answers malformed JSON with 400, an oversized body with 413, an unknown route with 404', async () => {
     const t = await testApp();
     const bad = await t.agent().post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email":');

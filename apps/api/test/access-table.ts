@@ -1,0 +1,174 @@
+import { designs } from '@benchwright/pricing';
+import type { WorldIds } from './world';
+
+/**
+ * Who may call what: the expected answer to each role for every route the API has (DESIGN.md sections 2 and 10,
+ * and issue 13's fixes). `ok` means the role gets through (any answer but 401, 403 or 404: a 400 or 409 about
+ * the request itself still counts as access); 401 not signed in, 403 wrong role, 404 not theirs to see.
+ * The resource under test is client A's: Tomasz's project, his accepted estimate, his deposit and his job.
+ * Client B is Priya, another client of the shop. test/access.test.ts checks this table against the routes
+ * Express actually has, in both directions.
+ */
+export const ROLES = ['anonymous', 'clientA', 'clientB', 'builder', 'owner'] as const;
+export type Role = (typeof ROLES)[number];
+export type Access = 'ok' | 401 | 403 | 404;
+
+export interface RouteAccess {
+  method: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  path: string;
+  expect: Record<Role, Access>;
+  /** values for the path's parameters; by default the resource of client A that the path names */
+  params?: (ids: WorldIds) => Record<string, string>;
+  /** a body that would be accepted, so that a 400 cannot hide the answer on access */
+  body?: (ids: WorldIds, role: Role) => unknown;
+  /** the request ends the session it is made with, so it gets a session of its own */
+  endsSession?: boolean;
+}
+
+/** `a(anonymous, clientA, clientB, builder, owner)` */
+const a = (anonymous: Access, clientA: Access, clientB: Access, builder: Access, owner: Access) => ({
+  anonymous,
+  clientA,
+  clientB,
+  builder,
+  owner,
+});
+const anyone = a('ok', 'ok', 'ok', 'ok', 'ok');
+const signedIn = a(401, 'ok', 'ok', 'ok', 'ok');
+const ownerOnly = a(401, 403, 403, 403, 'ok');
+const shopStaff = a(401, 403, 403, 'ok', 'ok');
+/** the project's client; another client gets 404, the shop 403 */
+const ownClient = a(401, 'ok', 404, 403, 403);
+
+const unique = (role: Role) => `${role.toLowerCase()}-${Date.now()}-${Math.random().toString(36).slice(2, 8)}`;
+const item = () => ({ spec: { ...designs.bookcase.defaults }, quantity: 1 });
+
+export const ACCESS: RouteAccess[] = [
+  { method: 'GET', path: '/api/health', expect: anyone },
+  { method: 'POST', path: '/api/webhooks/stripe', expect: anyone, body: () => ({ id: 'evt_x', type: 'ping' }) },
+
+  // accounts
+  {
+    method: 'POST',
+    path: '/api/auth/sign-up',
+    expect: anyone,
+    body: (_ids, role) => ({ email: `${unique(role)}@example.com`, password: 'a-long-password-1', name: 'Ash Brook' }),
+  },
+  {
+    method: 'POST',
+    path: '/api/auth/sign-in',
+    expect: anyone,
+    // the guild's account: none of the roles under test, so their sessions stay as they are
+    body: () => ({ email: 'guild@example.com', password: 'bench-demo-2026' }),
+  },
+  { method: 'POST', path: '/api/auth/sign-out', expect: signedIn, endsSession: true },
+  { method: 'GET', path: '/api/auth/me', expect: signedIn },
+  { method: 'POST', path: '/api/auth/verify-email', expect: anyone, body: () => ({ token: 'a'.repeat(43) }) },
+  { method: 'POST', path: '/api/auth/resend-verification', expect: signedIn },
+  { method: 'POST', path: '/api/auth/forgot-password', expect: anyone, body: () => ({ email: 'nobody@example.com' }) },
+  {
+    method: 'POST',
+    path: '/api/auth/reset-password',
+    expect: anyone,
+    body: () => ({ token: 'a'.repeat(43), password: 'a-long-password-1' }),
+  },
+  {
+    method: 'POST',
+    path: '/api/auth/accept-invitation',
+    expect: anyone,
+    body: () => ({ token: 'a'.repeat(43), password: 'a-long-password-1' }),
+  },
+  { method: 'GET', path: '/api/users', expect: ownerOnly },
+  {
+    method: 'POST',
+    path: '/api/users/invitations',
+    expect: ownerOnly,
+    body: (_ids, role) => ({ email: `${unique(role)}@fernhill.example`, name: 'Wren Dale' }),
+  },
+
+  // the catalogue and the preview: open to all
+  { method: 'GET', path: '/api/designs', expect: anyone },
+  { method: 'GET', path: '/api/designs/:slug', expect: anyone, params: () => ({ slug: 'bookcase' }) },
+  { method: 'POST', path: '/api/quotes/preview', expect: anyone, body: () => ({ items: [item()] }) },
+
+  // projects
+  { method: 'GET', path: '/api/projects', expect: signedIn },
+  {
+    method: 'POST',
+    path: '/api/projects',
+    expect: a(401, 'ok', 'ok', 403, 403),
+    body: () => ({ items: [item()], notes: 'A bookcase for the hall.' }),
+  },
+  // the builder sees a project in production (Tomasz's is, with its job in Casework)
+  { method: 'GET', path: '/api/projects/:id', expect: a(401, 'ok', 404, 'ok', 'ok') },
+  { method: 'GET', path: '/api/projects/:id/layouts', expect: ownerOnly },
+  {
+    method: 'POST',
+    path: '/api/projects/:id/comments',
+    expect: a(401, 'ok', 404, 403, 'ok'),
+    body: () => ({ message: 'Could the top be a little thicker?' }),
+  },
+  { method: 'POST', path: '/api/projects/:id/estimates', expect: ownerOnly, body: () => ({}) },
+  { method: 'POST', path: '/api/projects/:id/balance-checkout', expect: ownClient },
+
+  // estimates: the owner's to edit and send, the client's (own, once sent) to read, accept and pay
+  { method: 'GET', path: '/api/estimates/:id', expect: a(401, 'ok', 404, 403, 'ok') },
+  { method: 'GET', path: '/api/estimates/:id/pdf', expect: a(401, 'ok', 404, 403, 'ok') },
+  { method: 'PATCH', path: '/api/estimates/:id', expect: ownerOnly, body: () => ({ version: 1 }) },
+  { method: 'POST', path: '/api/estimates/:id/send', expect: ownerOnly },
+  {
+    method: 'POST',
+    path: '/api/estimates/:id/accept',
+    expect: ownClient,
+    body: () => ({ acceptedName: 'Tomasz Wierzbicki' }),
+  },
+  { method: 'POST', path: '/api/estimates/:id/deposit-checkout', expect: ownClient },
+
+  // money: the owner's alone
+  { method: 'GET', path: '/api/payments', expect: ownerOnly },
+  { method: 'POST', path: '/api/payments/:id/refund', expect: ownerOnly, body: () => ({ amountCents: 1 }) },
+
+  // the board: the shop's; the owner alone assigns the builder and the due date (issue 13, defect 4)
+  { method: 'GET', path: '/api/jobs', expect: shopStaff },
+  { method: 'GET', path: '/api/jobs/stages', expect: shopStaff },
+  { method: 'GET', path: '/api/jobs/:id', expect: shopStaff },
+  { method: 'GET', path: '/api/jobs/:id/traveller', expect: shopStaff },
+  { method: 'GET', path: '/api/jobs/:id/traveller.pdf', expect: shopStaff },
+  {
+    method: 'PATCH',
+    path: '/api/jobs/:id',
+    expect: a(401, 403, 403, 403, 'ok'),
+    body: (ids) => ({ builderId: ids.builderId, dueDate: '2027-03-01' }),
+  },
+  {
+    method: 'POST',
+    path: '/api/jobs/:id/time',
+    expect: shopStaff,
+    body: () => ({ stageKey: 'casework', hours: 1.5, note: 'carcass glued up' }),
+  },
+
+  // the owner's pages
+  { method: 'GET', path: '/api/mail/failed', expect: ownerOnly },
+  { method: 'POST', path: '/api/mail/:id/retry', expect: ownerOnly },
+  { method: 'GET', path: '/api/overview', expect: ownerOnly },
+];
+
+/** The default value of a path parameter: client A's resource of the kind the path names. */
+export function defaultParams(path: string, ids: WorldIds): Record<string, string> {
+  if (path.startsWith('/api/projects/')) return { id: ids.tomaszProject };
+  if (path.startsWith('/api/estimates/')) return { id: ids.tomaszEstimate };
+  if (path.startsWith('/api/jobs/')) return { id: ids.tomaszJob };
+  if (path.startsWith('/api/payments/')) return { id: ids.tomaszDeposit };
+  if (path.startsWith('/api/mail/')) return { id: ids.mailId };
+  if (path.startsWith('/api/designs/')) return { slug: 'bookcase' };
+  return {};
+}
+
+/** The path with its parameters filled in. */
+export function fill(path: string, params: Record<string, string>): string {
+  return path.replace(/:(\w+)/g, (_m, k: string) => {
+    const v = params[k];
+    if (v === undefined) throw new Error(`no value for :${k} in ${path}`);
+    return encodeURIComponent(v);
+  });
+}
