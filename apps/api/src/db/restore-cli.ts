@@ -35,6 +35,5 @@ const manifest = await restore(
   { databasePath: env.DATABASE_PATH, pdfDir: env.PDF_DIR, uploadsDir: env.UPLOADS_DIR },
   aside,
 );
-console.log(
-  `restored the backup of ${manifest.createdAt} into ${dirname(env.DATABASE_PATH)}\n  what was there before: ${aside}`,
-);
+console.log(`restored the backup of ${manifest.createdAt} into ${dirname(env.DATABASE_PATH)}`);
+if (existsSync(aside)) console.log(`  what was there before is kept in ${aside}`);
