@@ -122,6 +122,30 @@ export interface TimelineEvent {
   by: string | null;
   at: string;
 }
+/** Files a project accepts (`POST /api/projects/:id/uploads`, multipart field `file`): the type is read from the bytes. */
+export const UPLOAD_MAX_BYTES = 15 * 1024 * 1024;
+export const UPLOADS_PER_PROJECT = 30;
+export const UPLOAD_MIME_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'application/pdf'] as const;
+export const UPLOAD_KINDS = ['image', 'pdf'] as const;
+export type UploadKind = (typeof UPLOAD_KINDS)[number];
+/** The optional text fields of an upload: `purpose: 'progress'` records the job's current stage (shop staff). */
+export const UploadFields = z.object({
+  purpose: z.enum(['attachment', 'progress']).default('attachment'),
+});
+/** One file attached to a project, as the project lists it. */
+export interface UploadSummary {
+  id: string;
+  /** the uploaded name, display text only */
+  name: string;
+  kind: UploadKind;
+  mimeType: string;
+  sizeBytes: number;
+  /** who attached it */
+  by: { id: string; name: string };
+  /** the job's stage for a progress photo, else null */
+  stageKey: string | null;
+  at: string;
+}
 export interface Project {
   id: string;
   status: ProjectStatus;
@@ -130,7 +154,22 @@ export interface Project {
   items: { id: string; spec: unknown; quantity: number }[];
   estimates: EstimateSummary[];
   timeline: TimelineEvent[];
+  /** files attached to the project, oldest first */
+  uploads: UploadSummary[];
   createdAt: string;
+}
+
+/** `GET /api/lead-time?hours=N`: when a job of N hours could start and finish, from the board and the shop's capacity. */
+export const LeadTimeQuery = z.object({
+  hours: z.coerce.number('give the job’s hours').min(0, 'at least 0 hours').max(10_000, 'at most 10000 hours'),
+});
+export interface LeadTimeView {
+  /** week 1 is this week */
+  startWeek: number;
+  finishWeek: number;
+  /** the Monday of the start week and the Friday of the finish week, as dates (YYYY-MM-DD) */
+  startDate: string;
+  finishDate: string;
 }
 export interface Design {
   slug: string;

@@ -10,6 +10,7 @@ import { commentMail } from '../../lib/mail-templates';
 import { queueRequestNotice } from '../../lib/request-notice';
 import { addEvent } from '../../lib/timeline';
 import { Forbidden, Invalid, NotFound } from '../../lib/errors';
+import { listUploads } from '../uploads/uploads.repo';
 
 /** Statuses a builder may see: the job is in the shop. */
 const IN_SHOP = ['deposit_paid', 'in_production', 'ready', 'delivered'] as const;
@@ -71,6 +72,7 @@ export function createProjectsService(
         by: e.kind === 'comment' ? e.by : null,
         at: e.createdAt.toISOString(),
       })),
+      uploads: listUploads(db, row.id),
       createdAt: row.createdAt.toISOString(),
     };
   }
