@@ -13,9 +13,12 @@ import { useStages, useTraveller, type JobTraveller } from '../api/jobs';
 export function TravellerPage({
   id,
   assignment,
+  photos,
 }: {
   id: string;
   assignment?: (job: JobTraveller['job']) => ReactNode;
+  /** the job's photos, composed by the route (features do not import each other) */
+  photos?: (job: JobTraveller['job'], stageLabel: (key: string) => string) => ReactNode;
 }) {
   const q = useTraveller(id);
   const stages = useStages();
@@ -47,6 +50,7 @@ export function TravellerPage({
         {t.job.dueDate ? ` · due ${t.job.dueDate}` : ''} · about {Math.round(t.massKg)} kg finished
       </p>
       {assignment?.(t.job)}
+      {photos?.(t.job, stageLabel)}
 
       <Panel title="Hours">
         <table className="w-full text-left tabular-nums">
