@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
+import { designs } from '@benchwright/pricing';
 import { describe, expect, it } from 'vitest';
 import { jobs, projects, shopSettings, timeEntries, users } from '../src/db/schema';
 import { testApp } from './helpers';
@@ -70,5 +71,23 @@ describe('GET /api/lead-time', () => {
       expect(r.status).toBe(400);
       expect(r.body.error.issues[0].path).toBe('hours');
     }
+  });
+});
+
+describe('POST /api/quotes/preview', () => {
+  it('gives anyone the request’s shop hours (for the lead time), still without prices of cost', async () => {
+    const t = await testApp();
+    const r = await t
+      .agent()
+      .post('/api/quotes/preview')
+      .send({ items: [{ spec: designs.bookcase.defaults, quantity: 2 }] });
+    expect(r.status).toBe(200);
+    expect(r.body.quote.hours).toBeGreaterThan(1);
+    expect(r.body.quote.lines).toBeUndefined();
+    const one = await t
+      .agent()
+      .post('/api/quotes/preview')
+      .send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
+    expect(one.body.quote.hours).toBeLessThan(r.body.quote.hours);
   });
 });

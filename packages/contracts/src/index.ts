@@ -182,6 +182,8 @@ export interface QuotePreview {
   budget: { lowCents: number; highCents: number };
   checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string }[];
   items: { drawingSvg: string; massKg: number }[];
+  /** the request's shop hours, all stages (for the lead time; not a price) */
+  hours: number;
   /** owner only */
   lines?: unknown[];
   totals?: EstimateSummary['totals'];

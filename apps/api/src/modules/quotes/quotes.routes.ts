@@ -35,11 +35,14 @@ export function quotesRoutes(db: Db, opts: { enabled: boolean; perMinute: number
     const e = estimate(body.items, book, settings, { effort: 'quick' });
     const budget = rangeOf(e.totals.totalCents, settings.budgetSpread);
     const owner = res.locals.user?.role === 'owner';
+    // the shop hours of the whole request, for everyone: an hour count is not a price, and it gives the lead time
+    const hours = Object.values(e.hoursByStage).reduce((s: number, h) => s + (h ?? 0), 0);
     res.json({
       quote: {
         budget: { lowCents: budget.lowCents, highCents: budget.highCents },
         checks: e.checks.map((c) => ({ code: c.code, level: c.level, message: c.message })),
         items: e.pieces.map((p) => ({ drawingSvg: toSvg(p.elevation), massKg: Math.round(p.massKg * 10) / 10 })),
+        hours: Math.round(hours * 10) / 10,
         ...(owner
           ? {
               lines: e.lines,
