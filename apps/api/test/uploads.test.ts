@@ -101,6 +101,20 @@ describe('POST /api/projects/:id/uploads', () => {
     expect(file.headers['cache-control']).toBe('private, no-store');
     expect(Buffer.compare(file.body as Buffer, PDF)).toBe(0);
     expect((await s.priya.get(`/api/uploads/${r.body.upload.id}/thumbnail`)).status).toBe(404);
+    // the type comes from the bytes, whatever the name says
+    const named = await attach(s.priya, s.priyas, PDF, 'page.html', 'text/html');
+    const served = await s.priya.get(`/api/uploads/${named.body.upload.id}`);
+    expect(served.headers['content-type']).toBe('application/pdf');
+    expect(served.headers['content-disposition']).toMatch(/^attachment;/);
+  });
+
+  it('answers 404, not 400 or 500, when a listed file is missing from the folder', async () => {
+    const s = await setup();
+    const r = await attach(s.priya, s.priyas, await image('png'), 'gone.png');
+    for (const f of s.stored()) rmSync(join(s.dir, f));
+    const file = await s.priya.get(`/api/uploads/${r.body.upload.id}`);
+    expect(file.status).toBe(404);
+    expect(file.body.error.code).toBe('not_found');
   });
 
   it('serves images inline, unsniffable and not for shared caches', async () => {
@@ -179,8 +193,12 @@ describe('POST /api/projects/:id/uploads', () => {
       'stageKey',
     ]);
     expect(
-      p.timeline.filter((e: { kind: string }) => e.kind === 'upload').map((e: { message: string }) => e.message),
-    ).toEqual(['Priya Natarajan attached a picture: one.png.', 'Maren Holt attached a PDF: drawing.pdf.']);
+      // sorted: the timeline orders by time, and both may fall in the same millisecond
+      p.timeline
+        .filter((e: { kind: string }) => e.kind === 'upload')
+        .map((e: { message: string }) => e.message)
+        .sort(),
+    ).toEqual(['Maren Holt attached a PDF: drawing.pdf.', 'Priya Natarajan attached a picture: one.png.']);
   });
 
   describe('refusals', () => {

@@ -1,7 +1,7 @@
 import { Router, type Response } from 'express';
 import multer from 'multer';
 import { UPLOAD_MAX_BYTES, UploadFields } from '@benchwright/contracts';
-import { Invalid, parse } from '../../lib/errors';
+import { Invalid, NotFound, parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { StoredFile, UploadsService } from './uploads.service';
 
@@ -44,19 +44,26 @@ export function projectUploadsRoutes(service: UploadsService): Router {
 }
 
 function send(res: Response, file: StoredFile): Promise<void> {
+  // a PDF is downloaded, never shown in the API's origin; images are shown. res.attachment() would set the type
+  // from the uploaded name's extension, so the type read from the bytes is set after it.
+  if (file.kind === 'pdf') res.attachment(file.name);
+  else res.set('Content-Disposition', 'inline');
   res.set({
     'Content-Type': file.mimeType,
     'X-Content-Type-Options': 'nosniff',
     // the client's own photos: never kept by a shared cache
     'Cache-Control': 'private, no-store',
   });
-  // a PDF is downloaded, never shown in the API's origin; images are shown
-  if (file.kind === 'pdf') res.attachment(file.name);
-  else res.set('Content-Disposition', 'inline');
   return new Promise((resolve, reject) =>
-    res.sendFile(file.path, { cacheControl: false, lastModified: false, dotfiles: 'deny' }, (err) =>
-      err ? reject(err) : resolve(),
-    ),
+    res.sendFile(file.path, { cacheControl: false, lastModified: false, dotfiles: 'deny' }, (err) => {
+      if (!err) return resolve();
+      // the row is there but the bytes are not (a restore without the uploads folder): not found, not bad input
+      const missing =
+        (err as { status?: number; code?: string }).status === 404 || (err as { code?: string }).code === 'ENOENT';
+      // the error answer is JSON, not the file's type
+      if (!res.headersSent) for (const h of ['Content-Type', 'Content-Disposition']) res.removeHeader(h);
+      reject(missing && !res.headersSent ? new NotFound('The file') : err);
+    }),
   );
 }
 
