@@ -30,6 +30,9 @@ import { createOverviewService } from './modules/overview/overview.service';
 import { createMailService } from './modules/mail/mail.service';
 import { createPaymentsService } from './modules/payments/payments.service';
 import { paymentConfirmRoute, paymentsRoutes, webhookRoute } from './modules/payments/payments.routes';
+import { createUploadsService } from './modules/uploads/uploads.service';
+import { projectUploadsRoutes, uploadsRoutes } from './modules/uploads/uploads.routes';
+import { leadTimeRoutes } from './modules/lead-time/lead-time.routes';
 
 export const VERSION = '0.1.0';
 
@@ -117,12 +120,15 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
   app.use('/api/quotes', quotesRoutes(db, pool, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
+  const projectsService = createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }, pool);
+  const uploadsService = createUploadsService({ db, dir: env.UPLOADS_DIR, projects: projectsService });
   app.use(
     '/api/projects',
     requireRole('client', 'owner', 'builder'),
     projectMoneyRoutes(estimatesService, paymentsService),
+    projectUploadsRoutes(uploadsService),
     projectsRoutes(
-      createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }, pool),
+      projectsService,
       {
         enabled: env.RATE_LIMITS,
         commentsPerMinute: env.COMMENTS_PER_MINUTE,
@@ -130,6 +136,8 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
       idempotency(db),
     ),
   );
+  app.use('/api/uploads', requireRole('client', 'owner', 'builder'), uploadsRoutes(uploadsService));
+  app.use('/api/lead-time', leadTimeRoutes(db));
   app.use('/api/estimates', requireRole('owner', 'client'), estimatesRoutes(estimatesService, paymentsService));
   app.use('/api/payments/confirm', requireRole('client'), paymentConfirmRoute(paymentsService));
   app.use('/api/payments', requireRole('owner'), paymentsRoutes(paymentsService));

@@ -127,6 +127,31 @@ export const TimelineEvent = z.object({
   at: z.iso.datetime(),
 });
 export type TimelineEvent = z.infer<typeof TimelineEvent>;
+/** Files a project accepts (`POST /api/projects/:id/uploads`, multipart field `file`): the type is read from the bytes. */
+export const UPLOAD_MAX_BYTES = 15 * 1024 * 1024;
+export const UPLOADS_PER_PROJECT = 30;
+export const UPLOAD_MIME_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'application/pdf'] as const;
+export const UPLOAD_KINDS = ['image', 'pdf'] as const;
+export type UploadKind = (typeof UPLOAD_KINDS)[number];
+/** The optional text fields of an upload: `purpose: 'progress'` records the job's current stage (shop staff). */
+export const UploadFields = z.object({
+  purpose: z.enum(['attachment', 'progress']).default('attachment'),
+});
+/** One file attached to a project, as the project lists it. */
+export const UploadSummary = z.object({
+  id: z.string(),
+  /** the uploaded name, display text only */
+  name: z.string(),
+  kind: z.enum(UPLOAD_KINDS),
+  mimeType: z.string(),
+  sizeBytes: z.number().int(),
+  /** who attached it */
+  by: z.object({ id: z.string(), name: z.string() }),
+  /** the job's stage for a progress photo, else null */
+  stageKey: z.string().nullable(),
+  at: z.iso.datetime(),
+});
+export type UploadSummary = z.infer<typeof UploadSummary>;
 export const Project = z.object({
   id: z.string(),
   status: z.enum(PROJECT_STATUSES),
@@ -137,6 +162,8 @@ export const Project = z.object({
   estimates: z.array(EstimateSummary),
   /** cut per viewer by the API's timelineFor */
   timeline: z.array(TimelineEvent),
+  /** files attached to the project, oldest first */
+  uploads: z.array(UploadSummary),
   createdAt: z.iso.datetime(),
 });
 export type Project = z.infer<typeof Project>;
@@ -144,6 +171,19 @@ export type Project = z.infer<typeof Project>;
 export const ProjectResponse = z.object({ project: Project });
 /** `GET /api/projects` */
 export const ProjectsResponse = z.object({ projects: z.array(Project) });
+
+/** `GET /api/lead-time?hours=N`: when a job of N hours could start and finish, from the board and the shop's capacity. */
+export const LeadTimeQuery = z.object({
+  hours: z.coerce.number('give the job’s hours').min(0, 'at least 0 hours').max(10_000, 'at most 10000 hours'),
+});
+export interface LeadTimeView {
+  /** week 1 is this week */
+  startWeek: number;
+  finishWeek: number;
+  /** the Monday of the start week and the Friday of the finish week, as dates (YYYY-MM-DD) */
+  startDate: string;
+  finishDate: string;
+}
 export interface Design {
   slug: string;
   name: string;
@@ -155,6 +195,8 @@ export interface QuotePreview {
   budget: { lowCents: number; highCents: number };
   checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string }[];
   items: { drawingSvg: string; massKg: number }[];
+  /** the request's shop hours, all stages (for the lead time; not a price) */
+  hours: number;
   /** owner only */
   lines?: unknown[];
   totals?: EstimateSummary['totals'];

@@ -39,3 +39,5 @@ export {
   Finish,
   LabourOperation,
 } from './price-book';
+export { leadTime, bookedHours, leadTimeDates } from './lead-time';
+export type { LeadTime, BookedJob } from './lead-time';

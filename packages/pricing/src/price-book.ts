@@ -210,6 +210,8 @@ export const ShopSettings = z.object({
   bandingWaste: z.number().min(0).max(1),
   lumberWaste: z.number().min(0).max(2),
   units: z.enum(['in', 'mm']),
+  /** shop hours a week for the lead time; optional so that settings stored before it still parse */
+  weeklyCapacityHours: z.number().positive().max(1000).default(40),
 });
 export type ShopSettings = z.infer<typeof ShopSettings>;
 

@@ -73,9 +73,14 @@ export function Notice({ tone = 'info', children }: { tone?: 'info' | 'error' | 
 }
 
 export function Panel({ title, children }: { title?: string; children: ReactNode }) {
+  const titleId = useId();
   return (
-    <section className="mb-6 rounded border border-rule bg-white/70 p-6">
-      {title ? <h2 className="mb-4 text-xl font-semibold">{title}</h2> : null}
+    <section className="mb-6 rounded border border-rule bg-white/70 p-6" aria-labelledby={title ? titleId : undefined}>
+      {title ? (
+        <h2 id={titleId} className="mb-4 text-xl font-semibold">
+          {title}
+        </h2>
+      ) : null}
       {children}
     </section>
   );

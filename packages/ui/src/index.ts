@@ -13,3 +13,4 @@ export {
 export { api, ApiRequestError } from './api-client';
 export { applyServerIssues } from './form-errors';
 export { useComment } from './comments';
+export { UploadGallery, formatBytes } from './uploads';

@@ -94,20 +94,37 @@ export const projectItems = sqliteTable('project_items', {
   quantity: integer().notNull(),
 });
 
-export const uploads = sqliteTable('uploads', {
-  id: text().primaryKey(),
-  projectId: text()
-    .notNull()
-    .references(() => projects.id, { onDelete: 'cascade' }),
-  uploaderId: text()
-    .notNull()
-    .references(() => users.id),
-  fileName: text().notNull(),
-  mimeType: text().notNull(),
-  sizeBytes: integer().notNull(),
-  storagePath: text().notNull(),
-  createdAt: createdAt(),
-});
+/**
+ * Files attached to a project. `fileName` is the uploaded name, kept as display text only; the bytes live under
+ * random names in UPLOADS_DIR, and the paths here are relative to it.
+ */
+export const uploads = sqliteTable(
+  'uploads',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    uploaderId: text()
+      .notNull()
+      .references(() => users.id),
+    fileName: text().notNull(),
+    /** read from the bytes, never from the request */
+    mimeType: text().notNull(),
+    kind: text({ enum: ['image', 'pdf'] })
+      .notNull()
+      .default('image'),
+    /** the stored (re-encoded) file's size */
+    sizeBytes: integer().notNull(),
+    storagePath: text().notNull(),
+    /** images only: a small WebP */
+    thumbnailPath: text(),
+    /** a progress photo: the job's stage when it was added */
+    stageKey: text(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('uploads_project').on(t.projectId)],
+);
 
 export const estimates = sqliteTable(
   'estimates',

@@ -41,6 +41,16 @@ export class Conflict extends AppError {
     super(409, 'conflict', message);
   }
 }
+export class PayloadTooLarge extends AppError {
+  constructor(message = 'The request body is too large.') {
+    super(413, 'payload_too_large', message);
+  }
+}
+export class UnsupportedMediaType extends AppError {
+  constructor(message = 'That content type or encoding is not supported.') {
+    super(415, 'unsupported_media_type', message);
+  }
+}
 export class RateLimited extends AppError {
   constructor(message = 'Too many attempts; wait a few minutes and try again.') {
     super(429, 'rate_limited', message);

@@ -13,5 +13,8 @@ export const paths = {
   projects: { path: '/projects', getHref: () => '/projects' },
   project: { path: '/projects/:id', getHref: (id: string) => `/projects/${encodeURIComponent(id)}` },
   /** served by the API through the dev proxy; a plain link so the browser downloads it */
+  /** a project's file and its thumbnail, served by the API (through the dev proxy) */
+  upload: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}` },
+  uploadThumbnail: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}/thumbnail` },
   estimatePdf: { getHref: (id: string) => `/api/estimates/${encodeURIComponent(id)}/pdf` },
 } as const;

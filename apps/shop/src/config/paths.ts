@@ -8,6 +8,9 @@ export const paths = {
   overview: { path: '/overview', getHref: () => '/overview' },
   board: { path: '/board', getHref: () => '/board' },
   job: { path: '/jobs/:id', getHref: (id: string) => `/jobs/${encodeURIComponent(id)}` },
+  /** a project's file and its thumbnail, served by the API (through the dev proxy) */
+  upload: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}` },
+  uploadThumbnail: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}/thumbnail` },
   travellerPdf: { getHref: (id: string) => `/api/jobs/${encodeURIComponent(id)}/traveller.pdf` },
   requests: { path: '/requests', getHref: () => '/requests' },
   request: { path: '/requests/:id', getHref: (id: string) => `/requests/${encodeURIComponent(id)}` },

@@ -11,6 +11,7 @@ import { commentMail } from '../../lib/mail-templates';
 import { queueRequestNotice } from '../../lib/request-notice';
 import { addEvent, timelineFor } from '../../lib/timeline';
 import { Forbidden, NotFound } from '../../lib/errors';
+import { listUploads } from '../uploads/uploads.repo';
 
 export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string }, pool: EnginePool) {
   function toProject(row: typeof projects.$inferSelect, viewer: User): Project {
@@ -60,6 +61,7 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
         },
       })),
       timeline: timelineFor(viewer, events),
+      uploads: listUploads(db, row.id),
       createdAt: row.createdAt.toISOString(),
     };
   }

@@ -29,11 +29,14 @@ export function quotesRoutes(db: Db, pool: EnginePool, opts: { enabled: boolean;
     const q = await pool.run({ kind: 'preview', items: body.items, book, settings });
     if ('refused' in q) throw new Invalid(q.refused.message, q.refused.issues);
     const owner = res.locals.user?.role === 'owner';
+    // the shop hours of the whole request, for everyone: an hour count is not a price, and it gives the lead time
+    const hours = Object.values(q.hoursByStage).reduce((s: number, h) => s + (h ?? 0), 0);
     res.json({
       quote: {
         budget: q.budget,
         checks: q.checks,
         items: q.items,
+        hours: Math.round(hours * 10) / 10,
         ...(owner
           ? {
               lines: q.lines,

@@ -9,6 +9,7 @@ import { EstimateView } from '../../features/estimates/components/estimate-view'
 import { useConfirmPayment } from '../../features/projects/api/confirm-payment';
 import { useProject } from '../../features/projects/api/get-project';
 import { STATUS_WORDS, itemName } from '../../features/projects/components/project-list';
+import { ProjectUploads } from '../../features/uploads/components/project-uploads';
 
 export function ProjectRoute() {
   const { id = '' } = useParams();
@@ -74,6 +75,7 @@ export function ProjectRoute() {
       ) : (
         <Panel title="Estimate">We are working out your estimate; you will get an e-mail when it is ready.</Panel>
       )}
+      <ProjectUploads projectId={p.id} viewer={me.data} />
       <Panel title="Timeline">
         <ol className="border-l-2 border-wood pl-4" aria-label="Timeline">
           {p.timeline.map((t) => (

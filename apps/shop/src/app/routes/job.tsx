@@ -4,6 +4,7 @@ import { RoleGate } from '../../components/layout';
 import { JobAssignment } from '../../features/board/components/job-assignment';
 import { TravellerPage } from '../../features/board/components/traveller';
 import { useTeam } from '../../features/team/api/team';
+import { ProjectUploads } from '../../features/uploads/components/project-uploads';
 import { canAssignJobs, canRelayoutJobs, canSeeBoard } from '../../lib/policies';
 
 export function JobRoute() {
@@ -19,6 +20,11 @@ export function JobRoute() {
         id={id}
         canRelayout={canRelayoutJobs(me.data)}
         assignment={owner && team.data ? (job) => <JobAssignment key={job.id} job={job} staff={staff} /> : undefined}
+        photos={(job, stageLabel) =>
+          me.data ? (
+            <ProjectUploads projectId={job.project.id} viewer={me.data} progress stageLabel={stageLabel} />
+          ) : null
+        }
       />
     </RoleGate>
   );

@@ -11,6 +11,8 @@ import { useLayouts } from '../../features/projects/api/get-layouts';
 import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../components/shop-paper';
 import { useState } from 'react';
 import { canSeeRequests } from '../../lib/policies';
+import { useMe } from '@benchwright/ui/auth';
+import { ProjectUploads } from '../../features/uploads/components/project-uploads';
 
 function RequestPage({ id }: { id: string }) {
   const q = useProject(id);
@@ -19,6 +21,7 @@ function RequestPage({ id }: { id: string }) {
   const create = useCreateEstimate();
   const [showLayouts, setShowLayouts] = useState(false);
   const layouts = useLayouts(id, showLayouts);
+  const me = useMe();
   if (q.isPending) return <p>Loading…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
   const p = q.data;
@@ -57,6 +60,7 @@ function RequestPage({ id }: { id: string }) {
           </div>
         ) : null}
       </Panel>
+      {me.data ? <ProjectUploads projectId={p.id} viewer={me.data} /> : null}
       <Conversation project={p} />
       {estimate.data ? <EstimateEditor key={estimate.data.id} estimate={estimate.data} /> : null}
       {!showLayouts ? (

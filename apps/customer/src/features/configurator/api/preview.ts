@@ -6,6 +6,8 @@ export interface QuotePreview {
   budget: { lowCents: number; highCents: number };
   checks: Pick<Check, 'code' | 'level' | 'message'>[];
   items: [{ drawingSvg: string; massKg: number }]; // one piece is sent, so one comes back
+  /** the request's shop hours (for the lead time) */
+  hours?: number;
 }
 
 /** The budget range, checks and drawing for one configured piece; the last good answer stays while the next loads. */

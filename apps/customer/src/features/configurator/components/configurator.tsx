@@ -6,6 +6,7 @@ import { useMe } from '@benchwright/ui/auth';
 import { paths } from '../../../config/paths';
 import { useCreateProject } from '../api/create-project';
 import { usePreview } from '../api/preview';
+import { LeadTimeNote } from './lead-time-note';
 import type { CreateProjectBody } from '@benchwright/contracts';
 
 interface Compartment {
@@ -333,6 +334,7 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
                 A budget from the real cut list and sheet layouts at today’s prices, tax included; your estimate will be
                 exact. About {Math.round(q.items[0].massKg)} kg each.
               </p>
+              <LeadTimeNote hours={q.hours} />
               {q.checks.length ? (
                 <ul className="mb-3 list-disc pl-5 text-sm">
                   {q.checks.map((c) => (

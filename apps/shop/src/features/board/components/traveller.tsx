@@ -14,11 +14,14 @@ export function TravellerPage({
   id,
   assignment,
   canRelayout = false,
+  photos,
 }: {
   id: string;
   assignment?: (job: JobTraveller['job']) => ReactNode;
   /** the owner may lay the sheets out again with today's stock */
   canRelayout?: boolean;
+  /** the job's photos, composed by the route (features do not import each other) */
+  photos?: (job: JobTraveller['job'], stageLabel: (key: string) => string) => ReactNode;
 }) {
   const q = useTraveller(id);
   const stages = useStages();
@@ -74,6 +77,7 @@ export function TravellerPage({
       ) : null}
       {relayout.isError ? <Notice tone="error">{relayout.error.message}</Notice> : null}
       {assignment?.(t.job)}
+      {photos?.(t.job, stageLabel)}
 
       <Panel title="Hours">
         <table className="w-full text-left tabular-nums">
