@@ -21,6 +21,8 @@ export interface RouteAccess {
   params?: (ids: WorldIds) => Record<string, string>;
   /** a body that would be accepted, so that a 400 cannot hide the answer on access */
   body?: (ids: WorldIds, role: Role) => unknown;
+  /** a query string that would be accepted */
+  query?: Record<string, string>;
   /** the request ends the session it is made with, so it gets a session of its own */
   endsSession?: boolean;
 }
@@ -110,6 +112,19 @@ export const ACCESS: RouteAccess[] = [
   },
   { method: 'POST', path: '/api/projects/:id/estimates', expect: ownerOnly, body: () => ({}) },
   { method: 'POST', path: '/api/projects/:id/balance-checkout', expect: ownClient },
+  // files: whoever may see the project attaches and reads; the uploader or the owner removes
+  { method: 'POST', path: '/api/projects/:id/uploads', expect: a(401, 'ok', 404, 'ok', 'ok') },
+  { method: 'GET', path: '/api/uploads/:id', expect: a(401, 'ok', 404, 'ok', 'ok') },
+  { method: 'GET', path: '/api/uploads/:id/thumbnail', expect: a(401, 'ok', 404, 'ok', 'ok') },
+  // the owner's sketch: the client and the builder see it but did not attach it (403); the owner, walked last, removes it
+  {
+    method: 'DELETE',
+    path: '/api/uploads/:id',
+    expect: a(401, 403, 404, 403, 'ok'),
+    params: (ids) => ({ id: ids.ownerUpload }),
+  },
+  // an hour count and a week are not prices
+  { method: 'GET', path: '/api/lead-time', expect: anyone, query: { hours: '35' } },
 
   // estimates: the owner's to edit and send, the client's (own, once sent) to read, accept and pay
   { method: 'GET', path: '/api/estimates/:id', expect: a(401, 'ok', 404, 403, 'ok') },
@@ -123,6 +138,21 @@ export const ACCESS: RouteAccess[] = [
     body: () => ({ acceptedName: 'Tomasz Wierzbicki' }),
   },
   { method: 'POST', path: '/api/estimates/:id/deposit-checkout', expect: ownClient },
+  // the deposit is paid, so the owner's withdrawal is refused with 409: access, and the world stays as it is
+  {
+    method: 'POST',
+    path: '/api/estimates/:id/withdraw',
+    expect: ownerOnly,
+    body: () => ({ reason: 'The client asked for a different finish.' }),
+  },
+  // the client's return from Checkout: their own session (already recorded, so nothing changes)
+  {
+    method: 'POST',
+    path: '/api/payments/confirm',
+    expect: a(401, 'ok', 404, 403, 403),
+    body: (ids) => ({ sessionId: ids.tomaszSession }),
+  },
+  { method: 'POST', path: '/api/jobs/:id/relayout', expect: ownerOnly },
 
   // money: the owner's alone
   { method: 'GET', path: '/api/payments', expect: ownerOnly },
@@ -159,6 +189,7 @@ export function defaultParams(path: string, ids: WorldIds): Record<string, strin
   if (path.startsWith('/api/estimates/')) return { id: ids.tomaszEstimate };
   if (path.startsWith('/api/jobs/')) return { id: ids.tomaszJob };
   if (path.startsWith('/api/payments/')) return { id: ids.tomaszDeposit };
+  if (path.startsWith('/api/uploads/')) return { id: ids.tomaszUpload };
   if (path.startsWith('/api/mail/')) return { id: ids.mailId };
   if (path.startsWith('/api/designs/')) return { slug: 'bookcase' };
   return {};

@@ -33,6 +33,7 @@ async function call(route: RouteAccess, role: Role, cookie: string) {
   const path = fill(route.path, (route.params ?? ((ids) => defaultParams(route.path, ids)))(w.ids));
   let req = request(w.api)[route.method.toLowerCase() as 'get'](path);
   if (cookie) req = req.set('Cookie', cookie);
+  if (route.query) req = req.query(route.query);
   if (route.method !== 'GET') req = req.send((route.body?.(w.ids, role) ?? {}) as object);
   // PDFs and other bodies that are not JSON: read as bytes, never parsed
   return req.buffer(true).parse((res, cb) => {

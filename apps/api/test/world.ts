@@ -1,3 +1,4 @@
+import sharp from 'sharp';
 import { createServer, type Server } from 'node:http';
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -34,6 +35,12 @@ export interface WorldIds {
   tomaszEstimate: string;
   tomaszJob: string;
   tomaszDeposit: string;
+  /** the Checkout Session of Tomasz's deposit */
+  tomaszSession: string;
+  /** a photo Tomasz attached to his project */
+  tomaszUpload: string;
+  /** a sketch the owner attached to Tomasz's project */
+  ownerUpload: string;
   /** the guild's project: a request, no estimate */
   guildProject: string;
   /** a queued mail (SMTP is a closed port, so every mail stays pending) */
@@ -117,6 +124,12 @@ export async function seededWorld(overrides: Record<string, string> = {}): Promi
     tomaszJob: q<{ id: string }>('select id from jobs where project_id = ?', tomaszProject).id,
     tomaszDeposit: q<{ id: string }>("select id from payments where project_id = ? and kind = 'deposit'", tomaszProject)
       .id,
+    tomaszSession: q<{ s: string }>(
+      "select stripe_session_id as s from payments where project_id = ? and kind = 'deposit'",
+      tomaszProject,
+    ).s,
+    tomaszUpload: '',
+    ownerUpload: '',
     guildProject: projectOf(userId(EMAILS.guild)),
     mailId: q<{ id: string }>('select id from outbox limit 1').id,
   };
@@ -141,5 +154,19 @@ export async function seededWorld(overrides: Record<string, string> = {}): Promi
     await new Promise((r) => fakeServer.close(r));
     db.$client.close();
   }
+  // a photo of the space attached by Tomasz, through the real route (sharp makes a small PNG)
+  const photo = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#c8a27a' } })
+    .png()
+    .toBuffer();
+  const up = await (await signIn(EMAILS.tomasz))
+    .post(`/api/projects/${tomaszProject}/uploads`)
+    .attach('file', photo, 'hall.png');
+  if (up.status !== 201) throw new Error(`the demo upload failed: ${up.status} ${JSON.stringify(up.body)}`);
+  ids.tomaszUpload = up.body.upload.id;
+  const shopUp = await (await signIn(EMAILS.owner))
+    .post(`/api/projects/${tomaszProject}/uploads`)
+    .attach('file', photo, 'sketch.png');
+  if (shopUp.status !== 201) throw new Error(`the owner's demo upload failed: ${shopUp.status}`);
+  ids.ownerUpload = shopUp.body.upload.id;
   return { db, env, app, api, stripeBase, ids, cookie, signIn, close };
 }
