@@ -38,10 +38,18 @@ export interface MailWorker {
   stop(): Promise<void>;
 }
 
+/** How many due messages one read of the outbox takes, and how many are in flight at once over the pool. */
+const BATCH = 100;
+const IN_FLIGHT = 4;
+/** A tick drains what is due for at most this long, so stop() never waits on a long backlog. */
+const TICK_BUDGET_MS = 5_000;
+
 /**
- * The outbox worker: sends due messages over SMTP, marking each sent only
- * once the server has accepted it, and retrying with backoff (1 s doubling
- * to 5 min) while SMTP is down. Every attempt carries the same Message-ID.
+ * The outbox worker: sends due messages over a pooled SMTP transport (a few connections, reused), several at a time,
+ * and keeps reading the outbox while messages are due, so a burst of writes does not queue behind the tick interval.
+ * Each message is marked sent only once the server has accepted it, and retried with backoff (1 s doubling to 5 min)
+ * while SMTP is down. Every attempt carries the same Message-ID, so delivery is at least once: a crash between the
+ * server's acceptance and the outbox's update sends the message again with that Message-ID.
  */
 export function createMailWorker(
   db: Db,
@@ -52,6 +60,9 @@ export function createMailWorker(
 ): MailWorker {
   const url = new URL(smtpUrl);
   const transport: Transporter = nodemailer.createTransport({
+    pool: true,
+    maxConnections: IN_FLIGHT,
+    maxMessages: 100,
     host: url.hostname,
     port: Number(url.port || (url.protocol === 'smtps:' ? 465 : 25)),
     secure: url.protocol === 'smtps:',
@@ -64,49 +75,60 @@ export function createMailWorker(
   let timer: NodeJS.Timeout | null = null;
   let running: Promise<number> | null = null;
 
+  /** Sends one message and records the outcome; false when SMTP refused it (it waits for its backoff). */
+  async function sendOne(m: typeof outbox.$inferSelect): Promise<boolean> {
+    try {
+      await transport.sendMail({
+        from,
+        to: m.to,
+        subject: m.subject,
+        text: m.text,
+        html: m.html,
+        messageId: m.messageId,
+        attachments: m.attachments?.map((a) => ({ ...a, path: resolve(filesDir, a.path) })),
+      });
+      db.update(outbox)
+        .set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null })
+        .where(eq(outbox.id, m.id))
+        .run();
+      return true;
+    } catch (err) {
+      const attempts = m.attempts + 1;
+      const delay = Math.min(300_000, 1000 * 2 ** Math.min(attempts - 1, 9));
+      db.update(outbox)
+        .set({
+          attempts,
+          lastError: String((err as Error).message ?? err).slice(0, 500),
+          nextAttemptAt: new Date(Date.now() + delay),
+        })
+        .where(eq(outbox.id, m.id))
+        .run();
+      log.warn({ outboxId: m.id, attempts, retryInMs: delay }, 'mail not sent; will retry');
+      return false;
+    }
+  }
+
   async function tick(): Promise<number> {
     if (running) return running;
     running = (async () => {
       let sent = 0;
-      const due = db
-        .select()
-        .from(outbox)
-        .where(and(eq(outbox.status, 'pending'), lte(outbox.nextAttemptAt, new Date())))
-        .orderBy(asc(outbox.createdAt))
-        .limit(20)
-        .all();
-      for (const m of due) {
-        try {
-          await transport.sendMail({
-            from,
-            to: m.to,
-            subject: m.subject,
-            text: m.text,
-            html: m.html,
-            messageId: m.messageId,
-            attachments: m.attachments?.map((a) => ({ ...a, path: resolve(filesDir, a.path) })),
-          });
-          db.update(outbox)
-            .set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null })
-            .where(eq(outbox.id, m.id))
-            .run();
-          sent++;
-        } catch (err) {
-          const attempts = m.attempts + 1;
-          const delay = Math.min(300_000, 1000 * 2 ** Math.min(attempts - 1, 9));
-          db.update(outbox)
-            .set({
-              attempts,
-              lastError: String((err as Error).message ?? err).slice(0, 500),
-              nextAttemptAt: new Date(Date.now() + delay),
-            })
-            .where(eq(outbox.id, m.id))
-            .run();
-          log.warn({ outboxId: m.id, attempts, retryInMs: delay }, 'mail not sent; will retry');
-          break; // SMTP is likely down: wait for the next tick
+      const until = Date.now() + TICK_BUDGET_MS;
+      for (;;) {
+        const due = db
+          .select()
+          .from(outbox)
+          .where(and(eq(outbox.status, 'pending'), lte(outbox.nextAttemptAt, new Date())))
+          .orderBy(asc(outbox.createdAt))
+          .limit(BATCH)
+          .all();
+        let refused = false;
+        for (let i = 0; i < due.length && !refused; i += IN_FLIGHT) {
+          const results = await Promise.all(due.slice(i, i + IN_FLIGHT).map(sendOne));
+          sent += results.filter(Boolean).length;
+          refused = results.includes(false); // SMTP is likely down: the rest wait for the next tick
         }
+        if (refused || due.length < BATCH || Date.now() > until) return sent;
       }
-      return sent;
     })().finally(() => {
       running = null;
     });
