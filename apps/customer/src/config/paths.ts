@@ -12,9 +12,9 @@ export const paths = {
   design: { path: '/designs/:slug', getHref: (slug: string) => `/designs/${encodeURIComponent(slug)}` },
   projects: { path: '/projects', getHref: () => '/projects' },
   project: { path: '/projects/:id', getHref: (id: string) => `/projects/${encodeURIComponent(id)}` },
-  /** served by the API through the dev proxy; a plain link so the browser downloads it */
   /** a project's file and its thumbnail, served by the API (through the dev proxy) */
   upload: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}` },
   uploadThumbnail: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}/thumbnail` },
+  /** served by the API through the dev proxy; a plain link so the browser downloads it */
   estimatePdf: { getHref: (id: string) => `/api/estimates/${encodeURIComponent(id)}/pdf` },
 } as const;

@@ -26,7 +26,7 @@ export function TravellerPage({
   const q = useTraveller(id);
   const stages = useStages();
   const relayout = useRelayout();
-  if (q.isPending) return <p>Laying out the sheets for this job…</p>;
+  if (q.isPending) return <p>Opening the job’s paper…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
   const t = q.data;
   const stageLabel = (key: string) => stages.data?.find((s) => s.key === key)?.label ?? key.replace(/_/g, ' ');
