@@ -13,4 +13,12 @@ export {
 export { api, ApiRequestError } from './api-client';
 export { applyServerIssues } from './form-errors';
 export { useComment } from './comments';
+export {
+  attachUpload,
+  deleteUpload,
+  projectUploadsQueryOptions,
+  useAttachUpload,
+  useDeleteUpload,
+  useProjectUploads,
+} from './uploads-api';
 export { UploadGallery, formatBytes } from './uploads';

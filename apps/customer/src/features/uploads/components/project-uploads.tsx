@@ -1,8 +1,5 @@
-import { Panel, UploadGallery } from '@benchwright/ui';
+import { Panel, UploadGallery, useAttachUpload, useDeleteUpload, useProjectUploads } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
-import { useAttachUpload } from '../api/attach-upload';
-import { useDeleteUpload } from '../api/delete-upload';
-import { useProjectUploads } from '../api/get-uploads';
 
 /** The board's stages as the client reads them (the shop's default names). */
 const STAGE_WORDS: Record<string, string> = {

@@ -1,8 +1,5 @@
-import { Panel, UploadGallery } from '@benchwright/ui';
+import { Panel, UploadGallery, useAttachUpload, useDeleteUpload, useProjectUploads } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
-import { useAttachUpload } from '../api/attach-upload';
-import { useDeleteUpload } from '../api/delete-upload';
-import { useProjectUploads } from '../api/get-uploads';
 
 /**
  * A project's files for the shop. On the request page anyone attaches a file; on the job page (`progress`) the
