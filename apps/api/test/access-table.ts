@@ -164,6 +164,7 @@ export const ACCESS: RouteAccess[] = [
   { method: 'GET', path: '/api/jobs/:id', expect: shopStaff },
   { method: 'GET', path: '/api/jobs/:id/traveller', expect: shopStaff },
   { method: 'GET', path: '/api/jobs/:id/traveller.pdf', expect: shopStaff },
+  { method: 'GET', path: '/api/jobs/:id/labels.pdf', expect: shopStaff },
   {
     method: 'PATCH',
     path: '/api/jobs/:id',

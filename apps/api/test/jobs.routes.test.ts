@@ -1,3 +1,9 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import jsQR from 'jsqr';
+import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { EMAILS, seededWorld, type World } from './world';
 
@@ -125,6 +131,45 @@ describe('GET /api/jobs/:id/traveller.pdf', () => {
     const { w, builder, tomasz } = box.c;
     expect((await bytes(builder.get('/api/jobs/no-such-job/traveller.pdf'))).status).toBe(404);
     expect((await bytes(tomasz.get(`/api/jobs/${w.ids.tomaszJob}/traveller.pdf`))).status).toBe(403);
+  });
+});
+
+describe('GET /api/jobs/:id/labels.pdf', () => {
+  const box = world();
+  it('prints one label per part to cut, 30 to a Letter page, each with a QR code that opens the job', async () => {
+    const { w, builder } = box.c;
+    const traveller = (await builder.get(`/api/jobs/${w.ids.tomaszJob}/traveller`)).body.traveller as {
+      pieces: { parts: { name: string; quantity: number }[] }[];
+    };
+    const units = traveller.pieces.flatMap((p) => p.parts).reduce((n, p) => n + p.quantity, 0);
+    const r = await bytes(builder.get(`/api/jobs/${w.ids.tomaszJob}/labels.pdf`));
+    expect(r.status).toBe(200);
+    expect(r.headers['content-type']).toMatch(/application\/pdf/);
+    const dir = mkdtempSync(join(tmpdir(), 'bw-labels-'));
+    const file = join(dir, 'labels.pdf');
+    writeFileSync(file, r.body as Buffer);
+    const info = execFileSync('pdfinfo', [file]).toString();
+    expect(info).toMatch(/Page size:\s+612 x 792 pts/); // US Letter
+    expect(Number(/Pages:\s+(\d+)/.exec(info)?.[1])).toBe(Math.ceil(units / 30));
+    const text = execFileSync('pdftotext', ['-layout', file, '-']).toString();
+    const first = traveller.pieces[0]!.parts[0]!;
+    expect(text).toContain(`${first.name} 1/${first.quantity}`);
+    expect(text).toContain(`${first.name} ${first.quantity}/${first.quantity}`);
+    // the QR code, read back from the PDF's first image, opens the job's page in the shop app
+    execFileSync('pdfimages', ['-f', '1', '-l', '1', '-png', file, join(dir, 'img')]);
+    const png = readdirSync(dir).find((f) => f.startsWith('img') && f.endsWith('.png'))!;
+    const { data, info: px } = await sharp(readFileSync(join(dir, png)))
+      .extend({ top: 8, bottom: 8, left: 8, right: 8, background: '#ffffff' })
+      .ensureAlpha()
+      .raw()
+      .toBuffer({ resolveWithObject: true });
+    const code = jsQR(new Uint8ClampedArray(data), px.width, px.height);
+    expect(code?.data).toMatch(new RegExp(`/jobs/${w.ids.tomaszJob}$`));
+  });
+  it('answers 404 for a job that does not exist and refuses a client with 403', async () => {
+    const { w, builder, tomasz } = box.c;
+    expect((await bytes(builder.get('/api/jobs/no-such-job/labels.pdf'))).status).toBe(404);
+    expect((await bytes(tomasz.get(`/api/jobs/${w.ids.tomaszJob}/labels.pdf`))).status).toBe(403);
   });
 });
 

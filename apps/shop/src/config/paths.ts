@@ -12,6 +12,8 @@ export const paths = {
   upload: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}` },
   uploadThumbnail: { getHref: (id: string) => `/api/uploads/${encodeURIComponent(id)}/thumbnail` },
   travellerPdf: { getHref: (id: string) => `/api/jobs/${encodeURIComponent(id)}/traveller.pdf` },
+  /** the part-label sheets (30 labels of 2 5/8 x 1 in to a Letter page) */
+  labelsPdf: { getHref: (id: string) => `/api/jobs/${encodeURIComponent(id)}/labels.pdf` },
   requests: { path: '/requests', getHref: () => '/requests' },
   request: { path: '/requests/:id', getHref: (id: string) => `/requests/${encodeURIComponent(id)}` },
   team: { path: '/team', getHref: () => '/team' },

@@ -20,6 +20,10 @@ export function jobsRoutes(service: JobsService): Router {
     const { pdf, filename } = await service.travellerPdf(req.params.id);
     res.type('application/pdf').attachment(filename).send(pdf);
   });
+  r.get('/:id/labels.pdf', async (req, res) => {
+    const { pdf, filename } = await service.labelsPdf(req.params.id);
+    res.type('application/pdf').attachment(filename).send(pdf);
+  });
   r.get('/:id/traveller', async (req, res) => {
     res.json({ traveller: await service.traveller(req.params.id) });
   });

@@ -8,6 +8,7 @@ import { loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
 import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from '../../lib/record';
 import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
+import { renderLabelsPdf } from '../../lib/pdf/labels-pdf';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent } from '../../lib/timeline';
@@ -26,7 +27,7 @@ export function openJob(tx: Tx, projectId: string, hoursBudget: Partial<Record<S
     .run();
 }
 
-export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
+export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, shopUrl = portalUrl) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
     const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
@@ -203,6 +204,18 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
         traveller: t,
       });
       return { pdf, filename: `traveller-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };
+    },
+    /** The part labels (30 to a Letter sheet), each with a QR code that opens the job's page in the shop app. */
+    async labelsPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {
+      const { job, units, pieces } = await this.traveller(id);
+      const pdf = await renderLabelsPdf({
+        shopName: loadPricing(db).shopName,
+        clientName: job.clientName,
+        jobUrl: `${shopUrl}/jobs/${job.id}`,
+        units,
+        traveller: { pieces },
+      });
+      return { pdf, filename: `labels-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };
     },
     update(
       actor: User,

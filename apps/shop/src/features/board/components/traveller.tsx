@@ -43,6 +43,9 @@ export function TravellerPage({
           <a href={paths.travellerPdf.getHref(t.job.id)} className="px-4 py-2 font-semibold text-wood underline">
             Download PDF
           </a>
+          <a href={paths.labelsPdf.getHref(t.job.id)} className="px-4 py-2 font-semibold text-wood underline">
+            Part labels (PDF)
+          </a>
           <Button variant="quiet" onClick={() => window.print()}>
             Print
           </Button>
