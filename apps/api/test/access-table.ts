@@ -166,6 +166,13 @@ export const ACCESS: RouteAccess[] = [
   { method: 'GET', path: '/api/jobs/:id/traveller.pdf', expect: shopStaff },
   { method: 'GET', path: '/api/jobs/:id/labels.pdf', expect: shopStaff },
   {
+    method: 'PUT',
+    path: '/api/jobs/:id/checks/:key',
+    expect: shopStaff,
+    params: (ids) => ({ id: ids.tomaszJob, key: 'cutting.parts' }),
+    body: () => ({ done: true }),
+  },
+  {
     method: 'PATCH',
     path: '/api/jobs/:id',
     expect: a(401, 403, 403, 403, 'ok'),

@@ -173,6 +173,34 @@ describe('GET /api/jobs/:id/labels.pdf', () => {
   });
 });
 
+describe('PUT /api/jobs/:id/checks/:key', () => {
+  const box = world();
+  type Step = { key: string; stage: string; text: string; done: { by: string; at: string } | null };
+  it('ticks a step of the checklist with who and when, shows it on the traveller, and unticks it', async () => {
+    const { w, builder, owner } = box.c;
+    const builderName = (await builder.get('/api/auth/me')).body.user.name as string;
+    const before = (await builder.get(`/api/jobs/${w.ids.tomaszJob}/traveller`)).body.traveller.checklist as Step[];
+    expect(before.find((i) => i.key === 'cutting.parts')?.done).toBeNull();
+    const r = await builder.put(`/api/jobs/${w.ids.tomaszJob}/checks/cutting.parts`).send({ done: true });
+    expect(r.status).toBe(200);
+    const ticked = (r.body.checklist as Step[]).find((i) => i.key === 'cutting.parts')!;
+    expect(ticked.done?.by).toBe(builderName);
+    expect(Date.now() - Date.parse(ticked.done!.at)).toBeLessThan(60_000);
+    const seen = (await owner.get(`/api/jobs/${w.ids.tomaszJob}/traveller`)).body.traveller.checklist as Step[];
+    expect(seen.find((i) => i.key === 'cutting.parts')?.done?.by).toBe(builderName);
+    const off = await owner.put(`/api/jobs/${w.ids.tomaszJob}/checks/cutting.parts`).send({ done: false });
+    expect((off.body.checklist as Step[]).find((i) => i.key === 'cutting.parts')?.done).toBeNull();
+  });
+  it('refuses a step the job does not have (404), a malformed step or body (400), and a client (403)', async () => {
+    const { w, builder, tomasz } = box.c;
+    const url = `/api/jobs/${w.ids.tomaszJob}/checks`;
+    expect((await builder.put(`${url}/cutting.no-such-step`).send({ done: true })).status).toBe(404);
+    expect((await builder.put(`${url}/DROP TABLE`).send({ done: true })).status).toBe(400);
+    expect((await builder.put(`${url}/cutting.parts`).send({ done: 'yes' })).status).toBe(400);
+    expect((await tomasz.put(`${url}/cutting.parts`).send({ done: true })).status).toBe(403);
+  });
+});
+
 describe('PATCH /api/jobs/:id', () => {
   const box = world();
   it('when the builder moves the job to the next stage, moves it and notes it on the timeline', async () => {

@@ -253,6 +253,13 @@ export const LogTimeBody = z.object({
   note: multiLine().max(500).default(''),
 });
 
+/** `PUT /api/jobs/:id/checks/:key`: a step of the stage checklist ticked or unticked. */
+export const CheckBody = z.object({ done: z.boolean() });
+export const CheckKey = z
+  .string()
+  .regex(/^[a-z_]+\.[a-z-]+$/, 'Name a step of the checklist.')
+  .max(80);
+
 /** `GET /api/estimates/:id`: what a client sees; the owner also gets the fields marked owner. */
 export interface EstimateView {
   id: string;

@@ -41,3 +41,5 @@ export {
 } from './price-book';
 export { leadTime, bookedHours, leadTimeDates } from './lead-time';
 export type { LeadTime, BookedJob } from './lead-time';
+export { stageChecklist } from './checklist';
+export type { ChecklistItem } from './checklist';

@@ -255,6 +255,22 @@ export const jobLayouts = sqliteTable(
   (t) => [index('job_layouts_job').on(t.jobId)],
 );
 
+/** A step of a job's stage checklist ticked off: who and when (unticking removes the row). */
+export const jobChecks = sqliteTable(
+  'job_checks',
+  {
+    jobId: text()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    itemKey: text().notNull(),
+    userId: text()
+      .notNull()
+      .references(() => users.id),
+    checkedAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.jobId, t.itemKey] })],
+);
+
 export const timeEntries = sqliteTable('time_entries', {
   id: text().primaryKey(),
   jobId: text()

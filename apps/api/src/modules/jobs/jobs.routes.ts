@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { LogTimeBody, UpdateJobBody } from '@benchwright/contracts';
+import { CheckBody, CheckKey, LogTimeBody, UpdateJobBody } from '@benchwright/contracts';
 import { parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { JobsService } from './jobs.service';
@@ -26,6 +26,11 @@ export function jobsRoutes(service: JobsService): Router {
   });
   r.get('/:id/traveller', async (req, res) => {
     res.json({ traveller: await service.traveller(req.params.id) });
+  });
+  r.put('/:id/checks/:key', async (req, res) => {
+    const key = parse(CheckKey, req.params.key);
+    const { done } = parse(CheckBody, req.body);
+    res.json({ checklist: await service.check(currentUser(res), req.params.id, key, done) });
   });
   r.post('/:id/relayout', async (req, res) => {
     res.status(201).json({ traveller: await service.relayout(currentUser(res), req.params.id) });

@@ -1,9 +1,9 @@
 import { randomUUID } from 'node:crypto';
-import { asc, desc, eq } from 'drizzle-orm';
-import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
+import { and, asc, desc, eq } from 'drizzle-orm';
+import { stageChecklist, STAGE_KEYS, type StageKey, type Traveller } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
-import { estimates, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
+import { estimates, jobChecks, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
 import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from '../../lib/record';
@@ -111,6 +111,20 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, s
     }
   }
 
+  /** The job's stage checklist from its paper, with who ticked each step and when. */
+  function checklistOf(jobId: string, paper: Traveller) {
+    const done = new Map(
+      db
+        .select({ key: jobChecks.itemKey, at: jobChecks.checkedAt, by: users.name })
+        .from(jobChecks)
+        .innerJoin(users, eq(users.id, jobChecks.userId))
+        .where(eq(jobChecks.jobId, jobId))
+        .all()
+        .map((c) => [c.key, { by: c.by, at: c.at.toISOString() }]),
+    );
+    return stageChecklist(paper).map((i) => ({ ...i, done: done.get(i.key) ?? null }));
+  }
+
   /** The job's paper: the accepted revision and its record. */
   async function accepted(j: typeof jobs.$inferSelect) {
     const est =
@@ -151,6 +165,7 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, s
       return {
         job: view(j),
         ...paper,
+        checklist: checklistOf(j.id, paper),
         hoursByStage: budget,
         totalHours: totalOf(budget),
         layout: again
@@ -204,6 +219,21 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, s
         traveller: t,
       });
       return { pdf, filename: `traveller-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };
+    },
+    /** Ticks or unticks a step of the job's checklist (a step the job's paper does not have is 404). */
+    async check(actor: User, id: string, key: string, done: boolean) {
+      const j = row(id);
+      const { record } = await accepted(j);
+      const paper = latestRelayout(db, j.id)?.record.traveller ?? record.traveller;
+      if (!stageChecklist(paper).some((i) => i.key === key))
+        throw new NotFound('That step is not on this job’s checklist.');
+      if (done)
+        db.insert(jobChecks).values({ jobId: j.id, itemKey: key, userId: actor.id }).onConflictDoNothing().run();
+      else
+        db.delete(jobChecks)
+          .where(and(eq(jobChecks.jobId, j.id), eq(jobChecks.itemKey, key)))
+          .run();
+      return checklistOf(j.id, paper);
     },
     /** The part labels (30 to a Letter sheet), each with a QR code that opens the job's page in the shop app. */
     async labelsPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {

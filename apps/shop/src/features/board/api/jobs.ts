@@ -1,7 +1,7 @@
 import { queryOptions, useIsMutating, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ProjectStatus, StageKey } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
-import type { LengthUnit, Traveller } from '@benchwright/pricing/geometry';
+import type { ChecklistItem, LengthUnit, Traveller } from '@benchwright/pricing/geometry';
 
 export type { StageKey };
 type Hours = Partial<Record<StageKey, number>> & { total: number };
@@ -76,8 +76,11 @@ export function useLogTime() {
  * The job's traveller: cut list, sheet layouts, pick list, hours and cautions, as kept with the accepted
  * revision (or laid out again by the owner, which `layout` says); no prices.
  */
+export type ChecklistStep = ChecklistItem & { done: { by: string; at: string } | null };
 export type JobTraveller = Traveller & {
   job: Job;
+  /** the stage checklist, with who ticked each step and when */
+  checklist: ChecklistStep[];
   units: LengthUnit;
   layout?: { source: 'revision' | 'relayout'; revision: number; at: string; note: string };
 };
@@ -110,5 +113,21 @@ export function useRelayout() {
     mutationFn: (id: string) =>
       api<{ traveller: JobTraveller }>(`/jobs/${encodeURIComponent(id)}/relayout`, { method: 'POST' }),
     onSuccess: (r, id) => qc.setQueryData(travellerQueryOptions(id).queryKey, r.traveller),
+  });
+}
+
+/** The builder ticks (or unticks) a step of the job's stage checklist; who and when are kept. */
+export function useCheckStep() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, key, done }: { id: string; key: string; done: boolean }) =>
+      api<{ checklist: ChecklistStep[] }>(`/jobs/${encodeURIComponent(id)}/checks/${encodeURIComponent(key)}`, {
+        method: 'PUT',
+        body: { done },
+      }),
+    onSuccess: (r, v) =>
+      qc.setQueryData(travellerQueryOptions(v.id).queryKey, (t: JobTraveller | undefined) =>
+        t ? { ...t, checklist: r.checklist } : t,
+      ),
   });
 }

@@ -4,6 +4,7 @@ import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../../compone
 import { paths } from '../../../config/paths';
 import type { ReactNode } from 'react';
 import { useRelayout, useStages, useTraveller, type JobTraveller } from '../api/jobs';
+import { StageChecklist } from './stage-checklist';
 
 /**
  * The builder's shop paper for one job, on screen and printed: hours against
@@ -102,6 +103,7 @@ export function TravellerPage({
         </table>
       </Panel>
 
+      <StageChecklist t={t} stageLabel={stageLabel} order={stages.data?.map((s) => s.key) ?? []} />
       <CutListPanel layouts={t} />
       <SheetLayoutsPanel layouts={t} />
       <PickListPanel layouts={t} />
