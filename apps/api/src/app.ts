@@ -19,6 +19,7 @@ import { quotesRoutes } from './modules/quotes/quotes.routes';
 import { usersRoutes } from './modules/users/users.routes';
 import { loadPricing } from './lib/engine';
 import { createEnginePool, type EnginePool } from './lib/engine-pool';
+import { createPdfPool } from './lib/pdf-pool';
 import { createStripe } from './lib/stripe';
 import { createEstimatesService } from './modules/estimates/estimates.service';
 import { estimatesRoutes, projectMoneyRoutes } from './modules/estimates/estimates.routes';
@@ -74,7 +75,14 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
       quickMs: env.ENGINE_QUICK_MS,
       thoroughMs: env.ENGINE_THOROUGH_MS,
     });
-  const estimatesService = createEstimatesService({ db, pdfDir: env.PDF_DIR, portalUrl: env.PORTAL_URL, pool });
+  const pdfs = createPdfPool({ maxQueue: env.PDF_QUEUE, timeoutMs: env.PDF_TIMEOUT_MS });
+  const estimatesService = createEstimatesService({
+    db,
+    pdfDir: env.PDF_DIR,
+    portalUrl: env.PORTAL_URL,
+    pool,
+    pdfs,
+  });
   const paymentsService = createPaymentsService({
     db,
     stripe: createStripe(env),
@@ -82,7 +90,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     portalUrl: env.PORTAL_URL,
     shopUrl: env.SHOP_URL,
   });
-  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.SHOP_URL);
+  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.SHOP_URL, pdfs);
 
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(helmet());
@@ -149,5 +157,6 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   return Object.assign(app, {
     services: { estimates: estimatesService, payments: paymentsService, jobs: jobsService, auth },
     pool,
+    pdfs,
   });
 }

@@ -77,6 +77,9 @@ const Env = z.object({
   ENGINE_QUEUE: z.coerce.number().int().min(0).default(16),
   ENGINE_QUICK_MS: z.coerce.number().int().positive().default(2_000),
   ENGINE_THOROUGH_MS: z.coerce.number().int().positive().default(10_000),
+  // the PDF worker (lib/pdf-pool.ts): documents that may wait for it, and the time limit per document
+  PDF_QUEUE: z.coerce.number().int().min(0).default(8),
+  PDF_TIMEOUT_MS: z.coerce.number().int().positive().default(30_000),
   JSON_LIMIT: z.string().default('100kb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: bool.default(true),

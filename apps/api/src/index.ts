@@ -61,7 +61,7 @@ async function shutdown(signal: string) {
   server.close();
   server.closeIdleConnections();
   await Promise.all([worker.stop(), sweeper.stop()]);
-  await app.pool.close();
+  await Promise.all([app.pool.close(), app.pdfs.close()]);
   db.$client.close();
   process.exit(0);
 }

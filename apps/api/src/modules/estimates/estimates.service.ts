@@ -21,7 +21,7 @@ import type { EnginePool } from '../../lib/engine-pool';
 import { priceRecord, storedRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail, withdrawnMail } from '../../lib/mail-templates';
-import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
+import type { PdfPool } from '../../lib/pdf-pool';
 import { addEvent } from '../../lib/timeline';
 import { Conflict, Invalid, NotFound } from '../../lib/errors';
 import { assertCan, moveProject } from '../projects/lifecycle';
@@ -31,6 +31,8 @@ export interface EstimateDeps {
   pdfDir: string;
   portalUrl: string;
   pool: EnginePool;
+  /** renders the sent estimate's PDF off the request thread */
+  pdfs: PdfPool;
 }
 
 type EstimateRow = typeof estimates.$inferSelect;
@@ -58,7 +60,7 @@ export interface LineEdit {
 /** A short estimate number people can read over the phone: the project's first 6 characters. */
 export const estimateNumber = (projectId: string) => `E-${projectId.slice(0, 6).toUpperCase()}`;
 
-export function createEstimatesService({ db, pdfDir, portalUrl, pool }: EstimateDeps) {
+export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: EstimateDeps) {
   function row(id: string): EstimateRow {
     const e = db.select().from(estimates).where(eq(estimates.id, id)).get();
     if (!e) throw new NotFound('The estimate');
@@ -370,54 +372,57 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
       const engine = e.engine as EngineRecord | null;
       const nameOf = (mid: string) =>
         book.sheetGoods.find((m) => m.id === mid)?.name ?? book.lumber.find((m) => m.id === mid)?.name ?? mid;
-      const pdf = await renderEstimatePdf({
-        shop: { name: shop.shopName, address: shop.address, email: shop.email, phone: shop.phone },
-        client: { name: client.name, email: client.email },
-        number: estimateNumber(e.projectId),
-        revision: e.revision,
-        date: sentAt,
-        validUntil,
-        items: items.map((it, i) => {
-          const spec = it.spec as BuildSpec;
-          const hasDrawers = spec.bays.some((b) => b.compartments.some((c) => c.kind === 'drawer'));
-          const top =
-            spec.design === 'assembly-bench'
-              ? spec.top.kind === 'torsion-box'
-                ? [spec.top.skinMaterialId, spec.top.coreMaterialId]
-                : []
-              : [];
-          const mats = [
-            ...new Set([
-              spec.carcassMaterialId,
-              spec.frontMaterialId,
-              spec.backMaterialId,
-              ...(hasDrawers ? [spec.drawerMaterialId] : []),
-              ...top,
-              ...(spec.trim ? [spec.trim.lumberId] : []),
-            ]),
-          ].map(nameOf);
-          return {
-            spec,
-            quantity: it.quantity,
-            materials: mats,
-            finish: spec.finishId ? (book.finishes.find((f) => f.id === spec.finishId)?.name ?? spec.finishId) : null,
-            drawing: engine?.drawings[i] ?? {
-              title: designs[spec.design].name,
-              viewBox: { x: 0, y: 0, width: 1, height: 1 },
-              shapes: [],
-            },
-          };
-        }),
-        lines,
-        totals: {
-          subtotalCents: e.subtotalCents,
-          discountCents: e.discountCents,
-          taxCents: e.taxCents,
-          totalCents: e.totalCents,
-          depositCents: e.depositCents,
-          balanceCents: e.balanceCents,
+      const pdf = await pdfs.render({
+        kind: 'estimate',
+        input: {
+          shop: { name: shop.shopName, address: shop.address, email: shop.email, phone: shop.phone },
+          client: { name: client.name, email: client.email },
+          number: estimateNumber(e.projectId),
+          revision: e.revision,
+          date: sentAt,
+          validUntil,
+          items: items.map((it, i) => {
+            const spec = it.spec as BuildSpec;
+            const hasDrawers = spec.bays.some((b) => b.compartments.some((c) => c.kind === 'drawer'));
+            const top =
+              spec.design === 'assembly-bench'
+                ? spec.top.kind === 'torsion-box'
+                  ? [spec.top.skinMaterialId, spec.top.coreMaterialId]
+                  : []
+                : [];
+            const mats = [
+              ...new Set([
+                spec.carcassMaterialId,
+                spec.frontMaterialId,
+                spec.backMaterialId,
+                ...(hasDrawers ? [spec.drawerMaterialId] : []),
+                ...top,
+                ...(spec.trim ? [spec.trim.lumberId] : []),
+              ]),
+            ].map(nameOf);
+            return {
+              spec,
+              quantity: it.quantity,
+              materials: mats,
+              finish: spec.finishId ? (book.finishes.find((f) => f.id === spec.finishId)?.name ?? spec.finishId) : null,
+              drawing: engine?.drawings[i] ?? {
+                title: designs[spec.design].name,
+                viewBox: { x: 0, y: 0, width: 1, height: 1 },
+                shapes: [],
+              },
+            };
+          }),
+          lines,
+          totals: {
+            subtotalCents: e.subtotalCents,
+            discountCents: e.discountCents,
+            taxCents: e.taxCents,
+            totalCents: e.totalCents,
+            depositCents: e.depositCents,
+            balanceCents: e.balanceCents,
+          },
+          depositRate,
         },
-        depositRate,
       });
       mkdirSync(pdfDir, { recursive: true });
       // stored relative to the PDF folder, so a restored backup works wherever the data folder now is

@@ -7,8 +7,7 @@ import { estimates, jobChecks, jobLayouts, jobs, projects, stages, timeEntries, 
 import { loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
 import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from '../../lib/record';
-import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
-import { renderLabelsPdf } from '../../lib/pdf/labels-pdf';
+import type { PdfPool } from '../../lib/pdf-pool';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent } from '../../lib/timeline';
@@ -27,7 +26,7 @@ export function openJob(tx: Tx, projectId: string, hoursBudget: Partial<Record<S
     .run();
 }
 
-export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, shopUrl = portalUrl) {
+export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, shopUrl: string, pdfs: PdfPool) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
     const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
@@ -205,18 +204,21 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, s
     async travellerPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {
       const { job, units, layout, ...t } = await this.traveller(id);
       const labels = Object.fromEntries(this.stages().map((x) => [x.key, x.label]));
-      const pdf = await renderTravellerPdf({
-        shopName: loadPricing(db).shopName,
-        clientName: job.clientName,
-        notes: job.project.notes,
-        stageLabel: labels[job.stage] ?? job.stage,
-        builderName: job.builder?.name ?? null,
-        dueDate: job.dueDate,
-        units,
-        stageLabels: labels,
-        hoursLogged: job.hoursLogged,
-        layoutNote: layout.note,
-        traveller: t,
+      const pdf = await pdfs.render({
+        kind: 'traveller',
+        input: {
+          shopName: loadPricing(db).shopName,
+          clientName: job.clientName,
+          notes: job.project.notes,
+          stageLabel: labels[job.stage] ?? job.stage,
+          builderName: job.builder?.name ?? null,
+          dueDate: job.dueDate,
+          units,
+          stageLabels: labels,
+          hoursLogged: job.hoursLogged,
+          layoutNote: layout.note,
+          traveller: t,
+        },
       });
       return { pdf, filename: `traveller-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };
     },
@@ -238,12 +240,15 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, s
     /** The part labels (30 to a Letter sheet), each with a QR code that opens the job's page in the shop app. */
     async labelsPdf(id: string): Promise<{ pdf: Buffer; filename: string }> {
       const { job, units, pieces } = await this.traveller(id);
-      const pdf = await renderLabelsPdf({
-        shopName: loadPricing(db).shopName,
-        clientName: job.clientName,
-        jobUrl: `${shopUrl}/jobs/${job.id}`,
-        units,
-        traveller: { pieces },
+      const pdf = await pdfs.render({
+        kind: 'labels',
+        input: {
+          shopName: loadPricing(db).shopName,
+          clientName: job.clientName,
+          jobUrl: `${shopUrl}/jobs/${job.id}`,
+          units,
+          traveller: { pieces },
+        },
       });
       return { pdf, filename: `labels-${job.clientName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf` };
     },
