@@ -196,16 +196,21 @@ export function sheetLayoutDrawing(
   const size = L / 70;
   const byId = new Map(parts.map((p) => [p.id, p]));
   const shapes: Shape[] = [{ type: 'rect', x: 0, y: 0, width: L, height: Wd, style: 'sheet' }];
+  // what cut numbers must not cover: the parts' names and sizes, and the numbers already placed
+  const textBoxes: Box[] = [];
+  const smallParts: { n: number; text: string }[] = [];
+  // an offcut's label is drawn last, and only where no cut number had to go
+  const offcutLabels: { shape: Shape; box: Box }[] = [];
   for (const o of sheet.offcuts) {
     shapes.push({ type: 'rect', x: o.xMm, y: o.yMm, width: o.lengthMm, height: o.widthMm, style: 'offcut' });
     if (o.lengthMm > size * 8 && o.widthMm > size * 2.2) {
-      shapes.push({
-        type: 'text',
-        x: o.xMm + o.lengthMm / 2,
-        y: o.yMm + o.widthMm / 2 + size * 0.35,
-        text: `offcut ${fmt(o.lengthMm, unit)} x ${fmt(o.widthMm, unit)}`,
-        size: size * 0.8,
-        anchor: 'middle',
+      const text = `offcut ${fmt(o.lengthMm, unit)} x ${fmt(o.widthMm, unit)}`;
+      const cx = o.xMm + o.lengthMm / 2;
+      const cy = o.yMm + o.widthMm / 2;
+      const w = text.length * 0.55 * size * 0.8;
+      offcutLabels.push({
+        shape: { type: 'text', x: cx, y: cy + size * 0.35, text, size: size * 0.8, anchor: 'middle' },
+        box: { x: cx - w / 2, y: cy - size * 0.5, width: w, height: size },
       });
     }
   }
@@ -216,12 +221,29 @@ export function sheetLayoutDrawing(
     const cy = p.yMm + p.widthMm / 2;
     const name = part?.name ?? p.partId;
     const sizeText = `${fmt(part?.lengthMm ?? p.lengthMm, unit)} x ${fmt(part?.widthMm ?? p.widthMm, unit)}`;
-    // text shrinks to fit the part (about 0.55 em a character); a part too small for legible text is left to the cut list
+    // text shrinks to fit the part (about 0.55 em a character); a part too small for legible text gets a number
+    // and a line in the key under the sheet
     const longest = Math.max(name.length, sizeText.length);
     const s = Math.min(size, p.lengthMm / (longest * 0.55 + 1), p.widthMm / 2.6);
     if (s >= size * 0.45) {
       shapes.push({ type: 'text', x: cx, y: cy - s * 0.15, text: name, size: s, anchor: 'middle', weight: 'bold' });
       shapes.push({ type: 'text', x: cx, y: cy + s * 1.05, text: sizeText, size: s * 0.85, anchor: 'middle' });
+      const w = longest * 0.55 * s;
+      textBoxes.push({ x: cx - w / 2, y: cy - s * 1.15, width: w, height: s * 2.45 });
+    } else {
+      const n = smallParts.length + 1;
+      const ns = Math.min(size * 0.8, p.widthMm * 0.8, p.lengthMm / (String(n).length * 0.6 + 0.4));
+      shapes.push({
+        type: 'text',
+        x: cx,
+        y: cy + ns * 0.35,
+        text: String(n),
+        size: ns,
+        anchor: 'middle',
+        weight: 'bold',
+      });
+      textBoxes.push({ x: cx - ns * 0.4, y: cy - ns * 0.5, width: ns * 0.8, height: ns });
+      smallParts.push({ n, text: `Part ${n}: ${name}, ${sizeText}` });
     }
     if (part && !part.canRotate) {
       // grain runs along the part's length, which is along the sheet's length when unrotated
@@ -230,12 +252,15 @@ export function sheetLayoutDrawing(
       shapes.push({ type: 'arrow', x1: cx - len / 2, y1: ay, x2: cx + len / 2, y2: ay, style: 'guide' });
     }
   }
+  const numberBoxes: Box[] = [];
   for (const c of sheet.cuts) {
     shapes.push({ type: 'line', x1: c.x1Mm, y1: c.y1Mm, x2: c.x2Mm, y2: c.y2Mm, style: 'cut' });
-    // the cut's number sits at its start, where the saw enters
+    // the cut's number sits near its start, where the saw enters, moved along the cut until it covers no other
+    // number and no part's name or size
     const r = size * 0.55;
-    const cx = c.direction === 'rip' ? c.x1Mm + r * 1.3 : c.x1Mm;
-    const cy = c.direction === 'rip' ? c.y1Mm : c.y1Mm + r * 1.3;
+    const { cx, cy } = cutNumberSpot(c, r, textBoxes, numberBoxes);
+    textBoxes.push({ x: cx - r, y: cy - r, width: 2 * r, height: 2 * r });
+    numberBoxes.push({ x: cx - r, y: cy - r, width: 2 * r, height: 2 * r });
     shapes.push({ type: 'circle', cx, cy, r, style: 'cut' });
     shapes.push({
       type: 'text',
@@ -247,6 +272,7 @@ export function sheetLayoutDrawing(
       weight: 'bold',
     });
   }
+  for (const l of offcutLabels) if (!numberBoxes.some((b) => boxesMeet(b, l.box))) shapes.push(l.shape);
   const title = options.title ?? 'Sheet layout';
   shapes.push({
     type: 'text',
@@ -265,7 +291,66 @@ export function sheetLayoutDrawing(
     size: size * 0.8,
     anchor: 'start',
   });
-  return { title, viewBox: { x: -size, y: -size * 2.5, width: L + 2 * size, height: Wd + size * 5 }, shapes };
+  // the key to the numbered small parts, in columns under the legend
+  const perColumn = Math.max(1, Math.ceil(smallParts.length / 3));
+  smallParts.forEach((k, i) => {
+    shapes.push({
+      type: 'text',
+      x: Math.floor(i / perColumn) * (L / 3),
+      y: Wd + size * (2.8 + (i % perColumn) * 1.05),
+      text: k.text,
+      size: size * 0.75,
+      anchor: 'start',
+    });
+  });
+  const keyHeight = smallParts.length > 0 ? size * (1.2 + perColumn * 1.05) : 0;
+  return {
+    title,
+    viewBox: { x: -size, y: -size * 2.5, width: L + 2 * size, height: Wd + size * 5 + keyHeight },
+    shapes,
+  };
+}
+
+interface Box {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+function boxesMeet(a: Box, b: Box): boolean {
+  return a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
+}
+
+function circleHitsBox(cx: number, cy: number, r: number, b: Box): boolean {
+  const nx = Math.max(b.x, Math.min(cx, b.x + b.width));
+  const ny = Math.max(b.y, Math.min(cy, b.y + b.height));
+  return (cx - nx) ** 2 + (cy - ny) ** 2 < r * r;
+}
+
+/** Where a cut's number goes: the first spot along the cut, from the saw's entry, that covers nothing already drawn. */
+function cutNumberSpot(
+  c: { direction: string; x1Mm: number; y1Mm: number; x2Mm: number; y2Mm: number },
+  r: number,
+  taken: readonly Box[],
+  numbers: readonly Box[],
+): { cx: number; cy: number } {
+  const length = Math.hypot(c.x2Mm - c.x1Mm, c.y2Mm - c.y1Mm);
+  const ux = length > 0 ? (c.x2Mm - c.x1Mm) / length : 1;
+  const uy = length > 0 ? (c.y2Mm - c.y1Mm) / length : 0;
+  const first = { cx: c.x1Mm + ux * r * 1.3, cy: c.y1Mm + uy * r * 1.3 };
+  // on the cut first; then beside it, either side, for a short cut crowded by its neighbours
+  // (a crowded spot may, at last, cover a part's text, never another number)
+  for (const free of [taken, numbers]) {
+    for (const aside of [0, 1.2, -1.2, 2.4, -2.4, 3.6, -3.6]) {
+      for (let along = r * 1.3; along <= Math.max(r * 1.3, length - r); along += r * 0.75) {
+        const cx = c.x1Mm + ux * along - uy * aside * r;
+        const cy = c.y1Mm + uy * along + ux * aside * r;
+        if (!free.some((b) => circleHitsBox(cx, cy, r * 1.05, b))) return { cx, cy };
+      }
+    }
+  }
+  return first;
 }
 
 const INK = '#231c15';
