@@ -27,6 +27,8 @@ import { createJobsService } from './modules/jobs/jobs.service';
 import { jobsRoutes } from './modules/jobs/jobs.routes';
 import { mailRoutes } from './modules/mail/mail.routes';
 import { overviewRoutes } from './modules/overview/overview.routes';
+import { createHoursService } from './modules/hours/hours.service';
+import { hoursRoutes } from './modules/hours/hours.routes';
 import { createOverviewService } from './modules/overview/overview.service';
 import { createMailService } from './modules/mail/mail.service';
 import { createPaymentsService } from './modules/payments/payments.service';
@@ -152,6 +154,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
   app.use('/api/mail', requireRole('owner'), mailRoutes(createMailService(db)));
   app.use('/api/overview', requireRole('owner'), overviewRoutes(createOverviewService(db)));
+  app.use('/api/hours-feedback', requireRole('owner'), hoursRoutes(createHoursService(db)));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
   return Object.assign(app, {

@@ -189,6 +189,13 @@ export const ACCESS: RouteAccess[] = [
   { method: 'GET', path: '/api/mail/failed', expect: ownerOnly },
   { method: 'POST', path: '/api/mail/:id/retry', expect: ownerOnly },
   { method: 'GET', path: '/api/overview', expect: ownerOnly },
+  { method: 'GET', path: '/api/hours-feedback', expect: ownerOnly },
+  {
+    method: 'POST',
+    path: '/api/hours-feedback/:stage/dismiss',
+    expect: ownerOnly,
+    params: () => ({ stage: 'casework' }),
+  },
 ];
 
 /** The default value of a path parameter: client A's resource of the kind the path names. */

@@ -253,6 +253,9 @@ export const LogTimeBody = z.object({
   note: multiLine().max(500).default(''),
 });
 
+/** A board stage named in a path. */
+export const StageParam = z.enum(STAGE_KEYS, 'Name a stage of the board.');
+
 /** `PUT /api/jobs/:id/checks/:key`: a step of the stage checklist ticked or unticked. */
 export const CheckBody = z.object({ done: z.boolean() });
 export const CheckKey = z

@@ -271,6 +271,16 @@ export const jobChecks = sqliteTable(
   (t) => [primaryKey({ columns: [t.jobId, t.itemKey] })],
 );
 
+/** Per stage, the owner's last answer to the hours suggestion (applied or dismissed): later deliveries count from it. */
+export const hoursFeedbackMarks = sqliteTable('hours_feedback_marks', {
+  stageKey: text({ enum: STAGE_KEYS }).primaryKey(),
+  action: text({ enum: ['applied', 'dismissed'] }).notNull(),
+  userId: text()
+    .notNull()
+    .references(() => users.id),
+  at: integer({ mode: 'timestamp_ms' }).notNull(),
+});
+
 export const timeEntries = sqliteTable('time_entries', {
   id: text().primaryKey(),
   jobId: text()

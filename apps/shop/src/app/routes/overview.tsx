@@ -1,5 +1,6 @@
 import { RoleGate } from '../../components/layout';
 import { OverviewPage } from '../../features/overview/components/overview';
+import { HoursFeedback } from '../../features/overview/components/hours-feedback';
 import { canSeeOverview } from '../../lib/policies';
 
 export function OverviewRoute() {
@@ -7,6 +8,7 @@ export function OverviewRoute() {
     <RoleGate allow={canSeeOverview}>
       <h1 className="mb-4 text-2xl font-bold">Overview</h1>
       <OverviewPage />
+      <HoursFeedback />
     </RoleGate>
   );
 }

@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+import { hoursFeedback } from './hours-feedback';
+
+const job = (budget: number, logged: number) => ({ budget: { casework: budget }, logged: { casework: logged } });
+const casework = (jobs: Parameters<typeof hoursFeedback>[0]) =>
+  hoursFeedback(jobs).find((s) => s.stage === 'casework')!;
+
+describe('hoursFeedback', () => {
+  it('suggests nothing from fewer than 3 delivered jobs', () => {
+    expect(casework([job(10, 12), job(10, 14)])).toMatchObject({ jobs: 2, suggestedFactor: null });
+  });
+  it('suggests the median ratio of actual to estimated hours once 3 jobs had the stage', () => {
+    // ratios 1.2, 1.4 and 0.9: the median 1.2, so one slow job does not set the standard
+    const s = casework([job(10, 12), job(10, 14), job(10, 9)]);
+    expect(s.medianRatio).toBeCloseTo(1.2);
+    expect(s.suggestedFactor).toBeCloseTo(1.2);
+  });
+  it('holds a suggestion within plus or minus 50 %', () => {
+    expect(casework([job(10, 30), job(10, 25), job(10, 40)]).suggestedFactor).toBe(1.5);
+    expect(casework([job(10, 1), job(10, 2), job(10, 3)]).suggestedFactor).toBe(0.5);
+  });
+  it('looks at the last 10 delivered jobs only, newest first', () => {
+    const newer = Array.from({ length: 10 }, () => job(10, 11));
+    const older = Array.from({ length: 5 }, () => job(10, 30));
+    expect(casework([...newer, ...older])).toMatchObject({ jobs: 10, suggestedFactor: 1.1 });
+  });
+  it('leaves out a job with no hours logged (or none budgeted) in the stage', () => {
+    const s = casework([job(10, 12), job(10, 0), job(0, 5), job(10, 12), job(10, 12)]);
+    expect(s.jobs).toBe(3);
+    expect(s.ratios).toEqual([1.2, 1.2, 1.2]);
+  });
+  it('averages the two middle ratios of an even count', () => {
+    expect(casework([job(10, 10), job(10, 12), job(10, 14), job(10, 16)]).medianRatio).toBeCloseTo(1.3);
+  });
+});
