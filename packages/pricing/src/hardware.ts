@@ -2,18 +2,22 @@ import type { CutList } from './cut-list';
 import { byId, type HardwareItem, type PriceBook } from './price-book';
 import { toMm } from './units';
 
+/** Door weight one concealed hinge is counted to carry (common practice, from memory). */
+export const KG_PER_HINGE = 5;
+
 /**
- * Concealed hinges a door needs by its height: 2 up to 900 mm, 3 up to
- * 1600 mm, 4 up to 2000 mm, 5 above (common practice, from memory).
+ * Concealed hinges a door needs, by its height and its weight: 2 up to
+ * 900 mm, 3 up to 1600 mm, 4 up to 2000 mm, 5 above; and never fewer than one
+ * hinge per 5 kg of door (common practice, from memory).
  *
  * @example hingesPerDoor(762) // 2
+ * @example hingesPerDoor(762, 12) // 3
  */
-export function hingesPerDoor(heightMm: number): number {
+export function hingesPerDoor(heightMm: number, massKg = 0): number {
   if (!(heightMm > 0)) throw new RangeError(`a door height must be positive, got ${heightMm} mm`);
-  if (heightMm <= 900) return 2;
-  if (heightMm <= 1600) return 3;
-  if (heightMm <= 2000) return 4;
-  return 5;
+  if (!(massKg >= 0)) throw new RangeError(`a door's weight cannot be negative, got ${massKg} kg`);
+  const byHeight = heightMm <= 900 ? 2 : heightMm <= 1600 ? 3 : heightMm <= 2000 ? 4 : 5;
+  return Math.max(byHeight, Math.ceil(massKg / KG_PER_HINGE));
 }
 
 /** Drawers wider than this take two pulls (common practice). */
