@@ -77,7 +77,8 @@ export interface PieceGeometry {
   top: { xMm: number; yMm: number; widthMm: number; heightMm: number; kind: string } | null;
   mobility: { kind: 'caster' | 'foot'; xMm: number; heightMm: number }[];
   drawers: DrawerFeature[];
-  doors: { widthMm: number; heightMm: number }[];
+  /** each door with its weight and the overlay of its hinge edge (an end panel, a shared partition, or inset) */
+  doors: { widthMm: number; heightMm: number; massKg: number; overlay: HingeOverlay }[];
   adjustableShelves: number;
   shelfSpans: { spanMm: number; depthMm: number; materialId: string; thicknessMm: number }[];
   caseCount: number;
@@ -168,6 +169,21 @@ export function drawerBox(
   if (boxHeightMm < toMm(1.5))
     throw new RangeError(`a ${round(opening.heightMm)} mm opening is too low for a drawer box`);
   return { boxWidthMm, boxHeightMm, boxDepthMm: toMm(slideIn), slideLengthMm: toMm(slideIn), slideLengthIn: slideIn };
+}
+
+export type HingeOverlay = 'full' | 'half' | 'inset';
+
+/**
+ * The hinge a door's overlap on its hinge edge calls for: none or less is
+ * inset; more than half the panel's thickness is full overlay (a door on an
+ * end panel); half or less is half overlay (a door sharing a partition with
+ * its neighbour, each lapping about half of it): common practice.
+ *
+ * @example hingeOverlay(16.8, 18.26) // 'full'
+ */
+export function hingeOverlay(overlapMm: number, panelThicknessMm: number): HingeOverlay {
+  if (overlapMm <= 0) return 'inset';
+  return overlapMm > panelThicknessMm / 2 ? 'full' : 'half';
 }
 
 function round(v: number): number {
@@ -838,7 +854,14 @@ function buildCase(
             heightMm: top - bottom,
             hinge: doors === 2 ? (d === 0 ? 'left' : 'right') : 'left',
           });
-          geo.doors.push({ widthMm: fw, heightMm: top - bottom });
+          const hingeSide = geo.fronts[geo.fronts.length - 1]?.hinge ?? 'left';
+          const onEnd = hingeSide === 'left' ? b === 0 : b === bays.length - 1;
+          geo.doors.push({
+            widthMm: fw,
+            heightMm: top - bottom,
+            massKg: doorMassKg,
+            overlay: hingeOverlay(onEnd ? t - outerInset : t / 2 - half, t),
+          });
         }
         list.add({
           id: `${ck}-door`,

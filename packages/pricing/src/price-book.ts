@@ -62,6 +62,8 @@ export const HardwareKind = z.enum([
   'rail_screw',
   'anti_tip_kit',
   'hanging_rail',
+  'screw',
+  'bolt',
 ]);
 export type HardwareKind = z.infer<typeof HardwareKind>;
 
@@ -73,8 +75,12 @@ export const HardwareItem = z.object({
   priceCents: cents,
   /** pieces in one priced unit (a box of 100 screws) */
   perUnit: z.number().int().positive().default(1),
-  /** slides: nominal length in inches */
+  /** slides: nominal length in inches; screws and bolts: length under the head */
   lengthIn: positive.optional(),
+  /** hinges: the overlay the hinge is made for (full on an end panel, half on a shared partition, inset) */
+  overlay: z.enum(['full', 'half', 'inset']).optional(),
+  /** screws and bolts: what they fasten (the engine counts each) */
+  fastens: z.enum(['slide', 'hinge', 'drawer_front', 'top', 'caster', 'foot']).optional(),
   /** casters: rated load per caster */
   ratedLoadKg: positive.optional(),
   /** casters and leveling feet: height added under the case */
