@@ -4,14 +4,21 @@ import { toMm } from './units';
 /**
  * The demo shop's price book. INVENTED FOR THE DEMO: the prices and time
  * standards are made up and say nothing of any real supplier or shop.
- * Material properties (thickness, density, modulus) are typical published
- * figures; see each comment.
+ * Material properties (thickness, density, modulus): each comment names the
+ * source actually read, says when it was a secondary copy, and says "from
+ * memory" where no stored copy of a source was found. The Wood Handbook
+ * (USDA Forest Products Laboratory, FPL-GTR-282, 2021) and the APA's panel
+ * design data were the sources sought; no copy of the 2021 edition's tables
+ * was found, so none of the values below is read from it.
  */
 export const demoPriceBook: PriceBook = PriceBook.parse({
   currency: 'USD',
   note: 'Invented demo prices and time standards, for the Fernhill Joinery demo only.',
   sheetGoods: [
-    // modulus 1,800,000 psi: AWS 1st ed. (2009) 4.4.14.10 for veneer-core plywood with hardwood faces; density from memory
+    // Birch plywood (all three thicknesses): modulus 1,800,000 psi (12,410 MPa) as the Architectural Woodwork
+    // Standards, 1st ed. (2009), 4.4.14.10 list hardwood-faced veneer-core plywood (test/fixtures/shelf-spans.md;
+    // not re-read against the standard here). Stored copies of the APA Panel Design Specification (D510) were
+    // found but not their stiffness tables, so the APA figure is not used. Density 680 kg/m3: from memory.
     {
       id: 'birch-ply-18',
       name: '3/4 in birch plywood',
@@ -51,7 +58,11 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       modulusMPa: 12410,
       priceCents: 4200,
     },
-    // MDF: modulus about 500,000 psi and density about 750 kg/m3, from memory
+    // MDF: modulus 3,450 MPa (500,000 psi), from memory. The Wood Handbook (2010, FPL-GTR-190) ch. 12 gives MDF
+    // properties by maker in its Table 12-6 (a secondary copy of the chapter's text was read, not the table);
+    // other secondary pages disagree (makeitfrom.com: 4.0 GPa, 0.75 g/cm3, citing the 1999 Wood Handbook;
+    // kerfworks.org: 350,000 psi for medium-density MDF). Density 750 kg/m3: makeitfrom.com's 0.75 g/cm3
+    // (a secondary copy citing the 1999 Wood Handbook).
     {
       id: 'mdf-18',
       name: '3/4 in MDF',
@@ -80,12 +91,15 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
     },
   ],
   lumber: [
-    // densities and moduli from memory (USDA Wood Handbook order of magnitude)
+    // Clear wood at 12 % moisture. Density at 12 % = specific gravity (oven-dry weight, volume at 12 %) x
+    // 1000 kg/m3 x 1.12. None read from the Wood Handbook itself: each figure's copy is named below.
     {
       id: 'walnut-4-4',
       name: 'Black walnut, 4/4',
       species: 'black walnut',
       roughThicknessIn: 1,
+      // specific gravity 0.55 at 12 %, 609 kg/m3 and modulus 11,584 MPa: Tioga Hardwoods' species page
+      // (a secondary copy; it names no source, its figures match the Wood Handbook's as remembered)
       densityKgM3: 610,
       modulusMPa: 11590,
       pricePerBoardFootCents: 1450,
@@ -95,7 +109,10 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       name: 'White oak, 4/4',
       species: 'white oak',
       roughThicknessIn: 1,
-      densityKgM3: 770,
+      // specific gravity 0.68 at 12 %: G. Wengert's FDMC column quoting the Wood Handbook (Ag. Handbook 72),
+      // a secondary copy; 0.68 x 1.12 x 1000 = 762 kg/m3
+      densityKgM3: 762,
+      // modulus 1.78 million psi (12,270 MPa): from memory (wood-database.com gives 1.762 million psi)
       modulusMPa: 12270,
       pricePerBoardFootCents: 975,
     },
@@ -104,6 +121,9 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       name: 'Hard maple, 4/4',
       species: 'hard maple',
       roughThicknessIn: 1,
+      // specific gravity 0.63 at 12 %: G. Wengert's FDMC column quoting the Wood Handbook, a secondary copy
+      // (0.63 x 1.12 x 1000 = 706 kg/m3); modulus 12.62 GPa: timberpolis.com's sugar maple page, a secondary
+      // copy naming no source (the Maple Flooring Manufacturers Association gives 1.65-1.88 million psi)
       densityKgM3: 705,
       modulusMPa: 12620,
       pricePerBoardFootCents: 750,
