@@ -1,6 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { casterCheck, maxShelfSpan, shelfSag } from './checks';
+import { casterCheck, maxShelfSpan, pieceChecks, shelfSag, TIP_OVER_HEIGHT_MM } from './checks';
+import { cutList } from './cut-list';
+import { demoPriceBook, demoSettings } from './demo-data';
+import { designs, type BuildSpec } from './designs';
 import { toInches, toMm } from './units';
 
 const PSI_TO_MPA = 0.00689476; // 1 psi = 6894.76 Pa
@@ -126,5 +129,34 @@ describe('casterCheck', () => {
     const r = casterCheck({ pieceKg: 150, workingLoadKg: 300, casters: 4, ratedLoadKg: 100 });
     expect(r.ok).toBe(false);
     expect(r.message).toMatch(/rated 150 kg or more/);
+  });
+});
+
+describe('tip-over caution (27 in from 16 CFR part 1261 / ASTM F2057-23, applied as a caution)', () => {
+  const checksFor = (spec: BuildSpec) =>
+    pieceChecks(cutList(spec, demoPriceBook, demoSettings), demoPriceBook, demoSettings);
+  const benchAt = (heightIn: number): BuildSpec => ({
+    ...designs['assembly-bench'].defaults,
+    heightMm: toMm(heightIn),
+  });
+  it('cautions about a mobile bench 27 in or taller, without adding a kit, and names the rule', () => {
+    const r = checksFor(benchAt(34));
+    const c = r.checks.find((x) => x.code === 'tip_over_mobile');
+    expect(c?.level).toBe('caution');
+    expect(c?.message).toMatch(/16 CFR part 1261/);
+    expect(c?.message).toMatch(/ASTM F2057-23/);
+    expect(c?.message).toMatch(/applied here as a caution/);
+    expect(r.needsAntiTip).toBe(false);
+  });
+  it('says no caution under 27 in (686 mm)', () => {
+    expect(TIP_OVER_HEIGHT_MM).toBeCloseTo(685.8, 1);
+    const low = { ...designs['base-cabinet'].defaults, installation: 'free-standing' as const, heightMm: toMm(26.9) };
+    expect(checksFor(low).checks.some((x) => x.code.startsWith('tip_over'))).toBe(false);
+  });
+  it('does not let the anti-tip kit read as making the piece safe', () => {
+    const tall = { ...designs['base-cabinet'].defaults, installation: 'free-standing' as const };
+    const r = checksFor(tall);
+    expect(r.needsAntiTip).toBe(true);
+    expect(r.checks.find((x) => x.code === 'tip_over')?.message).toMatch(/does not by itself make the piece safe/);
   });
 });

@@ -111,7 +111,13 @@ export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: Ca
   };
 }
 
-/** Tip-over rule height: 27 in, from the US rule for clothing storage units (16 CFR part 1261, adopting ASTM F2057-23). */
+/**
+ * Tip-over caution height: 27 in (686 mm). The figure comes from the US
+ * safety standard for clothing storage units, 16 CFR part 1261, which adopts
+ * ASTM F2057-23; the pieces here are not all clothing storage units, so it is
+ * applied as a caution to every free-standing piece this tall, mobile ones
+ * included.
+ */
 export const TIP_OVER_HEIGHT_MM = toMm(27);
 
 export type CheckLevel = 'error' | 'warning' | 'caution';
@@ -196,19 +202,28 @@ export function pieceChecks(
   }
   const hasFronts = g.doors.length > 0 || g.drawers.length > 0;
   let needsAntiTip = false;
-  if (g.freeStanding && !g.mobile && g.heightMm >= TIP_OVER_HEIGHT_MM) {
-    if (hasFronts) {
+  const rule =
+    'The 27 in threshold is taken from the US rule for clothing storage units (16 CFR part 1261, adopting ASTM F2057-23) and applied here as a caution.';
+  if (g.freeStanding && g.heightMm >= TIP_OVER_HEIGHT_MM) {
+    const tall = `${toInches(g.heightMm).toFixed(0)} in`;
+    if (g.mobile) {
+      checks.push({
+        code: 'tip_over_mobile',
+        level: 'caution',
+        message: `At ${tall} tall on casters this piece can tip, most of all with drawers open or while it is rolled: lock the casters, open one drawer at a time, keep heavy things low, push it low down and never climb it. ${rule}`,
+      });
+    } else if (hasFronts) {
       needsAntiTip = true;
       checks.push({
         code: 'tip_over',
         level: 'warning',
-        message: `At ${toInches(g.heightMm).toFixed(0)} in tall with drawers or doors, this piece must be anchored to the wall: an anti-tip kit is included. Anchor into a stud or with fasteners suited to the wall, as the kit's instructions and local codes require.`,
+        message: `At ${tall} tall with drawers or doors, this piece must be anchored to the wall: an anti-tip kit is included. Anchor into a stud or with fasteners suited to the wall, as the kit's instructions and local codes require. Anchoring lowers the risk but does not by itself make the piece safe: open one drawer at a time, keep heavy things in the lowest drawers and do not let children climb it. ${rule}`,
       });
     } else {
       checks.push({
         code: 'anchor',
         level: 'caution',
-        message: `Tall furniture can tip over: anchor this ${toInches(g.heightMm).toFixed(0)} in piece to the wall, load the lowest shelves first, and do not let children climb it.`,
+        message: `Tall furniture can tip over: anchor this ${tall} piece to the wall, load the lowest shelves first, and do not let children climb it; an anchor helps but does not by itself make it safe. ${rule}`,
       });
     }
   }

@@ -5,7 +5,7 @@ import type { BuildSpec } from './designs';
 import { elevationDrawing, type Drawing } from './drawings';
 import { finishCoverage, finishGallons } from './finish';
 import { hardwareFor, type HardwareLine } from './hardware';
-import { bandingMetres, labourHours } from './labour';
+import { bandingMetres, labourCounts, labourHours } from './labour';
 import { nestByMaterial, type NestEffort, type NestPart, type NestResult } from './nesting';
 import { byId, STAGE_KEYS, type PriceBook, type ShopSettings, type StageKey } from './price-book';
 import { boardFeet, toInches } from './units';
@@ -202,7 +202,7 @@ export function estimate(
     ...finish.lines,
   ];
   lines.push(...consumablesLines(lines, settings));
-  const hours = jobHours(built, all, layouts, finish.m2Coats, book);
+  const hours = jobHours(built, all, layouts, finish.m2Coats, book, settings);
   lines.push(...labourLines(hours.byStage, book));
 
   const totals = totalsFor(lines, settings, options.discountCents ?? 0);
@@ -447,33 +447,33 @@ function consumablesLines(materialLines: readonly EstimateLine[], settings: Shop
   ];
 }
 
-/** Shop hours by stage from the job's counts (sheets, parts, banding, cases, fronts, finish...). */
+/** Shop hours by stage from the job's counts (sheets, parts, banding, machining, fronts, finish...). */
 function jobHours(
   built: readonly { piece: PieceResult; geometry: PieceGeometry }[],
   all: readonly JobPart[],
   layouts: readonly MaterialLayout[],
   finishM2Coats: number,
   book: PriceBook,
+  settings: ShopSettings,
 ): ReturnType<typeof labourHours> {
-  const sumQ = (f: (g: PieceGeometry) => number) => built.reduce((s, b) => s + f(b.geometry) * b.piece.quantity, 0);
-  return labourHours(
-    {
-      jobs: 1,
-      sheets: layouts.reduce((s, l) => s + l.sheetCount, 0),
-      parts: all.reduce((s, p) => s + p.quantity, 0),
-      bandingMetres: bandingMetres(all),
-      pocketHoles: all.reduce((s, p) => s + p.quantity * p.pocketHoles, 0),
-      cases: sumQ((g) => g.caseCount),
-      drawers: sumQ((g) => g.drawers.length),
-      slidePairs: sumQ((g) => g.drawers.length),
-      doors: sumQ((g) => g.doors.length),
-      torsionTops: sumQ((g) => g.torsionTops),
-      trimPieces: sumQ((g) => g.trimPieces),
-      finishM2Coats,
-      casters: sumQ((g) => g.casters + g.feet),
-    },
-    book,
-  );
+  const roughBoardFeet = all
+    .filter((p) => p.stock === 'lumber')
+    .reduce((s, p) => {
+      const lum = byId(book.lumber, p.materialId, 'lumber');
+      return s + p.quantity * boardFeet(lum.roughThicknessIn, toInches(p.widthMm), toInches(p.lengthMm));
+    }, 0);
+  const counts = labourCounts({
+    pieces: built.map((b) => ({
+      parts: b.piece.parts,
+      geometry: b.geometry,
+      hardware: b.piece.hardware,
+      quantity: b.piece.quantity,
+    })),
+    sheets: layouts.reduce((s, l) => s + l.sheetCount, 0),
+    finishM2Coats,
+    boardFeetMilled: roughBoardFeet * (1 + settings.lumberWaste),
+  });
+  return labourHours(counts, book);
 }
 
 const STAGE_NAMES: Record<StageKey, string> = {

@@ -2,6 +2,17 @@ import type { BuildSpec, Compartment } from './designs';
 import { dividerCount } from './designs';
 import { byId, type PriceBook, type SheetGood, type ShopSettings } from './price-book';
 import { at } from './_lib/at';
+import { hingesPerDoor } from './hardware';
+import {
+  band as bandOps,
+  cut,
+  hingeCups,
+  PIN_SETBACK_MM,
+  pinRows,
+  TOE_KICK_SETBACK_MM,
+  type DadoOp,
+  type Machining,
+} from './machining';
 import { toMm } from './units';
 
 export type Grain = 'fixed' | 'free';
@@ -25,6 +36,8 @@ export interface CutPart {
   dados: number;
   /** faces that take finish: 0, 1 or 2 */
   finishFaces: 0 | 1 | 2;
+  /** what is done to the part after cutting, with positions to mark from */
+  machining: Machining[];
 }
 
 /** A front as drawn on the elevation, in mm from the piece's left edge and the floor. */
@@ -64,7 +77,8 @@ export interface PieceGeometry {
   top: { xMm: number; yMm: number; widthMm: number; heightMm: number; kind: string } | null;
   mobility: { kind: 'caster' | 'foot'; xMm: number; heightMm: number }[];
   drawers: DrawerFeature[];
-  doors: { widthMm: number; heightMm: number }[];
+  /** each door with its weight and the overlay of its hinge edge (an end panel, a shared partition, or inset) */
+  doors: { widthMm: number; heightMm: number; massKg: number; overlay: HingeOverlay }[];
   adjustableShelves: number;
   shelfSpans: { spanMm: number; depthMm: number; materialId: string; thicknessMm: number }[];
   caseCount: number;
@@ -97,6 +111,8 @@ export const SLIDE_SIDE_CLEARANCE_MM = toMm(0.5);
 export const SLIDE_LENGTHS_IN = [10, 12, 14, 16, 18, 20, 22, 24, 26, 28] as const;
 const SLIDE_REAR_CLEARANCE_MM = toMm(0.5);
 export const DRAWER_BOTTOM_DADO_MM = toMm(0.25);
+/** the drawer bottom's groove starts 1/2 in up from the box's lower edge (common practice) */
+const DRAWER_BOTTOM_UP_MM = toMm(0.5);
 /** carcass dados: 1/4 in deep (common practice: about a third of 3/4 in stock) */
 const DADO_MM = toMm(0.25);
 /** grooved backs sit this far in from the back edge, to leave room to scribe (common practice) */
@@ -155,6 +171,21 @@ export function drawerBox(
   return { boxWidthMm, boxHeightMm, boxDepthMm: toMm(slideIn), slideLengthMm: toMm(slideIn), slideLengthIn: slideIn };
 }
 
+export type HingeOverlay = 'full' | 'half' | 'inset';
+
+/**
+ * The hinge a door's overlap on its hinge edge calls for: none or less is
+ * inset; more than half the panel's thickness is full overlay (a door on an
+ * end panel); half or less is half overlay (a door sharing a partition with
+ * its neighbour, each lapping about half of it): common practice.
+ *
+ * @example hingeOverlay(16.8, 18.26) // 'full'
+ */
+export function hingeOverlay(overlapMm: number, panelThicknessMm: number): HingeOverlay {
+  if (overlapMm <= 0) return 'inset';
+  return overlapMm > panelThicknessMm / 2 ? 'full' : 'half';
+}
+
 function round(v: number): number {
   return Math.round(v * 10) / 10;
 }
@@ -176,14 +207,25 @@ interface CaseInput {
 
 class PartList {
   readonly parts: CutPart[] = [];
-  add(p: Omit<CutPart, 'stock' | 'bandingId'> & { stock?: 'sheet' | 'lumber'; bandingId?: string | null }): void {
+  add(
+    p: Omit<CutPart, 'stock' | 'bandingId' | 'machining'> & {
+      stock?: 'sheet' | 'lumber';
+      bandingId?: string | null;
+      machining?: Machining[];
+    },
+  ): void {
     if (p.quantity <= 0) return;
     if (!(p.lengthMm > 0 && p.widthMm > 0))
       throw new RangeError(
         `part "${p.name}" comes out ${round(p.lengthMm)} x ${round(p.widthMm)} mm: the piece is too small for its layout`,
       );
     const banded = p.bandedEdges.long + p.bandedEdges.short > 0;
-    const part: CutPart = { stock: 'sheet', ...p, bandingId: banded ? (p.bandingId ?? null) : null };
+    const part: CutPart = {
+      stock: 'sheet',
+      ...p,
+      bandingId: banded ? (p.bandingId ?? null) : null,
+      machining: p.machining ?? [],
+    };
     const same = this.parts.find((q) => q.id === part.id);
     if (same) same.quantity += part.quantity;
     else this.parts.push(part);
@@ -415,6 +457,39 @@ function buildCase(
   if (bayWidths.some((w) => w < 100))
     throw new RangeError('the bays do not fit the case: make them narrower or the case wider');
 
+  // the bottom's and top panel's partition dados (from the left end, which sits in the left side's dado) and back groove
+  const horizontalCuts = (face: 'inside'): DadoOp[] => {
+    const out: DadoOp[] = [];
+    let inner = 0;
+    for (let b = 0; b < bays.length - 1; b++) {
+      inner += at(bayWidths, b);
+      out.push(
+        cut({
+          for: 'partition',
+          face,
+          fromEdge: 'left',
+          distanceMm: DADO_MM + inner + b * t,
+          widthMm: t,
+          depthMm: DADO_MM,
+          lengthMm: insideDepth,
+        }),
+      );
+    }
+    if (grooved)
+      out.push(
+        cut({
+          kind: 'groove',
+          for: 'back',
+          face,
+          fromEdge: 'back',
+          distanceMm: BACK_SETBACK_MM,
+          widthMm: bt,
+          depthMm: DADO_MM,
+          lengthMm: insideWidth + 2 * DADO_MM,
+        }),
+      );
+    return out;
+  };
   // sides: full height (notched for the toe kick), dadoes for bottom, top panel and the outer bays' dividers, and the back groove
   const sideDados = [0, bays.length - 1].map((b) => horizontals + at(dividersPerBay, b) + (grooved ? 1 : 0));
   list.add({
@@ -431,6 +506,55 @@ function buildCase(
     pocketHoles: 0,
     dados: Math.max(...sideDados),
     finishFaces: 2,
+    machining: [
+      ...bandOps(...(faceBand ? (['front'] as const) : [])),
+      ...(cs.toeKickMm > 0
+        ? [
+            {
+              kind: 'toe_kick_notch' as const,
+              corner: 'front-bottom' as const,
+              heightMm: round(cs.toeKickMm),
+              depthMm: TOE_KICK_SETBACK_MM,
+            },
+          ]
+        : []),
+      cut({
+        for: 'bottom',
+        face: 'inside',
+        fromEdge: 'bottom',
+        distanceMm: cs.toeKickMm,
+        widthMm: t,
+        depthMm: DADO_MM,
+        lengthMm: panelDepth,
+      }),
+      ...(cs.topKind === 'panel'
+        ? [
+            cut({
+              for: 'top',
+              face: 'inside',
+              fromEdge: 'top',
+              distanceMm: 0,
+              widthMm: t,
+              depthMm: DADO_MM,
+              lengthMm: panelDepth,
+            }),
+          ]
+        : []),
+      ...(grooved
+        ? [
+            cut({
+              kind: 'groove',
+              for: 'back',
+              face: 'inside',
+              fromEdge: 'back',
+              distanceMm: BACK_SETBACK_MM,
+              widthMm: bt,
+              depthMm: DADO_MM,
+              lengthMm: cs.heightMm,
+            }),
+          ]
+        : []),
+    ],
   });
   list.add({
     id: `${k}-bottom`,
@@ -446,6 +570,7 @@ function buildCase(
     pocketHoles: 0,
     dados: bays.length - 1 + (grooved ? 1 : 0),
     finishFaces: 1,
+    machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
   });
   if (cs.topKind === 'panel') {
     list.add({
@@ -462,6 +587,7 @@ function buildCase(
       pocketHoles: 0,
       dados: bays.length - 1 + (grooved ? 1 : 0),
       finishFaces: 2,
+      machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
     });
   } else {
     list.add({
@@ -477,6 +603,7 @@ function buildCase(
       pocketHoles: 4,
       dados: 0,
       finishFaces: 0,
+      machining: [{ kind: 'pocket_holes', face: 'top', count: 4, at: ['left', 'right'] }],
     });
   }
   if (cs.toeKickMm > 0) {
@@ -509,6 +636,7 @@ function buildCase(
       pocketHoles: 4,
       dados: 0,
       finishFaces: 0,
+      machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
     });
     geo.hangingRailWidthMm = cs.widthMm;
   }
@@ -576,6 +704,29 @@ function buildCase(
   const insideBottom = cs.yMm + cs.toeKickMm + t; // from the floor
 
   let x = cs.xMm + t;
+  // marks on the panels either side of a bay: each side's and partition's ops, positions from its own bottom end
+  const sideOps: { left: Machining[]; right: Machining[] } = { left: [], right: [] };
+  const partitionOps: Machining[][] = Array.from({ length: bays.length - 1 }, () => []);
+  const partitionFoot = insideBottom - DADO_MM;
+  const mark = (b: number, make: (bottomEndMm: number, face: 'inside' | 'left' | 'right') => Machining[]) => {
+    if (b === 0) sideOps.left.push(...make(cs.yMm, 'inside'));
+    if (b === bays.length - 1) sideOps.right.push(...make(cs.yMm, 'inside'));
+    if (b > 0) at(partitionOps, b - 1).push(...make(partitionFoot, 'right'));
+    if (b < bays.length - 1) at(partitionOps, b).push(...make(partitionFoot, 'left'));
+  };
+  const backRowSetback = (panelDepthMm: number) => panelDepthMm - insideDepth + PIN_SETBACK_MM;
+  const dividerDado = (b: number, lowerFaceMm: number, what: string) =>
+    mark(b, (foot, face) => [
+      cut({
+        for: what,
+        face,
+        fromEdge: 'bottom',
+        distanceMm: lowerFaceMm - foot,
+        widthMm: t,
+        depthMm: DADO_MM,
+        lengthMm: insideDepth,
+      }),
+    ]);
   bays.forEach((bay, b) => {
     const bw = at(bayWidths, b);
     const bk = `${k}-b${b + 1}`;
@@ -603,6 +754,7 @@ function buildCase(
         pocketHoles: 0,
         dados: 0,
         finishFaces: 2,
+        machining: bandOps(...(faceBand ? (['front'] as const) : [])),
       });
     }
     // the face boundaries of this bay (centre of partitions, case edge less the overlay)
@@ -624,7 +776,21 @@ function buildCase(
           : above === 'divider'
             ? y + h + t / 2 - half
             : y + h - half;
-      if (above === 'divider') outline.shelvesMm.push([x, y + h, bw]);
+      if (above === 'divider') {
+        outline.shelvesMm.push([x, y + h, bw]);
+        dividerDado(b, y + h, 'fixed shelf');
+      }
+      if (c.kind !== 'drawer' && c.adjustableShelves > 0) {
+        const floor = y;
+        mark(b, (foot, face) =>
+          pinRows({
+            face,
+            floorMm: floor - foot,
+            heightMm: h,
+            backSetbackMm: backRowSetback(face === 'inside' ? panelDepth : insideDepth),
+          }),
+        );
+      }
       const shelfDepth = insideDepth - SHELF_FRONT_SETBACK_MM;
       if (c.kind !== 'drawer') {
         if (c.adjustableShelves > 0) {
@@ -642,6 +808,7 @@ function buildCase(
             pocketHoles: 0,
             dados: 0,
             finishFaces: 2,
+            machining: bandOps('front'),
           });
           geo.adjustableShelves += c.adjustableShelves;
           geo.shelfSpans.push({ spanMm: bw, depthMm: shelfDepth, materialId: m.carcass.id, thicknessMm: t });
@@ -661,9 +828,13 @@ function buildCase(
             pocketHoles: 0,
             dados: 0,
             finishFaces: 2,
+            machining: bandOps(...(faceBand ? (['front'] as const) : [])),
           });
           const gap = (h - c.fixedShelves * t) / (c.fixedShelves + 1);
-          for (let i = 1; i <= c.fixedShelves; i++) outline.shelvesMm.push([x, y + i * gap + (i - 1) * t, bw]);
+          for (let i = 1; i <= c.fixedShelves; i++) {
+            outline.shelvesMm.push([x, y + i * gap + (i - 1) * t, bw]);
+            dividerDado(b, y + i * gap + (i - 1) * t, 'fixed shelf');
+          }
         }
         if (c.adjustableShelves > 0 || c.fixedShelves > 0 || dividers > 0)
           geo.shelfSpans.push({ spanMm: bw, depthMm: insideDepth, materialId: m.carcass.id, thicknessMm: t });
@@ -671,6 +842,8 @@ function buildCase(
       if (c.kind === 'door') {
         const doors = c.doors;
         const fw = (right - left - (doors - 1) * settings.revealMm) / doors;
+        const doorMassKg = ((fw * (top - bottom) * m.front.thicknessMm) / 1e9) * m.front.densityKgM3;
+        const doorHinges = hingesPerDoor(top - bottom, doorMassKg);
         for (let d = 0; d < doors; d++) {
           const fx = left + d * (fw + settings.revealMm);
           geo.fronts.push({
@@ -681,7 +854,14 @@ function buildCase(
             heightMm: top - bottom,
             hinge: doors === 2 ? (d === 0 ? 'left' : 'right') : 'left',
           });
-          geo.doors.push({ widthMm: fw, heightMm: top - bottom });
+          const hingeSide = geo.fronts[geo.fronts.length - 1]?.hinge ?? 'left';
+          const onEnd = hingeSide === 'left' ? b === 0 : b === bays.length - 1;
+          geo.doors.push({
+            widthMm: fw,
+            heightMm: top - bottom,
+            massKg: doorMassKg,
+            overlay: hingeOverlay(onEnd ? t - outerInset : t / 2 - half, t),
+          });
         }
         list.add({
           id: `${ck}-door`,
@@ -697,6 +877,7 @@ function buildCase(
           pocketHoles: 0,
           dados: 0,
           finishFaces: 2,
+          machining: [...bandOps('top', 'bottom', 'hinge', 'opening'), hingeCups(top - bottom, doorHinges)],
         });
       } else if (c.kind === 'drawer') {
         const box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth });
@@ -717,6 +898,7 @@ function buildCase(
           pocketHoles: 0,
           dados: 0,
           finishFaces: 2,
+          machining: bandOps('top', 'bottom', 'left', 'right'),
         });
         const st = m.drawerMat.thicknessMm;
         list.add({
@@ -733,6 +915,19 @@ function buildCase(
           pocketHoles: 0,
           dados: 1,
           finishFaces: 0,
+          machining: [
+            ...bandOps('top'),
+            cut({
+              kind: 'groove',
+              for: 'drawer bottom',
+              face: 'inside',
+              fromEdge: 'bottom',
+              distanceMm: DRAWER_BOTTOM_UP_MM,
+              widthMm: m.drawerBottom.thicknessMm,
+              depthMm: DRAWER_BOTTOM_DADO_MM,
+              lengthMm: box.boxDepthMm,
+            }),
+          ],
         });
         list.add({
           id: `${ck}-drawer-end`,
@@ -748,6 +943,20 @@ function buildCase(
           pocketHoles: 4,
           dados: 1,
           finishFaces: 0,
+          machining: [
+            ...bandOps('top'),
+            cut({
+              kind: 'groove',
+              for: 'drawer bottom',
+              face: 'inside',
+              fromEdge: 'bottom',
+              distanceMm: DRAWER_BOTTOM_UP_MM,
+              widthMm: m.drawerBottom.thicknessMm,
+              depthMm: DRAWER_BOTTOM_DADO_MM,
+              lengthMm: box.boxWidthMm - 2 * st,
+            }),
+            { kind: 'pocket_holes', face: 'outside', count: 4, at: ['left', 'right'] },
+          ],
         });
         list.add({
           id: `${ck}-drawer-bottom`,
@@ -769,6 +978,22 @@ function buildCase(
     x += bw + t;
     if (b < bays.length - 1) outline.partitionsXMm.push(x - t);
   });
+  const side = list.parts.find((p) => p.id === `${k}-side`);
+  if (side) {
+    if (bays.length === 1) side.machining.push(...sideOps.left);
+    else
+      for (const which of ['left', 'right'] as const)
+        side.machining.push(...sideOps[which].map((op) => ({ ...op, only: which })));
+  }
+  const partition = list.parts.find((p) => p.id === `${k}-partition`);
+  if (partition) {
+    partition.machining.push(...bandOps(...(faceBand ? (['front'] as const) : [])));
+    partitionOps.forEach((ops, i) =>
+      partition.machining.push(
+        ...(partitionOps.length === 1 ? ops : ops.map((op) => ({ ...op, only: `partition ${i + 1}` }))),
+      ),
+    );
+  }
 }
 
 function benchTop(

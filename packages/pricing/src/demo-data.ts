@@ -4,14 +4,21 @@ import { toMm } from './units';
 /**
  * The demo shop's price book. INVENTED FOR THE DEMO: the prices and time
  * standards are made up and say nothing of any real supplier or shop.
- * Material properties (thickness, density, modulus) are typical published
- * figures; see each comment.
+ * Material properties (thickness, density, modulus): each comment names the
+ * source actually read, says when it was a secondary copy, and says "from
+ * memory" where no stored copy of a source was found. The Wood Handbook
+ * (USDA Forest Products Laboratory, FPL-GTR-282, 2021) and the APA's panel
+ * design data were the sources sought; no copy of the 2021 edition's tables
+ * was found, so none of the values below is read from it.
  */
 export const demoPriceBook: PriceBook = PriceBook.parse({
   currency: 'USD',
   note: 'Invented demo prices and time standards, for the Fernhill Joinery demo only.',
   sheetGoods: [
-    // modulus 1,800,000 psi: AWS 1st ed. (2009) 4.4.14.10 for veneer-core plywood with hardwood faces; density from memory
+    // Birch plywood (all three thicknesses): modulus 1,800,000 psi (12,410 MPa) as the Architectural Woodwork
+    // Standards, 1st ed. (2009), 4.4.14.10 list hardwood-faced veneer-core plywood (test/fixtures/shelf-spans.md;
+    // not re-read against the standard here). Stored copies of the APA Panel Design Specification (D510) were
+    // found but not their stiffness tables, so the APA figure is not used. Density 680 kg/m3: from memory.
     {
       id: 'birch-ply-18',
       name: '3/4 in birch plywood',
@@ -51,7 +58,11 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       modulusMPa: 12410,
       priceCents: 4200,
     },
-    // MDF: modulus about 500,000 psi and density about 750 kg/m3, from memory
+    // MDF: modulus 3,450 MPa (500,000 psi), from memory. The Wood Handbook (2010, FPL-GTR-190) ch. 12 gives MDF
+    // properties by maker in its Table 12-6 (a secondary copy of the chapter's text was read, not the table);
+    // other secondary pages disagree (makeitfrom.com: 4.0 GPa, 0.75 g/cm3, citing the 1999 Wood Handbook;
+    // kerfworks.org: 350,000 psi for medium-density MDF). Density 750 kg/m3: makeitfrom.com's 0.75 g/cm3
+    // (a secondary copy citing the 1999 Wood Handbook).
     {
       id: 'mdf-18',
       name: '3/4 in MDF',
@@ -80,12 +91,15 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
     },
   ],
   lumber: [
-    // densities and moduli from memory (USDA Wood Handbook order of magnitude)
+    // Clear wood at 12 % moisture. Density at 12 % = specific gravity (oven-dry weight, volume at 12 %) x
+    // 1000 kg/m3 x 1.12. None read from the Wood Handbook itself: each figure's copy is named below.
     {
       id: 'walnut-4-4',
       name: 'Black walnut, 4/4',
       species: 'black walnut',
       roughThicknessIn: 1,
+      // specific gravity 0.55 at 12 %, 609 kg/m3 and modulus 11,584 MPa: Tioga Hardwoods' species page
+      // (a secondary copy; it names no source, its figures match the Wood Handbook's as remembered)
       densityKgM3: 610,
       modulusMPa: 11590,
       pricePerBoardFootCents: 1450,
@@ -95,7 +109,10 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       name: 'White oak, 4/4',
       species: 'white oak',
       roughThicknessIn: 1,
-      densityKgM3: 770,
+      // specific gravity 0.68 at 12 %: G. Wengert's FDMC column quoting the Wood Handbook (Ag. Handbook 72),
+      // a secondary copy; 0.68 x 1.12 x 1000 = 762 kg/m3
+      densityKgM3: 762,
+      // modulus 1.78 million psi (12,270 MPa): from memory (wood-database.com gives 1.762 million psi)
       modulusMPa: 12270,
       pricePerBoardFootCents: 975,
     },
@@ -104,6 +121,9 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       name: 'Hard maple, 4/4',
       species: 'hard maple',
       roughThicknessIn: 1,
+      // specific gravity 0.63 at 12 %: G. Wengert's FDMC column quoting the Wood Handbook, a secondary copy
+      // (0.63 x 1.12 x 1000 = 706 kg/m3); modulus 12.62 GPa: timberpolis.com's sugar maple page, a secondary
+      // copy naming no source (the Maple Flooring Manufacturers Association gives 1.65-1.88 million psi)
       densityKgM3: 705,
       modulusMPa: 12620,
       pricePerBoardFootCents: 750,
@@ -127,8 +147,27 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       id: 'hinge-concealed',
       name: 'Concealed hinge, full overlay, soft close',
       kind: 'hinge',
+      overlay: 'full',
       unit: 'each',
       priceCents: 450,
+      massKg: 0.09,
+    },
+    {
+      id: 'hinge-half-overlay',
+      name: 'Concealed hinge, half overlay, soft close',
+      kind: 'hinge',
+      overlay: 'half',
+      unit: 'each',
+      priceCents: 450,
+      massKg: 0.09,
+    },
+    {
+      id: 'hinge-inset',
+      name: 'Concealed hinge, inset, soft close',
+      kind: 'hinge',
+      overlay: 'inset',
+      unit: 'each',
+      priceCents: 480,
       massKg: 0.09,
     },
     { id: 'shelf-pin', name: 'Shelf pin, 5 mm', kind: 'shelf_pin', unit: 'each', priceCents: 15, massKg: 0.002 },
@@ -158,8 +197,95 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       kind: 'pocket_screw',
       unit: 'box',
       perUnit: 100,
+      lengthIn: 1.25,
       priceCents: 800,
       massKg: 0.003,
+    },
+    {
+      id: 'pocket-screw-1in',
+      name: 'Pocket screws, 1 in, box of 100',
+      kind: 'pocket_screw',
+      unit: 'box',
+      perUnit: 100,
+      lengthIn: 1,
+      priceCents: 750,
+      massKg: 0.002,
+    },
+    {
+      id: 'pocket-screw-1-5in',
+      name: 'Pocket screws, 1 1/2 in, box of 100',
+      kind: 'pocket_screw',
+      unit: 'box',
+      perUnit: 100,
+      lengthIn: 1.5,
+      priceCents: 850,
+      massKg: 0.004,
+    },
+    {
+      id: 'screw-slide',
+      name: 'Pan-head screws #6 x 5/8 in, for slides, box of 100',
+      kind: 'screw',
+      fastens: 'slide',
+      lengthIn: 0.625,
+      unit: 'box',
+      perUnit: 100,
+      priceCents: 600,
+      massKg: 0.001,
+    },
+    {
+      id: 'screw-hinge',
+      name: 'Flat-head screws #6 x 5/8 in, for hinges and plates, box of 100',
+      kind: 'screw',
+      fastens: 'hinge',
+      lengthIn: 0.625,
+      unit: 'box',
+      perUnit: 100,
+      priceCents: 600,
+      massKg: 0.001,
+    },
+    {
+      id: 'screw-drawer-front',
+      name: 'Pan-head screws #8 x 1 in, for drawer fronts, box of 100',
+      kind: 'screw',
+      fastens: 'drawer_front',
+      lengthIn: 1,
+      unit: 'box',
+      perUnit: 100,
+      priceCents: 700,
+      massKg: 0.002,
+    },
+    {
+      id: 'screw-top',
+      name: 'Cabinet screws #8 x 1 1/4 in, top to case, box of 100',
+      kind: 'screw',
+      fastens: 'top',
+      lengthIn: 1.25,
+      unit: 'box',
+      perUnit: 100,
+      priceCents: 750,
+      massKg: 0.003,
+    },
+    {
+      id: 'bolt-caster',
+      name: 'Hex bolts 1/4-20 x 1 1/2 in with nuts and washers, for caster plates, box of 50',
+      kind: 'bolt',
+      fastens: 'caster',
+      lengthIn: 1.5,
+      unit: 'box',
+      perUnit: 50,
+      priceCents: 1400,
+      massKg: 0.02,
+    },
+    {
+      id: 'screw-foot',
+      name: 'Pan-head screws #10 x 3/4 in, for leveling-foot plates, box of 100',
+      kind: 'screw',
+      fastens: 'foot',
+      lengthIn: 0.75,
+      unit: 'box',
+      perUnit: 100,
+      priceCents: 650,
+      massKg: 0.002,
     },
     {
       id: 'rail-screw',
@@ -198,21 +324,31 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       pricePerGallonCents: 11200,
     },
   ],
+  // Time standards: invented for the demo, set so that a skilled one-person shop's usual times come out
+  // (a plain 24 in base cabinet in a working day or so, a double-sided assembly bench in one to two weeks:
+  // common practice).
   labour: [
-    { key: 'job_setup', name: 'Job set-up and material order', per: 'job', minutes: 45, stage: 'material' },
-    { key: 'sheet_breakdown', name: 'Break down sheets', per: 'sheet', minutes: 12, stage: 'cutting' },
-    { key: 'part_cut', name: 'Cut parts to size', per: 'part', minutes: 2, stage: 'cutting' },
-    { key: 'edge_banding', name: 'Edge banding', per: 'metre', minutes: 1.5, stage: 'casework' },
-    { key: 'pocket_hole', name: 'Pocket holes', per: 'hole', minutes: 0.5, stage: 'casework' },
-    { key: 'case_assembly', name: 'Assemble cases', per: 'case', minutes: 60, stage: 'casework' },
-    { key: 'drawer_box', name: 'Build drawer boxes', per: 'drawer', minutes: 35, stage: 'drawers_doors' },
-    { key: 'slide_pair', name: 'Fit slides', per: 'pair', minutes: 15, stage: 'drawers_doors' },
-    { key: 'door_hang', name: 'Hang doors', per: 'door', minutes: 20, stage: 'drawers_doors' },
-    { key: 'torsion_top', name: 'Build torsion-box top', per: 'top', minutes: 180, stage: 'casework' },
-    { key: 'trim_piece', name: 'Fit solid trim', per: 'piece', minutes: 12, stage: 'casework' },
-    { key: 'finish_coat', name: 'Finish, per coat', per: 'm2_coat', minutes: 10, stage: 'finish' },
-    { key: 'caster', name: 'Fit casters and feet', per: 'caster', minutes: 8, stage: 'casework' },
-    { key: 'final_check', name: 'Final check and wrap', per: 'job', minutes: 30, stage: 'ready' },
+    { key: 'job-setup', name: 'Job set-up and material order', driver: 'job', minutes: 45, stage: 'material' },
+    { key: 'sheet-breakdown', name: 'Break down sheets', driver: 'sheet', minutes: 12, stage: 'cutting' },
+    { key: 'part-cut', name: 'Cut parts to size', driver: 'part', minutes: 2.5, stage: 'cutting' },
+    { key: 'dado-groove', name: 'Cut dados and grooves', driver: 'dado_metre', minutes: 3, stage: 'cutting' },
+    { key: 'shelf-pin-rows', name: 'Drill shelf-pin rows', driver: 'shelf_pin_row', minutes: 5, stage: 'casework' },
+    { key: 'edge-banding', name: 'Edge banding', driver: 'banding_metre', minutes: 1.5, stage: 'casework' },
+    { key: 'pocket-holes', name: 'Pocket holes', driver: 'pocket_hole', minutes: 0.5, stage: 'casework' },
+    { key: 'case-assembly', name: 'Glue up and square cases', driver: 'case', minutes: 60, stage: 'casework' },
+    { key: 'torsion-top', name: 'Build torsion-box top', driver: 'torsion_top_m2', minutes: 240, stage: 'casework' },
+    { key: 'milling', name: 'Mill rough lumber', driver: 'board_foot_milled', minutes: 6, stage: 'cutting' },
+    { key: 'trim', name: 'Fit solid trim', driver: 'trim_piece', minutes: 15, stage: 'casework' },
+    { key: 'casters', name: 'Fit casters and feet', driver: 'caster', minutes: 10, stage: 'casework' },
+    { key: 'drawer-boxes', name: 'Build drawer boxes', driver: 'drawer_box', minutes: 40, stage: 'drawers_doors' },
+    { key: 'slides', name: 'Fit slides', driver: 'slide_pair', minutes: 20, stage: 'drawers_doors' },
+    { key: 'hinge-boring', name: 'Bore and fit hinges', driver: 'hinge_bored', minutes: 5, stage: 'drawers_doors' },
+    { key: 'door-hang', name: 'Hang doors', driver: 'door_hung', minutes: 20, stage: 'drawers_doors' },
+    { key: 'front-align', name: 'Align fronts', driver: 'front_aligned', minutes: 10, stage: 'drawers_doors' },
+    { key: 'pulls', name: 'Fit pulls', driver: 'pull_fitted', minutes: 6, stage: 'drawers_doors' },
+    { key: 'sanding', name: 'Sand for finish', driver: 'sanded_m2', minutes: 5, stage: 'finish' },
+    { key: 'finish-coat', name: 'Finish, per coat', driver: 'finish_m2_coat', minutes: 5, stage: 'finish' },
+    { key: 'final-check', name: 'Final check and wrap', driver: 'job', minutes: 20, stage: 'ready' },
   ],
   shopRateCents: 8500,
   labourCostPerHourCents: 3800,

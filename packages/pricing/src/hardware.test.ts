@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { cutList } from './cut-list';
 import { demoPriceBook, demoSettings } from './demo-data';
 import { designs } from './designs';
-import { hardwareFor, hingesPerDoor } from './hardware';
+import { FASTENERS_PER, hardwareFor, hingesPerDoor, pocketScrewLengthIn } from './hardware';
+import { PriceBook } from './price-book';
 import { toMm } from './units';
 
 describe('hingesPerDoor', () => {
@@ -56,5 +57,103 @@ describe('hardwareFor', () => {
   it('puts four casters under each case of the bench', () => {
     const list = cutList(designs['assembly-bench'].defaults, demoPriceBook, demoSettings);
     expect(hardwareFor(list, demoPriceBook, { antiTip: false }).find((h) => h.kind === 'caster')?.pieces).toBe(8);
+  });
+});
+
+const door = (adjustableShelves = 1) => ({
+  kind: 'door' as const,
+  heightMm: null,
+  doors: 1 as const,
+  adjustableShelves,
+  fixedShelves: 0,
+});
+const pieces = (spec: Parameters<typeof cutList>[0], book = demoPriceBook) =>
+  Object.fromEntries(
+    hardwareFor(cutList(spec, book, demoSettings), book, { antiTip: false }).map((h) => [h.itemId, h.pieces]),
+  );
+
+describe('hinges by overlay, count and weight', () => {
+  // a 36 in base cabinet of two bays, a single door each, both hinged on the left: the left door on the end
+  // panel laps it fully; the right door hangs on the partition it shares with the left door and laps about half
+  const twoBay = {
+    ...designs['base-cabinet'].defaults,
+    widthMm: toMm(36),
+    bays: [
+      { widthMm: null, compartments: [door()] },
+      { widthMm: null, compartments: [door()] },
+    ],
+  };
+  it('gives the door on the end panel full-overlay hinges and the door on the partition half-overlay ones', () => {
+    const list = cutList(twoBay, demoPriceBook, demoSettings);
+    expect(list.geometry.doors.map((d) => d.overlay)).toEqual(['full', 'half']);
+    const hw = pieces(twoBay);
+    expect(hw['hinge-concealed']).toBe(2);
+    expect(hw['hinge-half-overlay']).toBe(2);
+    expect(hw['hinge-inset']).toBeUndefined();
+    expect(hw['screw-hinge']).toBe(4 * FASTENERS_PER.hinge);
+  });
+  it('gives inset hinges where the fronts sit inside the case', () => {
+    const list = cutList(twoBay, demoPriceBook, { ...demoSettings, overlayMm: 0 });
+    expect(list.geometry.doors[0]?.overlay).toBe('inset');
+  });
+  it('adds a hinge for every 5 kg beyond what the height gives', () => {
+    expect(hingesPerDoor(800, 9.9)).toBe(2);
+    expect(hingesPerDoor(800, 10.1)).toBe(3);
+    expect(hingesPerDoor(1800, 26)).toBe(6);
+    expect(() => hingesPerDoor(800, -1)).toThrow(RangeError);
+  });
+  it('still prices a book stored before hinges carried an overlay, with its one hinge', () => {
+    const old = PriceBook.parse({
+      ...demoPriceBook,
+      hardware: demoPriceBook.hardware
+        .filter((h) => h.kind !== 'hinge' && h.kind !== 'screw' && h.kind !== 'bolt')
+        .concat([{ id: 'hinge-old', name: 'Concealed hinge', kind: 'hinge', unit: 'each', priceCents: 400 }] as never),
+    });
+    expect(pieces(twoBay, old)['hinge-old']).toBe(4);
+  });
+});
+
+describe('screws and fasteners', () => {
+  it.each([
+    [11.9, 1], // 1/2 in drawer stock
+    [12.7, 1],
+    [18.26, 1.25], // 3/4 in plywood
+    [19.05, 1.25],
+    [25.4, 1.5],
+  ])('takes %f mm stock with %f in pocket screws', (t, l) => expect(pocketScrewLengthIn(t)).toBe(l));
+
+  it('puts 1 in pocket screws in the drawer box and 1 1/4 in ones in the stretchers of the base cabinet', () => {
+    const hw = pieces(designs['base-cabinet'].defaults);
+    // two stretchers of 3/4 in plywood, 4 holes each; the drawer box's front and back of 1/2 in, 4 holes each
+    expect(hw['pocket-screw']).toBe(8);
+    expect(hw['pocket-screw-1in']).toBe(8);
+    // one drawer: a pair of slides at 6 screws each, 4 screws for its front; one door on 2 hinges at 4 screws each
+    expect(hw['screw-slide']).toBe(12);
+    expect(hw['screw-drawer-front']).toBe(4);
+    expect(hw['screw-hinge']).toBe(8);
+    expect(hw['screw-top']).toBeUndefined();
+  });
+
+  it('bolts the casters, screws the feet and screws the top down through the stretchers of a bench', () => {
+    const spec = {
+      ...designs['assembly-bench'].defaults,
+      mobility: 'casters-and-feet' as const,
+    };
+    const hw = pieces(spec);
+    // two cases, four casters and four feet under each, 4 fasteners a plate
+    expect(hw['bolt-caster']).toBe(32);
+    expect(hw['screw-foot']).toBe(32);
+    // each case (72 in less two 3 in overhangs, halved: 838.2 mm) has two stretchers, a screw every 8 in:
+    // floor(838.2 / 203.2) + 1 = 5 a stretcher
+    expect(hw['screw-top']).toBe(2 * 2 * 5);
+    // six drawers, 12 slide screws and 4 front screws each
+    expect(hw['screw-slide']).toBe(72);
+    expect(hw['screw-drawer-front']).toBe(24);
+  });
+
+  it('buys screws and bolts by the box', () => {
+    const list = cutList(designs['base-cabinet'].defaults, demoPriceBook, demoSettings);
+    const slide = hardwareFor(list, demoPriceBook, { antiTip: false }).find((h) => h.itemId === 'screw-slide');
+    expect(slide).toMatchObject({ kind: 'screw', pieces: 12, units: 1, unit: 'box' });
   });
 });

@@ -15,7 +15,9 @@ export { validateLayout } from './validate-layout';
 export { finishCoverage, finishGallons, FT2_MIL_PER_GALLON } from './finish';
 export { hardwareFor, TWO_PULL_WIDTH_MM } from './hardware';
 export type { HardwareLine } from './hardware';
-export { labourHours, bandingMetres } from './labour';
+export { labourHours, labourCounts, bandingMetres, dadoMetres, shelfPinRows } from './labour';
+export type { LabourCounts, LabourLine, LabourPiece } from './labour';
+export type { Machining, PartEdge } from './machining';
 export { estimate, budgetRange, rangeOf, totalsFor, splitDeposit, times } from './costing';
 export type {
   Estimate,
@@ -31,6 +33,9 @@ export { traveller, SHOP_CAUTIONS } from './traveller';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';
 export {
   LABOUR_OPERATION_KEYS,
+  LABOUR_DRIVERS,
+  LABOUR_DRIVER_UNITS,
+  LabourDriver,
   HardwareKind,
   SheetGood,
   Lumber,

@@ -62,6 +62,8 @@ export const HardwareKind = z.enum([
   'rail_screw',
   'anti_tip_kit',
   'hanging_rail',
+  'screw',
+  'bolt',
 ]);
 export type HardwareKind = z.infer<typeof HardwareKind>;
 
@@ -73,8 +75,12 @@ export const HardwareItem = z.object({
   priceCents: cents,
   /** pieces in one priced unit (a box of 100 screws) */
   perUnit: z.number().int().positive().default(1),
-  /** slides: nominal length in inches */
+  /** slides: nominal length in inches; screws and bolts: length under the head */
   lengthIn: positive.optional(),
+  /** hinges: the overlay the hinge is made for (full on an end panel, half on a shared partition, inset) */
+  overlay: z.enum(['full', 'half', 'inset']).optional(),
+  /** screws and bolts: what they fasten (the engine counts each) */
+  fastens: z.enum(['slide', 'hinge', 'drawer_front', 'top', 'caster', 'foot']).optional(),
   /** casters: rated load per caster */
   ratedLoadKg: positive.optional(),
   /** casters and leveling feet: height added under the case */
@@ -96,6 +102,11 @@ export const Finish = z.object({
 });
 export type Finish = z.infer<typeof Finish>;
 
+/**
+ * The operation keys of price books stored before operations were open. Kept
+ * for reading those books (see `LabourOperation`); a book may now hold any
+ * operations under any keys.
+ */
 export const LABOUR_OPERATION_KEYS = [
   'job_setup',
   'sheet_breakdown',
@@ -112,31 +123,104 @@ export const LABOUR_OPERATION_KEYS = [
   'caster',
   'final_check',
 ] as const;
-export const LabourOperationKey = z.enum(LABOUR_OPERATION_KEYS);
+export const LabourOperationKey = z.string().trim().min(1).max(64);
 export type LabourOperationKey = z.infer<typeof LabourOperationKey>;
 
-export const LabourOperation = z.object({
-  key: LabourOperationKey,
-  name: z.string().min(1),
-  /** what the time standard counts: per job, per sheet, per part, per metre banded, per m2 per coat... */
-  per: z.enum([
-    'job',
-    'sheet',
-    'part',
-    'metre',
-    'hole',
-    'case',
-    'drawer',
-    'pair',
-    'door',
-    'top',
-    'piece',
-    'm2_coat',
-    'caster',
-  ]),
-  minutes: z.number().nonnegative(),
-  stage: StageKey,
-});
+/**
+ * What a time standard counts; the engine counts each from the cut list, the
+ * hardware and the finish. `case`, `top` and `trim_piece` keep the meaning of
+ * books stored before operations were open.
+ */
+export const LABOUR_DRIVERS = [
+  'job',
+  'sheet',
+  'part',
+  'case',
+  'banding_metre',
+  'pocket_hole',
+  'dado_metre',
+  'shelf_pin_row',
+  'hinge_bored',
+  'pull_fitted',
+  'front_aligned',
+  'drawer_box',
+  'slide_pair',
+  'door_hung',
+  'sanded_m2',
+  'finish_m2_coat',
+  'torsion_top_m2',
+  'top',
+  'board_foot_milled',
+  'trim_piece',
+  'caster',
+] as const;
+export const LabourDriver = z.enum(LABOUR_DRIVERS);
+export type LabourDriver = z.infer<typeof LabourDriver>;
+
+/** The unit each driver counts, in words, for screens and the traveller. */
+export const LABOUR_DRIVER_UNITS: Record<LabourDriver, string> = {
+  job: 'job',
+  sheet: 'sheet',
+  part: 'part',
+  case: 'case',
+  banding_metre: 'metre banded',
+  pocket_hole: 'pocket hole',
+  dado_metre: 'metre of dado or groove',
+  shelf_pin_row: 'shelf-pin row',
+  hinge_bored: 'hinge bored',
+  pull_fitted: 'pull fitted',
+  front_aligned: 'front aligned',
+  drawer_box: 'drawer box',
+  slide_pair: 'slide pair',
+  door_hung: 'door hung',
+  sanded_m2: 'm2 sanded',
+  finish_m2_coat: 'm2 per coat',
+  torsion_top_m2: 'm2 of torsion top',
+  top: 'top',
+  board_foot_milled: 'board foot milled',
+  trim_piece: 'trim piece',
+  caster: 'caster or foot',
+};
+
+/** The old `per` of a stored operation and the driver that counts the same thing. */
+const DRIVER_OF_OLD_PER: Record<string, LabourDriver> = {
+  job: 'job',
+  sheet: 'sheet',
+  part: 'part',
+  metre: 'banding_metre',
+  hole: 'pocket_hole',
+  case: 'case',
+  drawer: 'drawer_box',
+  pair: 'slide_pair',
+  door: 'door_hung',
+  top: 'top',
+  piece: 'trim_piece',
+  m2_coat: 'finish_m2_coat',
+  caster: 'caster',
+};
+
+/** Reads an operation stored in the old shape (`per` and no `driver`) as the new one. */
+function fromOldOperation(raw: unknown): unknown {
+  if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) return raw;
+  const op = raw as Record<string, unknown>;
+  if (op.driver !== undefined || typeof op.per !== 'string') return raw;
+  const { per, ...rest } = op;
+  const driver = DRIVER_OF_OLD_PER[per];
+  return driver ? { ...rest, driver } : raw;
+}
+
+export const LabourOperation = z.preprocess(
+  fromOldOperation,
+  z.object({
+    /** the operation's id in the book, free text */
+    key: LabourOperationKey,
+    name: z.string().min(1),
+    /** what the time standard counts */
+    driver: LabourDriver,
+    minutes: z.number().nonnegative(),
+    stage: StageKey,
+  }),
+);
 export type LabourOperation = z.infer<typeof LabourOperation>;
 
 export const PriceBook = z
@@ -157,11 +241,16 @@ export const PriceBook = z
     sheetTrimMm: z.number().min(0).max(50),
   })
   .superRefine((book, ctx) => {
-    const ops = new Set(book.labour.map((o) => o.key));
-    for (const key of LABOUR_OPERATION_KEYS) {
-      if (!ops.has(key))
-        ctx.addIssue({ code: 'custom', path: ['labour'], message: `missing the time standard for "${key}"` });
-    }
+    const keys = new Set<string>();
+    book.labour.forEach((op, i) => {
+      if (keys.has(op.key))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['labour', i, 'key'],
+          message: `operation "${op.key}" is in the price book twice`,
+        });
+      keys.add(op.key);
+    });
     const seen = new Set<string>();
     for (const [list, items] of [
       ['sheetGoods', book.sheetGoods],

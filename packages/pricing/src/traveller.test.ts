@@ -20,6 +20,17 @@ describe('traveller', () => {
   const e = estimate(items, demoPriceBook, demoSettings, { effort: 'quick' });
   const t = traveller(e, demoPriceBook, demoSettings);
 
+  it('carries the machining of each part as data, positions included', () => {
+    const side = at(t.pieces, 0).parts.find((p) => p.name === 'side')!;
+    expect(side.machining).toContainEqual(
+      expect.objectContaining({ kind: 'dado', for: 'bottom', fromEdge: 'bottom', distanceMm: 101.6 }),
+    );
+    const door = at(t.pieces, 0).parts.find((p) => p.name === 'door')!;
+    expect(door.machining).toContainEqual(expect.objectContaining({ kind: 'hinge_cup', centresMm: [100, 491.7] }));
+    // plain data: it survives a trip through JSON unchanged
+    expect(JSON.parse(JSON.stringify(side.machining))).toEqual(side.machining);
+  });
+
   it('lists every part of every piece, counted for the quantity ordered', () => {
     expect(t.pieces.map((p) => [p.title, p.quantity])).toEqual([
       ['Base cabinet', 2],

@@ -4,6 +4,7 @@ import type { PriceBook, ShopSettings, StageKey } from './price-book';
 import { designs } from './designs';
 import { sheetLayoutDrawing, type Drawing } from './drawings';
 import { bandingMetres } from './labour';
+import type { Machining } from './machining';
 
 /**
  * The shop's usual safety cautions for the traveller (DESIGN.md section 7).
@@ -32,6 +33,8 @@ export interface TravellerPart {
   grain: string;
   /** edges to band, as "2 long, 1 short", or "" */
   banding: string;
+  /** what is done to the part after cutting, with positions to mark from (data; the job paper draws it) */
+  machining: Machining[];
 }
 
 export interface TravellerSheet {
@@ -91,6 +94,7 @@ export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings):
       ]
         .filter(Boolean)
         .join(', '),
+      machining: part.machining,
     })),
   }));
   const materials = e.layouts.map((l) => ({
