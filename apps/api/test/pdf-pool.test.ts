@@ -24,6 +24,7 @@ function labels(parts: number): LabelsPdfInput {
             thicknessMm: 18.26,
             grain: 'length',
             banding: '1 long',
+            machining: [],
           })),
         },
       ],
