@@ -192,7 +192,8 @@ class PartList {
   readonly parts: CutPart[] = [];
   add(p: Omit<CutPart, 'stock' | 'bandingId'> & { stock?: 'sheet' | 'lumber'; bandingId?: string | null }): void {
     if (p.quantity <= 0) return;
-    if (!(p.lengthMm > 0 && p.widthMm > 0))
+    // under 1 mm is no part a saw can cut (and sizes near zero upset the layout's arithmetic)
+    if (!(p.lengthMm >= 1 && p.widthMm >= 1))
       throw new BuildError(
         `The ${p.name} would come out ${len(p.lengthMm)} x ${len(p.widthMm)}: the piece is too small for its layout. Make it larger or choose fewer bays or sections.`,
         '',

@@ -7,6 +7,8 @@ import { toMm, type LengthUnit } from './units';
 
 /** A door at least 6 in wide: room for the hinge cups and a pull (common practice). */
 export const MIN_DOOR_WIDTH_MM = toMm(6);
+/** A door at least 6 in tall: room for two hinges (common practice). */
+export const MIN_DOOR_HEIGHT_MM = toMm(6);
 /** Drawer fronts from 3 in (a shallow pencil drawer) to 18 in tall (a deep file or pot drawer); taller is a door (common practice). */
 export const DRAWER_FRONT_HEIGHT_MM: readonly [number, number] = [toMm(3), toMm(18)];
 /** Drawers up to 36 in wide: wider boxes rack on a pair of side-mount slides (common practice). */
@@ -174,6 +176,11 @@ function frontSizes(list: CutList, settings: ShopSettings): SpecIssue[] {
     const at = where(b, k);
     if (m[3] === 'door') {
       const w = p.widthMm;
+      if (p.lengthMm < MIN_DOOR_HEIGHT_MM - 1e-6)
+        issues.push({
+          path: `${path}.heightMm`,
+          message: `${at}: the door would be ${len(p.lengthMm)} tall; a door needs at least ${len(MIN_DOOR_HEIGHT_MM)} for its hinges: make the section taller, or choose open shelves or a drawer.`,
+        });
       if (w > settings.maxDoorWidthMm + 1e-6)
         issues.push({
           path: `${path}.doors`,

@@ -28,6 +28,14 @@ export function mm(min: number, max: number) {
     });
 }
 
+/** A toe kick or plinth: none (0), or from 2 in (common practice: lower leaves no room for a board) to 6 in. */
+export function toeKick() {
+  const least = toMm(2);
+  return mm(0, 152).refine((v) => v === 0 || v >= least, {
+    error: () => `A toe kick is either none (0) or at least ${len(least)} high.`,
+  });
+}
+
 function count(min: number, max: number, what: string) {
   return z
     .number({ error: `Enter a whole number of ${what}.` })
