@@ -160,12 +160,20 @@ function property(slug: DesignSlug, effort: NestEffort, numRuns: number, seed: n
 }
 
 describe('whenever validateSpec accepts a spec, estimate prices it and places every part (fast-check)', () => {
-  it.each(DESIGN_SLUGS)('%s: 200 random specs at quick', (slug) => {
-    const accepted = property(slug, 'quick', 200, 20261202);
-    // the generator must reach valid specs, or the property says nothing
-    expect(accepted).toBeGreaterThanOrEqual(12);
-  });
-  it.each(DESIGN_SLUGS)('%s: 20 random specs at thorough', (slug) => {
-    property(slug, 'thorough', 20, 20261203);
-  });
+  it.each(DESIGN_SLUGS)(
+    '%s: 200 random specs at quick',
+    (slug) => {
+      const accepted = property(slug, 'quick', 200, 20261202);
+      // the generator must reach valid specs, or the property says nothing
+      expect(accepted).toBeGreaterThanOrEqual(12);
+    },
+    60_000,
+  );
+  it.each(DESIGN_SLUGS)(
+    '%s: 20 random specs at thorough',
+    (slug) => {
+      property(slug, 'thorough', 20, 20261203);
+    },
+    60_000,
+  );
 });

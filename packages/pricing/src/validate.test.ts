@@ -179,3 +179,17 @@ describe('messages in the units and words of the shop', () => {
     }
   });
 });
+
+describe('check messages in one unit system', () => {
+  it('says a shelf span and its sag in inches with the load for an imperial shop, in mm and kPa for a metric one', () => {
+    const spec = { ...designs.bookcase.defaults, widthMm: 1067, carcassMaterialId: 'mdf-18' };
+    const inch = validateSpec(spec, demoPriceBook, demoSettings);
+    const metric = validateSpec(spec, demoPriceBook, demoSettings, 'mm');
+    expect(!inch.ok && inch.issues[0]!.message).toMatch(
+      /A [\d /]+ in shelf would sag about [\d.]+ in under a load of 40 lb\/ft², more than the [\d.]+ in allowed/,
+    );
+    expect(!metric.ok && metric.issues[0]!.message).toMatch(
+      /A \d+ mm shelf would sag about [\d.]+ mm under a load of 1.9 kPa/,
+    );
+  });
+});

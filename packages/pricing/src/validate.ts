@@ -1,7 +1,7 @@
 import { pieceChecks } from './checks';
 import { BuildError, cutList, sheetFits, type CutList, type CutPart } from './cut-list';
 import { parseSpec, type BuildSpec, type SpecIssue } from './designs';
-import { len, sentence, where, withUnits } from './messages';
+import { len, messageUnits, sentence, where, withUnits } from './messages';
 import type { HardwareKind, PriceBook, SheetGood, ShopSettings } from './price-book';
 import { toMm, type LengthUnit } from './units';
 
@@ -52,7 +52,7 @@ function buildIssues(spec: BuildSpec, book: PriceBook, settings: ShopSettings): 
   }
   const issues = [...partsOnSheets(list, book), ...frontSizes(list, settings)];
   if (issues.length) return issues;
-  return pieceChecks(list, book, settings)
+  return pieceChecks(list, book, { ...settings, units: messageUnits() })
     .checks.filter((c) => c.level === 'error')
     .map((c) => ({ path: c.path ?? '', message: c.message }));
 }
