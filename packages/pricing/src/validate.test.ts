@@ -193,3 +193,17 @@ describe('check messages in one unit system', () => {
     );
   });
 });
+
+describe('the pieces the shop already prices', () => {
+  it('validates every design default and every spec of the job fixtures', async () => {
+    const { readFileSync } = await import('node:fs');
+    const specs: unknown[] = Object.values(designs).map((d) => d.defaults);
+    for (const f of ['kitchen-run.json', 'mixed-job.json']) {
+      const items = JSON.parse(readFileSync(new URL(`../test/fixtures/${f}`, import.meta.url), 'utf8')) as unknown;
+      const list = Array.isArray(items) ? items : ((items as { items: unknown[] }).items ?? []);
+      for (const it of list) specs.push((it as { spec?: unknown }).spec ?? it);
+    }
+    expect(specs.length).toBeGreaterThan(4);
+    for (const s of specs) expect(validateSpec(s, demoPriceBook, demoSettings)).toMatchObject({ ok: true });
+  });
+});
