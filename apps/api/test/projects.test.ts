@@ -114,9 +114,10 @@ describe('POST /api/projects', () => {
       .post('/api/projects')
       .send({ items: [{ spec: { ...designs.bookcase.defaults, widthMm: 100 }, quantity: 1 }] });
     expect(r.status).toBe(400);
+    // the demo shop works in inches, so the message does too
     expect(r.body.error.issues).toContainEqual({
       path: 'items[0].spec.widthMm',
-      message: '100 mm is below the 305 mm minimum',
+      message: '3 15/16 in is below the 12 in minimum.',
     });
   });
   it('when a shelf span is more than its material can carry, answers 400 and says what to change', async () => {
@@ -174,6 +175,51 @@ describe('POST /api/quotes/preview', () => {
     expect(r.body.quote.lines.length).toBeGreaterThan(3);
     expect(r.body.quote.totals.totalCents).toBeGreaterThanOrEqual(r.body.quote.budget.lowCents);
     expect(r.body.quote.totals.totalCents).toBeLessThanOrEqual(r.body.quote.budget.highCents);
+  });
+  it('prices a single-sided bench whose back is wider than a sheet (the back turns), never a 500', async () => {
+    const t = await testApp();
+    const b = designs['assembly-bench'].defaults;
+    const spec = {
+      ...b,
+      widthMm: 1828.8,
+      depthMm: 914.4,
+      heightMm: 889,
+      caseCount: 1,
+      workingLoadKg: 100,
+      bays: [b.bays[0], b.bays[0], b.bays[0]],
+    };
+    const r = await t
+      .agent()
+      .post('/api/quotes/preview')
+      .send({ items: [{ spec, quantity: 1 }] });
+    expect(r.body.error).toBeUndefined();
+    expect(r.status).toBe(200);
+  });
+  it('answers 400 in the error shape, in the shop units and the screen words, for a drawer taller than a shop builds', async () => {
+    const t = await testApp();
+    const spec = {
+      ...designs.bookcase.defaults,
+      widthMm: 1000,
+      heightMm: 1800,
+      bays: [
+        {
+          widthMm: null,
+          compartments: [{ kind: 'drawer', heightMm: null, doors: 1, adjustableShelves: 0, fixedShelves: 0 }],
+        },
+      ],
+    };
+    const r = await t
+      .agent()
+      .post('/api/quotes/preview')
+      .send({ items: [{ spec, quantity: 1 }] });
+    expect(r.status).toBe(400);
+    expect(r.body.error.code).toBeTruthy();
+    expect(r.body.error.issues).toContainEqual({
+      path: 'items[0].spec.bays[0].compartments[0].heightMm',
+      message: expect.stringMatching(
+        /^Bay 1, Section 1: the drawer front would be [\d /]+ in tall, more than the 18 in/,
+      ),
+    });
   });
   it('gives a client no lines either', async () => {
     const t = await testApp();

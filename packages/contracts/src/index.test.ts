@@ -25,7 +25,7 @@ describe('CreateProjectBody', () => {
     expect(r.success).toBe(false);
     expect(r.error?.issues[0]).toMatchObject({
       path: ['items', 0, 'spec', 'depthMm'],
-      message: '50 mm is below the 229 mm minimum',
+      message: '50 mm is below the 229 mm minimum.',
     });
   });
   it(`caps a request at ${MAX_PIECES} pieces, the sum of the quantities`, () => {

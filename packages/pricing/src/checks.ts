@@ -1,6 +1,27 @@
 import type { CutList, CutPart } from './cut-list';
 import type { PriceBook, ShopSettings } from './price-book';
-import { toInches, toMm } from './units';
+import { len } from './messages';
+import { toInches, toMm, type LengthUnit } from './units';
+
+/** Pounds in one kilogram (the international pound is exactly 0.45359237 kg). */
+const LB_PER_KG = 1 / 0.45359237;
+/** lb/ft2 in one kPa: 1000 N/m2 over 4.4482216 N/lb, times 0.09290304 m2/ft2. */
+const PSF_PER_KPA = (1000 / 4.4482216152605) * 0.09290304;
+
+/** A mass as a sentence reads it: pounds for a shop in inches, kilograms for a metric one. */
+function mass(kg: number, units: LengthUnit): string {
+  return units === 'in' ? `${(kg * LB_PER_KG).toFixed(0)} lb` : `${kg.toFixed(0)} kg`;
+}
+
+/** A small length (a sag) to a hundredth of an inch or a tenth of a millimetre. */
+function small(mm: number, units: LengthUnit): string {
+  return units === 'in' ? `${toInches(mm).toFixed(2)} in` : `${mm.toFixed(1)} mm`;
+}
+
+/** A shelf load: 40 lb/ft2 for a shop in inches, 1.9 kPa for a metric one. */
+function load(kPa: number, units: LengthUnit): string {
+  return units === 'in' ? `${(kPa * PSF_PER_KPA).toFixed(0)} lb/ft²` : `${kPa.toFixed(1)} kPa`;
+}
 
 export interface ShelfSagInput {
   spanMm: number;
@@ -13,6 +34,8 @@ export interface ShelfSagInput {
   creepFactor?: number;
   /** allowable sag is span / limitRatio; 600 is 0.02 in per foot */
   limitRatio?: number;
+  /** the units the message speaks (inches unless told) */
+  units?: LengthUnit;
 }
 
 export interface ShelfSagResult {
@@ -50,10 +73,12 @@ export function shelfSag(input: ShelfSagInput): ShelfSagResult {
   const sagMm = ((5 * w * L ** 4) / (384 * E * I)) * creep;
   const allowableMm = L / ratio;
   const ok = sagMm <= allowableMm + 1e-9;
-  const spanIn = toInches(L).toFixed(1);
+  const u = input.units ?? 'in';
+  const span = len(L, u);
+  const under = `under a load of ${load(loadKPa, u)}`;
   const message = ok
-    ? `A ${spanIn} in shelf sags about ${sagMm.toFixed(1)} mm under the design load, within the ${allowableMm.toFixed(1)} mm allowed.`
-    : `A ${spanIn} in shelf would sag about ${sagMm.toFixed(1)} mm under the design load, more than the ${allowableMm.toFixed(1)} mm allowed: use a thicker shelf, add a centre support or partition to shorten the span (to ${toInches(maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio: ratio, creepFactor: creep })).toFixed(0)} in or less), or glue a solid-wood edge strip under the front edge.`;
+    ? `A ${span} shelf sags about ${small(sagMm, u)} ${under}, within the ${small(allowableMm, u)} allowed.`
+    : `A ${span} shelf would sag about ${small(sagMm, u)} ${under}, more than the ${small(allowableMm, u)} allowed: use a thicker shelf, add a centre support or partition to shorten the span (to ${len(maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio: ratio, creepFactor: creep }), u)} or less), or glue a solid-wood edge strip under the front edge.`;
   return { sagMm, allowableMm, ok, message };
 }
 
@@ -87,6 +112,8 @@ export interface CasterCheckInput {
   workingLoadKg: number;
   casters: number;
   ratedLoadKg: number;
+  /** pounds for 'in', kilograms for 'mm' (kilograms unless told) */
+  units?: LengthUnit;
 }
 
 /**
@@ -94,7 +121,7 @@ export interface CasterCheckInput {
  * the floor (uneven floors, common practice).
  * @example casterCheck({ pieceKg: 120, workingLoadKg: 200, casters: 8, ratedLoadKg: 100 }).ok // true
  */
-export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: CasterCheckInput): {
+export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg, units = 'mm' }: CasterCheckInput): {
   perCasterKg: number;
   ok: boolean;
   message: string;
@@ -106,8 +133,8 @@ export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: Ca
     perCasterKg,
     ok,
     message: ok
-      ? `Each caster carries up to ${perCasterKg.toFixed(0)} kg (one assumed off the floor), within its ${ratedLoadKg} kg rating.`
-      : `Each caster would carry ${perCasterKg.toFixed(0)} kg with one off the floor, more than its ${ratedLoadKg} kg rating: fit casters rated ${Math.ceil(perCasterKg)} kg or more, add casters, or lower the working load.`,
+      ? `Each caster carries up to ${mass(perCasterKg, units)} (one assumed off the floor), within its ${mass(ratedLoadKg, units)} rating.`
+      : `Each caster would carry ${mass(perCasterKg, units)} with one off the floor, more than its ${mass(ratedLoadKg, units)} rating: fit casters rated ${units === 'in' ? `${Math.ceil(perCasterKg * LB_PER_KG)} lb` : `${Math.ceil(perCasterKg)} kg`} or more, add casters, or lower the working load.`,
   };
 }
 
@@ -171,6 +198,7 @@ export function pieceChecks(
       modulusMPa: mat.modulusMPa,
       loadKPa: settings.shelfLoadKPa,
       creepFactor: settings.shelfCreepFactor,
+      units: settings.units,
     };
     const hard = shelfSag({ ...base, limitRatio: 144 });
     const soft = shelfSag({ ...base, limitRatio: settings.shelfSagRatio });
@@ -191,6 +219,7 @@ export function pieceChecks(
         workingLoadKg: g.workingLoadKg,
         casters: g.casters,
         ratedLoadKg: caster.ratedLoadKg,
+        units: settings.units,
       });
       checks.push({ code: 'caster_load', level: c.ok ? 'caution' : 'error', path: 'casterId', message: c.message });
     }
@@ -205,7 +234,7 @@ export function pieceChecks(
   const rule =
     'The 27 in threshold is taken from the US rule for clothing storage units (16 CFR part 1261, adopting ASTM F2057-23) and applied here as a caution.';
   if (g.freeStanding && g.heightMm >= TIP_OVER_HEIGHT_MM) {
-    const tall = `${toInches(g.heightMm).toFixed(0)} in`;
+    const tall = len(g.heightMm, settings.units);
     if (g.mobile) {
       checks.push({
         code: 'tip_over_mobile',

@@ -233,7 +233,7 @@ describe('properties over random valid specs (fast-check)', () => {
       }),
       { numRuns: 40, seed: 11 },
     );
-  });
+  }, 30_000);
 
   it('never lowers per-part operations or hardware when every dimension grows', () => {
     fc.assert(

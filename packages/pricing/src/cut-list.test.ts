@@ -90,8 +90,9 @@ describe('cutList', () => {
     near(dside.widthMm, 127);
     expect(dside.thicknessMm).toBe(11.9);
     const dbottom = get('drawer bottom');
-    near(dbottom.lengthMm, 547.68 - 2 * 11.9 + 12.7);
-    near(dbottom.widthMm, 558.8 - 2 * 11.9 + 12.7);
+    // the bottom 1/16 in (1.5875 mm) under its dado-to-dado size each way, to slide in (common practice)
+    near(dbottom.lengthMm, 547.68 - 2 * 11.9 + 12.7 - 1.5875);
+    near(dbottom.widthMm, 558.8 - 2 * 11.9 + 12.7 - 1.5875);
   });
 
   it('gives every part a stable, unique id', () => {
@@ -182,7 +183,7 @@ describe('parseSpec', () => {
     if (!r.ok)
       expect(r.issues).toContainEqual({
         path: 'bays[1].compartments[2].heightMm',
-        message: '38 mm is below the 60 mm minimum',
+        message: '38 mm is below the 60 mm minimum.',
       });
   });
   it('catches compartments taller than the case', () => {
@@ -199,13 +200,13 @@ describe('parseSpec', () => {
     if (!r.ok)
       expect(r.issues[0]).toMatchObject({
         path: 'bays[0].compartments',
-        message: expect.stringMatching(/compartments need 900 mm/),
+        message: expect.stringMatching(/^The sections of Bay 1 need 900 mm/),
       });
   });
   it('refuses an unknown design', () => {
     expect(parseSpec({ design: 'sofa' })).toEqual({
       ok: false,
-      issues: [{ path: 'design', message: expect.stringMatching(/choose one of the designs/) }],
+      issues: [{ path: 'design', message: expect.stringMatching(/^Choose one of the designs/) }],
     });
   });
 });

@@ -13,6 +13,7 @@ import {
   type DadoOp,
   type Machining,
 } from './machining';
+import { len, where } from './messages';
 import { toMm } from './units';
 
 export type Grain = 'fixed' | 'free';
@@ -113,6 +114,8 @@ const SLIDE_REAR_CLEARANCE_MM = toMm(0.5);
 export const DRAWER_BOTTOM_DADO_MM = toMm(0.25);
 /** the drawer bottom's groove starts 1/2 in up from the box's lower edge (common practice) */
 const DRAWER_BOTTOM_UP_MM = toMm(0.5);
+/** a drawer bottom is cut this much under its dado-to-dado size each way, to slide in freely (1/32 to 1/16 in, common practice) */
+export const DRAWER_BOTTOM_CLEARANCE_MM = toMm(1 / 16);
 /** carcass dados: 1/4 in deep (common practice: about a third of 3/4 in stock) */
 const DADO_MM = toMm(0.25);
 /** grooved backs sit this far in from the back edge, to leave room to scribe (common practice) */
@@ -190,6 +193,17 @@ function round(v: number): number {
   return Math.round(v * 10) / 10;
 }
 
+/** A spec that cannot be built as given, with the field to change (a RangeError, as the cut list's other refusals). */
+export class BuildError extends RangeError {
+  constructor(
+    message: string,
+    readonly path: string,
+  ) {
+    super(message);
+    this.name = 'BuildError';
+  }
+}
+
 // ---------------------------------------------------------------------------
 
 interface CaseInput {
@@ -215,9 +229,11 @@ class PartList {
     },
   ): void {
     if (p.quantity <= 0) return;
-    if (!(p.lengthMm > 0 && p.widthMm > 0))
-      throw new RangeError(
-        `part "${p.name}" comes out ${round(p.lengthMm)} x ${round(p.widthMm)} mm: the piece is too small for its layout`,
+    // under 1 mm is no part a saw can cut (and sizes near zero upset the layout's arithmetic)
+    if (!(p.lengthMm >= 1 && p.widthMm >= 1))
+      throw new BuildError(
+        `The ${p.name} would come out ${len(p.lengthMm)} x ${len(p.widthMm)}: the piece is too small for its layout. Make it larger or choose fewer bays or sections.`,
+        '',
       );
     const banded = p.bandedEdges.long + p.bandedEdges.short > 0;
     const part: CutPart = {
@@ -230,6 +246,17 @@ class PartList {
     if (same) same.quantity += part.quantity;
     else this.parts.push(part);
   }
+}
+
+/**
+ * Whether a part fits one sheet of its material inside the edge trim: along the grain, or either way
+ * round when its grain is free (or the material has none).
+ */
+export function sheetFits(m: SheetGood, trimMm: number, lengthMm: number, widthMm: number, grain?: Grain): boolean {
+  const L = m.sheetLengthMm - 2 * trimMm + 1e-6;
+  const W = m.sheetWidthMm - 2 * trimMm + 1e-6;
+  const free = (grain ?? grainOf(m, true)) === 'free';
+  return (lengthMm <= L && widthMm <= W) || (free && widthMm <= L && lengthMm <= W);
 }
 
 function grainOf(m: SheetGood, visible: boolean): 'fixed' | 'free' {
@@ -365,7 +392,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
   }
 
   for (const cs of cases)
-    buildCase(cs, spec, { carcass, back, front, drawerMat, drawerBottom }, settings, list, geo, band);
+    buildCase(cs, spec, { carcass, back, front, drawerMat, drawerBottom }, settings, list, geo, band, book.sheetTrimMm);
   geo.caseCount = cases.length;
 
   if (spec.trim) {
@@ -428,18 +455,27 @@ function buildCase(
   list: PartList,
   geo: PieceGeometry,
   band: string,
+  sheetTrimMm: number,
 ): void {
   const t = m.carcass.thicknessMm;
   const bt = m.back.thicknessMm;
   const k = cs.key;
   const grooved = spec.backConstruction === 'grooved';
+  // butt joints: panels run between the sides, screwed (pocket screws); dado joints: let into 1/4 in dados
+  const butt = (spec.joinery ?? settings.caseJoinery) === 'butt';
+  const dado = butt ? 0 : DADO_MM;
+  // a hanging rail sits behind the back, so a grooved back is set in by the rail's thickness
+  const setback = cs.hangingRail && grooved ? Math.max(BACK_SETBACK_MM, t) : BACK_SETBACK_MM;
   const panelDepth = grooved ? cs.depthMm : cs.depthMm - bt; // sides, bottom, top
-  const insideDepth = grooved ? cs.depthMm - BACK_SETBACK_MM - bt : cs.depthMm - bt;
+  const insideDepth = grooved ? cs.depthMm - setback - bt : cs.depthMm - bt;
+  // pocket screws along a butt joint: one every 8 in, at least two (common practice)
+  const screwsPerJoint = (depthMm: number) => (butt ? Math.max(2, Math.ceil(depthMm / toMm(8))) : 0);
   const insideWidth = cs.widthMm - 2 * t;
   const insideHeight = cs.heightMm - cs.toeKickMm - 2 * t;
   if (insideWidth <= 0 || insideHeight <= 0 || insideDepth <= 0)
-    throw new RangeError(
-      `the case (${round(cs.widthMm)} x ${round(cs.heightMm)} x ${round(cs.depthMm)} mm) has no room inside`,
+    throw new BuildError(
+      `A case of ${len(cs.widthMm)} x ${len(cs.heightMm)} x ${len(cs.depthMm)} has no room inside: make it larger.`,
+      'widthMm',
     );
   const faceBand = cs.trimmed ? 0 : 1;
   const carcassGrain = (visible: boolean) => grainOf(m.carcass, visible);
@@ -455,13 +491,14 @@ function buildCase(
     insideWidth - (bays.length - 1) * t,
   );
   if (bayWidths.some((w) => w < 100))
-    throw new RangeError('the bays do not fit the case: make them narrower or the case wider');
+    throw new BuildError('The bays do not fit the case: make them narrower or the case wider.', 'bays');
 
   // the bottom's and top panel's partition dados (from the left end, which sits in the left side's dado) and back groove
   const horizontalCuts = (face: 'inside'): DadoOp[] => {
     const out: DadoOp[] = [];
     let inner = 0;
-    for (let b = 0; b < bays.length - 1; b++) {
+    // butt joints: the partitions are screwed, not let into dados
+    for (let b = 0; b < (butt ? 0 : bays.length - 1); b++) {
       inner += at(bayWidths, b);
       out.push(
         cut({
@@ -485,13 +522,15 @@ function buildCase(
           distanceMm: BACK_SETBACK_MM,
           widthMm: bt,
           depthMm: DADO_MM,
-          lengthMm: insideWidth + 2 * DADO_MM,
+          lengthMm: insideWidth + 2 * dado,
         }),
       );
     return out;
   };
   // sides: full height (notched for the toe kick), dadoes for bottom, top panel and the outer bays' dividers, and the back groove
-  const sideDados = [0, bays.length - 1].map((b) => horizontals + at(dividersPerBay, b) + (grooved ? 1 : 0));
+  const sideDados = [0, bays.length - 1].map(
+    (b) => (butt ? 0 : horizontals + at(dividersPerBay, b)) + (grooved ? 1 : 0),
+  );
   list.add({
     id: `${k}-side`,
     name: 'side',
@@ -518,16 +557,20 @@ function buildCase(
             },
           ]
         : []),
-      cut({
-        for: 'bottom',
-        face: 'inside',
-        fromEdge: 'bottom',
-        distanceMm: cs.toeKickMm,
-        widthMm: t,
-        depthMm: DADO_MM,
-        lengthMm: panelDepth,
-      }),
-      ...(cs.topKind === 'panel'
+      ...(butt
+        ? []
+        : [
+            cut({
+              for: 'bottom',
+              face: 'inside',
+              fromEdge: 'bottom',
+              distanceMm: cs.toeKickMm,
+              widthMm: t,
+              depthMm: DADO_MM,
+              lengthMm: panelDepth,
+            }),
+          ]),
+      ...(cs.topKind === 'panel' && !butt
         ? [
             cut({
               for: 'top',
@@ -561,14 +604,14 @@ function buildCase(
     name: 'bottom',
     materialId: m.carcass.id,
     quantity: 1,
-    lengthMm: insideWidth + 2 * DADO_MM,
+    lengthMm: insideWidth + 2 * dado,
     widthMm: panelDepth,
     thicknessMm: t,
     grain: carcassGrain(true),
     bandedEdges: { long: faceBand as 0 | 1, short: 0 },
     bandingId: band,
-    pocketHoles: 0,
-    dados: bays.length - 1 + (grooved ? 1 : 0),
+    pocketHoles: 2 * screwsPerJoint(panelDepth),
+    dados: (butt ? 0 : bays.length - 1) + (grooved ? 1 : 0),
     finishFaces: 1,
     machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
   });
@@ -578,14 +621,14 @@ function buildCase(
       name: 'top',
       materialId: m.carcass.id,
       quantity: 1,
-      lengthMm: insideWidth + 2 * DADO_MM,
+      lengthMm: insideWidth + 2 * dado,
       widthMm: panelDepth,
       thicknessMm: t,
       grain: carcassGrain(true),
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
-      pocketHoles: 0,
-      dados: bays.length - 1 + (grooved ? 1 : 0),
+      pocketHoles: 2 * screwsPerJoint(panelDepth),
+      dados: (butt ? 0 : bays.length - 1) + (grooved ? 1 : 0),
       finishFaces: 2,
       machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
     });
@@ -640,14 +683,31 @@ function buildCase(
     });
     geo.hangingRailWidthMm = cs.widthMm;
   }
-  if (grooved) {
+  // The back, as a shop handles one larger than its sheet: grain up the case if the sheet allows, else turned
+  // with the grain across; else (grooved) split over partitions into pieces that each fit (common practice).
+  const backHeight = grooved ? insideHeight + 2 * DADO_MM : cs.heightMm - cs.toeKickMm;
+  const backWidths: number[] = [];
+  if (grooved && !sheetFits(m.back, sheetTrimMm, backHeight, insideWidth + 2 * DADO_MM, 'free') && bays.length > 1) {
+    let from = 0;
+    while (from < bays.length) {
+      let to = from; // bays from..to share a piece, from the groove in one side or partition to the next
+      const spanOf = (a: number, z: number) =>
+        bayWidths.slice(a, z + 1).reduce((sum, w) => sum + w, 0) + (z - a) * t + 2 * DADO_MM;
+      while (to + 1 < bays.length && sheetFits(m.back, sheetTrimMm, backHeight, spanOf(from, to + 1), 'free')) to++;
+      backWidths.push(spanOf(from, to));
+      from = to + 1;
+    }
+  } else backWidths.push(grooved ? insideWidth + 2 * DADO_MM : cs.widthMm);
+  const backPieces = backWidths.length;
+  backWidths.forEach((w, i) => {
+    const upright = sheetFits(m.back, sheetTrimMm, backHeight, w, 'fixed');
     list.add({
-      id: `${k}-back`,
-      name: 'back',
+      id: backPieces > 1 ? `${k}-back-${i + 1}` : `${k}-back`,
+      name: backPieces > 1 ? `back, piece ${i + 1}` : 'back',
       materialId: m.back.id,
       quantity: 1,
-      lengthMm: insideHeight + 2 * DADO_MM,
-      widthMm: insideWidth + 2 * DADO_MM,
+      lengthMm: upright ? backHeight : w,
+      widthMm: upright ? w : backHeight,
       thicknessMm: bt,
       grain: grainOf(m.back, true),
       bandedEdges: { long: 0, short: 0 },
@@ -655,36 +715,21 @@ function buildCase(
       dados: 0,
       finishFaces: 1,
     });
-  } else {
-    list.add({
-      id: `${k}-back`,
-      name: 'back',
-      materialId: m.back.id,
-      quantity: 1,
-      lengthMm: cs.heightMm - cs.toeKickMm,
-      widthMm: cs.widthMm,
-      thicknessMm: bt,
-      grain: grainOf(m.back, true),
-      bandedEdges: { long: 0, short: 0 },
-      pocketHoles: 0,
-      dados: 0,
-      finishFaces: 1,
-    });
-  }
+  });
   if (bays.length > 1) {
     list.add({
       id: `${k}-partition`,
       name: 'partition',
       materialId: m.carcass.id,
       quantity: bays.length - 1,
-      lengthMm: insideHeight + 2 * DADO_MM,
+      lengthMm: insideHeight + 2 * dado,
       widthMm: insideDepth,
       thicknessMm: t,
       grain: carcassGrain(true),
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
-      pocketHoles: 0,
-      dados: Math.max(...dividersPerBay),
+      pocketHoles: 2 * screwsPerJoint(insideDepth),
+      dados: (butt ? 0 : Math.max(...dividersPerBay)) + (backPieces > 1 ? 1 : 0),
       finishFaces: 2,
     });
   }
@@ -707,7 +752,7 @@ function buildCase(
   // marks on the panels either side of a bay: each side's and partition's ops, positions from its own bottom end
   const sideOps: { left: Machining[]; right: Machining[] } = { left: [], right: [] };
   const partitionOps: Machining[][] = Array.from({ length: bays.length - 1 }, () => []);
-  const partitionFoot = insideBottom - DADO_MM;
+  const partitionFoot = insideBottom - dado;
   const mark = (b: number, make: (bottomEndMm: number, face: 'inside' | 'left' | 'right') => Machining[]) => {
     if (b === 0) sideOps.left.push(...make(cs.yMm, 'inside'));
     if (b === bays.length - 1) sideOps.right.push(...make(cs.yMm, 'inside'));
@@ -716,17 +761,21 @@ function buildCase(
   };
   const backRowSetback = (panelDepthMm: number) => panelDepthMm - insideDepth + PIN_SETBACK_MM;
   const dividerDado = (b: number, lowerFaceMm: number, what: string) =>
-    mark(b, (foot, face) => [
-      cut({
-        for: what,
-        face,
-        fromEdge: 'bottom',
-        distanceMm: lowerFaceMm - foot,
-        widthMm: t,
-        depthMm: DADO_MM,
-        lengthMm: insideDepth,
-      }),
-    ]);
+    mark(b, (foot, face) =>
+      butt
+        ? []
+        : [
+            cut({
+              for: what,
+              face,
+              fromEdge: 'bottom',
+              distanceMm: lowerFaceMm - foot,
+              widthMm: t,
+              depthMm: DADO_MM,
+              lengthMm: insideDepth,
+            }),
+          ],
+    );
   bays.forEach((bay, b) => {
     const bw = at(bayWidths, b);
     const bk = `${k}-b${b + 1}`;
@@ -736,22 +785,44 @@ function buildCase(
       insideHeight - dividers * t,
     );
     if (heights.some((h) => h < 50))
-      throw new RangeError(
-        `the compartments of bay ${b + 1} do not fit the case: make them shorter or the case taller`,
+      throw new BuildError(
+        `The sections of ${where(b)} do not fit the case: make them shorter or the case taller.`,
+        `bays[${b}].compartments`,
       );
+    // a stack of drawers sharing the height: fronts of equal height, or graduated (each a step taller than the one above)
+    const edgeExt = (j: number, side: -1 | 1): number => {
+      const c = at(bay.compartments, j);
+      const n = bay.compartments[j + side];
+      if (!n) return t - outerInset;
+      return n.kind === 'drawer' && c.kind === 'drawer' ? -half : t / 2 - half;
+    };
+    const step = (spec.drawerFronts ?? settings.drawerFronts) === 'graduated' ? settings.drawerFrontStepMm : 0;
+    for (let j = 0; j < bay.compartments.length; ) {
+      let e = j;
+      while (at(bay.compartments, j).kind === 'drawer' && bay.compartments[e + 1]?.kind === 'drawer') e++;
+      const run = bay.compartments.slice(j, e + 1);
+      if (run.length > 1 && run.every((c) => c.heightMm === null)) {
+        const n = run.length;
+        const ext = run.map((_, i) => edgeExt(j + i, -1) + edgeExt(j + i, 1));
+        const total = run.reduce((sum, _, i) => sum + at(heights, j + i), 0) + ext.reduce((sum, v) => sum + v, 0);
+        const topFront = (total - (step * n * (n - 1)) / 2) / n;
+        run.forEach((_, i) => (heights[j + i] = topFront + (n - 1 - i) * step - at(ext, i)));
+      }
+      j = e + 1;
+    }
     if (dividers > 0) {
       list.add({
         id: `${bk}-divider`,
         name: 'fixed shelf',
         materialId: m.carcass.id,
         quantity: dividers,
-        lengthMm: bw + 2 * DADO_MM,
+        lengthMm: bw + 2 * dado,
         widthMm: insideDepth,
         thicknessMm: t,
         grain: carcassGrain(true),
         bandedEdges: { long: faceBand as 0 | 1, short: 0 },
         bandingId: band,
-        pocketHoles: 0,
+        pocketHoles: 2 * screwsPerJoint(insideDepth),
         dados: 0,
         finishFaces: 2,
         machining: bandOps(...(faceBand ? (['front'] as const) : [])),
@@ -819,13 +890,13 @@ function buildCase(
             name: 'fixed shelf',
             materialId: m.carcass.id,
             quantity: c.fixedShelves,
-            lengthMm: bw + 2 * DADO_MM,
+            lengthMm: bw + 2 * dado,
             widthMm: insideDepth,
             thicknessMm: t,
             grain: carcassGrain(true),
             bandedEdges: { long: faceBand as 0 | 1, short: 0 },
             bandingId: band,
-            pocketHoles: 0,
+            pocketHoles: 2 * screwsPerJoint(insideDepth),
             dados: 0,
             finishFaces: 2,
             machining: bandOps(...(faceBand ? (['front'] as const) : [])),
@@ -840,7 +911,9 @@ function buildCase(
           geo.shelfSpans.push({ spanMm: bw, depthMm: insideDepth, materialId: m.carcass.id, thicknessMm: t });
       }
       if (c.kind === 'door') {
-        const doors = c.doors;
+        // a door wider than the shop hangs becomes a pair (validation refuses a pair still too wide)
+        const single = right - left;
+        const doors = c.doors === 1 && single > settings.maxDoorWidthMm + 1e-6 ? 2 : c.doors;
         const fw = (right - left - (doors - 1) * settings.revealMm) / doors;
         const doorMassKg = ((fw * (top - bottom) * m.front.thicknessMm) / 1e9) * m.front.densityKgM3;
         const doorHinges = hingesPerDoor(top - bottom, doorMassKg);
@@ -852,7 +925,7 @@ function buildCase(
             yMm: bottom,
             widthMm: fw,
             heightMm: top - bottom,
-            hinge: doors === 2 ? (d === 0 ? 'left' : 'right') : 'left',
+            hinge: doors === 2 ? (d === 0 ? 'left' : 'right') : (c.hingeSide ?? 'left'),
           });
           const hingeSide = geo.fronts[geo.fronts.length - 1]?.hinge ?? 'left';
           const onEnd = hingeSide === 'left' ? b === 0 : b === bays.length - 1;
@@ -880,7 +953,15 @@ function buildCase(
           machining: [...bandOps('top', 'bottom', 'hinge', 'opening'), hingeCups(top - bottom, doorHinges)],
         });
       } else if (c.kind === 'drawer') {
-        const box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth });
+        let box: DrawerBox;
+        try {
+          box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth });
+        } catch {
+          throw new BuildError(
+            `${where(b, j)}: a ${len(bw)} wide, ${len(h)} high opening with ${len(insideDepth)} of depth takes no drawer box. Make the drawer taller or wider, or the case deeper.`,
+            `bays[${b}].compartments[${j}]`,
+          );
+        }
         const fw = right - left;
         geo.fronts.push({ kind: 'drawer', xMm: left, yMm: bottom, widthMm: fw, heightMm: top - bottom });
         geo.drawers.push({ frontWidthMm: fw, slideLengthIn: box.slideLengthIn, box });
@@ -963,8 +1044,8 @@ function buildCase(
           name: 'drawer bottom',
           materialId: m.drawerBottom.id,
           quantity: 1,
-          lengthMm: box.boxWidthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM,
-          widthMm: box.boxDepthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM,
+          lengthMm: box.boxWidthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM - DRAWER_BOTTOM_CLEARANCE_MM,
+          widthMm: box.boxDepthMm - 2 * st + 2 * DRAWER_BOTTOM_DADO_MM - DRAWER_BOTTOM_CLEARANCE_MM,
           thicknessMm: m.drawerBottom.thicknessMm,
           grain: 'free',
           bandedEdges: { long: 0, short: 0 },
@@ -1027,7 +1108,11 @@ function benchTop(
   const core = byId(book.sheetGoods, spec.top.coreMaterialId, 'top core material');
   const ct = core.thicknessMm;
   const coreH = topT - 2 * skin.thicknessMm;
-  if (coreH < ct) throw new RangeError(`the top is too thin for two ${round(skin.thicknessMm)} mm skins and a core`);
+  if (coreH < ct)
+    throw new BuildError(
+      `The top is too thin for two ${len(skin.thicknessMm)} skins and a core: make it thicker or choose thinner skins.`,
+      'top.thicknessMm',
+    );
   const spacing = spec.top.gridSpacingMm;
   list.add({
     id: 'top-skin',

@@ -3,6 +3,7 @@
  * checks, drawings and units, without money. Prices come from the server.
  */
 export * from './units';
+export { withUnits } from './messages';
 export * from './designs';
 export { cutList, drawerBox, SLIDE_LENGTHS_IN } from './cut-list';
 export type { CutList, CutPart, DrawerBox, FrontRect, PieceGeometry } from './cut-list';

@@ -301,6 +301,16 @@ export const ShopSettings = z.object({
   units: z.enum(['in', 'mm']),
   /** shop hours a week for the lead time; optional so that settings stored before it still parse */
   weeklyCapacityHours: z.number().positive().max(1000).default(40),
+  // Construction defaults a spec may override; each optional with today's construction as its default, so
+  // that settings stored before them still parse.
+  /** the widest single door the shop hangs; a wider opening gets a pair (24 in, common practice) */
+  maxDoorWidthMm: z.number().min(150).max(1200).default(610),
+  /** how case panels join the sides: dadoed in, or butted and screwed (pocket screws) */
+  caseJoinery: z.enum(['dado', 'butt']).default('dado'),
+  /** a stack of drawers: fronts of equal height, or each a fixed step taller than the one above */
+  drawerFronts: z.enum(['equal', 'graduated']).default('equal'),
+  /** graduated fronts: how much taller each is than the one above (1 in, common practice) */
+  drawerFrontStepMm: z.number().min(0).max(100).default(25.4),
 });
 export type ShopSettings = z.infer<typeof ShopSettings>;
 

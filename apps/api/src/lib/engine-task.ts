@@ -101,7 +101,7 @@ export function checkItems(
         issues: [
           {
             path: 'items',
-            message: `at most ${MAX_PARTS} parts in one request; these items come to ${parts} parts (split them into smaller requests)`,
+            message: `The shop prices at most ${MAX_PARTS} parts in one request, and these items come to ${parts}: split them into smaller requests.`,
           },
         ],
       },

@@ -2,7 +2,7 @@
 // them into responses.
 import * as z from 'zod';
 import type { ApiIssue, ErrorCode } from '@benchwright/contracts';
-import { formatPath } from '@benchwright/pricing/geometry';
+import { formatPath, withUnits, type LengthUnit } from '@benchwright/pricing/geometry';
 
 export class AppError extends Error {
   constructor(
@@ -84,8 +84,11 @@ export function zodIssues(err: z.ZodError): ApiIssue[] {
 }
 
 /** Parses with a zod schema, throwing Invalid with the issues listed. */
-export function parse<S extends z.ZodType>(schema: S, input: unknown): z.infer<S> {
-  const r = schema.safeParse(input);
-  if (!r.success) throw new Invalid('Some fields need attention.', zodIssues(r.error));
-  return r.data;
+export function parse<S extends z.ZodType>(schema: S, input: unknown, units?: LengthUnit): z.infer<S> {
+  // a build spec's messages give lengths in the shop's units; zod builds them as they are read, so read them inside
+  return withUnits(units ?? 'mm', () => {
+    const r = schema.safeParse(input);
+    if (!r.success) throw new Invalid('Some fields need attention.', zodIssues(r.error));
+    return r.data;
+  });
 }

@@ -1,6 +1,6 @@
 import * as z from 'zod';
 import { toMm } from '../units';
-import { caseFields, checkInterior, mm, NOMINAL_CARCASS_MM, type CaseLimits } from './case-model';
+import { caseFields, checkInterior, NOMINAL_CARCASS_MM, toeKick, type CaseLimits } from './case-model';
 
 export const baseCabinetLimits: CaseLimits = {
   widthMm: [229, 1219],
@@ -14,7 +14,7 @@ export const baseCabinetSchema = z
   .object({
     design: z.literal('base-cabinet'),
     ...caseFields(baseCabinetLimits),
-    toeKickMm: mm(0, 152),
+    toeKickMm: toeKick(),
     installation: z.enum(['built-in', 'free-standing']).default('built-in'),
     mobility: z.enum(['none', 'leveling-feet']).default('none'),
   })

@@ -1,6 +1,6 @@
 import * as z from 'zod';
 import { toMm } from '../units';
-import { caseFields, checkInterior, mm, NOMINAL_CARCASS_MM, type CaseLimits } from './case-model';
+import { caseFields, checkInterior, NOMINAL_CARCASS_MM, toeKick, type CaseLimits } from './case-model';
 
 export const bookcaseLimits: CaseLimits = {
   widthMm: [305, 1067],
@@ -14,7 +14,7 @@ export const bookcaseSchema = z
   .object({
     design: z.literal('bookcase'),
     ...caseFields(bookcaseLimits),
-    toeKickMm: mm(0, 152),
+    toeKickMm: toeKick(),
     installation: z.enum(['free-standing', 'built-in']).default('free-standing'),
   })
   .superRefine((s, ctx) => {

@@ -1,4 +1,5 @@
 import * as z from 'zod';
+import { len, unitWord, where } from '../messages';
 import { toMm } from '../units';
 
 /**
@@ -16,30 +17,40 @@ export const MIN_DRAWER_DEPTH_MM = toMm(10.5);
 /** A number in millimetres between limits, with messages that give the value and the limit. */
 export function mm(min: number, max: number) {
   return z
-    .number({ error: 'enter a length in millimetres' })
-    .refine((v) => Number.isFinite(v), 'enter a finite length')
+    .number({ error: () => `Enter a length in ${unitWord()}.` })
+    .refine((v) => Number.isFinite(v), { error: () => `Enter a length in ${unitWord()}.`, abort: true })
     .refine((v) => v >= min, {
-      error: (iss) => `${round(iss.input as number)} mm is below the ${round(min)} mm minimum`,
+      error: (iss) => `${len(iss.input as number)} is below the ${len(min)} minimum.`,
       abort: true,
     })
     .refine((v) => v <= max, {
-      error: (iss) => `${round(iss.input as number)} mm is above the ${round(max)} mm maximum`,
+      error: (iss) => `${len(iss.input as number)} is above the ${len(max)} maximum.`,
     });
+}
+
+/** A toe kick or plinth: none (0), or from 2 in (common practice: lower leaves no room for a board) to 6 in. */
+export function toeKick() {
+  const least = toMm(2);
+  return mm(0, 152).refine((v) => v === 0 || v >= least, {
+    error: () => `A toe kick is either none (0) or at least ${len(least)} high.`,
+  });
 }
 
 function count(min: number, max: number, what: string) {
   return z
-    .number({ error: `enter a whole number of ${what}` })
-    .int(`enter a whole number of ${what}`)
-    .refine((v) => v >= min, { error: (iss) => `${iss.input} ${what} is below the minimum of ${min}`, abort: true })
-    .refine((v) => v <= max, { error: (iss) => `${iss.input} ${what} is above the maximum of ${max}` });
+    .number({ error: `Enter a whole number of ${what}.` })
+    .int(`Enter a whole number of ${what}.`)
+    .refine((v) => v >= min, {
+      error: (iss) => `Choose at least ${min} ${what}; ${iss.input} is too few.`,
+      abort: true,
+    })
+    .refine((v) => v <= max, { error: (iss) => `Choose at most ${max} ${what}; ${iss.input} is too many.` });
 }
 
-function round(v: number): number {
-  return Math.round(v * 10) / 10;
-}
-
-export const materialId = z.string().min(1, 'choose a material').max(64);
+export const materialId = z
+  .string({ error: 'Choose a material.' })
+  .min(1, 'Choose a material.')
+  .max(64, 'Choose a material from the list.');
 
 export const Compartment = z.object({
   kind: z.enum(['drawer', 'door', 'open']),
@@ -48,6 +59,8 @@ export const Compartment = z.object({
   doors: z.union([z.literal(1), z.literal(2)]).default(1),
   adjustableShelves: count(0, 8, 'adjustable shelves').default(0),
   fixedShelves: count(0, 6, 'fixed shelves').default(0),
+  /** a single door: the side its hinges are on (left unless set); a pair hinges on both sides */
+  hingeSide: z.enum(['left', 'right'], { error: 'Choose the left or the right side for the hinges.' }).optional(),
 });
 export type Compartment = z.infer<typeof Compartment>;
 
@@ -56,8 +69,8 @@ export const Bay = z.object({
   widthMm: mm(150, 1200).nullable().default(null),
   compartments: z
     .array(Compartment)
-    .min(1, 'a bay needs at least one compartment')
-    .max(8, 'a bay takes at most 8 compartments'),
+    .min(1, 'Each bay needs at least one section.')
+    .max(8, 'A bay takes at most 8 sections.'),
 });
 export type Bay = z.infer<typeof Bay>;
 
@@ -93,9 +106,13 @@ export function caseFields(limits: CaseLimits) {
     coats: count(1, 6, 'coats').nullable().default(null),
     bays: z
       .array(Bay)
-      .min(limits.bays[0], `at least ${limits.bays[0]} bay${limits.bays[0] > 1 ? 's' : ''}`)
-      .max(limits.bays[1], `at most ${limits.bays[1]} bays`),
+      .min(limits.bays[0], `Choose at least ${limits.bays[0]} bay${limits.bays[0] > 1 ? 's' : ''}.`)
+      .max(limits.bays[1], `This piece takes at most ${limits.bays[1]} bays.`),
     trim: Trim.nullable().default(null),
+    /** overrides the shop's case joinery: panels dadoed into the sides, or butted and pocket-screwed */
+    joinery: z.enum(['dado', 'butt'], { error: 'Choose dado or butt joints for the case.' }).optional(),
+    /** overrides the shop's drawer fronts: equal heights, or each a fixed step taller than the one above */
+    drawerFronts: z.enum(['equal', 'graduated'], { error: 'Choose equal or graduated drawer fronts.' }).optional(),
   };
 }
 
@@ -126,7 +143,7 @@ export function checkInterior(
     ctx.addIssue({
       code: 'custom',
       path: ['bays'],
-      message: `the bays need ${round(fixed + free * 150)} mm but the case has ${round(baysWidth)} mm between its sides and partitions`,
+      message: `The bays need ${len(fixed + free * 150)} but the case has ${len(baysWidth)} between its sides and partitions: make the bays narrower or the case wider.`,
     });
   }
   spec.bays.forEach((bay, b) => {
@@ -138,7 +155,7 @@ export function checkInterior(
       ctx.addIssue({
         code: 'custom',
         path: ['bays', b, 'compartments'],
-        message: `the compartments need ${round(set + open * 60)} mm but the case has ${round(room)} mm inside this bay: make them shorter or the case taller`,
+        message: `The sections of ${where(b)} need ${len(set + open * 60)} but the case has ${len(room)} inside that bay: make the sections shorter or the case taller.`,
       });
     }
     bay.compartments.forEach((c, k) => {
@@ -146,14 +163,14 @@ export function checkInterior(
         ctx.addIssue({
           code: 'custom',
           path: ['bays', b, 'compartments', k, 'kind'],
-          message: `a drawer needs at least ${round(MIN_DRAWER_DEPTH_MM)} mm of inside depth for the shortest slide; the case has ${round(insideDepthMm)} mm`,
+          message: `${where(b, k)}: a drawer needs at least ${len(MIN_DRAWER_DEPTH_MM)} of inside depth for the shortest slide, and the case has ${len(insideDepthMm)}. Make the case deeper, or choose a door or open shelves.`,
         });
       }
       if (c.kind === 'drawer' && (c.adjustableShelves > 0 || c.fixedShelves > 0)) {
         ctx.addIssue({
           code: 'custom',
           path: ['bays', b, 'compartments', k],
-          message: 'a drawer compartment has no shelves',
+          message: `${where(b, k)} is a drawer, which takes no shelves.`,
         });
       }
     });

@@ -1,4 +1,6 @@
 import * as z from 'zod';
+import { withUnits } from '../messages';
+import type { LengthUnit } from '../units';
 import { assemblyBenchDefaults, assemblyBenchLimits, assemblyBenchSchema } from './assembly-bench';
 import { baseCabinetDefaults, baseCabinetLimits, baseCabinetSchema } from './base-cabinet';
 import { bookcaseDefaults, bookcaseLimits, bookcaseSchema } from './bookcase';
@@ -82,23 +84,39 @@ export function formatPath(path: readonly PropertyKey[]): string {
   );
 }
 
+/** Zod's own messages (a field missing, of the wrong kind, not one of a list) as sentences a client reads. */
+const clientWords: z.core.$ZodErrorMap = (iss) => {
+  if (iss.code === 'invalid_type')
+    return iss.input === undefined ? 'This is missing: fill it in.' : 'This is not a value this field takes.';
+  if (iss.code === 'invalid_value') return `Choose one of: ${iss.values.map(String).join(', ')}.`;
+  if (iss.code === 'unrecognized_keys') return 'This is not a field of the piece.';
+  return undefined;
+};
+
 /**
  * Validates a build spec against its design's schema (shape, limits, and
- * the fit of bays and compartments). Issues name the field and the limit.
+ * the fit of bays and sections). Issues name the field and the limit, in
+ * full sentences, lengths in `units` (millimetres unless told).
  *
  * @example
  * parseSpec({ ...designs.bookcase.defaults, widthMm: 100 }).issues
- * // [{ path: 'widthMm', message: '100 mm is below the 305 mm minimum' }]
+ * // [{ path: 'widthMm', message: '100 mm is below the 305 mm minimum.' }]
  */
-export function parseSpec(input: unknown): { ok: true; spec: BuildSpec } | { ok: false; issues: SpecIssue[] } {
+export function parseSpec(
+  input: unknown,
+  units: LengthUnit = 'mm',
+): { ok: true; spec: BuildSpec } | { ok: false; issues: SpecIssue[] } {
   const slug = (input as { design?: unknown } | null)?.design;
   if (typeof slug !== 'string' || !(slug in designs)) {
     return {
       ok: false,
-      issues: [{ path: 'design', message: `choose one of the designs: ${DESIGN_SLUGS.join(', ')}` }],
+      issues: [{ path: 'design', message: `Choose one of the designs: ${DESIGN_SLUGS.join(', ')}.` }],
     };
   }
-  const r = designs[slug as DesignSlug].schema.safeParse(input);
-  if (r.success) return { ok: true, spec: r.data as BuildSpec };
-  return { ok: false, issues: r.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })) };
+  // zod builds an issue's message when it is read, so the issues are read with the units set
+  return withUnits(units, () => {
+    const r = designs[slug as DesignSlug].schema.safeParse(input, { error: clientWords });
+    if (r.success) return { ok: true, spec: r.data as BuildSpec };
+    return { ok: false, issues: r.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })) };
+  });
 }

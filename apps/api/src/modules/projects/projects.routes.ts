@@ -39,7 +39,7 @@ export function projectsRoutes(
   r.post('/', idempotent, async (req, res) => {
     const user = currentUser(res);
     if (user.role !== 'client') throw new Forbidden('Only a client can request an estimate.');
-    const body = parse(CreateProjectBody, req.body);
+    const body = parse(CreateProjectBody, req.body, service.units());
     res.status(201).json({ project: await service.create(user, body) });
   });
   return r;

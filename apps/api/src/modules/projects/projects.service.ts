@@ -156,6 +156,11 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
       return this.get(viewer, id);
     },
 
+    /** The units the shop works in: what people read, validation messages included, speaks them. */
+    units() {
+      return loadPricing(db).settings.units;
+    },
+
     /** A client's request: every item checked against its design and the shop's price book. */
     async create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }) {
       const { book, settings } = loadPricing(db);

@@ -45,12 +45,12 @@ function useDebounced<T>(value: T, ms: number): T {
   return v;
 }
 
-/** "bays[0].compartments[1].heightMm" -> "bay 1, compartment 2, height" */
+/** "bays[0].compartments[1].heightMm" -> "Bay 1, Section 2, height" (the words on the screen) */
 function plainPath(path: string): string {
   return path
     .replace(/^items\[0\]\.spec\.?/, '')
-    .replace(/bays\[(\d+)\]/g, (_m, i) => `bay ${Number(i) + 1}`)
-    .replace(/compartments\[(\d+)\]/g, (_m, i) => `compartment ${Number(i) + 1}`)
+    .replace(/bays\[(\d+)\]/g, (_m, i) => `Bay ${Number(i) + 1}`)
+    .replace(/compartments\[(\d+)\]/g, (_m, i) => `Section ${Number(i) + 1}`)
     .replace(/\.?widthMm/, ', width')
     .replace(/\.?heightMm/, ', height')
     .replace(/\.?depthMm/, ', depth')

@@ -1,0 +1,84 @@
+import { describe, expect, it } from 'vitest';
+import { cutList, DRAWER_BOTTOM_CLEARANCE_MM } from './cut-list';
+import { demoPriceBook, demoSettings } from './demo-data';
+import { designs, type BuildSpec } from './designs';
+import { ShopSettings } from './price-book';
+import { toMm } from './units';
+
+const bench = designs['assembly-bench'].defaults;
+const parts = (spec: BuildSpec, settings = demoSettings) => cutList(spec, demoPriceBook, settings).parts;
+const fronts = (spec: BuildSpec, settings = demoSettings) =>
+  parts(spec, settings)
+    .filter((p) => p.name === 'drawer front' && p.id.startsWith('c1-b1-'))
+    .map((p) => p.widthMm);
+
+describe('construction choices', () => {
+  it('gives a stack of drawers fronts of equal height (they came out 212 / 194 / 212 mm)', () => {
+    const f = fronts(bench);
+    expect(f).toHaveLength(3);
+    for (const h of f) expect(h).toBeCloseTo(f[0]!, 6);
+  });
+
+  it('graduates the fronts a fixed step, each taller than the one above, from the shop default or the spec', () => {
+    const graduated = ShopSettings.parse({ ...demoSettings, drawerFronts: 'graduated' });
+    const [low, mid, top] = fronts(bench, graduated);
+    expect(low! - mid!).toBeCloseTo(25.4, 6);
+    expect(mid! - top!).toBeCloseTo(25.4, 6);
+    const sum = (xs: number[]) => xs.reduce((s, x) => s + x, 0);
+    expect(sum([low!, mid!, top!])).toBeCloseTo(sum(fronts(bench)), 6);
+    expect(fronts({ ...bench, drawerFronts: 'graduated' } as BuildSpec)).toEqual([low, mid, top]);
+  });
+
+  it('sets a wall cabinet back in by the hanging rail thickness, so the rail fits behind it', () => {
+    const wall = designs['wall-cabinet'].defaults;
+    const t = demoPriceBook.sheetGoods.find((s) => s.id === wall.carcassMaterialId)!.thicknessMm;
+    const bt = demoPriceBook.sheetGoods.find((s) => s.id === wall.backMaterialId)!.thicknessMm;
+    const shelf = parts(wall).find((p) => p.name === 'shelf')!;
+    // shelf depth = case depth - rail thickness - back thickness - 1/4 in front setback
+    expect(shelf.widthMm).toBeCloseTo(wall.depthMm - t - bt - toMm(0.25), 6);
+    const noRail = parts({ ...wall, hangingRail: false } as BuildSpec).find((p) => p.name === 'shelf')!;
+    expect(noRail.widthMm).toBeCloseTo(wall.depthMm - toMm(0.5) - bt - toMm(0.25), 6);
+  });
+
+  it('cuts drawer bottoms 1/16 in under the dado-to-dado size', () => {
+    const list = parts(designs['base-cabinet'].defaults);
+    const side = list.find((p) => p.name === 'drawer side')!;
+    const bottom = list.find((p) => p.name === 'drawer bottom')!;
+    expect(DRAWER_BOTTOM_CLEARANCE_MM).toBeCloseTo(toMm(1 / 16), 9);
+    expect(bottom.widthMm).toBeCloseTo(side.lengthMm - 2 * side.thicknessMm + 2 * toMm(0.25) - toMm(1 / 16), 6);
+  });
+
+  it('butts and pocket-screws case panels when the spec or the shop says so; dado joints stay the default', () => {
+    const base = designs['base-cabinet'].defaults;
+    const dado = parts(base);
+    const butt = parts({ ...base, joinery: 'butt' } as BuildSpec);
+    const shopButt = parts(base, ShopSettings.parse({ ...demoSettings, caseJoinery: 'butt' }));
+    const bottom = (l: typeof dado) => l.find((p) => p.name === 'bottom')!;
+    expect(bottom(dado).lengthMm - bottom(butt).lengthMm).toBeCloseTo(2 * toMm(0.25), 6);
+    expect(bottom(dado).pocketHoles).toBe(0);
+    expect(bottom(butt).pocketHoles).toBeGreaterThanOrEqual(4);
+    expect(shopButt).toEqual(butt);
+    expect(butt.find((p) => p.name === 'side')!.dados).toBe(1); // the back groove only
+  });
+
+  it('hinges a single door on the side the spec asks; a pair on both sides', () => {
+    const base = designs['base-cabinet'].defaults;
+    const right = structuredClone(base);
+    right.bays[0]!.compartments[0]!.hingeSide = 'right';
+    const hinges = (s: BuildSpec) =>
+      cutList(s, demoPriceBook, demoSettings)
+        .geometry.fronts.filter((f) => f.kind === 'door')
+        .map((f) => f.hinge);
+    expect(hinges(base)).toEqual(['left']);
+    expect(hinges(right)).toEqual(['right']);
+    const pair = structuredClone(base);
+    pair.bays[0]!.compartments[0]!.doors = 2;
+    expect(hinges(pair)).toEqual(['left', 'right']);
+  });
+
+  it("parses settings stored before the construction settings, with today's construction", () => {
+    const { maxDoorWidthMm, caseJoinery, drawerFronts, drawerFrontStepMm, ...old } = demoSettings;
+    void [maxDoorWidthMm, caseJoinery, drawerFronts, drawerFrontStepMm];
+    expect(ShopSettings.parse(old)).toMatchObject({ maxDoorWidthMm: 610, caseJoinery: 'dado', drawerFronts: 'equal' });
+  });
+});
