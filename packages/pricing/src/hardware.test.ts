@@ -53,8 +53,8 @@ describe('hardwareFor', () => {
     expect(slide.units).toBe(1);
     expect(hw.find((h) => h.kind === 'anti_tip_kit')?.pieces).toBe(1);
   });
-  it('puts four casters under each case of the bench', () => {
+  it('puts one set of casters under the joined cases of the bench: two rows of three, at most 48 in apart', () => {
     const list = cutList(designs['assembly-bench'].defaults, demoPriceBook, demoSettings);
-    expect(hardwareFor(list, demoPriceBook, { antiTip: false }).find((h) => h.kind === 'caster')?.pieces).toBe(8);
+    expect(hardwareFor(list, demoPriceBook, { antiTip: false }).find((h) => h.kind === 'caster')?.pieces).toBe(6);
   });
 });

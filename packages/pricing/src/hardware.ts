@@ -39,7 +39,8 @@ export interface HardwareLine {
  * drawer of the computed length, hinges by door height, 4 shelf pins per
  * adjustable shelf, a pull per door and drawer (two on drawers wider than
  * 24 in), casters and leveling feet, pocket screws per hole, hanging-rail
- * screws, and an anti-tip kit when the checks ask for one.
+ * screws, connector bolts between joined cases, and an anti-tip kit when
+ * the checks ask for one.
  *
  * @example
  * hardwareFor(cutList(spec, book, settings), book, { antiTip: false })
@@ -72,6 +73,11 @@ export function hardwareFor(list: CutList, book: PriceBook, opts: { antiTip: boo
   if (pocketHoles && screw) add(screw.id, pocketHoles);
   const rail = first('rail_screw');
   if (g.hangingRailWidthMm && rail) add(rail.id, Math.max(2, Math.ceil(g.hangingRailWidthMm / STUD_SPACING_MM)));
+  const connector = first('connector');
+  if (g.caseConnectors) {
+    if (!connector) throw new RangeError('the price book has no connector bolt to fasten the cases together');
+    add(connector.id, g.caseConnectors);
+  }
   const kit = first('anti_tip_kit');
   if (opts.antiTip && kit) add(kit.id, 1);
 

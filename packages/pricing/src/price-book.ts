@@ -62,6 +62,7 @@ export const HardwareKind = z.enum([
   'rail_screw',
   'anti_tip_kit',
   'hanging_rail',
+  'connector',
 ]);
 export type HardwareKind = z.infer<typeof HardwareKind>;
 
