@@ -1,4 +1,4 @@
-import type { Bay, BuildSpec, CaseJoin, Compartment } from './designs';
+import type { Bay, BuildSpec, CaseJoin, CasePlace, Compartment } from './designs';
 import { benchLayout, caseJoins, dividerCount } from './designs';
 import { byId, type PriceBook, type SheetGood, type ShopSettings } from './price-book';
 import { at } from './_lib/at';
@@ -92,9 +92,13 @@ export interface PieceGeometry {
   caseJoins?: CaseJoin[];
   /** connector bolts fastening joined cases to each other */
   caseConnectors?: number;
+  /** cases with no back of their own: closed by the back of the case they sit back to back with */
+  sharedBacks?: string[];
   /** casters and feet together: how far a lowered foot lifts the casters, and how far a raised one clears the floor */
   feetLiftMm?: number;
   feetClearanceMm?: number;
+  /** the feet's mounting blocks: how many (glued up `layers` high under each foot), each `sideMm` square */
+  footBlocks?: { count: number; layers: number; sideMm: number } | null;
 }
 
 export interface CutList {
@@ -321,6 +325,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
       Object.assign(at(geo.cases, geo.cases.length - 1), { key: cs.key, facing, plan: place });
     }
   });
+  if (spec.design === 'assembly-bench') shareBacks(places, geo, list);
   geo.caseCount = cases.length;
 
   if (spec.trim) {
@@ -768,6 +773,26 @@ function buildCase(
   });
 }
 
+/**
+ * Cases back to back are not doubled up: a case whose back is covered
+ * whole by the back of the case it is bolted to leaves its own out (of two
+ * the same width, the later one), and is closed by its neighbour's.
+ */
+function shareBacks(places: readonly CasePlace[], geo: PieceGeometry, list: PartList): void {
+  const open = new Set<number>();
+  for (const j of geo.caseJoins ?? []) {
+    if (j.kind !== 'back') continue;
+    const covers = (i: number) => j.lengthMm >= at(places, i).alongMm - 1;
+    const drop = covers(j.b) && !open.has(j.a) ? j.b : covers(j.a) && !open.has(j.b) ? j.a : null;
+    if (drop !== null) open.add(drop);
+  }
+  for (const i of open) {
+    const k = list.parts.findIndex((p) => p.id === `c${i + 1}-back`);
+    if (k >= 0) list.parts.splice(k, 1);
+  }
+  geo.sharedBacks = [...open].map((i) => `c${i + 1}`);
+}
+
 /** Layers of the carcass material in a laminated top: the whole number nearest the stated thickness, at least two. */
 export function laminatedLayers(thicknessMm: number, layerMm: number): number {
   return Math.max(2, Math.round(thicknessMm / layerMm));
@@ -880,13 +905,17 @@ function benchCases(
       geo.feet += 4;
     }
   }
-  if (blockLayers > 0)
+  if (blockLayers > 0) {
+    // the blocks are crosscut from 4 in strips (one part per strip, not a part per block): at most 20 blocks a strip
+    const blocks = geo.feet * blockLayers;
+    const strips = Math.ceil(blocks / 20);
+    const perStrip = Math.ceil(blocks / strips);
     list.add({
-      id: 'foot-block',
-      name: 'foot mounting block',
+      id: 'foot-block-strip',
+      name: `foot mounting blocks, ${perStrip} to a strip`,
       materialId: carcass.id,
-      quantity: geo.feet * blockLayers,
-      lengthMm: FOOT_BLOCK_MM,
+      quantity: strips,
+      lengthMm: perStrip * (FOOT_BLOCK_MM + book.kerfMm),
       widthMm: FOOT_BLOCK_MM,
       thicknessMm: t,
       grain: 'free',
@@ -895,6 +924,9 @@ function benchCases(
       dados: 0,
       finishFaces: 0,
     });
+  }
+  geo.footBlocks =
+    blockLayers > 0 ? { count: geo.feet * blockLayers, layers: blockLayers, sideMm: FOOT_BLOCK_MM } : null;
   geo.casterId = caster?.id ?? null;
   geo.footId = foot?.id ?? null;
   geo.mobile = caster !== null;
@@ -1002,13 +1034,14 @@ function benchTop(
       finishFaces: 0,
     });
   if (longRows > 0) {
-    const seg = (innerL - cross * ct) / (cross + 1);
+    // each row of long ribs is ripped as one strip and crosscut to fit between the cross ribs at assembly
+    // (the segments and their kerfs come to less than the strip, since a kerf is thinner than a rib)
     list.add({
       id: 'top-rib-long',
-      name: 'grid rib, long',
+      name: `grid rib, long, a strip to crosscut into ${cross + 1}`,
       materialId: core.id,
-      quantity: longRows * (cross + 1),
-      lengthMm: seg,
+      quantity: longRows,
+      lengthMm: innerL,
       widthMm: coreH,
       thicknessMm: ct,
       grain: 'free',

@@ -110,8 +110,9 @@ describe('the standard bench', () => {
     expect(hw.find((h) => h.kind === 'connector')?.pieces).toBe(6 + 6 + 4);
     expect(hw.find((h) => h.kind === 'caster')?.pieces).toBe(6);
     expect(hw.find((h) => h.kind === 'leveling_foot')?.pieces).toBe(4);
-    // each case keeps its own sides and back: three cases, not a doubled-up carcass
-    expect(list.parts.filter((p) => p.name === 'back').length).toBe(3);
+    // not doubled up: the rear cabinets are closed by the main case's back
+    expect(list.parts.filter((p) => p.name === 'back').map((p) => p.id)).toEqual(['c1-back']);
+    expect(list.geometry.sharedBacks).toEqual(['c2', 'c3']);
   });
 
   it('checks the casters against the whole arrangement and its working load', () => {
@@ -130,12 +131,16 @@ describe('feet with casters', () => {
     expect(g.feetClearanceMm).toBeGreaterThanOrEqual(FOOT_MIN_CLEARANCE_MM);
     const caster = demoPriceBook.hardware.find((h) => h.id === bench.casterId)!.heightMm!;
     const foot = demoPriceBook.hardware.find((h) => h.id === bench.footId)!.heightMm!;
-    const blocks = list.parts.find((p) => p.name === 'foot mounting block')!;
-    const layers = blocks.quantity / g.feet;
-    expect(Number.isInteger(layers)).toBe(true);
+    const strip = list.parts.find((p) => p.id === 'foot-block-strip')!;
+    const { count, layers, sideMm } = g.footBlocks!;
+    expect(count).toBe(g.feet * layers);
+    // the strips hold every block, with a saw kerf between blocks
+    expect(strip.quantity * Math.floor(strip.lengthMm / (sideMm + demoPriceBook.kerfMm) + 1e-9)).toBeGreaterThanOrEqual(
+      count,
+    );
     // lowered (1 in of travel) the foot passes the caster's height; raised it stays above the floor
-    expect(foot + layers * blocks.thicknessMm + toMm(1)).toBeGreaterThan(caster);
-    expect(foot + layers * blocks.thicknessMm).toBeLessThan(caster);
+    expect(foot + layers * strip.thicknessMm + toMm(1)).toBeGreaterThan(caster);
+    expect(foot + layers * strip.thicknessMm).toBeLessThan(caster);
   });
 
   it('refuses feet that would hold the casters off the floor, naming the feet', () => {

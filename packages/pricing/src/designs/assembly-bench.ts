@@ -282,7 +282,8 @@ const rearCabinet: BenchCase = {
  * The double-sided bench: a 72 x 36 in top at 35 in, overhanging 3 in all
  * round, its edge trimmed; a main case facing the front with a column of
  * five drawers and, beside it, two shallow drawers over a door cabinet;
- * two mirror-image door cabinets facing the back, bolted back to back to it.
+ * two mirror-image door cabinets facing the back, bolted back to back to it
+ * and closed by its back.
  */
 export const assemblyBenchDefaults: AssemblyBenchSpec = {
   design: 'assembly-bench',
@@ -290,7 +291,8 @@ export const assemblyBenchDefaults: AssemblyBenchSpec = {
   heightMm: toMm(35),
   depthMm: toMm(36),
   carcassMaterialId: 'birch-ply-18',
-  // the backs meet back to back inside the bench: hardboard, which has no grain and turns freely on the sheet
+  // one back inside the bench, shared by the cases back to back: hardboard, which has no grain and so turns on
+  // the sheet (the main case's back is longer than a sheet is wide)
   backMaterialId: 'hardboard-6',
   frontMaterialId: 'birch-ply-18',
   drawerMaterialId: 'birch-ply-12',
@@ -328,7 +330,8 @@ export const assemblyBenchDefaults: AssemblyBenchSpec = {
     kind: 'torsion-box',
     thicknessMm: toMm(3.5),
     skinMaterialId: 'mdf-12',
-    coreMaterialId: 'birch-ply-18',
+    // the frame and grid from 3/4 in MDF: flat, stable and cheaper than the plywood (common practice)
+    coreMaterialId: 'mdf-18',
     gridSpacingMm: toMm(8),
     edge: 'trim',
   },
