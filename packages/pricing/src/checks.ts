@@ -1,4 +1,4 @@
-import type { CutList, CutPart } from './cut-list';
+import { FOOT_MIN_CLEARANCE_MM, FOOT_TRAVEL_MM, type CutList, type CutPart } from './cut-list';
 import type { PriceBook, ShopSettings } from './price-book';
 import { len } from './messages';
 import { toInches, toMm, type LengthUnit } from './units';
@@ -228,6 +228,22 @@ export function pieceChecks(
       level: 'caution',
       message: 'Lock the casters before working at the bench, and never stand on it.',
     });
+  }
+  if (g.feetLiftMm !== undefined && g.feetClearanceMm !== undefined) {
+    if (g.feetLiftMm < 0)
+      checks.push({
+        code: 'feet_reach',
+        level: 'error',
+        path: 'footId',
+        message: `Lowered, the leveling feet stop ${Math.abs(g.feetLiftMm).toFixed(0)} mm above the floor, so the bench stays on its casters: choose taller feet or casters with less height.`,
+      });
+    else if (g.feetClearanceMm < FOOT_MIN_CLEARANCE_MM)
+      checks.push({
+        code: 'feet_reach',
+        level: 'error',
+        path: 'footId',
+        message: `Raised, the leveling feet clear the floor by only ${g.feetClearanceMm.toFixed(0)} mm, so the bench will not roll: choose shorter feet or taller casters (the feet adjust about ${FOOT_TRAVEL_MM.toFixed(0)} mm, from memory).`,
+      });
   }
   const hasFronts = g.doors.length > 0 || g.drawers.length > 0;
   let needsAntiTip = false;

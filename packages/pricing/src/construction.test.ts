@@ -5,7 +5,22 @@ import { designs, type BuildSpec } from './designs';
 import { ShopSettings } from './price-book';
 import { toMm } from './units';
 
-const bench = designs['assembly-bench'].defaults;
+const standard = designs['assembly-bench'].defaults;
+/** The standard bench with its main case as two bays of three drawers each. */
+const threeDrawers = {
+  widthMm: null,
+  compartments: [0, 1, 2].map(() => ({
+    kind: 'drawer' as const,
+    heightMm: null,
+    doors: 1 as const,
+    adjustableShelves: 0,
+    fixedShelves: 0,
+  })),
+};
+const bench = {
+  ...standard,
+  cases: [{ ...standard.cases[0]!, bays: [threeDrawers, structuredClone(threeDrawers)] }, ...standard.cases.slice(1)],
+} as BuildSpec;
 const parts = (spec: BuildSpec, settings = demoSettings) => cutList(spec, demoPriceBook, settings).parts;
 const fronts = (spec: BuildSpec, settings = demoSettings) =>
   parts(spec, settings)

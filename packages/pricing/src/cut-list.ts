@@ -1,5 +1,5 @@
-import type { BuildSpec, Compartment } from './designs';
-import { dividerCount } from './designs';
+import type { Bay, BuildSpec, CaseJoin, CasePlace, Compartment } from './designs';
+import { benchLayout, caseJoins, dividerCount } from './designs';
 import { byId, type PriceBook, type SheetGood, type ShopSettings } from './price-book';
 import { at } from './_lib/at';
 import { hingesPerDoor } from './hardware';
@@ -50,6 +50,8 @@ export interface FrontRect {
   heightMm: number;
   /** doors: which side the hinges are on */
   hinge?: 'left' | 'right';
+  /** the side of the piece the front faces (benches: an arrangement's cases face different sides); default front */
+  face?: 'front' | 'back' | 'left' | 'right';
 }
 
 export interface DrawerFeature {
@@ -67,6 +69,10 @@ export interface CaseOutline {
   partitionsXMm: number[];
   /** dividers and fixed shelves seen in open compartments, as [x, y, width] */
   shelvesMm: [number, number, number][];
+  /** benches: the case's key, the side it faces, and its place in plan (from the top's left end and front edge) */
+  key?: string;
+  facing?: 'front' | 'back' | 'left' | 'right';
+  plan?: { xMm: number; yMm: number; alongMm: number; acrossMm: number };
 }
 
 export interface PieceGeometry {
@@ -76,7 +82,8 @@ export interface PieceGeometry {
   cases: CaseOutline[];
   fronts: FrontRect[];
   top: { xMm: number; yMm: number; widthMm: number; heightMm: number; kind: string } | null;
-  mobility: { kind: 'caster' | 'foot'; xMm: number; heightMm: number }[];
+  /** casters and feet: x along the front, height from the floor to what they carry; benches add y in plan and a foot's mounting block */
+  mobility: { kind: 'caster' | 'foot'; xMm: number; heightMm: number; yMm?: number; blockMm?: number }[];
   drawers: DrawerFeature[];
   /** each door with its weight and the overlay of its hinge edge (an end panel, a shared partition, or inset) */
   doors: { widthMm: number; heightMm: number; massKg: number; overlay: HingeOverlay }[];
@@ -95,6 +102,18 @@ export interface PieceGeometry {
   mobile: boolean;
   workingLoadKg: number;
   pullId: string;
+  /** benches: the top's edge trim thickness (inside the stated width and depth), cases fastened together, and feet */
+  topTrimMm?: number;
+  caseJoins?: CaseJoin[];
+  /** connector bolts fastening joined cases to each other */
+  caseConnectors?: number;
+  /** cases with no back of their own: closed by the back of the case they sit back to back with */
+  sharedBacks?: string[];
+  /** casters and feet together: how far a lowered foot lifts the casters, and how far a raised one clears the floor */
+  feetLiftMm?: number;
+  feetClearanceMm?: number;
+  /** the feet's mounting blocks: how many (glued up `layers` high under each foot), each `sideMm` square */
+  footBlocks?: { count: number; layers: number; sideMm: number } | null;
 }
 
 export interface CutList {
@@ -123,6 +142,15 @@ const BACK_SETBACK_MM = toMm(0.5);
 const SHELF_SIDE_CLEARANCE_MM = toMm(1 / 16);
 const SHELF_FRONT_SETBACK_MM = toMm(1 / 4);
 const STRETCHER_WIDTH_MM = toMm(4);
+/** bench casters: at most 48 in apart along a row (common practice, from memory) */
+const CASTER_SPACING_MM = toMm(48);
+/** leveling feet adjust about 1 in (from memory); a foot's mounting block is 4 in square */
+export const FOOT_TRAVEL_MM = toMm(1);
+const FOOT_BLOCK_MM = toMm(4);
+/** a raised foot must clear the floor by at least 1/8 in (common practice) */
+export const FOOT_MIN_CLEARANCE_MM = toMm(1 / 8);
+/** joined cases: a connector bolt every 12 in along the joint, in two rows (top and bottom), at least two a row (common practice) */
+const CONNECTOR_SPACING_MM = toMm(12);
 const RAIL_WIDTH_MM = toMm(3);
 
 export interface DrawerBox {
@@ -217,6 +245,7 @@ interface CaseInput {
   topKind: 'stretchers' | 'panel';
   hangingRail: boolean;
   trimmed: boolean;
+  bays: Bay[];
 }
 
 class PartList {
@@ -295,7 +324,6 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
   if (spec.finishId) byId(book.finishes, spec.finishId, 'finish');
   if (spec.trim) byId(book.lumber, spec.trim.lumberId, 'trim lumber');
 
-  const t = carcass.thicknessMm;
   const list = new PartList();
   const geo: PieceGeometry = {
     widthMm: spec.widthMm,
@@ -330,44 +358,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
 
   const cases: CaseInput[] = [];
   if (spec.design === 'assembly-bench') {
-    const caster = spec.mobility !== 'leveling-feet' ? byId(book.hardware, spec.casterId, 'caster') : null;
-    const foot = spec.mobility !== 'locking-casters' ? byId(book.hardware, spec.footId, 'leveling foot') : null;
-    const under = Math.max(caster?.heightMm ?? 0, foot?.heightMm ?? 0);
-    const caseWidth = (spec.widthMm - 2 * spec.overhangSidesMm) / spec.caseCount;
-    const caseDepth = spec.depthMm - spec.overhangFrontMm;
-    const topT = spec.top.kind === 'laminated' ? 2 * t : spec.top.thicknessMm;
-    const caseHeight = spec.heightMm - topT - under;
-    for (let c = 0; c < spec.caseCount; c++) {
-      cases.push({
-        key: `c${c + 1}`,
-        xMm: spec.overhangSidesMm + c * caseWidth,
-        yMm: under,
-        widthMm: caseWidth,
-        heightMm: caseHeight,
-        depthMm: caseDepth,
-        toeKickMm: 0,
-        topKind: 'stretchers',
-        hangingRail: false,
-        trimmed: false,
-      });
-    }
-    geo.top = { xMm: 0, yMm: spec.heightMm - topT, widthMm: spec.widthMm, heightMm: topT, kind: spec.top.kind };
-    benchTop(spec, book, list, geo, topT);
-    const perCase = 4;
-    if (caster) {
-      geo.casters = perCase * spec.caseCount;
-      geo.casterId = caster.id;
-    }
-    if (foot) {
-      geo.feet = perCase * spec.caseCount;
-      geo.footId = foot.id;
-    }
-    for (const cs of cases) {
-      for (const x of [cs.xMm + 70, cs.xMm + cs.widthMm - 70])
-        geo.mobility.push({ kind: caster ? 'caster' : 'foot', xMm: x, heightMm: under });
-    }
-    geo.mobile = caster !== null;
-    geo.workingLoadKg = spec.workingLoadKg;
+    benchCases(spec, book, carcass, list, geo, cases);
   } else {
     const toe = spec.design === 'wall-cabinet' ? 0 : spec.toeKickMm;
     cases.push({
@@ -381,6 +372,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
       topKind: spec.design === 'base-cabinet' ? 'stretchers' : 'panel',
       hangingRail: spec.design === 'wall-cabinet' && spec.hangingRail,
       trimmed,
+      bays: spec.bays,
     });
     if (spec.design === 'base-cabinet' && spec.mobility === 'leveling-feet') {
       const foot = book.hardware.find((h) => h.kind === 'leveling_foot');
@@ -391,8 +383,18 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
     }
   }
 
-  for (const cs of cases)
+  const places = spec.design === 'assembly-bench' ? benchLayout(spec) : [];
+  cases.forEach((cs, i) => {
+    const fronts = geo.fronts.length;
     buildCase(cs, spec, { carcass, back, front, drawerMat, drawerBottom }, settings, list, geo, band, book.sheetTrimMm);
+    const place = places[i];
+    if (spec.design === 'assembly-bench' && place) {
+      const facing = at(spec.cases, i).facing;
+      for (const f of geo.fronts.slice(fronts)) f.face = facing;
+      Object.assign(at(geo.cases, geo.cases.length - 1), { key: cs.key, facing, plan: place });
+    }
+  });
+  if (spec.design === 'assembly-bench') shareBacks(places, geo, list);
   geo.caseCount = cases.length;
 
   if (spec.trim) {
@@ -410,31 +412,31 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
       dados: 0,
       finishFaces: 2 as const,
     };
-    if (spec.design === 'assembly-bench' && geo.top) {
-      // solid edging round the top, mitred at the corners (lengths are long-point)
-      list.add({
-        ...common,
-        id: 'trim-top-long',
-        name: 'trim, top edge (long)',
-        quantity: 2,
-        lengthMm: spec.widthMm + 2 * tt,
-        widthMm: geo.top.heightMm,
-      });
-      list.add({
-        ...common,
-        id: 'trim-top-short',
-        name: 'trim, top edge (end)',
-        quantity: 2,
-        lengthMm: spec.depthMm + 2 * tt,
-        widthMm: geo.top.heightMm,
-      });
+    if (spec.design === 'assembly-bench') {
+      // solid edging round the top, mitred at the corners: its outside (long-point) lengths are the stated width and depth
+      if (spec.top.edge === 'trim') {
+        list.add({
+          ...common,
+          id: 'trim-top-long',
+          name: 'trim, top edge (long)',
+          quantity: 2,
+          lengthMm: spec.widthMm,
+        });
+        list.add({
+          ...common,
+          id: 'trim-top-short',
+          name: 'trim, top edge (end)',
+          quantity: 2,
+          lengthMm: spec.depthMm,
+        });
+      }
     } else {
       const cs = at(cases, 0);
       // a mitred face frame of solid trim over the case's front edges
       list.add({ ...common, id: 'trim-stile', name: 'trim, stile', quantity: 2, lengthMm: cs.heightMm - cs.toeKickMm });
       list.add({ ...common, id: 'trim-rail', name: 'trim, rail', quantity: 2, lengthMm: cs.widthMm });
     }
-    geo.trimPieces = 4;
+    geo.trimPieces = spec.design === 'assembly-bench' && spec.top.edge !== 'trim' ? 0 : 4;
   }
   return { parts: list.parts, geometry: geo };
 }
@@ -481,7 +483,7 @@ function buildCase(
   const carcassGrain = (visible: boolean) => grainOf(m.carcass, visible);
   const horizontals = cs.topKind === 'panel' ? 2 : 1; // bottom and a top panel dadoed into the sides
 
-  const bays = spec.bays;
+  const bays = cs.bays;
   const dividersPerBay = bays.map(
     (b) =>
       dividerCount(b.compartments) + b.compartments.reduce((s, c) => s + (c.kind === 'drawer' ? 0 : c.fixedShelves), 0),
@@ -1077,6 +1079,166 @@ function buildCase(
   }
 }
 
+/**
+ * Cases back to back are not doubled up: a case whose back is covered
+ * whole by the back of the case it is bolted to leaves its own out (of two
+ * the same width, the later one), and is closed by its neighbour's.
+ */
+function shareBacks(places: readonly CasePlace[], geo: PieceGeometry, list: PartList): void {
+  const open = new Set<number>();
+  for (const j of geo.caseJoins ?? []) {
+    if (j.kind !== 'back') continue;
+    const covers = (i: number) => j.lengthMm >= at(places, i).alongMm - 1;
+    const drop = covers(j.b) && !open.has(j.a) ? j.b : covers(j.a) && !open.has(j.b) ? j.a : null;
+    if (drop !== null) open.add(drop);
+  }
+  for (const i of open) {
+    const k = list.parts.findIndex((p) => p.id === `c${i + 1}-back`);
+    if (k >= 0) list.parts.splice(k, 1);
+  }
+  geo.sharedBacks = [...open].map((i) => `c${i + 1}`);
+}
+
+/** Layers of the carcass material in a laminated top: the whole number nearest the stated thickness, at least two. */
+export function laminatedLayers(thicknessMm: number, layerMm: number): number {
+  return Math.max(2, Math.round(thicknessMm / layerMm));
+}
+
+/**
+ * A bench's cases from its arrangement (each at its place, its elevation x
+ * measured on the side it faces), its top, and what it stands on: casters
+ * in two rows under each group of joined cases (one set under the joined
+ * base, at most 48 in apart), leveling feet at the group's corners, on
+ * mounting blocks of stacked carcass stock where the feet alone would not
+ * reach the floor past the casters; and the connector bolts of the joints.
+ */
+function benchCases(
+  spec: Extract<BuildSpec, { design: 'assembly-bench' }>,
+  book: PriceBook,
+  carcass: SheetGood,
+  list: PartList,
+  geo: PieceGeometry,
+  cases: CaseInput[],
+): void {
+  const t = carcass.thicknessMm;
+  const caster = spec.mobility !== 'leveling-feet' ? byId(book.hardware, spec.casterId, 'caster') : null;
+  const foot = spec.mobility !== 'locking-casters' ? byId(book.hardware, spec.footId, 'leveling foot') : null;
+  const casterH = caster?.heightMm ?? 0;
+  const footH = foot?.heightMm ?? 0;
+  const under = caster ? casterH : footH;
+  const topT = spec.top.kind === 'laminated' ? laminatedLayers(spec.top.thicknessMm, t) * t : spec.top.thicknessMm;
+  const caseHeight = spec.heightMm - topT - under;
+  geo.topTrimMm = spec.top.edge === 'trim' && spec.trim ? spec.trim.thicknessMm : 0;
+  const places = benchLayout(spec);
+  places.forEach((p, i) => {
+    const c = at(spec.cases, i);
+    // x on the elevation of the side the case faces, from that elevation's left
+    const x = {
+      front: p.xMm,
+      back: spec.widthMm - p.xMm - p.alongMm,
+      left: spec.depthMm - p.yMm - p.acrossMm,
+      right: p.yMm,
+    }[c.facing];
+    cases.push({
+      key: `c${i + 1}`,
+      xMm: x,
+      yMm: under,
+      widthMm: c.widthMm,
+      heightMm: caseHeight,
+      depthMm: c.depthMm,
+      toeKickMm: 0,
+      topKind: 'stretchers',
+      hangingRail: false,
+      trimmed: false,
+      bays: c.bays,
+    });
+  });
+  geo.top = { xMm: 0, yMm: spec.heightMm - topT, widthMm: spec.widthMm, heightMm: topT, kind: spec.top.kind };
+  benchTop(spec, book, list, geo, topT);
+
+  const joins = caseJoins(spec, places);
+  geo.caseJoins = joins;
+  geo.caseConnectors = joins.reduce((s, j) => s + 2 * Math.max(2, Math.ceil(j.lengthMm / CONNECTOR_SPACING_MM)), 0);
+
+  // groups of joined cases, each on one set of casters and feet
+  const group = places.map((_, i) => i);
+  const root = (i: number): number => (group[i] === i ? i : (group[i] = root(at(group, i))));
+  for (const j of joins) group[root(j.b)] = root(j.a);
+  const groups = new Map<number, number[]>();
+  places.forEach((_, i) => groups.set(root(i), [...(groups.get(root(i)) ?? []), i]));
+  // a point under one of the group's cases, the nearest to (x, y)
+  const under1 = (members: number[], x: number, y: number, inset: number): [number, number] => {
+    let best: [number, number] = [x, y];
+    let dist = Infinity;
+    for (const m of members) {
+      const p = at(places, m);
+      const px = Math.min(Math.max(x, p.xMm + inset), p.xMm + p.alongMm - inset);
+      const py = Math.min(Math.max(y, p.yMm + inset), p.yMm + p.acrossMm - inset);
+      const d = (px - x) ** 2 + (py - y) ** 2;
+      if (d < dist) [best, dist] = [[px, py], d];
+    }
+    return best;
+  };
+  let blockLayers = 0;
+  if (caster && foot) {
+    // the block that lets a lowered foot lift the casters by about half its travel, in whole layers of carcass stock
+    blockLayers = Math.max(0, Math.round((casterH - footH - FOOT_TRAVEL_MM / 2) / t));
+    geo.feetLiftMm = footH + blockLayers * t + FOOT_TRAVEL_MM - casterH;
+    geo.feetClearanceMm = casterH - footH - blockLayers * t;
+  }
+  for (const members of groups.values()) {
+    const x0 = Math.min(...members.map((m) => at(places, m).xMm));
+    const x1 = Math.max(...members.map((m) => at(places, m).xMm + at(places, m).alongMm));
+    const y0 = Math.min(...members.map((m) => at(places, m).yMm));
+    const y1 = Math.max(...members.map((m) => at(places, m).yMm + at(places, m).acrossMm));
+    if (caster) {
+      const inset = 70;
+      const perRow = Math.max(2, Math.ceil((x1 - x0 - 2 * inset) / CASTER_SPACING_MM) + 1);
+      for (const y of [y0 + inset, y1 - inset])
+        for (let k = 0; k < perRow; k++) {
+          const [px, py] = under1(members, x0 + inset + ((x1 - x0 - 2 * inset) * k) / (perRow - 1), y, inset);
+          geo.mobility.push({ kind: 'caster', xMm: px, yMm: py, heightMm: casterH });
+        }
+      geo.casters += 2 * perRow;
+    }
+    if (foot) {
+      const inset = caster ? 180 : 70;
+      for (const y of [y0 + inset, y1 - inset])
+        for (const x of [x0 + inset, x1 - inset]) {
+          const [px, py] = under1(members, x, y, inset);
+          geo.mobility.push({ kind: 'foot', xMm: px, yMm: py, heightMm: under, blockMm: blockLayers * t });
+        }
+      geo.feet += 4;
+    }
+  }
+  if (blockLayers > 0) {
+    // the blocks are crosscut from 4 in strips (one part per strip, not a part per block): at most 20 blocks a strip
+    const blocks = geo.feet * blockLayers;
+    const strips = Math.ceil(blocks / 20);
+    const perStrip = Math.ceil(blocks / strips);
+    list.add({
+      id: 'foot-block-strip',
+      name: `foot mounting blocks, ${perStrip} to a strip`,
+      materialId: carcass.id,
+      quantity: strips,
+      lengthMm: perStrip * (FOOT_BLOCK_MM + book.kerfMm),
+      widthMm: FOOT_BLOCK_MM,
+      thicknessMm: t,
+      grain: 'free',
+      bandedEdges: { long: 0, short: 0 },
+      pocketHoles: 0,
+      dados: 0,
+      finishFaces: 0,
+    });
+  }
+  geo.footBlocks =
+    blockLayers > 0 ? { count: geo.feet * blockLayers, layers: blockLayers, sideMm: FOOT_BLOCK_MM } : null;
+  geo.casterId = caster?.id ?? null;
+  geo.footId = foot?.id ?? null;
+  geo.mobile = caster !== null;
+  geo.workingLoadKg = spec.workingLoadKg;
+}
+
 function benchTop(
   spec: Extract<BuildSpec, { design: 'assembly-bench' }>,
   book: PriceBook,
@@ -1084,20 +1246,24 @@ function benchTop(
   geo: PieceGeometry,
   topT: number,
 ): void {
-  const L = spec.widthMm;
-  const D = spec.depthMm;
+  // a trimmed edge sits inside the stated width and depth; a banded one is banded on every layer's edges
+  const trimT = geo.topTrimMm ?? 0;
+  const L = spec.widthMm - 2 * trimT;
+  const D = spec.depthMm - 2 * trimT;
+  const edges = spec.top.edge === 'banded' ? 2 : 0;
   if (spec.top.kind === 'laminated') {
     const m = byId(book.sheetGoods, spec.carcassMaterialId, 'top material');
     list.add({
       id: 'top-layer',
       name: 'top layer',
       materialId: m.id,
-      quantity: 2,
+      quantity: Math.round(topT / m.thicknessMm),
       lengthMm: L,
       widthMm: D,
       thicknessMm: m.thicknessMm,
       grain: grainOf(m, true),
-      bandedEdges: { long: 0, short: 0 },
+      bandedEdges: { long: edges, short: edges },
+      bandingId: spec.bandingId,
       pocketHoles: 0,
       dados: 0,
       finishFaces: 1,
@@ -1123,7 +1289,8 @@ function benchTop(
     widthMm: D,
     thicknessMm: skin.thicknessMm,
     grain: grainOf(skin, true),
-    bandedEdges: { long: 0, short: 0 },
+    bandedEdges: { long: edges, short: edges },
+    bandingId: spec.bandingId,
     pocketHoles: 0,
     dados: 0,
     finishFaces: 1,
@@ -1177,13 +1344,14 @@ function benchTop(
       finishFaces: 0,
     });
   if (longRows > 0) {
-    const seg = (innerL - cross * ct) / (cross + 1);
+    // each row of long ribs is ripped as one strip and crosscut to fit between the cross ribs at assembly
+    // (the segments and their kerfs come to less than the strip, since a kerf is thinner than a rib)
     list.add({
       id: 'top-rib-long',
-      name: 'grid rib, long',
+      name: `grid rib, long, a strip to crosscut into ${cross + 1}`,
       materialId: core.id,
-      quantity: longRows * (cross + 1),
-      lengthMm: seg,
+      quantity: longRows,
+      lengthMm: innerL,
       widthMm: coreH,
       thicknessMm: ct,
       grain: 'free',

@@ -89,6 +89,20 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       modulusMPa: 3450,
       priceCents: 3800,
     },
+    // tempered hardboard, for backs that need no grain: density about 1000 kg/m3 and modulus about 5500 MPa, from memory
+    {
+      id: 'hardboard-6',
+      name: '1/4 in tempered hardboard',
+      kind: 'hardboard',
+      nominalThicknessIn: 0.25,
+      thicknessMm: 6.35,
+      sheetLengthMm: 2438.4,
+      sheetWidthMm: 1219.2,
+      grain: 'none',
+      densityKgM3: 1000,
+      modulusMPa: 5500,
+      priceCents: 2400,
+    },
   ],
   lumber: [
     // Clear wood at 12 % moisture. Density at 12 % = specific gravity (oven-dry weight, volume at 12 %) x
@@ -293,6 +307,14 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       kind: 'rail_screw',
       unit: 'each',
       priceCents: 25,
+      massKg: 0.01,
+    },
+    {
+      id: 'case-connector',
+      name: 'Cabinet connector bolt and sleeve, 1 1/4 to 2 in',
+      kind: 'connector',
+      unit: 'each',
+      priceCents: 45,
       massKg: 0.01,
     },
     {

@@ -11,7 +11,8 @@ describe('elevationDrawing', () => {
     const rects = d.shapes.filter((s) => s.type === 'rect');
     expect(rects.some((r) => r.type === 'rect' && r.style === 'case')).toBe(true);
     const dims = d.shapes.filter((s) => s.type === 'dimension').map((s) => (s.type === 'dimension' ? s.text : ''));
-    expect(dims).toHaveLength(2);
+    // the bench's plan adds its depth
+    expect(dims).toHaveLength(slug === 'assembly-bench' ? 3 : 2);
     expect(dims[0]).toMatch(/"$/);
   });
   it('gives the base cabinet one door and one drawer front, a toe kick, and 24" x 34 1/2"', () => {
@@ -23,9 +24,9 @@ describe('elevationDrawing', () => {
       '34 1/2"',
     ]);
   });
-  it('draws casters under the bench', () => {
+  it('draws the bench casters on each elevation (its half) and all six on the plan', () => {
     const d = elevationDrawing(designs['assembly-bench'].defaults);
-    expect(d.shapes.filter((s) => s.type === 'circle')).toHaveLength(4);
+    expect(d.shapes.filter((s) => s.type === 'circle')).toHaveLength(3 + 3 + 6);
   });
 });
 

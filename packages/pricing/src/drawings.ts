@@ -41,6 +41,20 @@ export interface Drawing {
   title: string;
   viewBox: { x: number; y: number; width: number; height: number };
   shapes: Shape[];
+  /** a drawing of several views (a bench's front, back and plan): where each is and the cases each shows */
+  views?: DrawingView[];
+}
+
+/** One view of a drawing of several: its area in the drawing's coordinates and the cases it shows (by key). */
+export interface DrawingView {
+  key: 'front' | 'back' | 'plan';
+  title: string;
+  /** elevations: the cases whose fronts face the view; plan: every case */
+  cases: string[];
+  x: number;
+  y: number;
+  width: number;
+  height: number;
 }
 
 function fmt(mm: number, unit: LengthUnit): string {
@@ -63,6 +77,7 @@ export function elevationDrawing(
   // thicknesses come from the shop's price book; without one, from the demo book (the drawing is to scale, not priced)
   const list = options.list ?? cutList(spec, options.book ?? demoPriceBook, options.settings ?? demoSettings);
   const g: PieceGeometry = list.geometry;
+  if (g.cases.some((c) => c.plan)) return arrangementDrawing(spec, g, unit);
   const H = g.heightMm;
   const W = g.widthMm;
   const Y = (yFromFloor: number) => H - yFromFloor;
@@ -166,6 +181,185 @@ export function elevationDrawing(
     title: titleOf(spec),
     viewBox: { x: -pad / 2, y: -size * 2.5, width: W + pad * 1.5, height: H + size * 2.5 + pad },
     shapes,
+  };
+}
+
+/**
+ * A bench's arrangement in three views: the front and the back elevations
+ * (each showing the fronts that face it, the cases behind in outline, the
+ * top, and the casters and feet on that side) side by side, and below them
+ * a plan of the cases under the top, each marked on the side it faces.
+ */
+function arrangementDrawing(spec: BuildSpec, g: PieceGeometry, unit: LengthUnit): Drawing {
+  const W = g.widthMm;
+  const H = g.heightMm;
+  const D = g.depthMm;
+  const size = Math.max(2 * W, H + D) / 60;
+  const gap = size * 6;
+  const shapes: Shape[] = [];
+  const views: DrawingView[] = [];
+  const title = (x: number, y: number, text: string) =>
+    shapes.push({ type: 'text', x, y: y - size * 0.8, text, size, anchor: 'start', weight: 'bold' });
+
+  const elevation = (view: 'front' | 'back', ox: number, oy: number) => {
+    const Y = (yFromFloor: number) => oy + H - yFromFloor;
+    const X = (planX: number, along: number) => (view === 'front' ? ox + planX : ox + W - planX - along);
+    // the far cases first, so that the near ones are drawn over them
+    const near = (yMm: number, across: number) => (view === 'front' ? -yMm : yMm + across);
+    const cases = g.cases
+      .filter((c) => c.plan)
+      .sort((a, b) => near(a.plan!.yMm, a.plan!.acrossMm) - near(b.plan!.yMm, b.plan!.acrossMm));
+    for (const c of cases) {
+      const p = c.plan!;
+      shapes.push({
+        type: 'rect',
+        x: X(p.xMm, p.alongMm),
+        y: Y(c.yMm + c.heightMm),
+        width: p.alongMm,
+        height: c.heightMm,
+        style: 'case',
+      });
+      if (c.facing !== view) continue;
+      for (const px of c.partitionsXMm)
+        shapes.push({
+          type: 'line',
+          x1: ox + px,
+          y1: Y(c.yMm),
+          x2: ox + px,
+          y2: Y(c.yMm + c.heightMm),
+          style: 'guide',
+        });
+      for (const [sx, sy, sw] of c.shelvesMm)
+        shapes.push({ type: 'line', x1: ox + sx, y1: Y(sy), x2: ox + sx + sw, y2: Y(sy), style: 'shelf' });
+    }
+    if (g.top) {
+      shapes.push({ type: 'rect', x: ox, y: Y(H), width: W, height: g.top.heightMm, style: 'top' });
+      const tt = g.topTrimMm ?? 0;
+      if (tt > 0)
+        for (const x of [ox, ox + W - tt])
+          shapes.push({ type: 'rect', x, y: Y(H), width: tt, height: g.top.heightMm, style: 'trim' });
+    }
+    for (const f of g.fronts.filter((f) => (f.face ?? 'front') === view)) {
+      const fx = ox + f.xMm;
+      shapes.push({
+        type: 'rect',
+        x: fx,
+        y: Y(f.yMm + f.heightMm),
+        width: f.widthMm,
+        height: f.heightMm,
+        style: 'front',
+      });
+      if (f.kind === 'door') {
+        const hx = f.hinge === 'right' ? fx + f.widthMm : fx;
+        const opening = f.hinge === 'right' ? fx : fx + f.widthMm;
+        const mid = Y(f.yMm + f.heightMm / 2);
+        shapes.push({ type: 'line', x1: opening, y1: Y(f.yMm + f.heightMm), x2: hx, y2: mid, style: 'guide' });
+        shapes.push({ type: 'line', x1: hx, y1: mid, x2: opening, y2: Y(f.yMm), style: 'guide' });
+      } else {
+        const half = Math.min(64, f.widthMm / 4);
+        const cx = fx + f.widthMm / 2;
+        const cy = Y(f.yMm + f.heightMm / 2);
+        shapes.push({ type: 'line', x1: cx - half, y1: cy, x2: cx + half, y2: cy, style: 'hardware' });
+      }
+    }
+    // casters and feet on this view's half of the bench
+    for (const m of g.mobility.filter((m) => (m.yMm ?? 0) < D / 2 === (view === 'front'))) {
+      const x = view === 'front' ? ox + m.xMm : ox + W - m.xMm;
+      if (m.kind === 'caster') {
+        const r = Math.min(m.heightMm / 2.6, 45);
+        shapes.push({ type: 'line', x1: x, y1: Y(m.heightMm), x2: x, y2: Y(2 * r), style: 'hardware' });
+        shapes.push({ type: 'circle', cx: x, cy: Y(r), r, style: 'hardware' });
+      } else {
+        const block = m.blockMm ?? 0;
+        const clear = Math.max(0, g.feetClearanceMm ?? 0);
+        if (block > 0)
+          shapes.push({ type: 'rect', x: x - 50, y: Y(m.heightMm), width: 100, height: block, style: 'part' });
+        shapes.push({
+          type: 'rect',
+          x: x - 20,
+          y: Y(m.heightMm - block),
+          width: 40,
+          height: Math.max(1, m.heightMm - block - clear),
+          style: 'hardware',
+        });
+      }
+    }
+    const facing = g.cases.filter((c) => c.facing === view && c.key).map((c) => c.key!);
+    const name = view === 'front' ? 'Front elevation' : 'Back elevation';
+    title(ox, oy, name);
+    views.push({ key: view, title: name, cases: facing, x: ox, y: oy, width: W, height: H });
+  };
+  elevation('front', 0, 0);
+  elevation('back', W + gap, 0);
+  shapes.push({ type: 'dimension', x1: 0, y1: H, x2: W, y2: H, offset: size * 1.6, text: fmt(W, unit), size });
+  shapes.push({ type: 'dimension', x1: W, y1: 0, x2: W, y2: H, offset: size * 1.6, text: fmt(H, unit), size });
+
+  // the plan: the top's outline, the cases under it, the front at the bottom
+  const oy = H + gap + size * 2;
+  const PY = (yMm: number) => oy + D - yMm;
+  shapes.push({ type: 'rect', x: 0, y: oy, width: W, height: D, style: 'guide' });
+  const tt = g.topTrimMm ?? 0;
+  if (tt > 0) shapes.push({ type: 'rect', x: tt, y: oy + tt, width: W - 2 * tt, height: D - 2 * tt, style: 'guide' });
+  const planCases: string[] = [];
+  g.cases.forEach((c, i) => {
+    const p = c.plan;
+    if (!p) return;
+    planCases.push(c.key ?? `c${i + 1}`);
+    const x0 = p.xMm;
+    const y0 = PY(p.yMm + p.acrossMm);
+    shapes.push({ type: 'rect', x: x0, y: y0, width: p.alongMm, height: p.acrossMm, style: 'case' });
+    // a strip along the face the doors and drawers are on
+    const strip = Math.min(25, p.acrossMm / 8, p.alongMm / 8);
+    const face = {
+      front: { x: x0, y: y0 + p.acrossMm - strip, width: p.alongMm, height: strip },
+      back: { x: x0, y: y0, width: p.alongMm, height: strip },
+      left: { x: x0, y: y0, width: strip, height: p.acrossMm },
+      right: { x: x0 + p.alongMm - strip, y: y0, width: strip, height: p.acrossMm },
+    }[c.facing ?? 'front'];
+    shapes.push({ type: 'rect', ...face, style: 'front' });
+    shapes.push({
+      type: 'text',
+      x: x0 + p.alongMm / 2,
+      y: y0 + p.acrossMm / 2 + size * 0.35,
+      text: `Case ${i + 1}, facing ${c.facing ?? 'front'}`,
+      size: Math.min(size, p.alongMm / 12),
+      anchor: 'middle',
+    });
+  });
+  for (const m of g.mobility) {
+    const x = m.xMm;
+    const y = PY(m.yMm ?? 0);
+    if (m.kind === 'caster') shapes.push({ type: 'circle', cx: x, cy: y, r: 30, style: 'hardware' });
+    else shapes.push({ type: 'rect', x: x - 25, y: y - 25, width: 50, height: 50, style: 'hardware' });
+  }
+  shapes.push({ type: 'dimension', x1: W, y1: oy, x2: W, y2: oy + D, offset: size * 1.6, text: fmt(D, unit), size });
+  shapes.push({ type: 'text', x: W / 2, y: oy + D + size * 1.6, text: 'front', size, anchor: 'middle' });
+  title(0, oy, 'Plan of the cases under the top');
+  views.push({
+    key: 'plan',
+    title: 'Plan of the cases under the top',
+    cases: planCases,
+    x: 0,
+    y: oy,
+    width: W,
+    height: D,
+  });
+
+  shapes.push({
+    type: 'text',
+    x: 0,
+    y: -size * 2.4,
+    text: `${titleOf(spec)}: ${fmt(W, unit)} W x ${fmt(H, unit)} H x ${fmt(D, unit)} D`,
+    size,
+    anchor: 'start',
+    weight: 'bold',
+  });
+  const pad = size * 4;
+  return {
+    title: titleOf(spec),
+    viewBox: { x: -pad / 2, y: -size * 4, width: 2 * W + gap + pad * 1.5, height: oy + D + size * 4 + pad },
+    shapes,
+    views,
   };
 }
 

@@ -11,7 +11,7 @@ export { shelfSag, maxShelfSpan, casterCheck, pieceChecks, TIP_OVER_HEIGHT_MM } 
 export type { Check, CheckLevel } from './checks';
 export { hingesPerDoor } from './hardware';
 export { elevationDrawing, sheetLayoutDrawing, toSvg } from './drawings';
-export type { Drawing, Shape, ShapeStyle } from './drawings';
+export type { Drawing, DrawingView, Shape, ShapeStyle } from './drawings';
 export { validateSpec } from './validate';
 export { PriceBook, ShopSettings, STAGE_KEYS, StageKey } from './price-book';
 export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';

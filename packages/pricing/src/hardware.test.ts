@@ -54,9 +54,9 @@ describe('hardwareFor', () => {
     expect(slide.units).toBe(1);
     expect(hw.find((h) => h.kind === 'anti_tip_kit')?.pieces).toBe(1);
   });
-  it('puts four casters under each case of the bench', () => {
+  it('puts one set of casters under the joined cases of the bench: two rows of three, at most 48 in apart', () => {
     const list = cutList(designs['assembly-bench'].defaults, demoPriceBook, demoSettings);
-    expect(hardwareFor(list, demoPriceBook, { antiTip: false }).find((h) => h.kind === 'caster')?.pieces).toBe(8);
+    expect(hardwareFor(list, demoPriceBook, { antiTip: false }).find((h) => h.kind === 'caster')?.pieces).toBe(6);
   });
 });
 
@@ -140,15 +140,15 @@ describe('screws and fasteners', () => {
       mobility: 'casters-and-feet' as const,
     };
     const hw = pieces(spec);
-    // two cases, four casters and four feet under each, 4 fasteners a plate
-    expect(hw['bolt-caster']).toBe(32);
-    expect(hw['screw-foot']).toBe(32);
-    // each case (72 in less two 3 in overhangs, halved: 838.2 mm) has two stretchers, a screw every 8 in:
-    // floor(838.2 / 203.2) + 1 = 5 a stretcher
-    expect(hw['screw-top']).toBe(2 * 2 * 5);
-    // six drawers, 12 slide screws and 4 front screws each
-    expect(hw['screw-slide']).toBe(72);
-    expect(hw['screw-drawer-front']).toBe(24);
+    // one set under the joined cases: six casters and four feet, 4 fasteners a plate
+    expect(hw['bolt-caster']).toBe(24);
+    expect(hw['screw-foot']).toBe(16);
+    // two stretchers a case, a screw every 8 in: the 62 in main case floor(1574.8 / 203.2) + 1 = 8 a stretcher,
+    // each 31 in rear cabinet floor(787.4 / 203.2) + 1 = 4 a stretcher
+    expect(hw['screw-top']).toBe(2 * 8 + 2 * (2 * 4));
+    // seven drawers, 12 slide screws and 4 front screws each
+    expect(hw['screw-slide']).toBe(84);
+    expect(hw['screw-drawer-front']).toBe(28);
   });
 
   it('buys screws and bolts by the box', () => {

@@ -70,7 +70,7 @@ export interface HardwareLine {
  * drawer (two on drawers wider than 24 in); casters and leveling feet; pocket
  * screws per hole, of the length for the stock drilled; hanging-rail screws;
  * the fasteners for slides, hinges, drawer fronts, the top, casters and feet
- * where the book lists them; and an anti-tip kit when the checks ask for one.
+ * where the book lists them; connector bolts between joined cases; and an anti-tip kit when the checks ask for one.
  *
  * @example
  * hardwareFor(cutList(spec, book, settings), book, { antiTip: false })
@@ -129,6 +129,11 @@ export function hardwareFor(list: CutList, book: PriceBook, opts: { antiTip: boo
   }
   const rail = first('rail_screw');
   if (g.hangingRailWidthMm && rail) add(rail.id, Math.max(2, Math.ceil(g.hangingRailWidthMm / STUD_SPACING_MM)));
+  const connector = first('connector');
+  if (g.caseConnectors) {
+    if (!connector) throw new RangeError('the price book has no connector bolt to fasten the cases together');
+    add(connector.id, g.caseConnectors);
+  }
   const kit = first('anti_tip_kit');
   if (opts.antiTip && kit) add(kit.id, 1);
 

@@ -16,25 +16,8 @@ const compartment = (kind: 'drawer' | 'door', adjustableShelves = 0) => ({
   fixedShelves: 0,
 });
 
-/**
- * The nearest a bench of two cases comes in today's schema to the double-sided
- * bench (a 72 x 36 in torsion-box top at 35 in, with trim, on casters and
- * feet): each case a column of four drawers beside a door cabinet with a
- * shelf under a shallow drawer.
- */
-const benchLike: BuildSpec = {
-  ...designs['assembly-bench'].defaults,
-  widthMm: toMm(72),
-  depthMm: toMm(36),
-  heightMm: toMm(35),
-  caseCount: 2,
-  bays: [
-    { widthMm: null, compartments: [1, 2, 3, 4].map(() => compartment('drawer')) },
-    { widthMm: null, compartments: [compartment('door', 1), compartment('drawer')] },
-  ],
-  mobility: 'casters-and-feet',
-  trim: { lumberId: 'hard-maple-4-4', widthMm: toMm(1.5), thicknessMm: toMm(0.75) },
-};
+/** The standard bench: the double-sided assembly bench of the design's defaults. */
+const benchLike: BuildSpec = designs['assembly-bench'].defaults;
 
 describe('labourCounts', () => {
   it('counts every driver of the 24 in base cabinet as counted by hand', () => {
@@ -90,7 +73,7 @@ describe('labourCounts', () => {
     });
     expect(c.torsion_top_m2).toBeCloseTo((toMm(72) * toMm(36)) / 1e6, 6);
     expect(c.top).toBe(1);
-    expect(c.caster).toBe(16); // four casters and four feet under each of the two cases
+    expect(c.caster).toBe(10); // six casters and four feet under the joined cases
   });
 });
 

@@ -64,6 +64,7 @@ export const HardwareKind = z.enum([
   'hanging_rail',
   'screw',
   'bolt',
+  'connector',
 ]);
 export type HardwareKind = z.infer<typeof HardwareKind>;
 

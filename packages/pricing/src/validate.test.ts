@@ -8,7 +8,7 @@ import { toMm } from './units';
 import { validateSpec } from './validate';
 
 const bench = designs['assembly-bench'].defaults;
-const drawers = bench.bays[0]!;
+const drawers = { ...bench.cases[0]!.bays[0]!, widthMm: null };
 const priceAt = (spec: BuildSpec) =>
   (['quick', 'thorough'] as const).map((effort) =>
     estimate([{ spec, quantity: 1 }], demoPriceBook, demoSettings, { effort }),
@@ -21,9 +21,21 @@ describe('validateSpec: a valid piece always prices', () => {
       widthMm: toMm(72),
       depthMm: toMm(36),
       heightMm: toMm(35),
-      caseCount: 1,
+      backMaterialId: 'birch-ply-6',
+      overhangBackMm: 0,
+      overhangLeftMm: toMm(3),
+      overhangRightMm: toMm(3),
+      cases: [
+        {
+          widthMm: toMm(66),
+          depthMm: toMm(33),
+          xMm: null,
+          row: 'front',
+          facing: 'front',
+          bays: [drawers, drawers, drawers],
+        },
+      ],
       workingLoadKg: 100,
-      bays: [drawers, drawers, drawers],
     } as BuildSpec;
     const v = validateSpec(spec, demoPriceBook, demoSettings);
     expect(v.ok).toBe(true);

@@ -1,13 +1,20 @@
 import * as z from 'zod';
 import { withUnits } from '../messages';
 import type { LengthUnit } from '../units';
-import { assemblyBenchDefaults, assemblyBenchLimits, assemblyBenchSchema } from './assembly-bench';
+import {
+  assemblyBenchDefaults,
+  assemblyBenchLimits,
+  assemblyBenchObject,
+  assemblyBenchSchema,
+  upgradeSpec,
+} from './assembly-bench';
 import { baseCabinetDefaults, baseCabinetLimits, baseCabinetSchema } from './base-cabinet';
 import { bookcaseDefaults, bookcaseLimits, bookcaseSchema } from './bookcase';
-import type { CaseLimits } from './case-model';
+import type { Bay, CaseLimits } from './case-model';
 import { wallCabinetDefaults, wallCabinetLimits, wallCabinetSchema } from './wall-cabinet';
 
-export type { AssemblyBenchSpec } from './assembly-bench';
+export type { AssemblyBenchSpec, BenchCase, CaseJoin, CasePlace } from './assembly-bench';
+export { benchLayout, caseJoins, upgradeSpec } from './assembly-bench';
 export type { BaseCabinetSpec } from './base-cabinet';
 export type { BookcaseSpec } from './bookcase';
 export type { WallCabinetSpec } from './wall-cabinet';
@@ -31,7 +38,7 @@ export const designs = {
   'assembly-bench': {
     slug: 'assembly-bench',
     name: 'Rolling assembly bench',
-    summary: 'A flat, stiff torsion-box top on one or two cases of drawers, on locking casters.',
+    summary: 'A flat, stiff torsion-box top over cases of drawers and doors on both sides, on locking casters.',
     schema: assemblyBenchSchema,
     defaults: assemblyBenchDefaults,
     limits: assemblyBenchLimits,
@@ -62,14 +69,17 @@ export const designs = {
   },
 } as const satisfies Record<DesignSlug, Design>;
 
-/** Any build spec: it names its design. */
-export const BuildSpec = z.discriminatedUnion('design', [
-  assemblyBenchSchema,
-  baseCabinetSchema,
-  wallCabinetSchema,
-  bookcaseSchema,
-]);
+/** Any build spec: it names its design (a bench stored in the shape before arrangements is converted). */
+export const BuildSpec = z.preprocess(
+  upgradeSpec,
+  z.discriminatedUnion('design', [assemblyBenchObject, baseCabinetSchema, wallCabinetSchema, bookcaseSchema]),
+);
 export type BuildSpec = z.infer<typeof BuildSpec>;
+
+/** Every bay of a spec: a bench's bays case by case, any other design's own. */
+export function specBays(spec: BuildSpec): Bay[] {
+  return spec.design === 'assembly-bench' ? spec.cases.flatMap((c) => c.bays) : spec.bays;
+}
 
 export interface SpecIssue {
   path: string;

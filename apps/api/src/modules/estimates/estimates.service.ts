@@ -3,7 +3,15 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { and, asc, desc, eq, ne } from 'drizzle-orm';
 import type { User } from '@benchwright/contracts';
-import { designs, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
+import {
+  designs,
+  specBays,
+  totalsFor,
+  upgradeSpec,
+  type BuildSpec,
+  type Drawing,
+  type LineGroup,
+} from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import {
   estimateLines,
@@ -382,8 +390,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
           date: sentAt,
           validUntil,
           items: items.map((it, i) => {
-            const spec = it.spec as BuildSpec;
-            const hasDrawers = spec.bays.some((b) => b.compartments.some((c) => c.kind === 'drawer'));
+            const spec = upgradeSpec(it.spec) as BuildSpec; // a bench stored before arrangements, converted
+            const hasDrawers = specBays(spec).some((b) => b.compartments.some((c) => c.kind === 'drawer'));
             const top =
               spec.design === 'assembly-bench'
                 ? spec.top.kind === 'torsion-box'

@@ -20,10 +20,20 @@ interface Bay {
   widthMm: number | null;
   compartments: Compartment[];
 }
-type Spec = { design: DesignSlug; widthMm: number; heightMm: number; depthMm: number; bays: Bay[] } & Record<
-  string,
-  unknown
->;
+type Spec = {
+  design: DesignSlug;
+  widthMm: number;
+  heightMm: number;
+  depthMm: number;
+  bays?: Bay[];
+  /** a bench's arrangement: this form edits the first case's bays */
+  cases?: { bays: Bay[] }[];
+} & Record<string, unknown>;
+
+/** The bays the form edits: a bench's first case's, any other design's own. */
+const baysOf = (s: Spec): Bay[] => s.cases?.[0]?.bays ?? s.bays ?? [];
+const withBays = (s: Spec, bays: Bay[]): Spec =>
+  s.cases?.[0] ? { ...s, cases: s.cases.map((c, i) => (i === 0 ? { ...c, bays } : c)) } : { ...s, bays };
 
 const KIND_LABELS: Record<Compartment['kind'], string> = { drawer: 'Drawer', door: 'Door', open: 'Open shelves' };
 const DIMENSIONS = [
@@ -49,6 +59,7 @@ function useDebounced<T>(value: T, ms: number): T {
 function plainPath(path: string): string {
   return path
     .replace(/^items\[0\]\.spec\.?/, '')
+    .replace(/cases\[(\d+)\]/g, (_m, i) => `Case ${Number(i) + 1}`)
     .replace(/bays\[(\d+)\]/g, (_m, i) => `Bay ${Number(i) + 1}`)
     .replace(/compartments\[(\d+)\]/g, (_m, i) => `Section ${Number(i) + 1}`)
     .replace(/\.?widthMm/, ', width')
@@ -251,26 +262,46 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
             onChange={(mm) => setSpec((s) => ({ ...s, [k]: mm }))}
           />
         ))}
-        {spec.bays.map((b, i) => (
+        {baysOf(spec).map((b, i) => (
           <BayEditor
             key={i}
             bay={b}
             index={i}
-            onChange={(nb) => setSpec((s) => ({ ...s, bays: s.bays.map((x, j) => (j === i ? nb : x)) }))}
+            onChange={(nb) =>
+              setSpec((s) =>
+                withBays(
+                  s,
+                  baysOf(s).map((x, j) => (j === i ? nb : x)),
+                ),
+              )
+            }
             onRemove={
-              spec.bays.length > limits.bays[0]
-                ? () => setSpec((s) => ({ ...s, bays: s.bays.filter((_, j) => j !== i) }))
+              baysOf(spec).length > limits.bays[0]
+                ? () =>
+                    setSpec((s) =>
+                      withBays(
+                        s,
+                        baysOf(s).filter((_, j) => j !== i),
+                      ),
+                    )
                 : undefined
             }
           />
         ))}
-        {spec.bays.length < limits.bays[1] ? (
+        {baysOf(spec).length < limits.bays[1] ? (
           <Button
             type="button"
             variant="quiet"
             className="mb-3 px-0"
             onClick={() =>
-              setSpec((s) => ({ ...s, bays: [...s.bays, ...s.bays.slice(-1).map((b) => structuredClone(b))] }))
+              setSpec((s) =>
+                withBays(s, [
+                  ...baysOf(s),
+                  ...baysOf(s)
+                    .slice(-1)
+                    .map((b) => structuredClone(b)),
+                ]),
+              )
             }
           >
             Add a bay
