@@ -184,9 +184,21 @@ describe('POST /api/quotes/preview', () => {
       widthMm: 1828.8,
       depthMm: 914.4,
       heightMm: 889,
-      caseCount: 1,
+      backMaterialId: 'birch-ply-6',
+      overhangBackMm: 0,
+      overhangLeftMm: 76.2,
+      overhangRightMm: 76.2,
+      cases: [
+        {
+          widthMm: 1676.4,
+          depthMm: 838.2,
+          xMm: null,
+          row: 'front',
+          facing: 'front',
+          bays: [0, 1, 2].map(() => ({ ...b.cases[0]!.bays[0]!, widthMm: null })),
+        },
+      ],
       workingLoadKg: 100,
-      bays: [b.bays[0], b.bays[0], b.bays[0]],
     };
     const r = await t
       .agent()
