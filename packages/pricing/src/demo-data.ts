@@ -214,10 +214,6 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
     { key: 'caster', name: 'Fit casters and feet', per: 'caster', minutes: 8, stage: 'casework' },
     { key: 'final_check', name: 'Final check and wrap', per: 'job', minutes: 30, stage: 'ready' },
   ],
-  shopRateCents: 8500,
-  labourCostPerHourCents: 3800,
-  kerfMm: 3.2,
-  sheetTrimMm: 6,
 });
 
 /** The demo shop's settings. INVENTED FOR THE DEMO. */
@@ -241,4 +237,8 @@ export const demoSettings: ShopSettings = ShopSettings.parse({
   bandingWaste: 0.15,
   lumberWaste: 0.3,
   units: 'in',
+  shopRateCents: 8500,
+  labourCostPerHourCents: 3800,
+  kerfMm: 3.2,
+  sheetTrimMm: 6,
 });

@@ -149,12 +149,6 @@ export const PriceBook = z
     hardware: z.array(HardwareItem),
     finishes: z.array(Finish).min(1),
     labour: z.array(LabourOperation),
-    /** the shop rate charged to clients, per hour */
-    shopRateCents: cents,
-    /** what an hour costs the shop (wages and burden), for margins */
-    labourCostPerHourCents: cents,
-    kerfMm: z.number().min(0).max(10),
-    sheetTrimMm: z.number().min(0).max(50),
   })
   .superRefine((book, ctx) => {
     const ops = new Set(book.labour.map((o) => o.key));
@@ -212,6 +206,16 @@ export const ShopSettings = z.object({
   units: z.enum(['in', 'mm']),
   /** shop hours a week for the lead time; optional so that settings stored before it still parse */
   weeklyCapacityHours: z.number().positive().max(1000).default(40),
+  // The four below were price-book fields; their defaults (the demo shop's, invented) let settings stored before
+  // the move still parse. The start-up move copies a shop's own values over from its old price book.
+  /** the shop rate charged to clients, per hour */
+  shopRateCents: cents.default(8500),
+  /** what an hour costs the shop (wages and burden), for margins */
+  labourCostPerHourCents: cents.default(3800),
+  /** the saw's cut width */
+  kerfMm: z.number().min(0).max(10).default(3.2),
+  /** trimmed off each sheet edge before parts are laid out */
+  sheetTrimMm: z.number().min(0).max(50).default(6),
 });
 export type ShopSettings = z.infer<typeof ShopSettings>;
 

@@ -25,7 +25,7 @@ export function quotesRoutes(db: Db, pool: EnginePool, opts: { enabled: boolean;
   });
   r.post('/preview', limiter, async (req, res) => {
     const body = parse(QuotePreviewBody, req.body);
-    const { book, settings } = loadPricing(db);
+    const { activeBook: book, settings } = loadPricing(db);
     const q = await pool.run({ kind: 'preview', items: body.items, book, settings });
     if ('refused' in q) throw new Invalid(q.refused.message, q.refused.issues);
     const owner = res.locals.user?.role === 'owner';
