@@ -172,6 +172,31 @@ describe('the price book', () => {
     expect((await csv(owner, 'sheet-goods', edited, false)).body.version).toBe(v0 + 1);
   });
 
+  it('exports every kind so that importing the file unchanged previews no change and no error', async () => {
+    for (const kind of ['sheet-goods', 'lumber', 'banding', 'hardware', 'finishes', 'labour']) {
+      const out = await owner.get(`/api/price-book/${kind}.csv`);
+      expect(out.status).toBe(200);
+      const r = await csv(owner, kind, out.text);
+      expect(r.status, kind).toBe(200);
+      expect(r.body.preview, kind).toEqual({ added: [], changed: [], errors: [] });
+    }
+  });
+
+  it('edits a labour operation, named by its key', async () => {
+    const v0 = await version(owner);
+    const r = await owner.patch('/api/price-book/labour/part_cut').send({ item: { minutes: 2.5 } });
+    expect(r.status).toBe(200);
+    expect(r.body).toMatchObject({
+      entry: { id: 'part_cut', item: { key: 'part_cut', minutes: 2.5 } },
+      version: v0 + 1,
+    });
+    expect(loadBook(t.db).book.labour.find((o) => o.key === 'part_cut')?.minutes).toBe(2.5);
+    // every operation the engine needs must stay: retiring one is refused
+    const retire = await owner.patch('/api/price-book/labour/part_cut').send({ retired: true });
+    expect(retire.status).toBe(400);
+    expect(retire.body.error.issues[0].message).toContain('part_cut');
+  });
+
   describe('refuses bad CSV with per-row errors and saves nothing', () => {
     let base: string[];
     let v0: number;
