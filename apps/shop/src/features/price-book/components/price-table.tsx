@@ -98,6 +98,7 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
         accessorFn: (e) =>
           c.type === 'money' || c.type === 'number' ? e.item[c.field] : showValue(c, e.item[c.field]),
         sortUndefined: 'last',
+        sortDescFirst: false,
       })),
     [cols],
   );
