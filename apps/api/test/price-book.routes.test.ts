@@ -182,6 +182,14 @@ describe('the price book', () => {
     }
   });
 
+  it('writes a cell a spreadsheet would run as a formula with a leading quote, and reads it back as it was', async () => {
+    const item = { id: 'formula-banding', name: '=HYPERLINK("x")', widthMm: 19, pricePerMetreCents: 40 };
+    expect((await owner.post('/api/price-book/banding').send({ item })).status).toBe(201);
+    const out = (await owner.get('/api/price-book/banding.csv')).text;
+    expect(out).toContain(`"'=HYPERLINK(""x"")"`);
+    expect((await csv(owner, 'banding', out)).body.preview).toEqual({ added: [], changed: [], errors: [] });
+  });
+
   it('edits a labour operation, named by its key', async () => {
     const v0 = await version(owner);
     const r = await owner.patch('/api/price-book/labour/part_cut').send({ item: { minutes: 2.5 } });

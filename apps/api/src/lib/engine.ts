@@ -2,7 +2,7 @@ import { asc, eq } from 'drizzle-orm';
 import { parseSpec, ShopSettings, type PriceBook as Book, type ShopSettings as Settings } from '@benchwright/pricing';
 import type { Db } from '../db/client';
 import { projectItems, shopSettings } from '../db/schema';
-import { loadBook } from './price-book';
+import { loadBooks } from './price-book';
 import { Invalid } from './errors';
 import type { EnginePool } from './engine-pool';
 import type { RequestItem } from './engine-task';
@@ -21,11 +21,11 @@ export function loadPricing(db: Pick<Db, 'select'>): {
 } {
   const s = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
   if (!s) throw new Error('the shop settings are not seeded');
-  const all = loadBook(db, 'all');
+  const b = loadBooks(db);
   return {
-    book: all.book,
-    activeBook: loadBook(db, 'active').book,
-    bookVersion: all.version,
+    book: b.all,
+    activeBook: b.active,
+    bookVersion: b.version,
     settings: ShopSettings.parse(s.settings),
     shopName: s.shopName,
   };

@@ -100,6 +100,18 @@ export function loadBook(db: Pick<Db, 'select'>, which: 'active' | 'all' = 'acti
   return { book: PriceBook.parse(bookInput(readRows(db), v, which === 'all')), version: v.number };
 }
 
+/** Today's book both ways from one read: every item (`all`) and the active ones (`active`). */
+export function loadBooks(db: Pick<Db, 'select'>): { all: Book; active: Book; version: number } {
+  const v = latestVersion(db);
+  if (!v) throw new Error('the price book is not seeded');
+  const rows = readRows(db);
+  return {
+    all: PriceBook.parse(bookInput(rows, v, true)),
+    active: PriceBook.parse(bookInput(rows, v, false)),
+    version: v.number,
+  };
+}
+
 /** The whole book of a version as it was, retired items included and marked. */
 export function bookAtVersion(db: Pick<Db, 'select'>, n: number): PriceBookView | undefined {
   const v = db.select().from(priceBookVersions).where(eq(priceBookVersions.number, n)).get();

@@ -32,7 +32,8 @@ export function toCsv(kind: PriceBookKind, rows: PriceRow[]): string {
       fields: [...cols.map((c) => c.column), RETIRED_COLUMN],
       data: rows.map((r) => [...cols.map((c) => cell(c, r.item[c.field])), r.retiredAt ? 'yes' : '']),
     },
-    { newline: '\r\n' },
+    // a cell starting with = + - @ is written with a leading ' so a spreadsheet does not run it as a formula
+    { newline: '\r\n', escapeFormulae: true },
   );
 }
 
@@ -66,7 +67,8 @@ function read(c: PriceColumn, text: string): { value?: unknown; error?: string }
         return { error: 'not valid JSON' };
       }
     default:
-      return { value: text };
+      // the ' that the export puts before a cell a spreadsheet would take for a formula
+      return { value: /^'[=+\-@\t\r]/.test(text) ? text.slice(1) : text };
   }
 }
 
