@@ -77,9 +77,14 @@ export function readRows(db: Pick<Db, 'select'>): BookRows {
   return out;
 }
 
-/** The latest version, or undefined before the book is seeded. */
+/** The latest version's number and metadata (not its snapshot), or undefined before the book is seeded. */
 export function latestVersion(db: Pick<Db, 'select'>) {
-  return db.select().from(priceBookVersions).orderBy(desc(priceBookVersions.number)).limit(1).get();
+  return db
+    .select({ number: priceBookVersions.number, currency: priceBookVersions.currency, note: priceBookVersions.note })
+    .from(priceBookVersions)
+    .orderBy(desc(priceBookVersions.number))
+    .limit(1)
+    .get();
 }
 
 /** The engine's PriceBook input from rows: the active items only, or every item for pricing what exists. */
@@ -100,16 +105,29 @@ export function loadBook(db: Pick<Db, 'select'>, which: 'active' | 'all' = 'acti
   return { book: PriceBook.parse(bookInput(readRows(db), v, which === 'all')), version: v.number };
 }
 
+type Books = { all: Book; active: Book; version: number };
+/**
+ * The books last read from each database handle, by version: every change to the rows makes a new version
+ * (saveChange), so one cheap look at the latest version number says whether the parsed books still hold. Reading
+ * and parsing every item costs milliseconds, and every preview and revision needs the book. Callers treat the
+ * books as read-only.
+ */
+const cache = new WeakMap<object, Books>();
+
 /** Today's book both ways from one read: every item (`all`) and the active ones (`active`). */
-export function loadBooks(db: Pick<Db, 'select'>): { all: Book; active: Book; version: number } {
+export function loadBooks(db: Pick<Db, 'select'>): Books {
   const v = latestVersion(db);
   if (!v) throw new Error('the price book is not seeded');
+  const hit = cache.get(db);
+  if (hit?.version === v.number) return hit;
   const rows = readRows(db);
-  return {
+  const books = {
     all: PriceBook.parse(bookInput(rows, v, true)),
     active: PriceBook.parse(bookInput(rows, v, false)),
     version: v.number,
   };
+  cache.set(db, books);
+  return books;
 }
 
 /** The whole book of a version as it was, retired items included and marked. */
@@ -179,6 +197,8 @@ export function checkBook(
   meta: BookMeta,
   settings: ShopSettings,
   touched: { kind: PriceBookKind; id: string }[],
+  /** the book before the change: a design whose defaults already failed with it is not the change's fault */
+  before?: BookRows,
 ): BookIssue[] {
   const issues = bookIssues(bookInput(rows, meta, true), rows, true);
   const active = bookInput(rows, meta, false);
@@ -186,10 +206,12 @@ export function checkBook(
     if (!issues.some((x) => x.message === i.message && x.id === i.id)) issues.push(i);
   if (issues.length) return issues;
   const book = PriceBook.parse(active);
+  const old = before ? PriceBook.safeParse(bookInput(before, meta, false)) : undefined;
   for (const slug of Object.keys(designs) as DesignSlug[]) {
     const d = designs[slug];
     const v = validateSpec(d.defaults, book, settings);
     if (v.ok) continue;
+    if (old?.success && !validateSpec(d.defaults, old.data, settings).ok) continue;
     const used = idsIn(d.defaults);
     const culprits = touched.filter((t) => used.has(t.id));
     const message = `the ${d.name.toLowerCase()} design's starting point would no longer be valid: ${v.issues[0]?.message ?? 'it fails its checks'}`;

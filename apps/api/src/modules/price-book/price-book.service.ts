@@ -64,7 +64,7 @@ export function createPriceBookService(db: Db) {
   /** Checks the book after a change and saves it with a new version, in one transaction. */
   function commit(rows: BookRows, kind: PriceBookKind, ids: string[], user: User, summary: string) {
     const touched = ids.map((id) => ({ kind, id }));
-    const issues = checkBook(rows, meta(), settings(), touched);
+    const issues = checkBook(rows, meta(), settings(), touched, readRows(db));
     if (issues.length) throw new Invalid('That change would leave the price book unusable.', issues.map(bookIssue));
     return db.transaction((tx) => saveChange(tx, rows, touched, meta(), { userId: user.id, summary }));
   }
@@ -177,6 +177,7 @@ export function createPriceBookService(db: Db) {
           meta(),
           settings(),
           touched.map((id) => ({ kind, id })),
+          readRows(db),
         );
         for (const i of issues)
           errors.push({
