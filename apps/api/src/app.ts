@@ -10,6 +10,8 @@ import { noStore } from './middleware/cache';
 import { idempotency } from './middleware/idempotency';
 import { originCheck } from './middleware/origin';
 import { requireRole, sessionMiddleware } from './middleware/session';
+import { priceBookRoutes } from './modules/price-book/price-book.routes';
+import { createPriceBookService } from './modules/price-book/price-book.service';
 import { authRoutes } from './modules/auth/auth.routes';
 import { createAuthService } from './modules/auth/auth.service';
 import { designsRoutes } from './modules/designs/designs.routes';
@@ -155,6 +157,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/mail', requireRole('owner'), mailRoutes(createMailService(db)));
   app.use('/api/overview', requireRole('owner'), overviewRoutes(createOverviewService(db)));
   app.use('/api/hours-feedback', requireRole('owner'), hoursRoutes(createHoursService(db)));
+  app.use('/api/price-book', requireRole('owner'), priceBookRoutes(createPriceBookService(db)));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
   return Object.assign(app, {

@@ -196,6 +196,33 @@ export const ACCESS: RouteAccess[] = [
     expect: ownerOnly,
     params: () => ({ stage: 'casework' }),
   },
+
+  // the price book: the owner's alone
+  { method: 'GET', path: '/api/price-book', expect: ownerOnly },
+  { method: 'GET', path: '/api/price-book/:kind.csv', expect: ownerOnly, params: () => ({ kind: 'lumber' }) },
+  {
+    method: 'POST',
+    path: '/api/price-book/:kind',
+    expect: ownerOnly,
+    params: () => ({ kind: 'banding' }),
+    body: (_ids, role) => ({
+      item: { id: unique(role), name: 'Ash banding 22 mm', widthMm: 22, pricePerMetreCents: 60 },
+    }),
+  },
+  {
+    method: 'PATCH',
+    path: '/api/price-book/:kind/:id',
+    expect: ownerOnly,
+    params: () => ({ kind: 'sheet-goods', id: 'birch-ply-18' }),
+    body: () => ({ retired: false }),
+  },
+  {
+    method: 'POST',
+    path: '/api/price-book/:kind/import',
+    expect: ownerOnly,
+    params: () => ({ kind: 'lumber' }),
+    query: { dryRun: '1' },
+  },
 ];
 
 /** The default value of a path parameter: client A's resource of the kind the path names. */

@@ -5,9 +5,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
 import type request from 'supertest';
-import { PriceBook, ShopSettings } from '@benchwright/pricing';
+import { ShopSettings, type LabourOperation, type SheetGood } from '@benchwright/pricing';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { estimates, jobs, priceBooks, revisionRecords, shopSettings } from '../src/db/schema';
+import { estimates, jobs, revisionRecords, shopSettings } from '../src/db/schema';
+import { readRows, saveChange } from '../src/lib/price-book';
 import { loadPricing, projectSpecs } from '../src/lib/engine';
 import { backfillRecords } from '../src/lib/record';
 import { testApp, type TestApp } from './helpers';
@@ -27,20 +28,22 @@ function pdfText(buf: Buffer): string {
 
 /** Today's price book and settings change: dearer sheets of another size, renamed, other labour rates, metric units. */
 function changeThePriceBook(t: TestApp) {
-  const b = t.db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!;
-  const book = structuredClone(b.book);
-  for (const s of book.sheetGoods) {
+  const rows = readRows(t.db);
+  for (const { item } of rows['sheet-goods']) {
+    const s = item as SheetGood;
     s.name = `${s.name} (new supplier)`;
     s.priceCents = s.priceCents * 2;
     s.sheetLengthMm = Math.round(s.sheetLengthMm * 0.9);
     s.sheetWidthMm = Math.round(s.sheetWidthMm * 0.8);
   }
-  for (const l of book.labour) l.minutes = l.minutes * 1.5;
-  t.db
-    .update(priceBooks)
-    .set({ book: PriceBook.parse(book) })
-    .where(eq(priceBooks.id, 1))
-    .run();
+  for (const { item } of rows.labour) (item as LabourOperation).minutes = (item as LabourOperation).minutes * 1.5;
+  const changed = [...rows['sheet-goods'], ...rows.labour].map((r) => ({
+    kind: rows.labour.includes(r) ? ('labour' as const) : ('sheet-goods' as const),
+    id: r.id,
+  }));
+  t.db.transaction((tx) =>
+    saveChange(tx, rows, changed, { currency: 'USD', note: '' }, { userId: null, summary: 'test: new supplier' }),
+  );
   const s = t.db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
   const settings = { ...s.settings, units: s.settings.units === 'in' ? 'mm' : 'in', depositRate: 0.3 };
   t.db

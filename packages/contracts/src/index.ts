@@ -271,6 +271,8 @@ export interface EstimateView {
   revision: number;
   status: EstimateStatus;
   version: number;
+  /** owner: the price-book version the revision was priced with (null before versions were kept) */
+  priceBookVersion?: number | null;
   validUntil: string | null;
   sentAt: string | null;
   acceptedAt: string | null;
@@ -297,3 +299,4 @@ export interface EstimateView {
   /** owner */
   costCents?: number;
 }
+export * from './price-book';

@@ -90,7 +90,7 @@ describe('estimate', () => {
     expect(ply.unitPriceCents).toBe(Math.round(8900 * 1.35));
     expect(ply.costCents).toBe(8900 * layout.sheetCount);
     for (const l of e.lines.filter((x) => x.group === 'labour'))
-      expect(l.unitPriceCents).toBe(demoPriceBook.shopRateCents);
+      expect(l.unitPriceCents).toBe(demoSettings.shopRateCents);
     const hours = e.lines.filter((x) => x.group === 'labour').reduce((s, l) => s + l.quantity, 0);
     expect(hours).toBeCloseTo(e.totalHours, 1);
   });
@@ -222,8 +222,8 @@ describe('properties over random valid specs (fast-check)', () => {
           const m = demoPriceBook.sheetGoods.find((s) => s.id === p.materialId)!;
           expect(p.lengthMm).toBeGreaterThan(0);
           expect(p.widthMm).toBeGreaterThan(0);
-          const L = m.sheetLengthMm - 2 * demoPriceBook.sheetTrimMm;
-          const W = m.sheetWidthMm - 2 * demoPriceBook.sheetTrimMm;
+          const L = m.sheetLengthMm - 2 * demoSettings.sheetTrimMm;
+          const W = m.sheetWidthMm - 2 * demoSettings.sheetTrimMm;
           expect((p.lengthMm <= L && p.widthMm <= W) || (p.grain === 'free' && p.widthMm <= L && p.lengthMm <= W)).toBe(
             true,
           );

@@ -191,7 +191,7 @@ export function estimate(
   const built = buildPieces(items, book, settings);
   const pieces = built.map((b) => b.piece);
   const all = jobParts(pieces);
-  const layouts = nestJob(all, book, options.effort ?? 'quick', options.seed);
+  const layouts = nestJob(all, book, settings, options.effort ?? 'quick', options.seed);
 
   const finish = finishLines(pieces, book, settings);
   const lines: EstimateLine[] = [
@@ -203,7 +203,7 @@ export function estimate(
   ];
   lines.push(...consumablesLines(lines, settings));
   const hours = jobHours(built, all, layouts, finish.m2Coats, book, settings);
-  lines.push(...labourLines(hours.byStage, book));
+  lines.push(...labourLines(hours.byStage, settings));
 
   const totals = totalsFor(lines, settings, options.discountCents ?? 0);
   const costCents = lines.reduce((s, l) => s + l.costCents, 0);
@@ -274,6 +274,7 @@ function jobParts(pieces: readonly PieceResult[]): JobPart[] {
 function nestJob(
   all: readonly JobPart[],
   book: PriceBook,
+  settings: ShopSettings,
   effort: NestEffort,
   seed: number | undefined,
 ): MaterialLayout[] {
@@ -291,7 +292,12 @@ function nestJob(
   const stock = Object.fromEntries(
     book.sheetGoods.map((s) => [s.id, { lengthMm: s.sheetLengthMm, widthMm: s.sheetWidthMm }]),
   );
-  const nested = nestByMaterial(nestParts, stock, { kerfMm: book.kerfMm, trimMm: book.sheetTrimMm, effort, seed });
+  const nested = nestByMaterial(nestParts, stock, {
+    kerfMm: settings.kerfMm,
+    trimMm: settings.sheetTrimMm,
+    effort,
+    seed,
+  });
   const layouts: MaterialLayout[] = Object.entries(nested).map(([materialId, r]) => ({
     ...r,
     materialId,
@@ -487,13 +493,13 @@ const STAGE_NAMES: Record<StageKey, string> = {
 };
 
 /** Labour: one line per stage with hours, at the shop rate, costed at the labour cost per hour. */
-function labourLines(byStage: Record<StageKey, number>, book: PriceBook): EstimateLine[] {
+function labourLines(byStage: Record<StageKey, number>, settings: ShopSettings): EstimateLine[] {
   const lines: EstimateLine[] = [];
   for (const stage of STAGE_KEYS) {
     const h = Math.round(byStage[stage] * 100) / 100;
     if (h <= 0) continue;
-    const l = line('labour', stage, `Shop time: ${STAGE_NAMES[stage]}`, h, 'h', book.shopRateCents, 0);
-    l.costCents = times(book.labourCostPerHourCents, h);
+    const l = line('labour', stage, `Shop time: ${STAGE_NAMES[stage]}`, h, 'h', settings.shopRateCents, 0);
+    l.costCents = times(settings.labourCostPerHourCents, h);
     lines.push(l);
   }
   return lines;

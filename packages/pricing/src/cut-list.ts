@@ -358,7 +358,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
 
   const cases: CaseInput[] = [];
   if (spec.design === 'assembly-bench') {
-    benchCases(spec, book, carcass, list, geo, cases);
+    benchCases(spec, book, settings, carcass, list, geo, cases);
   } else {
     const toe = spec.design === 'wall-cabinet' ? 0 : spec.toeKickMm;
     cases.push({
@@ -386,7 +386,16 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
   const places = spec.design === 'assembly-bench' ? benchLayout(spec) : [];
   cases.forEach((cs, i) => {
     const fronts = geo.fronts.length;
-    buildCase(cs, spec, { carcass, back, front, drawerMat, drawerBottom }, settings, list, geo, band, book.sheetTrimMm);
+    buildCase(
+      cs,
+      spec,
+      { carcass, back, front, drawerMat, drawerBottom },
+      settings,
+      list,
+      geo,
+      band,
+      settings.sheetTrimMm,
+    );
     const place = places[i];
     if (spec.design === 'assembly-bench' && place) {
       const facing = at(spec.cases, i).facing;
@@ -1115,6 +1124,7 @@ export function laminatedLayers(thicknessMm: number, layerMm: number): number {
 function benchCases(
   spec: Extract<BuildSpec, { design: 'assembly-bench' }>,
   book: PriceBook,
+  settings: ShopSettings,
   carcass: SheetGood,
   list: PartList,
   geo: PieceGeometry,
@@ -1221,7 +1231,7 @@ function benchCases(
       name: `foot mounting blocks, ${perStrip} to a strip`,
       materialId: carcass.id,
       quantity: strips,
-      lengthMm: perStrip * (FOOT_BLOCK_MM + book.kerfMm),
+      lengthMm: perStrip * (FOOT_BLOCK_MM + settings.kerfMm),
       widthMm: FOOT_BLOCK_MM,
       thicknessMm: t,
       grain: 'free',

@@ -372,10 +372,6 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
     { key: 'finish-coat', name: 'Finish, per coat', driver: 'finish_m2_coat', minutes: 5, stage: 'finish' },
     { key: 'final-check', name: 'Final check and wrap', driver: 'job', minutes: 20, stage: 'ready' },
   ],
-  shopRateCents: 8500,
-  labourCostPerHourCents: 3800,
-  kerfMm: 3.2,
-  sheetTrimMm: 6,
 });
 
 /** The demo shop's settings. INVENTED FOR THE DEMO. */
@@ -399,4 +395,8 @@ export const demoSettings: ShopSettings = ShopSettings.parse({
   bandingWaste: 0.15,
   lumberWaste: 0.3,
   units: 'in',
+  shopRateCents: 8500,
+  labourCostPerHourCents: 3800,
+  kerfMm: 3.2,
+  sheetTrimMm: 6,
 });

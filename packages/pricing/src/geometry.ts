@@ -13,7 +13,19 @@ export { hingesPerDoor } from './hardware';
 export { elevationDrawing, sheetLayoutDrawing, toSvg } from './drawings';
 export type { Drawing, DrawingView, Shape, ShapeStyle } from './drawings';
 export { validateSpec } from './validate';
-export { PriceBook, ShopSettings, STAGE_KEYS, StageKey } from './price-book';
+export {
+  PriceBook,
+  ShopSettings,
+  STAGE_KEYS,
+  StageKey,
+  SheetGood,
+  Lumber,
+  EdgeBanding,
+  HardwareItem,
+  Finish,
+  LabourOperation,
+  LabourOperationFields,
+} from './price-book';
 export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';
 export type { LineGroup } from './line-groups';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';

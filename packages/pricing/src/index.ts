@@ -43,6 +43,7 @@ export {
   HardwareItem,
   Finish,
   LabourOperation,
+  LabourOperationFields,
 } from './price-book';
 export { leadTime, bookedHours, leadTimeDates } from './lead-time';
 export type { LeadTime, BookedJob } from './lead-time';

@@ -210,18 +210,18 @@ function fromOldOperation(raw: unknown): unknown {
   return driver ? { ...rest, driver } : raw;
 }
 
-export const LabourOperation = z.preprocess(
-  fromOldOperation,
-  z.object({
-    /** the operation's id in the book, free text */
-    key: LabourOperationKey,
-    name: z.string().min(1),
-    /** what the time standard counts */
-    driver: LabourDriver,
-    minutes: z.number().nonnegative(),
-    stage: StageKey,
-  }),
-);
+/** An operation's fields as stored today (the price book's tables and CSV columns are built from it). */
+export const LabourOperationFields = z.object({
+  /** the operation's id in the book, free text */
+  key: LabourOperationKey,
+  name: z.string().min(1),
+  /** what the time standard counts */
+  driver: LabourDriver,
+  minutes: z.number().nonnegative(),
+  stage: StageKey,
+});
+/** An operation, read from today's shape or the old one (see `fromOldOperation`). */
+export const LabourOperation = z.preprocess(fromOldOperation, LabourOperationFields);
 export type LabourOperation = z.infer<typeof LabourOperation>;
 
 export const PriceBook = z
@@ -234,12 +234,6 @@ export const PriceBook = z
     hardware: z.array(HardwareItem),
     finishes: z.array(Finish).min(1),
     labour: z.array(LabourOperation),
-    /** the shop rate charged to clients, per hour */
-    shopRateCents: cents,
-    /** what an hour costs the shop (wages and burden), for margins */
-    labourCostPerHourCents: cents,
-    kerfMm: z.number().min(0).max(10),
-    sheetTrimMm: z.number().min(0).max(50),
   })
   .superRefine((book, ctx) => {
     const keys = new Set<string>();
@@ -312,6 +306,16 @@ export const ShopSettings = z.object({
   drawerFronts: z.enum(['equal', 'graduated']).default('equal'),
   /** graduated fronts: how much taller each is than the one above (1 in, common practice) */
   drawerFrontStepMm: z.number().min(0).max(100).default(25.4),
+  // The four below were price-book fields; their defaults (the demo shop's, invented) let settings stored before
+  // the move still parse. The start-up move copies a shop's own values over from its old price book.
+  /** the shop rate charged to clients, per hour */
+  shopRateCents: cents.default(8500),
+  /** what an hour costs the shop (wages and burden), for margins */
+  labourCostPerHourCents: cents.default(3800),
+  /** the saw's cut width */
+  kerfMm: z.number().min(0).max(10).default(3.2),
+  /** trimmed off each sheet edge before parts are laid out */
+  sheetTrimMm: z.number().min(0).max(50).default(6),
 });
 export type ShopSettings = z.infer<typeof ShopSettings>;
 

@@ -50,7 +50,7 @@ function buildIssues(spec: BuildSpec, book: PriceBook, settings: ShopSettings): 
     if (err instanceof RangeError) return [{ path: '', message: sentence(err.message) }];
     throw err;
   }
-  const issues = [...partsOnSheets(list, book), ...frontSizes(list, settings)];
+  const issues = [...partsOnSheets(list, book, settings), ...frontSizes(list, settings)];
   if (issues.length) return issues;
   return pieceChecks(list, book, { ...settings, units: messageUnits() })
     .checks.filter((c) => c.level === 'error')
@@ -145,7 +145,7 @@ function advice(p: CutPart): string {
 }
 
 /** Every sheet part fits one stock sheet of its material, inside the edge trim, with its grain rule. */
-function partsOnSheets(list: CutList, book: PriceBook): SpecIssue[] {
+function partsOnSheets(list: CutList, book: PriceBook, settings: ShopSettings): SpecIssue[] {
   const issues: SpecIssue[] = [];
   for (const p of list.parts) {
     if (p.stock !== 'sheet') continue;
@@ -154,8 +154,8 @@ function partsOnSheets(list: CutList, book: PriceBook): SpecIssue[] {
       issues.push({ path: partPath(p), message: `The ${p.name} is of a material the shop does not stock.` });
       continue;
     }
-    if (sheetFits(m, book.sheetTrimMm, p.lengthMm, p.widthMm, p.grain)) continue;
-    const turned = p.grain === 'fixed' && sheetFits(m, book.sheetTrimMm, p.lengthMm, p.widthMm, 'free');
+    if (sheetFits(m, settings.sheetTrimMm, p.lengthMm, p.widthMm, p.grain)) continue;
+    const turned = p.grain === 'fixed' && sheetFits(m, settings.sheetTrimMm, p.lengthMm, p.widthMm, 'free');
     issues.push({
       path: partPath(p),
       message: `The ${p.name} (${len(p.lengthMm)} x ${len(p.widthMm)}) is larger than a ${len(m.sheetLengthMm)} x ${len(m.sheetWidthMm)} sheet of ${m.name}${turned ? ' with its grain running the length of the part' : ''}: ${advice(p)}.`,

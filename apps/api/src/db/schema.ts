@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS } from '@benchwright/contracts';
-import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
+import { LINE_GROUPS, type ShopSettings, type StageKey } from '@benchwright/pricing';
 import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
 const now = sql`(unixepoch() * 1000)`;
@@ -62,11 +62,53 @@ export const shopSettings = sqliteTable('shop_settings', {
   updatedAt: createdAt(),
 });
 
-/** One row: the engine's PriceBook document (validated by its zod schema on every write and read). */
+/**
+ * Before the price book became rows: one row holding the whole engine PriceBook document. Kept only so that a
+ * database from then can be moved over at start-up (src/db/price-book-move.ts), which empties it.
+ */
 export const priceBooks = sqliteTable('price_books', {
   id: integer().primaryKey(),
-  book: text({ mode: 'json' }).$type<PriceBook>().notNull(),
+  book: text({ mode: 'json' }).$type<Record<string, unknown>>().notNull(),
   updatedAt: createdAt(),
+});
+
+/**
+ * A price-book kind's items, a row each. The item itself is the engine's zod schema of its kind (price-book.ts),
+ * stored whole as JSON and parsed with that schema on every write and read, so the engine stays the single
+ * description of an item; id and name are copied out for ordering and look-up. Retired items are kept (estimates
+ * name them) and hidden from new choices.
+ */
+function priceItemTable<N extends string>(name: N) {
+  return sqliteTable(name, {
+    id: text().primaryKey(),
+    name: text().notNull(),
+    position: integer().notNull(),
+    item: text({ mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+    retiredAt: integer({ mode: 'timestamp_ms' }),
+    updatedAt: createdAt(),
+  });
+}
+export const priceSheetGoods = priceItemTable('price_sheet_goods');
+export const priceLumber = priceItemTable('price_lumber');
+export const priceEdgeBanding = priceItemTable('price_edge_banding');
+export const priceHardware = priceItemTable('price_hardware');
+export const priceFinishes = priceItemTable('price_finishes');
+export const priceLabourOperations = priceItemTable('price_labour_operations');
+
+/**
+ * Every change to the price book is a new version: its number, when, who, what changed, the book's metadata, and
+ * a snapshot of every kind's rows as they stood after it (src/lib/price-book.ts `PriceBookSnapshot`), so any
+ * version's book can be read back.
+ */
+export const priceBookVersions = sqliteTable('price_book_versions', {
+  number: integer().primaryKey(),
+  createdAt: createdAt(),
+  /** null for the seed and the start-up move */
+  userId: text().references(() => users.id),
+  summary: text().notNull(),
+  currency: text({ enum: ['USD'] }).notNull(),
+  note: text().notNull().default(''),
+  snapshot: text({ mode: 'json' }).$type<Record<string, unknown>>().notNull(),
 });
 
 export const projects = sqliteTable(
@@ -153,6 +195,8 @@ export const estimates = sqliteTable(
     acceptedIp: text(),
     acceptedUserAgent: text(),
     pdfPath: text(),
+    /** the price-book version the revision was priced with; null for revisions priced before versions were kept */
+    priceBookVersion: integer(),
     createdAt: createdAt(),
     updatedAt: createdAt(),
   },

@@ -3,7 +3,9 @@ import { eq } from 'drizzle-orm';
 import { demoPriceBook, demoSettings, designs, toMm, type BuildSpec } from '@benchwright/pricing';
 import { hashPassword } from '../auth/password';
 import type { Db } from './client';
-import { priceBooks, projectEvents, projectItems, projects, shopSettings, stages, users } from './schema';
+import { projectEvents, projectItems, projects, shopSettings, stages, users } from './schema';
+import { latestVersion, saveDocument } from '../lib/price-book';
+import { movePriceBookDocument } from './price-book-move';
 
 export const DEMO_PASSWORD = 'bench-demo-2026';
 
@@ -27,6 +29,7 @@ export const STAGES = [
 
 /** The shop's own rows: settings, price book, stages. Idempotent. */
 export function seedShop(db: Db): void {
+  movePriceBookDocument(db);
   db.transaction((tx) => {
     if (!tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()) {
       tx.insert(shopSettings)
@@ -40,8 +43,7 @@ export function seedShop(db: Db): void {
         })
         .run();
     }
-    if (!tx.select().from(priceBooks).where(eq(priceBooks.id, 1)).get())
-      tx.insert(priceBooks).values({ id: 1, book: demoPriceBook }).run();
+    if (!latestVersion(tx)) saveDocument(tx, demoPriceBook, 'The demo price book.');
     STAGES.forEach(([key, label], position) =>
       tx.insert(stages).values({ key, label, position }).onConflictDoNothing().run(),
     );

@@ -1,23 +1,34 @@
 import { asc, eq } from 'drizzle-orm';
-import {
-  parseSpec,
-  PriceBook,
-  ShopSettings,
-  type PriceBook as Book,
-  type ShopSettings as Settings,
-} from '@benchwright/pricing';
+import { parseSpec, ShopSettings, type PriceBook as Book, type ShopSettings as Settings } from '@benchwright/pricing';
 import type { Db } from '../db/client';
-import { priceBooks, projectItems, shopSettings } from '../db/schema';
+import { projectItems, shopSettings } from '../db/schema';
+import { loadBooks } from './price-book';
 import { Invalid } from './errors';
 import type { EnginePool } from './engine-pool';
 import type { RequestItem } from './engine-task';
 
-/** The shop's price book and settings of record, read through the engine's own schemas. */
-export function loadPricing(db: Pick<Db, 'select'>): { book: Book; settings: Settings; shopName: string } {
-  const b = db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get();
+/**
+ * The shop's price book and settings of record, read through the engine's own schemas, with the book's version.
+ * `book` is every item, retired ones too, for pricing what a project already uses; new requests and previews check
+ * against `activeBook`, from which retired items are hidden.
+ */
+export function loadPricing(db: Pick<Db, 'select'>): {
+  book: Book;
+  activeBook: Book;
+  bookVersion: number;
+  settings: Settings;
+  shopName: string;
+} {
   const s = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
-  if (!b || !s) throw new Error('the price book and shop settings are not seeded');
-  return { book: PriceBook.parse(b.book), settings: ShopSettings.parse(s.settings), shopName: s.shopName };
+  if (!s) throw new Error('the shop settings are not seeded');
+  const b = loadBooks(db);
+  return {
+    book: b.all,
+    activeBook: b.active,
+    bookVersion: b.version,
+    settings: ShopSettings.parse(s.settings),
+    shopName: s.shopName,
+  };
 }
 
 /** A project's items as stored, parsed back through their designs. */

@@ -32,6 +32,8 @@ export interface RevisionRecord {
   items: EngineItem[];
   /** the price book and shop settings it was priced with, as they were */
   book: PriceBook;
+  /** the price-book version that book was; absent in records made before versions were kept */
+  priceBookVersion?: number;
   settings: ShopSettings;
   /** the engine's whole result: lines, totals, layouts with placements and cuts, pieces, checks, hours */
   estimate: Estimate;
@@ -70,6 +72,7 @@ export async function priceRecord(
   items: EngineItem[],
   book: PriceBook,
   settings: ShopSettings,
+  priceBookVersion?: number,
 ): Promise<RevisionRecord> {
   const r = await pool.run({ kind: 'price', items, book, settings });
   return {
@@ -77,6 +80,7 @@ export async function priceRecord(
     pricedAt: new Date().toISOString(),
     items,
     book,
+    ...(priceBookVersion !== undefined ? { priceBookVersion } : {}),
     settings,
     estimate: r.estimate,
     traveller: paper(r, settings),

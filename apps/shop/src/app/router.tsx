@@ -8,6 +8,7 @@ import { ForgotPasswordRoute, ResetPasswordRoute } from './routes/password';
 import { MailRoute } from './routes/mail';
 import { OverviewRoute } from './routes/overview';
 import { PaymentsRoute } from './routes/payments';
+import { PriceBookRoute } from './routes/price-book';
 import { RequestRoute } from './routes/request';
 import { RequestsRoute } from './routes/requests';
 import { SignInRoute } from './routes/sign-in';
@@ -35,6 +36,7 @@ export const routes: RouteObject[] = [
       { path: paths.team.path, element: <TeamRoute /> },
       { path: paths.payments.path, element: <PaymentsRoute /> },
       { path: paths.mail.path, element: <MailRoute /> },
+      { path: paths.priceBook.path, element: <PriceBookRoute /> },
     ],
   },
 ];

@@ -7,6 +7,7 @@ import { useSignOut } from '@benchwright/ui/auth';
 import {
   canInviteBuilders,
   canSeeBoard,
+  canEditPriceBook,
   canSeeMail,
   canSeeOverview,
   canSeePayments,
@@ -98,6 +99,11 @@ export function ShopLayout() {
       {canSeeMail(user) ? (
         <NavLink to={paths.mail.getHref()} className={link}>
           Mail
+        </NavLink>
+      ) : null}
+      {canEditPriceBook(user) ? (
+        <NavLink to={paths.priceBook.getHref()} className={link}>
+          Price book
         </NavLink>
       ) : null}
       <span className="ml-4 text-sm text-wood-light">{user.name}</span>

@@ -19,6 +19,7 @@ export const paths = {
   team: { path: '/team', getHref: () => '/team' },
   payments: { path: '/payments', getHref: () => '/payments' },
   mail: { path: '/mail', getHref: () => '/mail' },
+  priceBook: { path: '/price-book', getHref: () => '/price-book' },
 } as const;
 
 export const PORTAL_URL = import.meta.env.VITE_PORTAL_URL ?? 'http://127.0.0.1:5173';

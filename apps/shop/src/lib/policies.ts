@@ -10,3 +10,4 @@ export const canRelayoutJobs = (u: User | null | undefined) => u?.role === 'owne
 export const canSeePayments = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeeMail = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeeOverview = (u: User | null | undefined) => u?.role === 'owner';
+export const canEditPriceBook = (u: User | null | undefined) => u?.role === 'owner';

@@ -141,7 +141,7 @@ describe('feet with casters', () => {
     const { count, layers, sideMm } = g.footBlocks!;
     expect(count).toBe(g.feet * layers);
     // the strips hold every block, with a saw kerf between blocks
-    expect(strip.quantity * Math.floor(strip.lengthMm / (sideMm + demoPriceBook.kerfMm) + 1e-9)).toBeGreaterThanOrEqual(
+    expect(strip.quantity * Math.floor(strip.lengthMm / (sideMm + demoSettings.kerfMm) + 1e-9)).toBeGreaterThanOrEqual(
       count,
     );
     // lowered (1 in of travel) the foot passes the caster's height; raised it stays above the floor

@@ -17,7 +17,6 @@ import {
   estimateLines,
   estimates,
   payments,
-  priceBooks,
   projectItems,
   projects,
   revisionRecords,
@@ -99,6 +98,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       revision: e.revision,
       status: e.status,
       version: e.version,
+      ...(owner ? { priceBookVersion: e.priceBookVersion } : {}),
       validUntil: e.validUntil?.toISOString() ?? null,
       sentAt: e.sentAt?.toISOString() ?? null,
       acceptedAt: e.acceptedAt?.toISOString() ?? null,
@@ -217,8 +217,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
         });
         return view(owner, row(id));
       }
-      const { book, settings } = loadPricing(db);
-      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings);
+      const { book, settings, bookVersion } = loadPricing(db);
+      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings, bookVersion);
       const e = record.estimate;
       const engine: EngineRecord = {
         drawings: e.pieces.map((p) => p.elevation),
@@ -245,7 +245,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
         if ((now?.revision ?? 0) !== revision - 1)
           throw new Conflict(`Revision ${now?.revision} was made while this one was being priced; reload the project.`);
         tx.insert(estimates)
-          .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine })
+          .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine, priceBookVersion: bookVersion })
           .run();
         tx.insert(revisionRecords).values({ estimateId: id, record }).run();
         writeLines(
@@ -361,7 +361,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       const shop = db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get()!;
       // names and the deposit rate as the revision was priced (its record), not as the book says today
       const record = storedRecord(db, e.id);
-      const book = record?.book ?? db.select().from(priceBooks).where(eq(priceBooks.id, 1)).get()!.book;
+      const book = record?.book ?? loadPricing(db).book;
       const depositRate = record?.settings.depositRate ?? shop.settings.depositRate;
       const items = db
         .select()

@@ -163,8 +163,8 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
 
     /** A client's request: every item checked against its design and the shop's price book. */
     async create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }) {
-      const { book, settings } = loadPricing(db);
-      await checkItems(pool, input.items, book, settings);
+      const { activeBook, settings } = loadPricing(db);
+      await checkItems(pool, input.items, activeBook, settings);
       const id = randomUUID();
       db.transaction((tx) => {
         tx.insert(projects).values({ id, clientId: client.id, notes: input.notes }).run();

@@ -24,7 +24,7 @@ export function quotesRoutes(db: Db, pool: EnginePool, opts: { enabled: boolean;
     legacyHeaders: false,
   });
   r.post('/preview', limiter, async (req, res) => {
-    const { book, settings } = loadPricing(db);
+    const { activeBook: book, settings } = loadPricing(db);
     const body = parse(QuotePreviewBody, req.body, settings.units);
     const q = await pool.run({ kind: 'preview', items: body.items, book, settings });
     if ('refused' in q) throw new Invalid(q.refused.message, q.refused.issues);

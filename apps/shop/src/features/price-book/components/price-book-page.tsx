@@ -1,0 +1,30 @@
+import { PRICE_BOOK_KINDS, PRICE_KINDS } from '@benchwright/contracts';
+import { Notice, Panel } from '@benchwright/ui';
+import { usePriceBook } from '../api/price-book';
+import { CsvImport } from './csv-import';
+import { PriceTable } from './price-table';
+
+/** The owner's price book: a section per kind, each with its table and its CSV. */
+export function PriceBookPage() {
+  const q = usePriceBook();
+  if (q.isPending) return <p>Loading…</p>;
+  if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
+  const book = q.data;
+  return (
+    <>
+      <p className="mb-4 text-ink-soft">
+        Price book version {book.version}. Every change makes a new version; an estimate keeps the version it was priced
+        with, and a new revision prices from today’s book.
+      </p>
+      {PRICE_BOOK_KINDS.map((kind) => {
+        const info = PRICE_KINDS[kind];
+        return (
+          <Panel key={kind} title={info.label}>
+            <PriceTable kind={kind} entries={book[info.key]} />
+            <CsvImport kind={kind} label={info.label} />
+          </Panel>
+        );
+      })}
+    </>
+  );
+}
