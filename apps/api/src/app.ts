@@ -33,6 +33,8 @@ import { paymentConfirmRoute, paymentsRoutes, webhookRoute } from './modules/pay
 import { createUploadsService } from './modules/uploads/uploads.service';
 import { projectUploadsRoutes, uploadsRoutes } from './modules/uploads/uploads.routes';
 import { leadTimeRoutes } from './modules/lead-time/lead-time.routes';
+import { createSettingsService } from './modules/settings/settings.service';
+import { logoRoute, settingsRoutes } from './modules/settings/settings.routes';
 
 export const VERSION = '0.1.0';
 
@@ -82,7 +84,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     portalUrl: env.PORTAL_URL,
     shopUrl: env.SHOP_URL,
   });
-  const jobsService = createJobsService(db, env.PORTAL_URL, pool);
+  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.PDF_DIR);
 
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(helmet());
@@ -144,6 +146,10 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
   app.use('/api/mail', requireRole('owner'), mailRoutes(createMailService(db)));
   app.use('/api/overview', requireRole('owner'), overviewRoutes(createOverviewService(db)));
+  const settingsService = createSettingsService(db, env.PDF_DIR);
+  // the logo is public (the portal's header, the mail); changing it is the owner's, below
+  app.use('/api/settings/logo', logoRoute(settingsService));
+  app.use('/api/settings', requireRole('owner'), settingsRoutes(settingsService));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
   return Object.assign(app, {

@@ -181,6 +181,12 @@ export const ACCESS: RouteAccess[] = [
   { method: 'GET', path: '/api/mail/failed', expect: ownerOnly },
   { method: 'POST', path: '/api/mail/:id/retry', expect: ownerOnly },
   { method: 'GET', path: '/api/overview', expect: ownerOnly },
+  { method: 'GET', path: '/api/settings', expect: ownerOnly },
+  { method: 'PATCH', path: '/api/settings', expect: ownerOnly, body: () => ({ version: 1 }) },
+  // no file: the owner's answer is a 400 about the request
+  { method: 'POST', path: '/api/settings/logo', expect: ownerOnly },
+  // public, but the seeded shop has no logo yet: not found alike for everyone (settings.routes.test.ts serves one)
+  { method: 'GET', path: '/api/settings/logo', expect: a(404, 404, 404, 404, 404) },
 ];
 
 /** The default value of a path parameter: client A's resource of the kind the path names. */

@@ -287,3 +287,5 @@ export interface EstimateView {
   /** owner */
   costCents?: number;
 }
+export * from './settings';
+export * from './clients';

@@ -5,6 +5,7 @@ import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
+import { logoPng } from '../../lib/shop-logo';
 import type { EnginePool } from '../../lib/engine-pool';
 import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from '../../lib/record';
 import { renderTravellerPdf } from '../../lib/pdf/traveller-pdf';
@@ -26,7 +27,8 @@ export function openJob(tx: Tx, projectId: string, hoursBudget: Partial<Record<S
     .run();
 }
 
-export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
+/** `pdfDir`: where the shop's logo is kept (lib/shop-logo.ts), for the traveller PDF */
+export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, pdfDir?: string) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
     const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
@@ -191,6 +193,7 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
       const labels = Object.fromEntries(this.stages().map((x) => [x.key, x.label]));
       const pdf = await renderTravellerPdf({
         shopName: loadPricing(db).shopName,
+        logo: pdfDir ? logoPng(db, pdfDir) : null,
         clientName: job.clientName,
         notes: job.project.notes,
         stageLabel: labels[job.stage] ?? job.stage,
