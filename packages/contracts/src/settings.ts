@@ -1,5 +1,7 @@
 import * as z from 'zod';
 import { ShopSettings, STAGE_KEYS, StageKey } from '@benchwright/pricing/geometry';
+
+export { ShopSettings };
 import { multiLine, singleLine } from './text';
 
 /** The shop's profile: who the papers, the mail and the apps' headers say the shop is. */

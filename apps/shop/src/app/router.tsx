@@ -12,6 +12,7 @@ import { RequestRoute } from './routes/request';
 import { RequestsRoute } from './routes/requests';
 import { SignInRoute } from './routes/sign-in';
 import { TeamRoute } from './routes/team';
+import { SettingsRoute } from './routes/settings';
 
 export const routes: RouteObject[] = [
   {
@@ -35,6 +36,7 @@ export const routes: RouteObject[] = [
       { path: paths.team.path, element: <TeamRoute /> },
       { path: paths.payments.path, element: <PaymentsRoute /> },
       { path: paths.mail.path, element: <MailRoute /> },
+      { path: paths.settings.path, element: <SettingsRoute /> },
     ],
   },
 ];

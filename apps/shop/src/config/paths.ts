@@ -17,6 +17,9 @@ export const paths = {
   team: { path: '/team', getHref: () => '/team' },
   payments: { path: '/payments', getHref: () => '/payments' },
   mail: { path: '/mail', getHref: () => '/mail' },
+  settings: { path: '/settings', getHref: () => '/settings' },
+  clients: { path: '/clients', getHref: () => '/clients' },
+  client: { path: '/clients/:id', getHref: (id: string) => `/clients/${encodeURIComponent(id)}` },
 } as const;
 
 export const PORTAL_URL = import.meta.env.VITE_PORTAL_URL ?? 'http://127.0.0.1:5173';
