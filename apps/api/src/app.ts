@@ -33,6 +33,8 @@ import { paymentConfirmRoute, paymentsRoutes, webhookRoute } from './modules/pay
 import { createUploadsService } from './modules/uploads/uploads.service';
 import { projectUploadsRoutes, uploadsRoutes } from './modules/uploads/uploads.routes';
 import { leadTimeRoutes } from './modules/lead-time/lead-time.routes';
+import { createClientsService } from './modules/clients/clients.service';
+import { clientsRoutes } from './modules/clients/clients.routes';
 import { createSettingsService } from './modules/settings/settings.service';
 import { logoRoute, settingsRoutes } from './modules/settings/settings.routes';
 
@@ -122,6 +124,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
   app.use('/api/quotes', quotesRoutes(db, pool, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
+  const clientsService = createClientsService(db, { portalUrl: env.PORTAL_URL });
   const projectsService = createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }, pool);
   const uploadsService = createUploadsService({ db, dir: env.UPLOADS_DIR, projects: projectsService });
   app.use(
@@ -131,6 +134,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     projectUploadsRoutes(uploadsService),
     projectsRoutes(
       projectsService,
+      (id) => clientsService.clientUser(id),
       {
         enabled: env.RATE_LIMITS,
         commentsPerMinute: env.COMMENTS_PER_MINUTE,
@@ -146,6 +150,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/jobs', requireRole('owner', 'builder'), jobsRoutes(jobsService));
   app.use('/api/mail', requireRole('owner'), mailRoutes(createMailService(db)));
   app.use('/api/overview', requireRole('owner'), overviewRoutes(createOverviewService(db)));
+  app.use('/api/clients', requireRole('owner'), clientsRoutes(clientsService, idempotency(db)));
   const settingsService = createSettingsService(db, env.PDF_DIR);
   // the logo is public (the portal's header, the mail); changing it is the owner's, below
   app.use('/api/settings/logo', logoRoute(settingsService));

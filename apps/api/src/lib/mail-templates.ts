@@ -64,6 +64,49 @@ export function invitationMail(shop: string, name: string, inviter: string, url:
   };
 }
 
+/** A client the owner took down by phone or at the door: claim the account in the portal. */
+export function clientInvitationMail(
+  shop: string,
+  name: string,
+  inviter: string,
+  url: string,
+  project?: string,
+): MailContent {
+  const p = [
+    `Hello ${name},`,
+    project
+      ? `${inviter} at ${shop} has started a project for you: ${project}. Its estimate, drawings and progress will be in the ${shop} client portal.`
+      : `${inviter} at ${shop} has made you an account in the ${shop} client portal, where your estimates, drawings and the progress of your work will be.`,
+    'Choose a password with the link below to claim the account; it works for 7 days. If you were not expecting this, ignore this message.',
+  ];
+  const a = { label: 'Claim my account', url };
+  return {
+    subject: project ? `${shop} has started a project for you` : `Your account with ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, project ? 'A project for you' : 'Claim your account', p, a),
+  };
+}
+
+/** The owner started a project for a client who already has an account. */
+export function projectStartedMail(
+  shop: string,
+  name: string,
+  inviter: string,
+  project: string,
+  url: string,
+): MailContent {
+  const p = [
+    `Hello ${name},`,
+    `${inviter} at ${shop} has started a project for you: ${project}. Its estimate will follow in the portal, where you can ask anything.`,
+  ];
+  const a = { label: 'Open the project', url };
+  return {
+    subject: `${shop} has started a project for you`,
+    text: text(p, a, shop),
+    html: layout(shop, 'A project for you', p, a),
+  };
+}
+
 const usd = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
 /** Dollars as the mails write them: $1,234.50. */
 export const dollars = (cents: number) => usd.format(cents / 100);

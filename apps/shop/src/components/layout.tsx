@@ -8,6 +8,7 @@ import {
   canInviteBuilders,
   canChangeSettings,
   canSeeBoard,
+  canSeeClients,
   canSeeMail,
   canSeeOverview,
   canSeePayments,
@@ -82,6 +83,11 @@ export function ShopLayout() {
       {canSeeRequests(user) ? (
         <NavLink to={paths.requests.getHref()} className={link}>
           Requests
+        </NavLink>
+      ) : null}
+      {canSeeClients(user) ? (
+        <NavLink to={paths.clients.getHref()} className={link}>
+          Clients
         </NavLink>
       ) : null}
       {canSeeBoard(user) ? (
