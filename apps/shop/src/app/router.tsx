@@ -13,6 +13,7 @@ import { RequestsRoute } from './routes/requests';
 import { SignInRoute } from './routes/sign-in';
 import { TeamRoute } from './routes/team';
 import { SettingsRoute } from './routes/settings';
+import { ClientRoute, ClientsRoute } from './routes/clients';
 
 export const routes: RouteObject[] = [
   {
@@ -37,6 +38,8 @@ export const routes: RouteObject[] = [
       { path: paths.payments.path, element: <PaymentsRoute /> },
       { path: paths.mail.path, element: <MailRoute /> },
       { path: paths.settings.path, element: <SettingsRoute /> },
+      { path: paths.clients.path, element: <ClientsRoute /> },
+      { path: paths.client.path, element: <ClientRoute /> },
     ],
   },
 ];
