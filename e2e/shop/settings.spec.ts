@@ -16,9 +16,7 @@ async function setTaxRate(page: Page, percent: string) {
   await expect(field).toHaveValue(percent);
 }
 
-test('the owner changes the tax rate and sees it on a newly priced revision, not on the one before', async ({
-  page,
-}) => {
+test('the owner changes the tax rate and sees it on a newly priced revision', async ({ page }) => {
   await page.goto('/overview');
   await page.getByRole('link', { name: 'Settings' }).click();
   await expect(page.getByRole('heading', { name: 'Settings' })).toBeVisible();
