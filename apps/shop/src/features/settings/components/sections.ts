@@ -2,13 +2,17 @@ import type { ShopSettings } from '@benchwright/contracts';
 
 /**
  * Where each of the engine's settings lives on the settings page, and how it is entered: one line a field, so a new
- * setting is one line here (a `number` in the engine's own unit, a `percent` of a stored fraction, or a `choice`).
+ * setting is one line here (a `number` in the engine's own unit, a `percent` of a stored fraction, `cents` entered as
+ * dollars, or a `choice`). For example `{ key: 'shopRateCents', label: 'Shop rate, per hour', kind: 'cents' }` in
+ * money, `{ key: 'kerfMm', label: 'Saw kerf', kind: 'number', step: 0.1, unit: 'mm' }` on the shop floor.
  * A test checks that every key of ShopSettings has a home.
  */
 export type SettingKey = keyof ShopSettings;
 export type FieldSpec =
   | { key: SettingKey; label: string; kind: 'number'; step?: number; unit?: string; hint?: string }
   | { key: SettingKey; label: string; kind: 'percent'; hint?: string }
+  /** whole cents stored, dollars entered */
+  | { key: SettingKey; label: string; kind: 'cents'; hint?: string }
   | { key: SettingKey; label: string; kind: 'choice'; options: readonly (readonly [string, string])[]; hint?: string };
 
 export type SectionId = 'money' | 'floor' | 'capacity';
@@ -102,11 +106,13 @@ export const SETTING_SECTIONS: { id: SectionId; title: string; intro: string; fi
 /** The form's text for a stored value, and back. */
 export function toInput(f: FieldSpec, v: unknown): string {
   if (f.kind === 'percent') return typeof v === 'number' ? String(Math.round(v * 100_000) / 1000) : '';
+  if (f.kind === 'cents') return typeof v === 'number' ? (v / 100).toFixed(2) : '';
   return v === undefined || v === null ? '' : String(v);
 }
 export function fromInput(f: FieldSpec, s: string): unknown {
   if (f.kind === 'choice') return s;
   const n = s.trim() === '' ? Number.NaN : Number(s);
   if (!Number.isFinite(n)) return s;
+  if (f.kind === 'cents') return Math.round(n * 100);
   return f.kind === 'percent' ? Math.round(n * 1000) / 100_000 : n;
 }

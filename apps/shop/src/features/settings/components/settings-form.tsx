@@ -62,7 +62,7 @@ function SettingField({
         ) : null}
       </div>
     );
-  const unit = f.kind === 'percent' ? '%' : f.unit;
+  const unit = f.kind === 'percent' ? '%' : f.kind === 'cents' ? '$' : f.unit;
   return (
     <Field
       id={id}
