@@ -38,6 +38,10 @@ import { paymentConfirmRoute, paymentsRoutes, webhookRoute } from './modules/pay
 import { createUploadsService } from './modules/uploads/uploads.service';
 import { projectUploadsRoutes, uploadsRoutes } from './modules/uploads/uploads.routes';
 import { leadTimeRoutes } from './modules/lead-time/lead-time.routes';
+import { createClientsService } from './modules/clients/clients.service';
+import { clientsRoutes } from './modules/clients/clients.routes';
+import { createSettingsService } from './modules/settings/settings.service';
+import { logoRoute, settingsRoutes } from './modules/settings/settings.routes';
 
 export const VERSION = '0.1.0';
 
@@ -94,7 +98,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     portalUrl: env.PORTAL_URL,
     shopUrl: env.SHOP_URL,
   });
-  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.SHOP_URL, pdfs);
+  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.SHOP_URL, pdfs, env.PDF_DIR);
 
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(helmet());
@@ -132,6 +136,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
   app.use('/api/quotes', quotesRoutes(db, pool, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
+  const clientsService = createClientsService(db, { portalUrl: env.PORTAL_URL });
   const projectsService = createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }, pool);
   const uploadsService = createUploadsService({ db, dir: env.UPLOADS_DIR, projects: projectsService });
   app.use(
@@ -141,6 +146,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     projectUploadsRoutes(uploadsService),
     projectsRoutes(
       projectsService,
+      (id) => clientsService.clientUser(id),
       {
         enabled: env.RATE_LIMITS,
         commentsPerMinute: env.COMMENTS_PER_MINUTE,
@@ -158,6 +164,11 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/overview', requireRole('owner'), overviewRoutes(createOverviewService(db)));
   app.use('/api/hours-feedback', requireRole('owner'), hoursRoutes(createHoursService(db)));
   app.use('/api/price-book', requireRole('owner'), priceBookRoutes(createPriceBookService(db)));
+  app.use('/api/clients', requireRole('owner'), clientsRoutes(clientsService, idempotency(db)));
+  const settingsService = createSettingsService(db, env.PDF_DIR);
+  // the logo is public (the portal's header, the mail); changing it is the owner's, below
+  app.use('/api/settings/logo', logoRoute(settingsService));
+  app.use('/api/settings', requireRole('owner'), settingsRoutes(settingsService));
   app.use('/api', notFoundRoute);
   app.use(errorHandler(log));
   return Object.assign(app, {

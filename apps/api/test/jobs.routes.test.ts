@@ -127,6 +127,17 @@ describe('GET /api/jobs/:id/traveller.pdf', () => {
     expect(r.headers['content-type']).toMatch(/application\/pdf/);
     expect((r.body as Buffer).subarray(0, 5).toString()).toBe('%PDF-');
   });
+  it('draws the shop’s logo once it has one', async () => {
+    const { w, owner, builder } = box.c;
+    const image = /\/Subtype\s*\/Image/;
+    const pdf = async () =>
+      ((await bytes(builder.get(`/api/jobs/${w.ids.tomaszJob}/traveller.pdf`))).body as Buffer).toString('latin1');
+    expect(await pdf()).not.toMatch(image);
+    const svg =
+      '<svg xmlns="http://www.w3.org/2000/svg" width="300" height="100"><rect width="300" height="100" fill="#7a4a24"/></svg>';
+    expect((await owner.post('/api/settings/logo').attach('file', Buffer.from(svg), 'mark.svg')).status).toBe(201);
+    expect(await pdf()).toMatch(image);
+  });
   it('answers 404 for a job that does not exist and refuses a client with 403', async () => {
     const { w, builder, tomasz } = box.c;
     expect((await bytes(builder.get('/api/jobs/no-such-job/traveller.pdf'))).status).toBe(404);

@@ -128,12 +128,13 @@ describe('POST /api/projects', () => {
     expect(r.status).toBe(400);
     expect(r.body.error.issues[0].message).toMatch(/cannot carry this span.*thicker shelf/);
   });
-  it('refuses the owner (403): only a client requests an estimate', async () => {
+  it('refuses the owner without a client (400 on clientId): the owner starts a project only for a client', async () => {
     const t = await testApp();
     const r = await (await t.signIn('maren@fernhill.example'))
       .post('/api/projects')
       .send({ items: [{ spec: designs.bookcase.defaults, quantity: 1 }] });
-    expect(r.status).toBe(403);
+    expect(r.status).toBe(400);
+    expect(r.body.error.issues).toEqual([{ path: 'clientId', message: 'choose a client' }]);
   });
 });
 

@@ -92,6 +92,8 @@ const Items = z
 export const QuotePreviewBody = z.object({ items: Items });
 export type QuotePreviewBody = z.input<typeof QuotePreviewBody>;
 export const CreateProjectBody = z.object({
+  /** the owner only: the client the project is started for (403 from anyone else) */
+  clientId: z.string().min(1).max(64).optional(),
   items: Items,
   notes: multiLine().max(4000, 'use at most 4000 characters').default(''),
 });
@@ -300,3 +302,5 @@ export interface EstimateView {
   costCents?: number;
 }
 export * from './price-book';
+export * from './settings';
+export * from './clients';

@@ -22,3 +22,4 @@ export {
   useProjectUploads,
 } from './uploads-api';
 export { UploadGallery, formatBytes } from './uploads';
+export { ShopLogo } from './shop-logo';

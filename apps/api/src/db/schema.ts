@@ -15,6 +15,9 @@ export const users = sqliteTable('users', {
   /** null for a builder who has not yet accepted the invitation */
   passwordHash: text(),
   emailVerifiedAt: integer({ mode: 'timestamp_ms' }),
+  /** a client's contact details, as the owner took them down */
+  phone: text().notNull().default(''),
+  address: text().notNull().default(''),
   createdAt: createdAt(),
 });
 
@@ -59,6 +62,10 @@ export const shopSettings = sqliteTable('shop_settings', {
   email: text().notNull().default(''),
   phone: text().notNull().default(''),
   settings: text({ mode: 'json' }).$type<ShopSettings>().notNull(),
+  /** optimistic locking: a save must name the version it read */
+  version: integer().notNull().default(1),
+  /** the logo as a PNG, relative to PDF_DIR (old ones stay: queued mail may still point at them) */
+  logoPath: text(),
   updatedAt: createdAt(),
 });
 
@@ -379,7 +386,7 @@ export const outbox = sqliteTable(
     text: text().notNull(),
     html: text().notNull(),
     attachments: text({ mode: 'json' })
-      .$type<{ filename: string; path: string; contentType: string }[]>()
+      .$type<{ filename: string; path: string; contentType: string; cid?: string }[]>()
       .notNull()
       .default([]),
     status: text({ enum: ['pending', 'sent'] })

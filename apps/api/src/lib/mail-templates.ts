@@ -5,6 +5,10 @@ export interface MailContent {
   html: string;
 }
 
+/** Where the layout shows the shop's logo: the mailer (lib/mailer.ts) puts the inline image there, or nothing. */
+export const LOGO_MARK = '<!--shop-logo-->';
+export const LOGO_CID = 'shop-logo@benchwright';
+
 function esc(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 }
@@ -14,7 +18,7 @@ function layout(shop: string, heading: string, paragraphs: string[], action?: { 
   const button = action
     ? `<p style="margin:22px 0"><a href="${esc(action.url)}" style="background:#7a4a24;color:#fffaf2;text-decoration:none;padding:10px 18px;border-radius:4px;font-weight:600">${esc(action.label)}</a></p><p style="font-size:13px;color:#5b5148">Or paste this address into your browser: ${esc(action.url)}</p>`
     : '';
-  return `<!doctype html><html><body style="margin:0;background:#f6f1e7;font-family:'Source Sans 3',Helvetica,Arial,sans-serif;color:#231c15"><div style="max-width:560px;margin:0 auto;padding:28px"><div style="border-bottom:3px solid #7a4a24;padding-bottom:8px;margin-bottom:20px;font-weight:700;letter-spacing:.02em">${esc(shop)}</div><h1 style="font-size:20px;margin:0 0 16px">${esc(heading)}</h1>${body}${button}<p style="font-size:12px;color:#5b5148;margin-top:28px">Sent by ${esc(shop)} through Benchwright.</p></div></body></html>`;
+  return `<!doctype html><html><body style="margin:0;background:#f6f1e7;font-family:'Source Sans 3',Helvetica,Arial,sans-serif;color:#231c15"><div style="max-width:560px;margin:0 auto;padding:28px">${LOGO_MARK}<div style="border-bottom:3px solid #7a4a24;padding-bottom:8px;margin-bottom:20px;font-weight:700;letter-spacing:.02em">${esc(shop)}</div><h1 style="font-size:20px;margin:0 0 16px">${esc(heading)}</h1>${body}${button}<p style="font-size:12px;color:#5b5148;margin-top:28px">Sent by ${esc(shop)} through Benchwright.</p></div></body></html>`;
 }
 
 function text(paragraphs: string[], action?: { label: string; url: string }, shop?: string): string {
@@ -57,6 +61,49 @@ export function invitationMail(shop: string, name: string, inviter: string, url:
     subject: `You're invited to the ${shop} shop app`,
     text: text(p, a, shop),
     html: layout(shop, 'Join the shop app', p, a),
+  };
+}
+
+/** A client the owner took down by phone or at the door: claim the account in the portal. */
+export function clientInvitationMail(
+  shop: string,
+  name: string,
+  inviter: string,
+  url: string,
+  project?: string,
+): MailContent {
+  const p = [
+    `Hello ${name},`,
+    project
+      ? `${inviter} at ${shop} has started a project for you: ${project}. Its estimate, drawings and progress will be in the ${shop} client portal.`
+      : `${inviter} at ${shop} has made you an account in the ${shop} client portal, where your estimates, drawings and the progress of your work will be.`,
+    'Choose a password with the link below to claim the account; it works for 7 days. If you were not expecting this, ignore this message.',
+  ];
+  const a = { label: 'Claim my account', url };
+  return {
+    subject: project ? `${shop} has started a project for you` : `Your account with ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, project ? 'A project for you' : 'Claim your account', p, a),
+  };
+}
+
+/** The owner started a project for a client who already has an account. */
+export function projectStartedMail(
+  shop: string,
+  name: string,
+  inviter: string,
+  project: string,
+  url: string,
+): MailContent {
+  const p = [
+    `Hello ${name},`,
+    `${inviter} at ${shop} has started a project for you: ${project}. Its estimate will follow in the portal, where you can ask anything.`,
+  ];
+  const a = { label: 'Open the project', url };
+  return {
+    subject: `${shop} has started a project for you`,
+    text: text(p, a, shop),
+    html: layout(shop, 'A project for you', p, a),
   };
 }
 

@@ -4,19 +4,31 @@ import { and, asc, eq, lte } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../db/client';
 import { outbox } from '../db/schema';
-import type { MailContent } from './mail-templates';
+import { LOGO_MARK, LOGO_CID, type MailContent } from './mail-templates';
+import { logoPath } from './shop-logo';
 
-type Tx = Pick<Db, 'insert'>;
+type Tx = Pick<Db, 'insert' | 'select'>;
+export interface MailAttachment {
+  filename: string;
+  path: string;
+  contentType: string;
+  /** an inline image, shown where the HTML says `cid:<cid>` */
+  cid?: string;
+}
 
 /** Queues a message in the caller's transaction; the worker sends it. Attachment paths are relative to the worker's
- * `filesDir` (the PDF folder). */
-export function queueMail(
-  tx: Tx,
-  to: string,
-  content: MailContent,
-  attachments: { filename: string; path: string; contentType: string }[] = [],
-): string {
+ * `filesDir` (the PDF folder). The shop's logo, when it has one, goes inline where the layout marks it. */
+export function queueMail(tx: Tx, to: string, content: MailContent, attachments: MailAttachment[] = []): string {
   const id = randomUUID();
+  const logo = content.html.includes(LOGO_MARK) ? logoPath(tx) : null;
+  const html = content.html.replace(
+    LOGO_MARK,
+    logo
+      ? `<img src="cid:${LOGO_CID}" alt="" style="display:block;max-height:56px;max-width:240px;margin:0 0 8px">`
+      : '',
+  );
+  if (logo)
+    attachments = [...attachments, { filename: 'logo.png', path: logo, contentType: 'image/png', cid: LOGO_CID }];
   tx.insert(outbox)
     .values({
       id,
@@ -24,7 +36,7 @@ export function queueMail(
       to,
       subject: content.subject,
       text: content.text,
-      html: content.html,
+      html,
       attachments,
     })
     .run();

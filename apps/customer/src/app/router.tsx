@@ -7,6 +7,7 @@ import { HomeRoute } from './routes/home';
 import { ProjectRoute } from './routes/project';
 import { ProjectsRoute } from './routes/projects';
 import { ResetPasswordRoute } from './routes/reset-password';
+import { ClaimAccountRoute } from './routes/claim-account';
 import { SignInRoute } from './routes/sign-in';
 import { SignUpRoute } from './routes/sign-up';
 import { VerifyEmailRoute } from './routes/verify-email';
@@ -22,6 +23,7 @@ export const routes: RouteObject[] = [
       { path: paths.verifyEmail.path, element: <VerifyEmailRoute /> },
       { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
       { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
+      { path: paths.claimAccount.path, element: <ClaimAccountRoute /> },
       { path: paths.projects.path, element: <ProjectsRoute /> },
       { path: paths.project.path, element: <ProjectRoute /> },
     ],

@@ -1,5 +1,5 @@
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
-import { Button } from '@benchwright/ui';
+import { Button, ShopLogo } from '@benchwright/ui';
 import { paths } from '../config/paths';
 import { useMe } from '@benchwright/ui/auth';
 import { useSignOut } from '@benchwright/ui/auth';
@@ -12,7 +12,11 @@ export function Layout() {
     <div className="min-h-screen">
       <header className="border-b-4 border-wood bg-paper-deep">
         <div className="mx-auto flex max-w-4xl items-center justify-between px-6 py-4">
-          <Link to={paths.home.getHref()} className="text-xl font-bold tracking-wide text-ink no-underline">
+          <Link
+            to={paths.home.getHref()}
+            className="flex items-center gap-3 text-xl font-bold tracking-wide text-ink no-underline"
+          >
+            <ShopLogo className="h-10 w-auto" />
             Fernhill Joinery <span className="font-normal text-ink-soft">· client portal</span>
           </Link>
           <nav aria-label="Main" className="flex items-center gap-4">

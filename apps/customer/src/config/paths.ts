@@ -9,6 +9,8 @@ export const paths = {
   verifyEmail: { path: '/verify-email', getHref: () => '/verify-email' },
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
+  /** the link in the mail when the shop adds a client (the API's clients module) */
+  claimAccount: { path: '/claim-account', getHref: () => '/claim-account' },
   design: { path: '/designs/:slug', getHref: (slug: string) => `/designs/${encodeURIComponent(slug)}` },
   projects: { path: '/projects', getHref: () => '/projects' },
   project: { path: '/projects/:id', getHref: (id: string) => `/projects/${encodeURIComponent(id)}` },

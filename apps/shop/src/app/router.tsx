@@ -13,6 +13,8 @@ import { RequestRoute } from './routes/request';
 import { RequestsRoute } from './routes/requests';
 import { SignInRoute } from './routes/sign-in';
 import { TeamRoute } from './routes/team';
+import { SettingsRoute } from './routes/settings';
+import { ClientRoute, ClientsRoute } from './routes/clients';
 
 export const routes: RouteObject[] = [
   {
@@ -37,6 +39,9 @@ export const routes: RouteObject[] = [
       { path: paths.payments.path, element: <PaymentsRoute /> },
       { path: paths.mail.path, element: <MailRoute /> },
       { path: paths.priceBook.path, element: <PriceBookRoute /> },
+      { path: paths.settings.path, element: <SettingsRoute /> },
+      { path: paths.clients.path, element: <ClientsRoute /> },
+      { path: paths.client.path, element: <ClientRoute /> },
     ],
   },
 ];

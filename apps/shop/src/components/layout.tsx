@@ -1,13 +1,15 @@
 import type { ReactNode } from 'react';
 import { NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
-import { Button, Notice, Panel } from '@benchwright/ui';
+import { Button, Notice, Panel, ShopLogo } from '@benchwright/ui';
 import { paths, PORTAL_URL } from '../config/paths';
 import { useMe } from '@benchwright/ui/auth';
 import { useSignOut } from '@benchwright/ui/auth';
 import {
   canInviteBuilders,
+  canChangeSettings,
   canSeeBoard,
   canEditPriceBook,
+  canSeeClients,
   canSeeMail,
   canSeeOverview,
   canSeePayments,
@@ -20,7 +22,10 @@ function Frame({ nav, children }: { nav?: ReactNode; children: ReactNode }) {
     <div className="min-h-screen">
       <header className="border-b-4 border-wood bg-ink text-paper print:hidden">
         <div className="mx-auto flex max-w-6xl items-center justify-between px-6 py-3">
-          <span className="text-lg font-bold tracking-wide">Fernhill Joinery · shop</span>
+          <span className="flex items-center gap-3 text-lg font-bold tracking-wide">
+            <ShopLogo className="h-8 w-auto rounded bg-paper p-0.5" />
+            Fernhill Joinery · shop
+          </span>
           {nav}
         </div>
       </header>
@@ -81,6 +86,11 @@ export function ShopLayout() {
           Requests
         </NavLink>
       ) : null}
+      {canSeeClients(user) ? (
+        <NavLink to={paths.clients.getHref()} className={link}>
+          Clients
+        </NavLink>
+      ) : null}
       {canSeeBoard(user) ? (
         <NavLink to={paths.board.getHref()} className={link}>
           Board
@@ -104,6 +114,11 @@ export function ShopLayout() {
       {canEditPriceBook(user) ? (
         <NavLink to={paths.priceBook.getHref()} className={link}>
           Price book
+        </NavLink>
+      ) : null}
+      {canChangeSettings(user) ? (
+        <NavLink to={paths.settings.getHref()} className={link}>
+          Settings
         </NavLink>
       ) : null}
       <span className="ml-4 text-sm text-wood-light">{user.name}</span>

@@ -20,6 +20,9 @@ export const paths = {
   payments: { path: '/payments', getHref: () => '/payments' },
   mail: { path: '/mail', getHref: () => '/mail' },
   priceBook: { path: '/price-book', getHref: () => '/price-book' },
+  settings: { path: '/settings', getHref: () => '/settings' },
+  clients: { path: '/clients', getHref: () => '/clients' },
+  client: { path: '/clients/:id', getHref: (id: string) => `/clients/${encodeURIComponent(id)}` },
 } as const;
 
 export const PORTAL_URL = import.meta.env.VITE_PORTAL_URL ?? 'http://127.0.0.1:5173';

@@ -11,3 +11,5 @@ export const canSeePayments = (u: User | null | undefined) => u?.role === 'owner
 export const canSeeMail = (u: User | null | undefined) => u?.role === 'owner';
 export const canSeeOverview = (u: User | null | undefined) => u?.role === 'owner';
 export const canEditPriceBook = (u: User | null | undefined) => u?.role === 'owner';
+export const canChangeSettings = (u: User | null | undefined) => u?.role === 'owner';
+export const canSeeClients = (u: User | null | undefined) => u?.role === 'owner';

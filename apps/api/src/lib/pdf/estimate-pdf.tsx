@@ -1,4 +1,4 @@
-import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
+import { Document, Image, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
 import {
   designs,
   formatLength,
@@ -36,7 +36,8 @@ const s = StyleSheet.create({
 });
 
 export interface EstimatePdfInput {
-  shop: { name: string; address: string; email: string; phone: string };
+  /** `logo`: the shop's PNG (lib/shop-logo.ts), drawn above its name */
+  shop: { name: string; address: string; email: string; phone: string; logo?: Buffer | null };
   client: { name: string; email: string };
   number: string;
   revision: number;
@@ -83,6 +84,12 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
       <Page size="LETTER" style={s.page}>
         <View style={s.head}>
           <View>
+            {d.shop.logo ? (
+              <Image
+                src={{ data: d.shop.logo, format: 'png' }}
+                style={{ maxHeight: 48, maxWidth: 180, marginBottom: 4 }}
+              />
+            ) : null}
             <Text style={s.shop}>{d.shop.name}</Text>
             <Text style={s.muted}>{d.shop.address}</Text>
             <Text style={s.muted}>

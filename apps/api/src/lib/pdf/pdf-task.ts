@@ -14,12 +14,15 @@ export type PdfTask =
   | { kind: 'labels'; input: LabelsPdfInput }
   | { kind: 'ping' };
 
+/** A Buffer sent to the worker arrives as a plain Uint8Array; react-pdf reads image data from a Buffer. */
+const asBuffer = (b: Uint8Array | null | undefined) => (b ? Buffer.from(b.buffer, b.byteOffset, b.byteLength) : b);
+
 export async function renderPdf(task: PdfTask): Promise<Uint8Array> {
   switch (task.kind) {
     case 'estimate':
-      return renderEstimatePdf(task.input);
+      return renderEstimatePdf({ ...task.input, shop: { ...task.input.shop, logo: asBuffer(task.input.shop.logo) } });
     case 'traveller':
-      return renderTravellerPdf(task.input);
+      return renderTravellerPdf({ ...task.input, logo: asBuffer(task.input.logo) });
     case 'labels':
       return renderLabelsPdf(task.input);
     case 'ping':

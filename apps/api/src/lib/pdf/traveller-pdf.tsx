@@ -1,4 +1,4 @@
-import { Document, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
+import { Document, Image, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { formatLength, type LengthUnit, type Traveller } from '@benchwright/pricing';
 import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
@@ -22,6 +22,8 @@ const s = StyleSheet.create({
 
 export interface TravellerPdfInput {
   shopName: string;
+  /** the shop's logo as PNG bytes (lib/shop-logo.ts) */
+  logo?: Buffer | null;
   clientName: string;
   notes: string;
   stageLabel: string;
@@ -58,6 +60,9 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
             {d.notes ? <Text style={s.muted}>“{d.notes}”</Text> : null}
           </View>
           <View style={{ alignItems: 'flex-end' }}>
+            {d.logo ? (
+              <Image src={{ data: d.logo, format: 'png' }} style={{ maxHeight: 32, maxWidth: 120, marginBottom: 2 }} />
+            ) : null}
             <Text>{d.shopName}</Text>
             <Text>Now in {d.stageLabel}</Text>
             <Text>Builder: {d.builderName ?? 'not set'}</Text>

@@ -24,6 +24,7 @@ import {
   users,
 } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
+import { logoPng } from '../../lib/shop-logo';
 import type { EnginePool } from '../../lib/engine-pool';
 import { priceRecord, storedRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
@@ -383,7 +384,13 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       const pdf = await pdfs.render({
         kind: 'estimate',
         input: {
-          shop: { name: shop.shopName, address: shop.address, email: shop.email, phone: shop.phone },
+          shop: {
+            name: shop.shopName,
+            address: shop.address,
+            email: shop.email,
+            phone: shop.phone,
+            logo: logoPng(db, pdfDir),
+          },
           client: { name: client.name, email: client.email },
           number: estimateNumber(e.projectId),
           revision: e.revision,

@@ -5,6 +5,7 @@ import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, jobChecks, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
+import { logoPng } from '../../lib/shop-logo';
 import type { EnginePool } from '../../lib/engine-pool';
 import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from '../../lib/record';
 import type { PdfPool } from '../../lib/pdf-pool';
@@ -26,7 +27,15 @@ export function openJob(tx: Tx, projectId: string, hoursBudget: Partial<Record<S
     .run();
 }
 
-export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, shopUrl: string, pdfs: PdfPool) {
+/** `pdfDir`: where the shop's logo is kept (lib/shop-logo.ts), for the traveller PDF */
+export function createJobsService(
+  db: Db,
+  portalUrl: string,
+  pool: EnginePool,
+  shopUrl: string,
+  pdfs: PdfPool,
+  pdfDir?: string,
+) {
   function view(j: typeof jobs.$inferSelect) {
     const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
     const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
@@ -208,6 +217,7 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool, s
         kind: 'traveller',
         input: {
           shopName: loadPricing(db).shopName,
+          logo: pdfDir ? logoPng(db, pdfDir) : null,
           clientName: job.clientName,
           notes: job.project.notes,
           stageLabel: labels[job.stage] ?? job.stage,

@@ -7,7 +7,9 @@ import { checkItems, loadPricing, projectSpecs, travellerFor } from '../../lib/e
 import { recordOf } from '../../lib/record';
 import type { EnginePool } from '../../lib/engine-pool';
 import { queueMail } from '../../lib/mailer';
-import { commentMail } from '../../lib/mail-templates';
+import { clientInvitationMail, commentMail, projectStartedMail } from '../../lib/mail-templates';
+import { issueToken } from '../../auth/tokens';
+import { designs } from '@benchwright/pricing';
 import { queueRequestNotice } from '../../lib/request-notice';
 import { addEvent, timelineFor } from '../../lib/timeline';
 import { Forbidden, NotFound } from '../../lib/errors';
@@ -161,8 +163,12 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
       return loadPricing(db).settings.units;
     },
 
-    /** A client's request: every item checked against its design and the shop's price book. */
-    async create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }) {
+    /**
+     * A client's request: every item checked against its design and the shop's price book. With `by`, the owner
+     * starts it for the client (who called or walked in): the client is mailed, with a link to claim their account
+     * when they have none yet, and the owner gets no notice of their own request.
+     */
+    async create(client: User, input: { items: { spec: unknown; quantity: number }[]; notes: string }, by?: User) {
       const { activeBook, settings } = loadPricing(db);
       await checkItems(pool, input.items, activeBook, settings);
       const id = randomUUID();
@@ -179,16 +185,44 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
             id: randomUUID(),
             projectId: id,
             kind: 'requested',
-            message: `${client.name} asked for an estimate.`,
-            actorId: client.id,
+            message: by ? `${by.name} started a project for ${client.name}.` : `${client.name} asked for an estimate.`,
+            actorId: by?.id ?? client.id,
           })
           .run();
+        if (by) {
+          const shop = loadPricing(tx).shopName;
+          const what = describeItems(input.items);
+          const claimed = !!tx.select({ h: users.passwordHash }).from(users).where(eq(users.id, client.id)).get()?.h;
+          queueMail(
+            tx,
+            client.email,
+            claimed
+              ? projectStartedMail(shop, client.name, by.name, what, `${urls.portalUrl}/projects/${id}`)
+              : clientInvitationMail(
+                  shop,
+                  client.name,
+                  by.name,
+                  `${urls.portalUrl}/claim-account?token=${issueToken(tx, client.id, 'invitation')}`,
+                  what,
+                ),
+          );
+        }
         // an unconfirmed client's request is kept; the shop hears of it when they confirm their address
-        if (client.emailVerified)
+        else if (client.emailVerified)
           queueRequestNotice(tx, { shopName: loadPricing(db).shopName, shopUrl: urls.shopUrl }, id);
       });
       return this.get(client, id);
     },
   };
 }
+/** "a bookcase and 2 wardrobes": the items by their designs' names, for a mail. */
+function describeItems(items: { spec: unknown; quantity: number }[]): string {
+  const names = items.map((i) => {
+    const slug = (i.spec as { design?: string }).design ?? '';
+    const name = (designs as Record<string, { name: string } | undefined>)[slug]?.name.toLowerCase() ?? 'piece';
+    return i.quantity > 1 ? `${i.quantity} × ${name}` : `a ${name}`;
+  });
+  return names.length > 1 ? `${names.slice(0, -1).join(', ')} and ${names.at(-1)}` : (names[0] ?? 'a piece');
+}
+
 export type ProjectsService = ReturnType<typeof createProjectsService>;

@@ -203,7 +203,7 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
           {estimate.totals.discountCents ? <Money cents={-estimate.totals.discountCents} /> : '—'}
         </dd>
         <dt>Tax</dt>
-        <dd className="text-right">
+        <dd className="text-right" aria-label="Tax">
           <Money cents={estimate.totals.taxCents} />
         </dd>
         <dt className="font-bold">Total</dt>
