@@ -65,7 +65,7 @@ describe('the shop layout', () => {
     render(<App router={createTestRouter('/team')} />);
     expect(await screen.findByText('Your role does not include this page.')).toBeTruthy();
   });
-  it('gives the owner requests, clients, board, team and settings', async () => {
+  it('gives the owner requests, clients, board, team, price book and settings', async () => {
     signedInAs('owner');
     render(<App router={createTestRouter('/requests')} />);
     const nav = await screen.findByRole('navigation', { name: 'Shop' });
@@ -73,7 +73,7 @@ describe('the shop layout', () => {
       within(nav)
         .getAllByRole('link')
         .map((a) => a.textContent),
-    ).toEqual(['Overview', 'Requests', 'Clients', 'Board', 'Payments', 'Team', 'Mail', 'Settings']);
+    ).toEqual(['Overview', 'Requests', 'Clients', 'Board', 'Payments', 'Team', 'Mail', 'Price book', 'Settings']);
   });
   it('tells a client that this app is for the shop', async () => {
     signedInAs('client');
