@@ -5,18 +5,27 @@ import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@
 import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
 const now = sql`(unixepoch() * 1000)`;
+/** `CASE status WHEN 'requested' THEN 0 ... END`, in the order of PROJECT_STATUSES */
+const STATUS_RANK = sql.raw(
+  `(CASE "status" ${PROJECT_STATUSES.map((st, i) => `WHEN '${st}' THEN ${i}`).join(' ')} END)`,
+);
 const createdAt = () => integer({ mode: 'timestamp_ms' }).notNull().default(now);
 
-export const users = sqliteTable('users', {
-  id: text().primaryKey(),
-  email: text().notNull().unique(),
-  name: text().notNull(),
-  role: text({ enum: ['client', 'owner', 'builder'] }).notNull(),
-  /** null for a builder who has not yet accepted the invitation */
-  passwordHash: text(),
-  emailVerifiedAt: integer({ mode: 'timestamp_ms' }),
-  createdAt: createdAt(),
-});
+export const users = sqliteTable(
+  'users',
+  {
+    id: text().primaryKey(),
+    email: text().notNull().unique(),
+    name: text().notNull(),
+    role: text({ enum: ['client', 'owner', 'builder'] }).notNull(),
+    /** null for a builder who has not yet accepted the invitation */
+    passwordHash: text(),
+    emailVerifiedAt: integer({ mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  // the project list sorted by client
+  (t) => [index('users_name').on(t.name, t.id)],
+);
 
 /**
  * Lucia's session table: expires_at is an integer of seconds (sliding). created_at (ms) bounds the session's whole
@@ -80,19 +89,43 @@ export const projects = sqliteTable(
     notes: text().notNull().default(''),
     createdAt: createdAt(),
     updatedAt: createdAt(),
+    /**
+     * The total of the latest revision (the owner's view) and of the latest revision sent (a client's), kept by
+     * triggers on `estimates` (migration 0005) so that the list sorts by total on an index; 0 while there is none.
+     */
+    latestTotalCents: integer().notNull().default(0),
+    sentTotalCents: integer().notNull().default(0),
+    /** the status's place in the lifecycle, for sorting the list by status in that order */
+    statusRank: integer().generatedAlwaysAs(STATUS_RANK, { mode: 'virtual' }),
   },
-  (t) => [index('projects_client').on(t.clientId), index('projects_status').on(t.status)],
+  // one index per sort of GET /api/projects (id breaks ties, so the keyset is total), the status filter with the
+  // default sort, and a client's own list
+  (t) => [
+    index('projects_client_created').on(t.clientId, t.createdAt, t.id),
+    // sorted by client: users by name (users_name), then each client's projects by id
+    index('projects_client_id').on(t.clientId, t.id),
+    index('projects_status_created').on(t.status, t.createdAt, t.id),
+    index('projects_created').on(t.createdAt, t.id),
+    index('projects_updated').on(t.updatedAt, t.id),
+    index('projects_status_rank').on(t.statusRank, t.id),
+    index('projects_latest_total').on(t.latestTotalCents, t.id),
+    index('projects_sent_total').on(t.sentTotalCents, t.id),
+  ],
 );
 
-export const projectItems = sqliteTable('project_items', {
-  id: text().primaryKey(),
-  projectId: text()
-    .notNull()
-    .references(() => projects.id, { onDelete: 'cascade' }),
-  position: integer().notNull(),
-  spec: text({ mode: 'json' }).notNull(),
-  quantity: integer().notNull(),
-});
+export const projectItems = sqliteTable(
+  'project_items',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    position: integer().notNull(),
+    spec: text({ mode: 'json' }).notNull(),
+    quantity: integer().notNull(),
+  },
+  (t) => [index('project_items_project').on(t.projectId, t.position)],
+);
 
 /**
  * Files attached to a project. `fileName` is the uploaded name, kept as display text only; the bytes live under
