@@ -11,5 +11,9 @@ CREATE INDEX `projects_updated` ON `projects` (`updated_at`,`id`);--> statement-
 CREATE INDEX `projects_status_rank` ON `projects` (`status_rank`,`id`);--> statement-breakpoint
 CREATE INDEX `projects_latest_total` ON `projects` (`latest_total_cents`,`id`);--> statement-breakpoint
 CREATE INDEX `projects_sent_total` ON `projects` (`sent_total_cents`,`id`);--> statement-breakpoint
+CREATE INDEX `jobs_stage_updated` ON `jobs` (`stage_key`,`updated_at`,`id`);--> statement-breakpoint
+CREATE INDEX `payments_created` ON `payments` (`created_at`,`id`);--> statement-breakpoint
+CREATE INDEX `payments_project` ON `payments` (`project_id`);--> statement-breakpoint
 CREATE INDEX `project_items_project` ON `project_items` (`project_id`,`position`);--> statement-breakpoint
+CREATE INDEX `time_entries_job` ON `time_entries` (`job_id`,`stage_key`);--> statement-breakpoint
 CREATE INDEX `users_name` ON `users` (`name`,`id`);

@@ -40,3 +40,15 @@ export const ProjectListQuery = z.object({
   limit: ListLimit,
 });
 export type ProjectListQuery = z.input<typeof ProjectListQuery>;
+
+/** `GET /api/jobs`: the open jobs and a page of delivered ones; `stage=delivered` with a cursor for more. */
+export const JobsQuery = z.object({
+  stage: z.literal('delivered', 'only the delivered jobs are paged: stage=delivered').optional(),
+  cursor: ListCursor.optional(),
+  limit: ListLimit,
+});
+export type JobsQuery = z.output<typeof JobsQuery>;
+
+/** `GET /api/payments`: the latest first, a page at a time. */
+export const PaymentsQuery = z.object({ cursor: ListCursor.optional(), limit: ListLimit });
+export type PaymentsQuery = z.output<typeof PaymentsQuery>;

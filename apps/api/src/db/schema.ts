@@ -223,25 +223,30 @@ export const estimateLines = sqliteTable('estimate_lines', {
   overrideReason: text(),
 });
 
-export const payments = sqliteTable('payments', {
-  id: text().primaryKey(),
-  projectId: text()
-    .notNull()
-    .references(() => projects.id),
-  estimateId: text().references(() => estimates.id),
-  kind: text({ enum: ['deposit', 'balance'] }).notNull(),
-  status: text({ enum: ['open', 'paid', 'expired', 'refunded', 'partially_refunded'] })
-    .notNull()
-    .default('open'),
-  amountCents: integer().notNull(),
-  refundedCents: integer().notNull().default(0),
-  attempt: integer().notNull().default(1),
-  stripeSessionId: text().unique(),
-  stripePaymentIntentId: text(),
-  checkoutUrl: text(),
-  createdAt: createdAt(),
-  updatedAt: createdAt(),
-});
+export const payments = sqliteTable(
+  'payments',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .references(() => projects.id),
+    estimateId: text().references(() => estimates.id),
+    kind: text({ enum: ['deposit', 'balance'] }).notNull(),
+    status: text({ enum: ['open', 'paid', 'expired', 'refunded', 'partially_refunded'] })
+      .notNull()
+      .default('open'),
+    amountCents: integer().notNull(),
+    refundedCents: integer().notNull().default(0),
+    attempt: integer().notNull().default(1),
+    stripeSessionId: text().unique(),
+    stripePaymentIntentId: text(),
+    checkoutUrl: text(),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+  },
+  // the payments page, latest first; a project's payments
+  (t) => [index('payments_created').on(t.createdAt, t.id), index('payments_project').on(t.projectId)],
+);
 
 /** Every Stripe event id once: a redelivered event is recognised and ignored. */
 export const stripeEvents = sqliteTable('stripe_events', {
@@ -256,22 +261,27 @@ export const stages = sqliteTable('stages', {
   position: integer().notNull(),
 });
 
-export const jobs = sqliteTable('jobs', {
-  id: text().primaryKey(),
-  projectId: text()
-    .notNull()
-    .unique()
-    .references(() => projects.id),
-  stageKey: text({ enum: STAGE_KEYS })
-    .notNull()
-    .references(() => stages.key),
-  position: integer().notNull().default(0),
-  builderId: text().references(() => users.id),
-  dueDate: text(),
-  hoursBudget: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
-  createdAt: createdAt(),
-  updatedAt: createdAt(),
-});
+export const jobs = sqliteTable(
+  'jobs',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .unique()
+      .references(() => projects.id),
+    stageKey: text({ enum: STAGE_KEYS })
+      .notNull()
+      .references(() => stages.key),
+    position: integer().notNull().default(0),
+    builderId: text().references(() => users.id),
+    dueDate: text(),
+    hoursBudget: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+  },
+  // the board: open jobs by stage; the delivered ones a page at a time, the latest first
+  (t) => [index('jobs_stage_updated').on(t.stageKey, t.updatedAt, t.id)],
+);
 
 /** A job's sheets laid out again with the stock of the day (owner's action); the revision's own layout stays. */
 export const jobLayouts = sqliteTable(
@@ -288,19 +298,23 @@ export const jobLayouts = sqliteTable(
   (t) => [index('job_layouts_job').on(t.jobId)],
 );
 
-export const timeEntries = sqliteTable('time_entries', {
-  id: text().primaryKey(),
-  jobId: text()
-    .notNull()
-    .references(() => jobs.id, { onDelete: 'cascade' }),
-  userId: text()
-    .notNull()
-    .references(() => users.id),
-  stageKey: text().notNull(),
-  hours: real().notNull(),
-  note: text().notNull().default(''),
-  loggedAt: createdAt(),
-});
+export const timeEntries = sqliteTable(
+  'time_entries',
+  {
+    id: text().primaryKey(),
+    jobId: text()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    userId: text()
+      .notNull()
+      .references(() => users.id),
+    stageKey: text().notNull(),
+    hours: real().notNull(),
+    note: text().notNull().default(''),
+    loggedAt: createdAt(),
+  },
+  (t) => [index('time_entries_job').on(t.jobId, t.stageKey)],
+);
 
 /** The project's timeline. */
 export const projectEvents = sqliteTable(
