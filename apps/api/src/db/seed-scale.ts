@@ -1,6 +1,6 @@
 // `pnpm db:seed --scale N`: a shop some years in, for measuring the lists. N projects (invented clients of the
 // demo shop, 200 of them at N = 10,000: N / 50, at least 1), 10 timeline events each, every project status, the
-// estimates, deposits and jobs each status implies. One transaction of prepared statements: seconds, not minutes.
+// estimates, deposits and jobs each status implies; the jobs still in the shop only among the newest 120. One transaction of prepared statements: seconds, not minutes.
 import { randomUUID } from 'node:crypto';
 import { PROJECT_STATUSES, isInShop, type EstimateStatus, type ProjectStatus } from '@benchwright/contracts';
 import { designs, type DesignSlug } from '@benchwright/pricing';
@@ -42,6 +42,9 @@ const ESTIMATE_OF: Record<ProjectStatus, EstimateStatus | null> = {
   cancelled: null,
 };
 const EVENTS_PER_PROJECT = 10;
+/** the newest projects among which jobs are still in the shop (a quarter of them: some 30 open jobs) */
+const OPEN_JOBS_WINDOW = 120;
+const IN_SHOP_NOW = new Set<ProjectStatus>(['deposit_paid', 'in_production', 'ready']);
 
 /** Adds `count` projects and their clients; returns the clients' e-mail addresses (password: the demo's). */
 export async function seedScale(db: Db, count: number): Promise<{ clients: string[] }> {
@@ -89,7 +92,9 @@ export async function seedScale(db: Db, count: number): Promise<{ clients: strin
     for (let i = 0; i < count; i++) {
       const id = randomUUID();
       const client = clients[i % clientCount]!;
-      const status = PROJECT_STATUSES[i % PROJECT_STATUSES.length]!;
+      // every status, but only the newest jobs are still in the shop: the older ones were delivered and paid
+      const cycled = PROJECT_STATUSES[i % PROJECT_STATUSES.length]!;
+      const status = IN_SHOP_NOW.has(cycled) && i < count - OPEN_JOBS_WINDOW ? 'closed' : cycled;
       const created = start + Math.floor((span * i) / count);
       const updated = created + ((i * 7919) % 30) * 86_400_000;
       insProject.run(id, client.id, status, `${NOTES[i % NOTES.length]} (no. ${i + 1})`, created, updated);
