@@ -140,7 +140,16 @@ it(
         expect(db.pragma('integrity_check', { simple: true })).toBe('ok');
         // what was acknowledged, looked for through the API as its users would
         const ownerAfter = await signInCookie(api.url, 'maren@fernhill.example');
-        const projectIds = new Set((await get<Listed>('/api/projects', ownerAfter)).projects.map((p) => p.id));
+        // every page of the list (it is paged: 200 at most a page)
+        const projectIds = new Set<string>();
+        for (let cursor: string | null = ''; cursor !== null; ) {
+          const page: Listed & { nextCursor: string | null } = await get(
+            `/api/projects?limit=200${cursor ? `&cursor=${cursor}` : ''}`,
+            ownerAfter,
+          );
+          for (const p of page.projects) projectIds.add(p.id);
+          cursor = page.nextCursor;
+        }
         type One = { project: { timeline: { kind: string; message: string }[] } };
         const messages = new Set(
           (await get<One>(`/api/projects/${priyaProject}`, ownerAfter)).project.timeline.map((e) => e.message),

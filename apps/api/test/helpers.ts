@@ -1,3 +1,4 @@
+import * as z from 'zod';
 import { pino } from 'pino';
 import request from 'supertest';
 import { createApp } from '../src/app';
@@ -5,6 +6,7 @@ import { applyMigrations, openDb, type Db } from '../src/db/client';
 import { DEMO_PASSWORD, seedDemo } from '../src/db/seed';
 import { outbox } from '../src/db/schema';
 import { loadEnv, type Env } from '../src/env';
+import * as contracts from '@benchwright/contracts';
 
 export const PORTAL = 'http://127.0.0.1:5173';
 
@@ -24,6 +26,7 @@ export async function testApp(overrides: Record<string, string> = {}): Promise<T
   applyMigrations(db);
   await seedDemo(db);
   const app = createApp({ db, env, log: pino({ level: 'silent' }), ready: () => true });
+  checkContracts(app);
   const agent = () => request.agent(app);
   return {
     db,
@@ -58,4 +61,74 @@ export async function freePort(): Promise<number> {
       s.close(() => resolve(port));
     });
   });
+}
+
+/**
+ * The body of a response, parsed with its contract schema from `@benchwright/contracts`: a response that drifts
+ * from the contract fails the test that reads it, naming the field.
+ */
+export function contract<S extends z.ZodType>(schema: S, res: { status: number; body: unknown }): z.output<S> {
+  const r = schema.safeParse(res.body);
+  if (!r.success)
+    throw new Error(
+      `the ${res.status} answer drifts from its contract:\n${z.prettifyError(r.error)}\n${JSON.stringify(res.body).slice(0, 1500)}`,
+    );
+  return r.data;
+}
+
+/** Each route's answer (2xx JSON) and its contract schema, by method and route pattern. */
+const CONTRACTS: Record<string, z.ZodType> = {
+  'GET /api/auth/me': contracts.UserResponse,
+  'POST /api/auth/sign-in': contracts.UserResponse,
+  'POST /api/auth/sign-up': contracts.UserResponse,
+  'GET /api/designs': contracts.DesignsResponse,
+  'GET /api/designs/:slug': contracts.DesignResponse,
+  'POST /api/quotes/preview': contracts.QuotePreviewResponse,
+  'GET /api/projects': contracts.ProjectsResponse,
+  'POST /api/projects': contracts.ProjectResponse,
+  'GET /api/projects/:id': contracts.ProjectResponse,
+  'POST /api/projects/:id/comments': contracts.ProjectResponse,
+  'POST /api/projects/:id/estimates': contracts.EstimateResponse,
+  'POST /api/projects/:id/balance-checkout': contracts.CheckoutResponse,
+  'POST /api/projects/:id/uploads': contracts.UploadResponse,
+  'GET /api/estimates/:id': contracts.EstimateResponse,
+  'PATCH /api/estimates/:id': contracts.EstimateResponse,
+  'POST /api/estimates/:id/send': contracts.EstimateResponse,
+  'POST /api/estimates/:id/accept': contracts.EstimateResponse,
+  'POST /api/estimates/:id/withdraw': contracts.EstimateResponse,
+  'POST /api/estimates/:id/deposit-checkout': contracts.CheckoutResponse,
+  'GET /api/jobs': contracts.JobsResponse,
+  'GET /api/jobs/stages': contracts.StagesResponse,
+  'GET /api/jobs/:id': contracts.JobResponse,
+  'PATCH /api/jobs/:id': contracts.JobResponse,
+  'POST /api/jobs/:id/time': contracts.JobResponse,
+  'GET /api/payments': contracts.PaymentsResponse,
+  'POST /api/payments/:id/refund': contracts.RefundResponse,
+  'POST /api/payments/confirm': contracts.PaymentConfirmResponse,
+  'GET /api/overview': contracts.OverviewResponse,
+  'GET /api/lead-time': contracts.LeadTimeResponse,
+  'GET /api/mail/failed': contracts.FailedMailsResponse,
+};
+
+/**
+ * Every 2xx JSON answer of the test app is parsed with its route's contract schema as it is sent: a response that
+ * drifts from `@benchwright/contracts` becomes a 500 naming the field (and is printed), so the route's test fails.
+ */
+export function checkContracts(app: ReturnType<typeof createApp>): void {
+  const json = app.response.json;
+  app.response.json = function (this: typeof app.response, body: unknown) {
+    const route = (this.req as { route?: { path?: string } }).route?.path;
+    if (this.statusCode < 300 && route !== undefined) {
+      const key = `${this.req.method} ${`${this.req.baseUrl}${route}`.replace(/\/$/, '')}`;
+      const schema = CONTRACTS[key];
+      const r = schema?.safeParse(body);
+      if (r && !r.success) {
+        const message = `${key} drifts from its contract:\n${z.prettifyError(r.error)}`;
+        console.error(message);
+        this.status(500);
+        return json.call(this, { error: { code: 'internal', message } });
+      }
+    }
+    return json.call(this, body);
+  };
 }

@@ -8,9 +8,11 @@ describe('GET /api/projects', () => {
     const priya = await t.signIn('priya@example.com');
     const own = (await priya.get('/api/projects')).body.projects;
     expect(own).toHaveLength(1);
-    expect(own[0]).toMatchObject({ status: 'requested', client: { name: 'Priya Natarajan' } });
-    expect(own[0].timeline[0].kind).toBe('requested');
-    expect(own[0].estimates).toEqual([]);
+    expect(own[0]).toMatchObject({ status: 'requested', client: { name: 'Priya Natarajan' }, latestEstimate: null });
+    expect(own[0].timeline).toBeUndefined();
+    const one = (await priya.get(`/api/projects/${own[0].id}`)).body.project;
+    expect(one.timeline[0].kind).toBe('requested');
+    expect(one.estimates).toEqual([]);
     const owner = await t.signIn('maren@fernhill.example');
     expect((await owner.get('/api/projects')).body.projects).toHaveLength(3);
     const builder = await t.signIn('idris@fernhill.example');

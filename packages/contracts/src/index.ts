@@ -6,6 +6,8 @@ import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS, type EstimateStatus } 
 export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
 export { isPlainText, isSingleLine, multiLine, singleLine } from './text';
 export * from './lifecycle';
+export * from './project-list';
+export * from './responses';
 
 /** Every error the API answers with (DESIGN.md section 10). */
 export const ERROR_CODES = [
@@ -171,8 +173,26 @@ export const Project = z.object({
 export type Project = z.infer<typeof Project>;
 /** `GET /api/projects/:id`, `POST /api/projects`, `POST /api/projects/:id/comments` */
 export const ProjectResponse = z.object({ project: Project });
-/** `GET /api/projects` */
-export const ProjectsResponse = z.object({ projects: z.array(Project) });
+/** One piece of a project as a list shows it: the design's slug and name, and how many. */
+export const ItemSummary = z.object({ design: z.string(), name: z.string(), quantity: z.number().int() });
+/**
+ * A project in a list (`GET /api/projects`): no timeline, no specs. `latestEstimate` is the latest revision the
+ * viewer may see (a client: the latest sent; a builder: none).
+ */
+export const ProjectSummary = z.object({
+  id: z.string(),
+  status: z.enum(PROJECT_STATUSES),
+  notes: z.string(),
+  client: z.object({ id: z.string(), name: z.string() }),
+  items: z.array(ItemSummary),
+  latestEstimate: EstimateSummary.nullable(),
+  createdAt: z.iso.datetime(),
+  updatedAt: z.iso.datetime(),
+});
+export type ProjectSummary = z.infer<typeof ProjectSummary>;
+/** `GET /api/projects`: a page; `nextCursor` is null on the last one. */
+export const ProjectsResponse = z.object({ projects: z.array(ProjectSummary), nextCursor: z.string().nullable() });
+export type ProjectsResponse = z.infer<typeof ProjectsResponse>;
 
 /** `GET /api/lead-time?hours=N`: when a job of N hours could start and finish, from the board and the shop's capacity. */
 export const LeadTimeQuery = z.object({

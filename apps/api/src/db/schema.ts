@@ -5,21 +5,30 @@ import { LINE_GROUPS, type ShopSettings, type StageKey } from '@benchwright/pric
 import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
 const now = sql`(unixepoch() * 1000)`;
+/** `CASE status WHEN 'requested' THEN 0 ... END`, in the order of PROJECT_STATUSES */
+const STATUS_RANK = sql.raw(
+  `(CASE "status" ${PROJECT_STATUSES.map((st, i) => `WHEN '${st}' THEN ${i}`).join(' ')} END)`,
+);
 const createdAt = () => integer({ mode: 'timestamp_ms' }).notNull().default(now);
 
-export const users = sqliteTable('users', {
-  id: text().primaryKey(),
-  email: text().notNull().unique(),
-  name: text().notNull(),
-  role: text({ enum: ['client', 'owner', 'builder'] }).notNull(),
-  /** null for a builder who has not yet accepted the invitation */
-  passwordHash: text(),
-  emailVerifiedAt: integer({ mode: 'timestamp_ms' }),
-  /** a client's contact details, as the owner took them down */
-  phone: text().notNull().default(''),
-  address: text().notNull().default(''),
-  createdAt: createdAt(),
-});
+export const users = sqliteTable(
+  'users',
+  {
+    id: text().primaryKey(),
+    email: text().notNull().unique(),
+    name: text().notNull(),
+    role: text({ enum: ['client', 'owner', 'builder'] }).notNull(),
+    /** null for a builder who has not yet accepted the invitation */
+    passwordHash: text(),
+    emailVerifiedAt: integer({ mode: 'timestamp_ms' }),
+    /** a client's contact details, as the owner took them down */
+    phone: text().notNull().default(''),
+    address: text().notNull().default(''),
+    createdAt: createdAt(),
+  },
+  // the project list sorted by client
+  (t) => [index('users_name').on(t.name, t.id)],
+);
 
 /**
  * Lucia's session table: expires_at is an integer of seconds (sliding). created_at (ms) bounds the session's whole
@@ -129,19 +138,43 @@ export const projects = sqliteTable(
     notes: text().notNull().default(''),
     createdAt: createdAt(),
     updatedAt: createdAt(),
+    /**
+     * The total of the latest revision (the owner's view) and of the latest revision sent (a client's), kept by
+     * triggers on `estimates` (migration 0005) so that the list sorts by total on an index; 0 while there is none.
+     */
+    latestTotalCents: integer().notNull().default(0),
+    sentTotalCents: integer().notNull().default(0),
+    /** the status's place in the lifecycle, for sorting the list by status in that order */
+    statusRank: integer().generatedAlwaysAs(STATUS_RANK, { mode: 'virtual' }),
   },
-  (t) => [index('projects_client').on(t.clientId), index('projects_status').on(t.status)],
+  // one index per sort of GET /api/projects (id breaks ties, so the keyset is total), the status filter with the
+  // default sort, and a client's own list
+  (t) => [
+    index('projects_client_created').on(t.clientId, t.createdAt, t.id),
+    // sorted by client: users by name (users_name), then each client's projects by id
+    index('projects_client_id').on(t.clientId, t.id),
+    index('projects_status_created').on(t.status, t.createdAt, t.id),
+    index('projects_created').on(t.createdAt, t.id),
+    index('projects_updated').on(t.updatedAt, t.id),
+    index('projects_status_rank').on(t.statusRank, t.id),
+    index('projects_latest_total').on(t.latestTotalCents, t.id),
+    index('projects_sent_total').on(t.sentTotalCents, t.id),
+  ],
 );
 
-export const projectItems = sqliteTable('project_items', {
-  id: text().primaryKey(),
-  projectId: text()
-    .notNull()
-    .references(() => projects.id, { onDelete: 'cascade' }),
-  position: integer().notNull(),
-  spec: text({ mode: 'json' }).notNull(),
-  quantity: integer().notNull(),
-});
+export const projectItems = sqliteTable(
+  'project_items',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    position: integer().notNull(),
+    spec: text({ mode: 'json' }).notNull(),
+    quantity: integer().notNull(),
+  },
+  (t) => [index('project_items_project').on(t.projectId, t.position)],
+);
 
 /**
  * Files attached to a project. `fileName` is the uploaded name, kept as display text only; the bytes live under
@@ -241,25 +274,30 @@ export const estimateLines = sqliteTable('estimate_lines', {
   overrideReason: text(),
 });
 
-export const payments = sqliteTable('payments', {
-  id: text().primaryKey(),
-  projectId: text()
-    .notNull()
-    .references(() => projects.id),
-  estimateId: text().references(() => estimates.id),
-  kind: text({ enum: ['deposit', 'balance'] }).notNull(),
-  status: text({ enum: ['open', 'paid', 'expired', 'refunded', 'partially_refunded'] })
-    .notNull()
-    .default('open'),
-  amountCents: integer().notNull(),
-  refundedCents: integer().notNull().default(0),
-  attempt: integer().notNull().default(1),
-  stripeSessionId: text().unique(),
-  stripePaymentIntentId: text(),
-  checkoutUrl: text(),
-  createdAt: createdAt(),
-  updatedAt: createdAt(),
-});
+export const payments = sqliteTable(
+  'payments',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .references(() => projects.id),
+    estimateId: text().references(() => estimates.id),
+    kind: text({ enum: ['deposit', 'balance'] }).notNull(),
+    status: text({ enum: ['open', 'paid', 'expired', 'refunded', 'partially_refunded'] })
+      .notNull()
+      .default('open'),
+    amountCents: integer().notNull(),
+    refundedCents: integer().notNull().default(0),
+    attempt: integer().notNull().default(1),
+    stripeSessionId: text().unique(),
+    stripePaymentIntentId: text(),
+    checkoutUrl: text(),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+  },
+  // the payments page, latest first; a project's payments
+  (t) => [index('payments_created').on(t.createdAt, t.id), index('payments_project').on(t.projectId)],
+);
 
 /** Every Stripe event id once: a redelivered event is recognised and ignored. */
 export const stripeEvents = sqliteTable('stripe_events', {
@@ -274,22 +312,27 @@ export const stages = sqliteTable('stages', {
   position: integer().notNull(),
 });
 
-export const jobs = sqliteTable('jobs', {
-  id: text().primaryKey(),
-  projectId: text()
-    .notNull()
-    .unique()
-    .references(() => projects.id),
-  stageKey: text({ enum: STAGE_KEYS })
-    .notNull()
-    .references(() => stages.key),
-  position: integer().notNull().default(0),
-  builderId: text().references(() => users.id),
-  dueDate: text(),
-  hoursBudget: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
-  createdAt: createdAt(),
-  updatedAt: createdAt(),
-});
+export const jobs = sqliteTable(
+  'jobs',
+  {
+    id: text().primaryKey(),
+    projectId: text()
+      .notNull()
+      .unique()
+      .references(() => projects.id),
+    stageKey: text({ enum: STAGE_KEYS })
+      .notNull()
+      .references(() => stages.key),
+    position: integer().notNull().default(0),
+    builderId: text().references(() => users.id),
+    dueDate: text(),
+    hoursBudget: text({ mode: 'json' }).$type<Partial<Record<StageKey, number>>>().notNull().default({}),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+  },
+  // the board: open jobs by stage; the delivered ones a page at a time, the latest first
+  (t) => [index('jobs_stage_updated').on(t.stageKey, t.updatedAt, t.id)],
+);
 
 /** A job's sheets laid out again with the stock of the day (owner's action); the revision's own layout stays. */
 export const jobLayouts = sqliteTable(
@@ -332,19 +375,23 @@ export const hoursFeedbackMarks = sqliteTable('hours_feedback_marks', {
   at: integer({ mode: 'timestamp_ms' }).notNull(),
 });
 
-export const timeEntries = sqliteTable('time_entries', {
-  id: text().primaryKey(),
-  jobId: text()
-    .notNull()
-    .references(() => jobs.id, { onDelete: 'cascade' }),
-  userId: text()
-    .notNull()
-    .references(() => users.id),
-  stageKey: text().notNull(),
-  hours: real().notNull(),
-  note: text().notNull().default(''),
-  loggedAt: createdAt(),
-});
+export const timeEntries = sqliteTable(
+  'time_entries',
+  {
+    id: text().primaryKey(),
+    jobId: text()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    userId: text()
+      .notNull()
+      .references(() => users.id),
+    stageKey: text().notNull(),
+    hours: real().notNull(),
+    note: text().notNull().default(''),
+    loggedAt: createdAt(),
+  },
+  (t) => [index('time_entries_job').on(t.jobId, t.stageKey)],
+);
 
 /** The project's timeline. */
 export const projectEvents = sqliteTable(

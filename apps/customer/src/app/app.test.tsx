@@ -77,12 +77,13 @@ describe('my projects', () => {
                   status: 'requested',
                   notes: 'For the garage',
                   client: { id: 'u', name: 'Priya' },
-                  items: [{ id: 'i', spec: { design: 'assembly-bench' }, quantity: 1 }],
-                  estimates: [],
-                  timeline: [],
+                  items: [{ design: 'assembly-bench', name: 'Rolling assembly bench', quantity: 1 }],
+                  latestEstimate: null,
                   createdAt: '2026-11-20T10:00:00Z',
+                  updatedAt: '2026-11-20T10:00:00Z',
                 },
               ],
+              nextCursor: null,
             },
           ],
     );
@@ -103,7 +104,7 @@ describe('the sign-in page', () => {
       }
       if (path.endsWith('/auth/me') && signedIn)
         return [200, { user: { id: 'u', email: 'p@example.com', name: 'Priya', role: 'client', emailVerified: true } }];
-      if (path.endsWith('/projects') && signedIn) return [200, { projects: [] }];
+      if (path.includes('/projects?') && signedIn) return [200, { projects: [], nextCursor: null }];
       return [401, { error: { code: 'unauthenticated', message: 'Sign in to continue.' } }];
     });
   };

@@ -35,7 +35,7 @@ function signedInAs(role: 'owner' | 'builder' | 'client') {
                     },
                   ],
                 }
-              : { projects: [] };
+              : { projects: [], nextCursor: null };
       return new Response(JSON.stringify(body), { status: 200, headers: { 'Content-Type': 'application/json' } });
     }),
   );

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { CheckBody, CheckKey, LogTimeBody, UpdateJobBody } from '@benchwright/contracts';
+import { CheckBody, CheckKey, JobsQuery, LogTimeBody, UpdateJobBody } from '@benchwright/contracts';
 import { parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { JobsService } from './jobs.service';
@@ -10,8 +10,8 @@ export function jobsRoutes(service: JobsService): Router {
   r.get('/stages', (_req, res) => {
     res.json({ stages: service.stages() });
   });
-  r.get('/', (_req, res) => {
-    res.json({ jobs: service.list() });
+  r.get('/', (req, res) => {
+    res.json(service.list(parse(JobsQuery, req.query)));
   });
   r.get('/:id', (req, res) => {
     res.json({ job: service.get(req.params.id) });

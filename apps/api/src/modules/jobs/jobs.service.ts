@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq } from 'drizzle-orm';
-import { stageChecklist, STAGE_KEYS, type StageKey, type Traveller } from '@benchwright/pricing';
-import type { User } from '@benchwright/contracts';
+import { stageChecklist, type StageKey, type Traveller } from '@benchwright/pricing';
+import type { JobsQuery, User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, jobChecks, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
@@ -14,6 +14,7 @@ import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
 import { addEvent } from '../../lib/timeline';
 import { Conflict, Forbidden, Invalid, NotFound } from '../../lib/errors';
 import { balanceSettled, closeIfSettled, moveProject } from '../projects/lifecycle';
+import { deliveredJobs, jobView, openJobs } from './jobs.repo';
 
 /**
  * A paid deposit puts the project's job on the board, in Material, with the
@@ -36,34 +37,9 @@ export function createJobsService(
   pdfs: PdfPool,
   pdfDir?: string,
 ) {
+  /** One job as the board shows it (jobs.repo.ts). */
   function view(j: typeof jobs.$inferSelect) {
-    const project = db.select().from(projects).where(eq(projects.id, j.projectId)).get()!;
-    const client = db.select({ name: users.name }).from(users).where(eq(users.id, project.clientId)).get()!;
-    const builder = j.builderId
-      ? db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, j.builderId)).get()
-      : null;
-    const entries = db.select().from(timeEntries).where(eq(timeEntries.jobId, j.id)).all();
-    const logged = Object.fromEntries(
-      STAGE_KEYS.map((k) => [
-        k,
-        Math.round(entries.filter((e) => e.stageKey === k).reduce((s, e) => s + e.hours, 0) * 100) / 100,
-      ]),
-    );
-    const budget = j.hoursBudget;
-    return {
-      id: j.id,
-      project: { id: project.id, status: project.status, notes: project.notes },
-      clientName: client.name,
-      stage: j.stageKey,
-      position: j.position,
-      builder: builder ?? null,
-      dueDate: j.dueDate,
-      hoursBudgeted: {
-        ...budget,
-        total: Math.round(Object.values(budget).reduce((s: number, h) => s + (h ?? 0), 0) * 100) / 100,
-      },
-      hoursLogged: { ...logged, total: Math.round(entries.reduce((s, e) => s + e.hours, 0) * 100) / 100 },
-    };
+    return jobView(db, j.id)!;
   }
 
   function row(id: string) {
@@ -152,8 +128,15 @@ export function createJobsService(
     stages() {
       return db.select().from(stages).orderBy(asc(stages.position)).all();
     },
-    list() {
-      return db.select().from(jobs).orderBy(asc(jobs.position), asc(jobs.createdAt)).all().map(view);
+    /**
+     * The board: every job still in the shop, and the delivered ones a page at a time (the latest first);
+     * `stage: 'delivered'` asks for the delivered ones alone, from a cursor.
+     */
+    list(query: JobsQuery) {
+      const delivered = deliveredJobs(db, query.limit, query.cursor);
+      if (query.stage === 'delivered') return delivered;
+      if (query.cursor) throw new Invalid('A cursor pages the delivered jobs: ask with stage=delivered.');
+      return { jobs: [...openJobs(db), ...delivered.jobs], nextCursor: delivered.nextCursor };
     },
     get(id: string) {
       return view(row(id));

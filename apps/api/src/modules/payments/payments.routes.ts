@@ -1,5 +1,5 @@
 import express, { Router } from 'express';
-import { ConfirmPaymentBody, RefundBody } from '@benchwright/contracts';
+import { ConfirmPaymentBody, PaymentsQuery, RefundBody } from '@benchwright/contracts';
 import { parse } from '../../lib/errors';
 import { currentUser } from '../../middleware/session';
 import type { PaymentsService } from './payments.service';
@@ -7,8 +7,8 @@ import type { PaymentsService } from './payments.service';
 /** Mounted behind requireRole('owner'). */
 export function paymentsRoutes(service: PaymentsService): Router {
   const r = Router();
-  r.get('/', (_req, res) => {
-    res.json({ payments: service.list() });
+  r.get('/', (req, res) => {
+    res.json(service.list(parse(PaymentsQuery, req.query)));
   });
   r.post('/:id/refund', async (req, res) => {
     const { amountCents } = parse(RefundBody, req.body ?? {});

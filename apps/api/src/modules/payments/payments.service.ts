@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import { and, desc, eq, lt } from 'drizzle-orm';
+import { and, desc, eq, lt, sql } from 'drizzle-orm';
 import type Stripe from 'stripe';
-import { canDo, type User } from '@benchwright/contracts';
+import { canDo, type PaymentsQuery, type User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, payments, projectEvents, projects, stripeEvents, users } from '../../db/schema';
 import { loadPricing } from '../../lib/engine';
@@ -14,6 +14,7 @@ import {
   refundMail,
 } from '../../lib/mail-templates';
 import { addEvent } from '../../lib/timeline';
+import { decodeCursor, encodeCursor } from '../../lib/cursor';
 import { Conflict, Invalid, NotFound, Unavailable } from '../../lib/errors';
 import { estimateNumber } from '../estimates/estimates.service';
 import { openJob } from '../jobs/jobs.service';
@@ -430,8 +431,10 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
     },
 
     /** Every payment, newest first, with its client; no card processor secrets, only its ids. */
-    list() {
-      return db
+    /** The payments, the latest first, a keyset page at a time (created_at, id). */
+    list(query: PaymentsQuery) {
+      const at = query.cursor ? decodeCursor(query.cursor, 'payments', 'desc', 'number') : null;
+      const rows = db
         .select({
           id: payments.id,
           projectId: payments.projectId,
@@ -446,9 +449,20 @@ export function createPaymentsService({ db, stripe, webhookSecret, portalUrl, sh
         .from(payments)
         .innerJoin(projects, eq(projects.id, payments.projectId))
         .innerJoin(users, eq(users.id, projects.clientId))
-        .orderBy(desc(payments.createdAt))
-        .all()
-        .map((p) => ({ ...p, createdAt: p.createdAt.toISOString() }));
+        .where(at ? sql`(${payments.createdAt}, ${payments.id}) < (${at.key}, ${at.id})` : undefined)
+        .orderBy(desc(payments.createdAt), desc(payments.id))
+        .limit(query.limit + 1)
+        .all();
+      const more = rows.length > query.limit;
+      const page = more ? rows.slice(0, query.limit) : rows;
+      const last = page.at(-1);
+      return {
+        payments: page.map((p) => ({ ...p, createdAt: p.createdAt.toISOString() })),
+        nextCursor:
+          more && last
+            ? encodeCursor({ sort: 'payments', dir: 'desc', key: last.createdAt.getTime(), id: last.id })
+            : null,
+      };
     },
 
     /**

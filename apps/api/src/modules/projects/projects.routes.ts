@@ -1,5 +1,5 @@
 import { Router, type RequestHandler } from 'express';
-import { CommentBody, CreateProjectBody } from '@benchwright/contracts';
+import { CommentBody, CreateProjectBody, ProjectListQuery } from '@benchwright/contracts';
 import type { User } from '@benchwright/contracts';
 import { Forbidden, Invalid, parse } from '../../lib/errors';
 import { limiter } from '../../middleware/rate-limit';
@@ -24,8 +24,8 @@ export function projectsRoutes(
     key: (_req, res) => `user ${currentUser(res).id}`,
     message: 'That is a lot of comments in a minute; wait a moment and send it again.',
   });
-  r.get('/', (_req, res) => {
-    res.json({ projects: service.list(currentUser(res)) });
+  r.get('/', (req, res) => {
+    res.json(service.list(currentUser(res), parse(ProjectListQuery, req.query)));
   });
   r.get('/:id', (req, res) => {
     res.json({ project: service.get(currentUser(res), req.params.id) });

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
-import { asc, desc, eq, inArray } from 'drizzle-orm';
-import { IN_SHOP_STATUSES, isInShop, type Project, type User } from '@benchwright/contracts';
+import { asc, desc, eq } from 'drizzle-orm';
+import { isInShop, type Project, type User } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
 import { checkItems, loadPricing, projectSpecs, travellerFor } from '../../lib/engine';
@@ -14,6 +14,7 @@ import { queueRequestNotice } from '../../lib/request-notice';
 import { addEvent, timelineFor } from '../../lib/timeline';
 import { Forbidden, NotFound } from '../../lib/errors';
 import { listUploads } from '../uploads/uploads.repo';
+import { listProjects, type ProjectListOptions } from './projects.repo';
 
 export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string }, pool: EnginePool) {
   function toProject(row: typeof projects.$inferSelect, viewer: User): Project {
@@ -77,18 +78,9 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
   }
 
   return {
-    list(viewer: User): Project[] {
-      const q = db.select().from(projects);
-      const rows =
-        viewer.role === 'owner'
-          ? q.orderBy(desc(projects.createdAt)).all()
-          : viewer.role === 'client'
-            ? q.where(eq(projects.clientId, viewer.id)).orderBy(desc(projects.createdAt)).all()
-            : q
-                .where(inArray(projects.status, [...IN_SHOP_STATUSES]))
-                .orderBy(desc(projects.createdAt))
-                .all();
-      return rows.map((r) => forViewer(r, viewer));
+    /** A page of summaries (no timelines, no specs): projects.repo.ts. */
+    list(viewer: User, opts: ProjectListOptions) {
+      return listProjects(db, viewer, opts);
     },
 
     /** A project the viewer may not see answers 404, as if it did not exist. */

@@ -1,7 +1,7 @@
-import type { Project, ProjectStatus } from '@benchwright/contracts';
+import type { ProjectStatus, ProjectSummary } from '@benchwright/contracts';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Link } from 'react-router-dom';
-import { Money, Notice } from '@benchwright/ui';
+import { Button, Money, Notice } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useProjects } from '../api/get-projects';
 
@@ -25,14 +25,14 @@ export function itemName(spec: unknown): string {
   return slug && slug in designs ? designs[slug as DesignSlug].name : 'Custom piece';
 }
 
-function ProjectRow({ p }: { p: Project }) {
-  const latest = p.estimates.at(-1);
+function ProjectRow({ p }: { p: ProjectSummary }) {
+  const latest = p.latestEstimate;
   return (
     <li className="border-b border-rule py-4 last:border-0">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-lg font-semibold">
           <Link to={paths.project.getHref(p.id)} className="text-ink underline-offset-4 hover:underline">
-            {p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${itemName(i.spec)}`).join(', ')}
+            {p.items.map((i) => `${i.quantity > 1 ? `${i.quantity} x ` : ''}${i.name}`).join(', ')}
           </Link>
         </h3>
         <span className="rounded bg-sage-light px-2 py-0.5 text-sm">{STATUS_WORDS[p.status]}</span>
@@ -51,21 +51,36 @@ function ProjectRow({ p }: { p: Project }) {
   );
 }
 
+/** The client's projects, newest first, a page at a time. */
 export function ProjectList() {
-  const q = useProjects();
+  const q = useProjects({ sort: 'created', dir: 'desc', limit: 20 });
   if (q.isPending) return <p>Loading your projects…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
-  if (!q.data.length)
+  const projects = q.data.pages.flatMap((p) => p.projects);
+  if (!projects.length)
     return (
       <p className="text-ink-soft">
         No projects yet. When you ask the shop for an estimate, it appears here with every step that follows.
       </p>
     );
   return (
-    <ul aria-label="My projects">
-      {q.data.map((p) => (
-        <ProjectRow key={p.id} p={p} />
-      ))}
-    </ul>
+    <>
+      <ul aria-label="My projects">
+        {projects.map((p) => (
+          <ProjectRow key={p.id} p={p} />
+        ))}
+      </ul>
+      {q.hasNextPage ? (
+        <Button
+          type="button"
+          variant="quiet"
+          className="mt-3"
+          disabled={q.isFetchingNextPage}
+          onClick={() => void q.fetchNextPage()}
+        >
+          {q.isFetchingNextPage ? 'Loading…' : 'Show older projects'}
+        </Button>
+      ) : null}
+    </>
   );
 }

@@ -1,4 +1,4 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { infiniteQueryOptions, useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@benchwright/ui';
 
 export interface Payment {
@@ -13,14 +13,20 @@ export interface Payment {
   createdAt: string;
 }
 
+/** The latest first, a page at a time (`GET /api/payments?cursor=`). */
 export const paymentsQueryOptions = () =>
-  queryOptions({
+  infiniteQueryOptions({
     queryKey: ['payments'],
-    queryFn: async () => (await api<{ payments: Payment[] }>('/payments')).payments,
+    queryFn: ({ pageParam }) =>
+      api<{ payments: Payment[]; nextCursor: string | null }>(
+        `/payments${pageParam ? `?cursor=${encodeURIComponent(pageParam)}` : ''}`,
+      ),
+    initialPageParam: null as string | null,
+    getNextPageParam: (last) => last.nextCursor ?? null,
   });
 /** Polls while a refund is on its way (the card processor confirms it by webhook). */
 export const usePayments = (waiting: boolean) =>
-  useQuery({ ...paymentsQueryOptions(), refetchInterval: waiting ? 1500 : false });
+  useInfiniteQuery({ ...paymentsQueryOptions(), refetchInterval: waiting ? 1500 : false });
 
 export function useRefund() {
   const qc = useQueryClient();

@@ -63,9 +63,10 @@ export function PaymentsTable() {
   const [asked, setAsked] = useState<Record<string, number>>({});
   const waiting = Object.keys(asked).length > 0;
   const q = usePayments(waiting);
+  const rows = q.data?.pages.flatMap((p) => p.payments) ?? [];
   // a refund is confirmed once the webhook has raised the refunded amount
   const pending = Object.entries(asked).filter(
-    ([id, before]) => (q.data?.find((p) => p.id === id)?.refundedCents ?? before) === before,
+    ([id, before]) => (rows.find((p) => p.id === id)?.refundedCents ?? before) === before,
   );
   useEffect(() => {
     if (waiting && pending.length === 0) setAsked({});
@@ -75,11 +76,11 @@ export function PaymentsTable() {
   return (
     <>
       {pending.length ? <Notice>Refund asked of the card processor; the table updates when it confirms.</Notice> : null}
-      {!q.data.length ? <p className="text-ink-soft">No payments yet.</p> : null}
+      {!rows.length ? <p className="text-ink-soft">No payments yet.</p> : null}
       <table className="w-full text-left" aria-label="Payments">
         <TableHead columns={['Date', 'Client', 'For', 'Amount', 'Refunded', 'Status', 'Refund']} />
         <tbody>
-          {q.data.map((p) => (
+          {rows.map((p) => (
             <tr key={p.id} className="border-b border-rule/50 align-top">
               <td className="py-2">{new Date(p.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })}</td>
               <td>{p.clientName}</td>
@@ -98,6 +99,17 @@ export function PaymentsTable() {
           ))}
         </tbody>
       </table>
+      {q.hasNextPage ? (
+        <Button
+          type="button"
+          variant="quiet"
+          className="mt-3"
+          disabled={q.isFetchingNextPage}
+          onClick={() => void q.fetchNextPage()}
+        >
+          {q.isFetchingNextPage ? 'Loading…' : 'Load more'}
+        </Button>
+      ) : null}
     </>
   );
 }
