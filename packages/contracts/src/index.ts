@@ -6,6 +6,8 @@ import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS, type EstimateStatus } 
 export { LINE_GROUPS, LINE_GROUP_LABELS, type LineGroup } from '@benchwright/pricing/geometry';
 export { isPlainText, isSingleLine, multiLine, singleLine } from './text';
 export * from './lifecycle';
+export * from './labels';
+export { formatDate, formatDateTime } from './format';
 
 /** Every error the API answers with (DESIGN.md section 10). */
 export const ERROR_CODES = [
