@@ -105,7 +105,7 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   // each sheet is drawn to scale with its parts labelled
   const sheet = paper.getByRole('figure', { name: /sheet 1$/ }).first();
   await expect(sheet.locator('svg rect').first()).toBeVisible();
-  await expect(paper.getByText(/Sheet 1: \d+ % used, \d+ cuts/).first()).toBeVisible();
+  await expect(paper.getByText(/Sheet 1: \d+% used, \d+ cuts/).first()).toBeVisible();
   await expect(paper.getByRole('table', { name: 'Pick list' }).getByRole('row').nth(1)).toBeVisible();
   await expect(paper.getByText(/riving knife/)).toBeVisible();
   await expect(paper.getByText(/anchor this/i)).toBeVisible();

@@ -262,6 +262,10 @@ export interface EstimateView {
   number: string;
   revision: number;
   status: EstimateStatus;
+  /** the shop's units: what the figures a person reads are written in */
+  units: 'in' | 'mm';
+  /** a superseded revision: the revision sent after it */
+  replacedBy: number | null;
   version: number;
   validUntil: string | null;
   sentAt: string | null;

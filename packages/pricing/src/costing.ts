@@ -342,7 +342,7 @@ function lumberLines(all: readonly JobPart[], book: PriceBook, settings: ShopSet
     return line(
       'solid_wood',
       id,
-      `${lum.name}, with ${Math.round(settings.lumberWaste * 100)} % waste`,
+      `${lum.name}, with ${Math.round(settings.lumberWaste * 100)}% waste`,
       r3(bf * (1 + settings.lumberWaste)),
       'bd ft',
       lum.pricePerBoardFootCents,
@@ -361,7 +361,7 @@ function bandingLines(all: readonly JobPart[], book: PriceBook, settings: ShopSe
     return line(
       'edge_banding',
       id,
-      `${b.name}, with ${Math.round(settings.bandingWaste * 100)} % waste`,
+      `${b.name}, with ${Math.round(settings.bandingWaste * 100)}% waste`,
       r3(metres * (1 + settings.bandingWaste)),
       'm',
       b.pricePerMetreCents,
@@ -436,7 +436,7 @@ function consumablesLines(materialLines: readonly EstimateLine[], settings: Shop
     {
       group: 'consumables',
       ref: 'consumables',
-      description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)} % of materials)`,
+      description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)}% of materials)`,
       quantity: 1,
       unit: 'lot',
       unitPriceCents: times(c, 1 + markup),

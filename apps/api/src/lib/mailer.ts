@@ -3,19 +3,24 @@ import { resolve } from 'node:path';
 import { and, asc, eq, lte } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../db/client';
-import { outbox } from '../db/schema';
-import type { MailContent } from './mail-templates';
+import { outbox, shopSettings } from '../db/schema';
+import { signMail, type MailContent } from './mail-templates';
 
-type Tx = Pick<Db, 'insert'>;
+type Tx = Pick<Db, 'insert' | 'select'>;
 
-/** Queues a message in the caller's transaction; the worker sends it. Attachment paths are relative to the worker's
- * `filesDir` (the PDF folder). */
+/** Queues a message in the caller's transaction, signed with the shop's name, address and phone as they stand
+ * in the shop settings; the worker sends it. Attachment paths are relative to the worker's `filesDir` (the PDF
+ * folder). */
 export function queueMail(
   tx: Tx,
   to: string,
-  content: MailContent,
+  unsigned: MailContent,
   attachments: { filename: string; path: string; contentType: string }[] = [],
 ): string {
+  const shop = tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
+  const content = shop
+    ? signMail(unsigned, { name: shop.shopName, address: shop.address, phone: shop.phone })
+    : unsigned;
   const id = randomUUID();
   tx.insert(outbox)
     .values({

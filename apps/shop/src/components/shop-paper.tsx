@@ -5,7 +5,7 @@
 import { Drawing, Length, Panel, TableHead } from '@benchwright/ui';
 import type { LengthUnit, Traveller } from '@benchwright/pricing/geometry';
 
-const pct = (r: number) => `${Math.round(r * 100)} %`;
+const pct = (r: number) => `${Math.round(r * 100)}%`;
 
 /** What the panels need: the engine's traveller, without the hours and cautions, and the shop's units. */
 export type Layouts = Pick<Traveller, 'pieces' | 'materials' | 'pickList' | 'bandingMetres'> & { units: LengthUnit };

@@ -7,6 +7,7 @@ import {
   type Drawing,
   type LineGroup,
 } from '@benchwright/pricing';
+import { formatDate } from '@benchwright/contracts';
 import { dollars } from '../mail-templates';
 import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
@@ -75,7 +76,7 @@ export const CAUTIONS = [
 ];
 
 function EstimateDocument({ d }: { d: EstimatePdfInput }) {
-  const fmtDate = (x: Date) => x.toLocaleDateString('en-US', { dateStyle: 'long' });
+  const fmtDate = (x: Date) => formatDate(x);
   const groups = LINE_GROUPS.filter((g) => d.lines.some((l) => l.group === g));
   const qty = (q: number) => (Number.isInteger(q) ? String(q) : q.toFixed(2));
   return (
@@ -170,7 +171,7 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
             <Text>{dollars(d.totals.totalCents)}</Text>
           </View>
           <View style={s.totalRow}>
-            <Text>Deposit ({Math.round(d.depositRate * 100)} %)</Text>
+            <Text>Deposit ({Math.round(d.depositRate * 100)}%)</Text>
             <Text>{dollars(d.totals.depositCents)}</Text>
           </View>
           <View style={s.totalRow}>

@@ -144,7 +144,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           m.sheets.map((sh) => (
             <View key={`${m.materialName}-${sh.number}`} break wrap={false}>
               <Text style={s.h2}>
-                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)} % used,{' '}
+                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)}% used,{' '}
                 {sh.cuts.length} cuts
               </Text>
               <PdfDrawing drawing={sh.drawing} width={540} />

@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { and, asc, desc, eq, ne } from 'drizzle-orm';
-import type { User } from '@benchwright/contracts';
+import { and, asc, desc, eq, gt, ne } from 'drizzle-orm';
+import { ESTIMATE_STATUS_LABELS, formatDate, replacedBy as replacedByWords, type User } from '@benchwright/contracts';
 import { designs, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import {
@@ -83,6 +83,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
     const owner = viewer.role === 'owner';
     const engine = e.engine as EngineRecord | null;
     return {
+      units: shopUnits(),
+      replacedBy: e.status === 'superseded' ? replacedBy(e) : null,
       id: e.id,
       projectId: e.projectId,
       number: estimateNumber(e.projectId),
@@ -117,6 +119,25 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
       checks: engine?.checks ?? [],
       ...(owner && engine ? { layouts: engine.layouts, costCents: lines.reduce((a, l) => a + l.costCents, 0) } : {}),
     };
+  }
+
+  /** The shop's units, which every figure a person reads follows (the settings row only, not the price book). */
+  function shopUnits(): 'in' | 'mm' {
+    const s = db.select({ settings: shopSettings.settings }).from(shopSettings).where(eq(shopSettings.id, 1)).get();
+    return s?.settings.units ?? 'in';
+  }
+
+  /** The revision sent after a superseded one (the next one the client was sent), for "Replaced by revision N". */
+  function replacedBy(e: EstimateRow): number | null {
+    const later = db
+      .select({ revision: estimates.revision })
+      .from(estimates)
+      .where(
+        and(eq(estimates.projectId, e.projectId), gt(estimates.revision, e.revision), ne(estimates.status, 'draft')),
+      )
+      .orderBy(asc(estimates.revision))
+      .get();
+    return later?.revision ?? null;
   }
 
   /** The project's accepted revision other than `id`, if any: while one stands, no other is sent or accepted. */
@@ -482,8 +503,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
       if (e.status !== 'sent')
         throw new Conflict(
           e.status === 'superseded'
-            ? `Revision ${e.revision} was replaced by a newer one; accept the latest revision.`
-            : `Revision ${e.revision} is ${e.status} and cannot be accepted.`,
+            ? `${replacedByWords(replacedBy(e) ?? e.revision + 1)}: accept the latest revision.`
+            : `Revision ${e.revision} is ${ESTIMATE_STATUS_LABELS[e.status].toLowerCase()} and cannot be accepted.`,
         );
       const accepted = otherAccepted(e.projectId, e.id);
       if (accepted)
@@ -496,7 +517,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
           addEvent(tx, e.projectId, 'estimate_expired', `Estimate revision ${e.revision} expired unaccepted.`);
         });
         throw new Conflict(
-          `Revision ${e.revision} expired on ${e.validUntil.toLocaleDateString('en-US', { dateStyle: 'long' })}; ask the shop for a new one.`,
+          `Revision ${e.revision} expired on ${formatDate(e.validUntil)}; ask the shop for a new one.`,
         );
       }
       const at = new Date();

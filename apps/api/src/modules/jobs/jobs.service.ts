@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { asc, desc, eq } from 'drizzle-orm';
 import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
-import type { User } from '@benchwright/contracts';
+import { formatDate, type User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
@@ -146,7 +146,7 @@ export function createJobsService(db: Db, portalUrl: string, pool: EnginePool) {
       const again = latestRelayout(db, j.id);
       const paper = again?.record.traveller ?? record.traveller;
       const budget = roundedHours(j.hoursBudget);
-      const on = (iso: string) => new Date(iso).toLocaleDateString('en-US', { dateStyle: 'long', timeZone: 'UTC' });
+      const on = (iso: string) => formatDate(iso);
       return {
         job: view(j),
         ...paper,

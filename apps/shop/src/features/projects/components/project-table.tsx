@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { Project, ProjectStatus } from '@benchwright/contracts';
+import { SHOP_PROJECT_STATUS_LABELS, type Project, type ProjectStatus } from '@benchwright/contracts';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Money, Notice } from '@benchwright/ui';
 import { useProjects } from '../api/get-projects';
@@ -49,7 +49,7 @@ export function ProjectTable({ empty, linkTo }: { empty: string; linkTo?: (proje
                 )}
               </td>
               <td className="py-2">{what(p)}</td>
-              <td className="py-2">{p.status.replace(/_/g, ' ')}</td>
+              <td className="py-2">{SHOP_PROJECT_STATUS_LABELS[p.status]}</td>
               <td className="py-2 text-right">{e ? <Money cents={e.totals.totalCents} /> : '—'}</td>
             </tr>
           );
