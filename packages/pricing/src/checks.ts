@@ -1,6 +1,6 @@
 import type { CutList, CutPart } from './cut-list';
 import type { PriceBook, ShopSettings } from './price-book';
-import { toInches, toMm } from './units';
+import { formatAreaLoad, formatMeasure, formatWeight, LB_PER_KG, toInches, toMm, type LengthUnit } from './units';
 
 export interface ShelfSagInput {
   spanMm: number;
@@ -13,13 +13,18 @@ export interface ShelfSagInput {
   creepFactor?: number;
   /** allowable sag is span / limitRatio; 600 is 0.02 in per foot */
   limitRatio?: number;
+  /** the units the message speaks in: inches and lb/ft² ('in'), or millimetres and kPa ('mm'; the default) */
+  unit?: LengthUnit;
 }
 
 export interface ShelfSagResult {
   sagMm: number;
   allowableMm: number;
   ok: boolean;
+  /** the shop's wording: the figures, the load assumed and the remedies of the trade */
   message: string;
+  /** the client's wording when the shelf sags too much: what they can do about it */
+  clientMessage?: string;
 }
 
 /**
@@ -50,11 +55,26 @@ export function shelfSag(input: ShelfSagInput): ShelfSagResult {
   const sagMm = ((5 * w * L ** 4) / (384 * E * I)) * creep;
   const allowableMm = L / ratio;
   const ok = sagMm <= allowableMm + 1e-9;
-  const spanIn = toInches(L).toFixed(1);
-  const message = ok
-    ? `A ${spanIn} in shelf sags about ${sagMm.toFixed(1)} mm under the design load, within the ${allowableMm.toFixed(1)} mm allowed.`
-    : `A ${spanIn} in shelf would sag about ${sagMm.toFixed(1)} mm under the design load, more than the ${allowableMm.toFixed(1)} mm allowed: use a thicker shelf, add a centre support or partition to shorten the span (to ${toInches(maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio: ratio, creepFactor: creep })).toFixed(0)} in or less), or glue a solid-wood edge strip under the front edge.`;
-  return { sagMm, allowableMm, ok, message };
+  // one unit system throughout, and the load it assumed stated
+  const unit = input.unit ?? 'mm';
+  const span = (mm: number, round: (x: number) => number = (x) => Math.round(x * 10) / 10) =>
+    unit === 'in' ? `${round(toInches(mm))} in` : `${round(mm)} mm`;
+  const load = formatAreaLoad(loadKPa, unit);
+  if (ok)
+    return {
+      sagMm,
+      allowableMm,
+      ok,
+      message: `A ${span(L)} shelf sags about ${formatMeasure(sagMm, unit)} under a load of ${load}, within the ${formatMeasure(allowableMm, unit)} allowed.`,
+    };
+  const maxSpan = maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio: ratio, creepFactor: creep });
+  return {
+    sagMm,
+    allowableMm,
+    ok,
+    message: `A ${span(L)} shelf would sag about ${formatMeasure(sagMm, unit)} under a load of ${load}, more than the ${formatMeasure(allowableMm, unit)} allowed: use a thicker shelf, add a center support or partition to shorten the span (to ${span(maxSpan, Math.floor)} or less), or glue a solid-wood edge strip under the front edge.`,
+    clientMessage: `A shelf ${span(L)} wide would bend under a full load (${load}, about what books weigh): add a bay, or ask us about a stiffer shelf.`,
+  };
 }
 
 /**
@@ -87,6 +107,8 @@ export interface CasterCheckInput {
   workingLoadKg: number;
   casters: number;
   ratedLoadKg: number;
+  /** the units the message speaks in: pounds ('in') or kilograms ('mm'; the default) */
+  unit?: LengthUnit;
 }
 
 /**
@@ -94,7 +116,7 @@ export interface CasterCheckInput {
  * the floor (uneven floors, common practice).
  * @example casterCheck({ pieceKg: 120, workingLoadKg: 200, casters: 8, ratedLoadKg: 100 }).ok // true
  */
-export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: CasterCheckInput): {
+export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg, unit = 'mm' }: CasterCheckInput): {
   perCasterKg: number;
   ok: boolean;
   message: string;
@@ -102,12 +124,14 @@ export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg }: Ca
   if (casters < 2) throw new RangeError('a caster check needs at least two casters');
   const perCasterKg = (pieceKg + workingLoadKg) / (casters - 1);
   const ok = perCasterKg <= ratedLoadKg;
+  const w = (kg: number) => formatWeight(kg, unit);
+  const atLeast = unit === 'in' ? `${Math.ceil(perCasterKg * LB_PER_KG)} lb` : `${Math.ceil(perCasterKg)} kg`;
   return {
     perCasterKg,
     ok,
     message: ok
-      ? `Each caster carries up to ${perCasterKg.toFixed(0)} kg (one assumed off the floor), within its ${ratedLoadKg} kg rating.`
-      : `Each caster would carry ${perCasterKg.toFixed(0)} kg with one off the floor, more than its ${ratedLoadKg} kg rating: fit casters rated ${Math.ceil(perCasterKg)} kg or more, add casters, or lower the working load.`,
+      ? `Each caster carries up to ${w(perCasterKg)} (one assumed off the floor), within its ${w(ratedLoadKg)} rating.`
+      : `Each caster would carry ${w(perCasterKg)} with one off the floor, more than its ${w(ratedLoadKg)} rating: fit casters rated ${atLeast} or more, add casters, or lower the working load.`,
   };
 }
 
@@ -118,7 +142,10 @@ export type CheckLevel = 'error' | 'warning' | 'caution';
 export interface Check {
   code: string;
   level: CheckLevel;
+  /** the shop's wording */
   message: string;
+  /** the client's wording, when the shop's asks for a remedy only the shop can carry out */
+  clientMessage?: string;
   /** field the check is about, when there is one */
   path?: string;
 }
@@ -165,6 +192,7 @@ export function pieceChecks(
       modulusMPa: mat.modulusMPa,
       loadKPa: settings.shelfLoadKPa,
       creepFactor: settings.shelfCreepFactor,
+      unit: settings.units,
     };
     const hard = shelfSag({ ...base, limitRatio: 144 });
     const soft = shelfSag({ ...base, limitRatio: settings.shelfSagRatio });
@@ -174,8 +202,16 @@ export function pieceChecks(
         level: 'error',
         path: 'bays',
         message: `${mat.name} cannot carry this span: ${hard.message}`,
+        ...(hard.clientMessage ? { clientMessage: hard.clientMessage } : {}),
       });
-    else if (!soft.ok) checks.push({ code: 'shelf_sag', level: 'warning', path: 'bays', message: soft.message });
+    else if (!soft.ok)
+      checks.push({
+        code: 'shelf_sag',
+        level: 'warning',
+        path: 'bays',
+        message: soft.message,
+        ...(soft.clientMessage ? { clientMessage: soft.clientMessage } : {}),
+      });
   }
   if (g.casters > 0 && g.casterId) {
     const caster = book.hardware.find((h) => h.id === g.casterId);
@@ -185,6 +221,7 @@ export function pieceChecks(
         workingLoadKg: g.workingLoadKg,
         casters: g.casters,
         ratedLoadKg: caster.ratedLoadKg,
+        unit: settings.units,
       });
       checks.push({ code: 'caster_load', level: c.ok ? 'caution' : 'error', path: 'casterId', message: c.message });
     }
@@ -218,6 +255,14 @@ export function pieceChecks(
       level: 'caution',
       message:
         'Hang wall cabinets from the rail with screws into studs or fasteners rated for the wall; have built-ins and anything electrical installed by licensed trades under local code.',
+    });
+  // a built-in stands on the floor fixed to the wall: a base cabinet under a counter, a bookcase in an alcove
+  if (!g.freeStanding && !g.wallHung && !g.mobile)
+    checks.push({
+      code: 'built_in',
+      level: 'caution',
+      message:
+        'Built in: level and shim it, then fasten it to the wall studs through the back rail; any plumbing and electrical work around it is for licensed trades under local code.',
     });
   return { checks, massKg, needsAntiTip };
 }

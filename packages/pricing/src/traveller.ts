@@ -4,6 +4,7 @@ import type { PriceBook, ShopSettings, StageKey } from './price-book';
 import { designs } from './designs';
 import { sheetLayoutDrawing, type Drawing } from './drawings';
 import { bandingMetres } from './labour';
+import { toMm, type LengthUnit } from './units';
 
 /**
  * The shop's usual safety cautions for the traveller (DESIGN.md section 7).
@@ -12,7 +13,11 @@ import { bandingMetres } from './labour';
  */
 export const SHOP_CAUTIONS: readonly string[] = [
   'Eye and ear protection at every machine; a dust mask or respirator when cutting MDF or sanding, with the dust collector running.',
+  'Full 4 x 8 sheets: carry them with two people or on a sheet cart, and set up infeed and outfeed support before breaking one down at the saw.',
   'Table saw: blade guard and riving knife on, a push stick for narrow rips, and stand out of line with the blade.',
+  'Never rip a piece narrower than the blade guard and riving knife allow (the saw’s manual says how narrow): cut it from a wider board, or hold it in a jig.',
+  'Pocket holes: clamp the work in the jig, keep fingers clear of the bit, and let the drill stop before lifting it out.',
+  'Edge bander: the glue pot and the fresh glue line are hot enough to burn; keep hands clear of the feed and let it cool before cleaning.',
   'Unplug the machine before changing a blade or bit. Feed the router against the bit’s rotation and clamp small work.',
   'Nailers: keep hands clear of the nose and disconnect the air before clearing a jam.',
   'Finishing: ventilate, wear the respirator the finish’s safety data sheet names, and keep sparks and flames away from solvents.',
@@ -42,8 +47,44 @@ export interface TravellerSheet {
   cuts: Cut[];
 }
 
+/**
+ * What the builder needs to know of the piece before its parts: overall size,
+ * the finish (its name carries the sheen) and coats, the fronts' reveal and
+ * overlay, and the joinery. Optional: revisions recorded before it have none.
+ */
+export interface TravellerPiece {
+  title: string;
+  quantity: number;
+  parts: TravellerPart[];
+  widthMm?: number;
+  heightMm?: number;
+  depthMm?: number;
+  finish?: { name: string; coats: number } | null;
+  revealMm?: number;
+  overlayMm?: number;
+  joinery?: string[];
+}
+
+/**
+ * The piece's joinery in the shop's words, from its parts.
+ * @example joineryOf(parts, 'in') // ['Dadoes and grooves: 6, 1/4 in deep, glued', 'Pocket screws: 16 holes']
+ */
+export function joineryOf(
+  parts: readonly { quantity: number; dados: number; pocketHoles: number }[],
+  unit: LengthUnit = 'in',
+): string[] {
+  const dados = parts.reduce((s, p) => s + p.quantity * p.dados, 0);
+  const pockets = parts.reduce((s, p) => s + p.quantity * p.pocketHoles, 0);
+  // the carcass dado depth of the cut list (cut-list.ts): 1/4 in
+  const depth = unit === 'in' ? '1/4 in' : `${Math.round(toMm(0.25) * 10) / 10} mm`;
+  return [
+    ...(dados ? [`Dadoes and grooves: ${dados}, ${depth} deep, glued`] : []),
+    ...(pockets ? [`Pocket screws: ${pockets} ${pockets === 1 ? 'hole' : 'holes'}`] : []),
+  ];
+}
+
 export interface Traveller {
-  pieces: { title: string; quantity: number; parts: TravellerPart[] }[];
+  pieces: TravellerPiece[];
   materials: {
     materialName: string;
     sheetCount: number;
@@ -71,11 +112,22 @@ export interface Traveller {
  * t.materials[0].sheets[0].drawing // one sheet to scale, for toSvg or the PDF
  */
 export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings): Traveller {
+  const finishOf = (spec: { finishId?: string | null; coats?: number | null }) => {
+    const f = spec.finishId ? book.finishes.find((x) => x.id === spec.finishId) : undefined;
+    return f ? { name: f.name, coats: spec.coats ?? f.defaultCoats } : null;
+  };
   const materialName = (id: string) =>
     book.sheetGoods.find((s) => s.id === id)?.name ?? book.lumber.find((l) => l.id === id)?.name ?? id;
   const pieces = e.pieces.map((p) => ({
     title: designs[p.spec.design].name,
     quantity: p.quantity,
+    widthMm: p.spec.widthMm,
+    heightMm: p.spec.heightMm,
+    depthMm: p.spec.depthMm,
+    finish: finishOf(p.spec),
+    revealMm: settings.revealMm,
+    overlayMm: settings.overlayMm,
+    joinery: joineryOf(p.parts, settings.units),
     parts: p.parts.map((part) => ({
       name: part.name,
       materialName: materialName(part.materialId),
