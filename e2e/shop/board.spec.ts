@@ -94,9 +94,9 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   await signIn(page, SHOP, 'idris@fernhill.example');
   await page.goto('/board');
   const card = page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
-  await card.getByRole('link', { name: /Traveller/ }).click();
-  const paper = page.getByRole('article', { name: 'Traveller for Tomasz Wierzbicki' });
-  await expect(paper.getByRole('heading', { name: 'Traveller: Tomasz Wierzbicki' })).toBeVisible({
+  await card.getByRole('link', { name: /Traveler/ }).click();
+  const paper = page.getByRole('article', { name: 'Traveler for Tomasz Wierzbicki' });
+  await expect(paper.getByRole('heading', { name: 'Traveler: Tomasz Wierzbicki' })).toBeVisible({
     timeout: patient(60_000),
   });
   const cutList = paper.getByRole('table', { name: 'Cut list: Bookcase' });

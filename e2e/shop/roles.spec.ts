@@ -56,7 +56,7 @@ test.describe('the owner', () => {
     await page.goto('/board');
     await page
       .getByRole('article', { name: 'Job for Tomasz Wierzbicki' })
-      .getByRole('link', { name: /Traveller/ })
+      .getByRole('link', { name: /Traveler/ })
       .click();
     const form = page.getByRole('form', { name: 'Assign the job' });
     await expect(form.getByLabel('Builder')).toHaveValue(/.+/);

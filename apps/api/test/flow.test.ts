@@ -391,7 +391,14 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(pdf.status).toBe(200);
     expect(pdf.headers['content-type']).toBe('application/pdf');
     const text = pdfText(pdf.body as Buffer);
-    expect(text).toContain(`Traveller: ${t.job.clientName}`);
+    expect(text).toContain(`Traveler: ${t.job.clientName}`);
+    // in the imperial demo shop's words: pounds, banding by the foot, actual thicknesses to 1/32 in, the piece
+    expect(text).toMatch(/About \d+ lb finished/);
+    expect(text).toMatch(/[\d.]+ ft of edges to band/);
+    expect(text).toMatch(/\b\d+\/32"/);
+    expect(text).toMatch(/Piece[\s\S]*Overall[\s\S]*Finish[\s\S]*Fronts[\s\S]*Joinery/);
+    expect(text).toMatch(/4 x 8 sheets/);
+    expect(text).not.toMatch(/\bkg\b| m of edges/);
     expect(text).toContain(t.pieces[0].parts[0].name);
     expect(text).toMatch(new RegExp(`sheet 1 of ${t.materials[0].sheetCount}`));
     expect(text).toMatch(/riving knife/);

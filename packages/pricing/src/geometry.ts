@@ -16,3 +16,4 @@ export { PriceBook, ShopSettings, STAGE_KEYS, StageKey } from './price-book';
 export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';
 export type { LineGroup } from './line-groups';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';
+export { joineryOf, pieceSummary, type TravellerPiece } from './piece-summary';

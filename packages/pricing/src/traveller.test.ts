@@ -3,6 +3,7 @@ import { estimate } from './costing';
 import { demoPriceBook, demoSettings } from './demo-data';
 import { designs, parseSpec } from './designs';
 import { SHOP_CAUTIONS, traveller } from './traveller';
+import { pieceSummary } from './piece-summary';
 import { toSvg } from './drawings';
 import { at } from './_lib/at';
 
@@ -92,6 +93,13 @@ describe('traveller cautions and the piece section', () => {
     expect(p?.finish?.name).toMatch(/satin/);
     expect(p?.finish?.coats).toBeGreaterThan(0);
     expect(p?.joinery?.join(' ')).toMatch(/Dadoes and grooves: \d+, 1\/4 in deep/);
+  });
+  it('writes the piece section in the shop’s units', () => {
+    const rows = Object.fromEntries(pieceSummary(at(t.pieces, 0), 'in'));
+    expect(rows.Overall).toMatch(/^\d+[^x]*" W x \d+[^x]*" H x \d+[^x]*" D$/);
+    expect(rows.Finish).toMatch(/satin, \d coats$/);
+    expect(rows.Fronts).toBe('1/8" reveal, 23/32" overlay');
+    expect(rows.Joinery).toMatch(/Dadoes/);
   });
 });
 

@@ -4,7 +4,7 @@ import type { PriceBook, ShopSettings, StageKey } from './price-book';
 import { designs } from './designs';
 import { sheetLayoutDrawing, type Drawing } from './drawings';
 import { bandingMetres } from './labour';
-import { toMm, type LengthUnit } from './units';
+import { joineryOf, type TravellerPiece } from './piece-summary';
 
 /**
  * The shop's usual safety cautions for the traveller (DESIGN.md section 7).
@@ -45,42 +45,6 @@ export interface TravellerSheet {
   yieldRatio: number;
   drawing: Drawing;
   cuts: Cut[];
-}
-
-/**
- * What the builder needs to know of the piece before its parts: overall size,
- * the finish (its name carries the sheen) and coats, the fronts' reveal and
- * overlay, and the joinery. Optional: revisions recorded before it have none.
- */
-export interface TravellerPiece {
-  title: string;
-  quantity: number;
-  parts: TravellerPart[];
-  widthMm?: number;
-  heightMm?: number;
-  depthMm?: number;
-  finish?: { name: string; coats: number } | null;
-  revealMm?: number;
-  overlayMm?: number;
-  joinery?: string[];
-}
-
-/**
- * The piece's joinery in the shop's words, from its parts.
- * @example joineryOf(parts, 'in') // ['Dadoes and grooves: 6, 1/4 in deep, glued', 'Pocket screws: 16 holes']
- */
-export function joineryOf(
-  parts: readonly { quantity: number; dados: number; pocketHoles: number }[],
-  unit: LengthUnit = 'in',
-): string[] {
-  const dados = parts.reduce((s, p) => s + p.quantity * p.dados, 0);
-  const pockets = parts.reduce((s, p) => s + p.quantity * p.pocketHoles, 0);
-  // the carcass dado depth of the cut list (cut-list.ts): 1/4 in
-  const depth = unit === 'in' ? '1/4 in' : `${Math.round(toMm(0.25) * 10) / 10} mm`;
-  return [
-    ...(dados ? [`Dadoes and grooves: ${dados}, ${depth} deep, glued`] : []),
-    ...(pockets ? [`Pocket screws: ${pockets} ${pockets === 1 ? 'hole' : 'holes'}`] : []),
-  ];
 }
 
 export interface Traveller {
