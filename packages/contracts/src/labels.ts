@@ -1,3 +1,4 @@
+import { STAGE_LABELS } from '@benchwright/pricing/geometry';
 import type { EstimateStatus, ProjectStatus, StageKey } from './lifecycle';
 
 /**
@@ -50,19 +51,12 @@ export const ESTIMATE_STATUS_LABELS: Record<EstimateStatus, string> = {
 };
 
 /**
- * The board's columns as first seeded. The shop may rename them: its own labels
- * are stored with the stages (the API's `stages` table), and whatever names a
- * stage for people (the board, the estimate's labour lines) reads them from there.
+ * The board's columns as first seeded, declared once in the engine beside the
+ * stage keys. The shop may rename them: its own labels are stored with the
+ * stages (the API's `stages` table), and whatever names a stage for people (the
+ * board, the estimate's labour lines) reads them from there.
  */
-export const DEFAULT_STAGE_LABELS: Record<StageKey, string> = {
-  material: 'Material',
-  cutting: 'Cutting',
-  casework: 'Casework',
-  drawers_doors: 'Drawers & doors',
-  finish: 'Finish',
-  ready: 'Ready',
-  delivered: 'Delivered',
-};
+export const DEFAULT_STAGE_LABELS: Record<StageKey, string> = STAGE_LABELS;
 
 /** "Replaced by revision 3": the line a superseded revision reads. */
 export const replacedBy = (revision: number): string => `Replaced by revision ${revision}`;

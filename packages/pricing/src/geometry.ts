@@ -12,7 +12,7 @@ export { hingesPerDoor } from './hardware';
 export { elevationDrawing, sheetLayoutDrawing, toSvg } from './drawings';
 export type { Drawing, Shape, ShapeStyle } from './drawings';
 export { validateSpec } from './validate';
-export { PriceBook, ShopSettings, STAGE_KEYS, StageKey } from './price-book';
+export { PriceBook, ShopSettings, STAGE_KEYS, STAGE_LABELS, StageKey } from './price-book';
 export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';
 export type { LineGroup } from './line-groups';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';

@@ -70,8 +70,9 @@ export async function priceRecord(
   items: EngineItem[],
   book: PriceBook,
   settings: ShopSettings,
+  stageLabels?: Partial<Record<StageKey, string>>,
 ): Promise<RevisionRecord> {
-  const r = await pool.run({ kind: 'price', items, book, settings });
+  const r = await pool.run({ kind: 'price', items, book, settings, ...(stageLabels ? { stageLabels } : {}) });
   return {
     kind: 'revision',
     pricedAt: new Date().toISOString(),

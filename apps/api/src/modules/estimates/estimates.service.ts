@@ -3,7 +3,17 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { and, asc, desc, eq, gt, ne } from 'drizzle-orm';
 import { ESTIMATE_STATUS_LABELS, formatDate, replacedBy as replacedByWords, type User } from '@benchwright/contracts';
-import { designs, totalsFor, type BuildSpec, type Drawing, type LineGroup } from '@benchwright/pricing';
+import {
+  designs,
+  formatAreaLoad,
+  formatQuantity,
+  totalsFor,
+  type BuildSpec,
+  type Drawing,
+  type LengthUnit,
+  type LineGroup,
+  type PriceBook,
+} from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import {
   estimateLines,
@@ -14,14 +24,15 @@ import {
   projects,
   revisionRecords,
   shopSettings,
+  stages,
   users,
 } from '../../db/schema';
-import { loadPricing, projectSpecs } from '../../lib/engine';
+import { forClient, loadPricing, projectSpecs } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
-import { priceRecord, storedRecord } from '../../lib/record';
+import { priceRecord, storedRecord, type RevisionRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail, withdrawnMail } from '../../lib/mail-templates';
-import { renderEstimatePdf } from '../../lib/pdf/estimate-pdf';
+import { renderEstimatePdf, type EstimateSafety } from '../../lib/pdf/estimate-pdf';
 import { addEvent } from '../../lib/timeline';
 import { Conflict, Invalid, NotFound } from '../../lib/errors';
 import { assertCan, moveProject } from '../projects/lifecycle';
@@ -39,7 +50,7 @@ type LineRow = typeof estimateLines.$inferSelect;
 interface EngineRecord {
   drawings: Drawing[];
   layouts: { materialId: string; materialName: string; sheetCount: number; lowerBound: number; yieldRatio: number }[];
-  checks: { code: string; level: string; message: string }[];
+  checks: { code: string; level: string; message: string; clientMessage?: string }[];
   totalHours: number;
   massKg: number;
 }
@@ -53,6 +64,32 @@ export interface LineEdit {
   unitPriceCents: number;
   costCents?: number;
   overrideReason?: string | null;
+}
+
+/** Hardware a client is told is included for safety, by its price-book kind. */
+const SAFETY_KINDS = new Set(['anti_tip_kit', 'caster', 'leveling_foot']);
+
+/**
+ * The estimate PDF's safety block from the revision itself: its shelves' rated load, its pieces' own checks in the
+ * client's words, and the safety hardware on its lines (no anchor kit is promised unless one is priced).
+ */
+function safetyOf(
+  record: RevisionRecord | undefined,
+  book: PriceBook,
+  lines: { group: string; description: string; quantity: number; unit: string }[],
+  engine: EngineRecord | null,
+  units: LengthUnit,
+  shelfLoadKPa: number,
+): EstimateSafety {
+  const hasShelves = record?.estimate.pieces.some((p) => p.parts.some((x) => /shelf/i.test(x.name))) ?? false;
+  const safetyNames = new Set(book.hardware.filter((h) => SAFETY_KINDS.has(h.kind)).map((h) => h.name));
+  return {
+    shelfLoad: hasShelves ? formatAreaLoad(record?.settings.shelfLoadKPa ?? shelfLoadKPa, units) : null,
+    checks: [...new Set(forClient(engine?.checks ?? []).map((c) => c.message))],
+    included: lines
+      .filter((l) => l.group === 'hardware' && safetyNames.has(l.description))
+      .map((l) => `${l.description}: ${formatQuantity(l.quantity, l.unit, units)}`),
+  };
 }
 
 /** A short estimate number people can read over the phone: the project's first 6 characters. */
@@ -116,7 +153,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
       },
       hoursByStage: owner ? e.hoursByStage : undefined,
       drawings: engine?.drawings ?? [],
-      checks: engine?.checks ?? [],
+      checks: owner ? (engine?.checks ?? []) : forClient(engine?.checks ?? []),
       ...(owner && engine ? { layouts: engine.layouts, costCents: lines.reduce((a, l) => a + l.costCents, 0) } : {}),
     };
   }
@@ -229,7 +266,15 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
         return view(owner, row(id));
       }
       const { book, settings } = loadPricing(db);
-      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings);
+      // the labour lines name the stages as the board does (the shop may have renamed them)
+      const stageLabels = Object.fromEntries(
+        db
+          .select()
+          .from(stages)
+          .all()
+          .map((x) => [x.key, x.label]),
+      );
+      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings, stageLabels);
       const e = record.estimate;
       const engine: EngineRecord = {
         drawings: e.pieces.map((p) => p.elevation),
@@ -240,7 +285,12 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
           lowerBound: l.lowerBound,
           yieldRatio: l.yieldRatio,
         })),
-        checks: e.checks.map((c) => ({ code: c.code, level: c.level, message: c.message })),
+        checks: e.checks.map((c) => ({
+          code: c.code,
+          level: c.level,
+          message: c.message,
+          ...(c.clientMessage ? { clientMessage: c.clientMessage } : {}),
+        })),
         totalHours: e.totalHours,
         massKg: e.massKg,
       };
@@ -391,7 +441,10 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool }: Estimate
       const engine = e.engine as EngineRecord | null;
       const nameOf = (mid: string) =>
         book.sheetGoods.find((m) => m.id === mid)?.name ?? book.lumber.find((m) => m.id === mid)?.name ?? mid;
+      const units = record?.settings.units ?? shop.settings.units;
       const pdf = await renderEstimatePdf({
+        units,
+        safety: safetyOf(record, book, lines, engine, units, shop.settings.shelfLoadKPa),
         shop: { name: shop.shopName, address: shop.address, email: shop.email, phone: shop.phone },
         client: { name: client.name, email: client.email },
         number: estimateNumber(e.projectId),
