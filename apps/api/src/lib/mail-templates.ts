@@ -77,7 +77,7 @@ export function resetMail(shop: string, name: string, url: string): MailContent 
 export function invitationMail(shop: string, name: string, inviter: string, url: string): MailContent {
   const p = [
     `Hello ${name},`,
-    `${inviter} has invited you to the ${shop} shop app, where the production board, the travellers and the hour logs live. Set your password with the link below; it works for 7 days.`,
+    `${inviter} has invited you to the ${shop} shop app, where the production board, the travelers and the hour logs live. Set your password with the link below; it works for 7 days.`,
   ];
   const a = { label: 'Set my password', url };
   return {
