@@ -94,9 +94,9 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   await signIn(page, SHOP, 'idris@fernhill.example');
   await page.goto('/board');
   const card = page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' });
-  await card.getByRole('link', { name: /Traveller/ }).click();
-  const paper = page.getByRole('article', { name: 'Traveller for Tomasz Wierzbicki' });
-  await expect(paper.getByRole('heading', { name: 'Traveller: Tomasz Wierzbicki' })).toBeVisible({
+  await card.getByRole('link', { name: /Traveler/ }).click();
+  const paper = page.getByRole('article', { name: 'Traveler for Tomasz Wierzbicki' });
+  await expect(paper.getByRole('heading', { name: 'Traveler: Tomasz Wierzbicki' })).toBeVisible({
     timeout: patient(60_000),
   });
   const cutList = paper.getByRole('table', { name: 'Cut list: Bookcase' });
@@ -105,7 +105,7 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   // each sheet is drawn to scale with its parts labelled
   const sheet = paper.getByRole('figure', { name: /sheet 1$/ }).first();
   await expect(sheet.locator('svg rect').first()).toBeVisible();
-  await expect(paper.getByText(/Sheet 1: \d+ % used, \d+ cuts/).first()).toBeVisible();
+  await expect(paper.getByText(/Sheet 1: \d+% used, \d+ cuts/).first()).toBeVisible();
   await expect(paper.getByRole('table', { name: 'Pick list' }).getByRole('row').nth(1)).toBeVisible();
   await expect(paper.getByText(/riving knife/)).toBeVisible();
   await expect(paper.getByText(/anchor this/i)).toBeVisible();

@@ -39,12 +39,14 @@ test.describe('the owner', () => {
     await expect(page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' })).toBeVisible();
   });
 
-  test('reads the overview: money accepted and collected this month, the win rate, hours by job', async ({ page }) => {
+  test('reads the overview: money accepted and collected this month, the share of estimates accepted, hours by job', async ({
+    page,
+  }) => {
     await page.goto('/requests');
     await page.getByRole('navigation', { name: 'Shop' }).getByRole('link', { name: 'Overview' }).click();
     await expect(page.getByRole('group', { name: /^Accepted in / })).toContainText(/\$[1-9][\d,]*\.\d\d/);
     await expect(page.getByRole('group', { name: /^Deposits collected in / })).toContainText(/\$[1-9][\d,]*\.\d\d/);
-    await expect(page.getByRole('group', { name: 'Win rate' })).toContainText(/\d+ %/);
+    await expect(page.getByRole('group', { name: 'Estimates accepted' })).toContainText(/\d+%/);
     await expect(
       page.getByRole('table', { name: 'Hours by job' }).getByRole('row', { name: /Tomasz Wierzbicki/ }),
     ).toBeVisible();
@@ -54,7 +56,7 @@ test.describe('the owner', () => {
     await page.goto('/board');
     await page
       .getByRole('article', { name: 'Job for Tomasz Wierzbicki' })
-      .getByRole('link', { name: /Traveller/ })
+      .getByRole('link', { name: /Traveler/ })
       .click();
     const form = page.getByRole('form', { name: 'Assign the job' });
     await expect(form.getByLabel('Builder')).toHaveValue(/.+/);

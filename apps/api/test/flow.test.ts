@@ -146,6 +146,12 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(e).toMatchObject({ revision: 1, status: 'draft', version: 1 });
     expect(e.lines.length).toBeGreaterThan(5);
     expect(e.lines.every((l: { source: string }) => l.source === 'computed')).toBe(true);
+    // the labour lines name the stages as the board does
+    const labour = e.lines
+      .filter((l: { group: string }) => l.group === 'labour')
+      .map((l: { description: string }) => l.description);
+    expect(labour).toContain('Shop time: Cutting');
+    expect(labour.join(' ')).not.toMatch(/final check|material and set-up/);
     expect(e.totals.depositCents + e.totals.balanceCents).toBe(e.totals.totalCents);
     estimateId = e.id;
     expect((await priya.get(`/api/estimates/${estimateId}`)).status).toBe(404);
@@ -212,7 +218,13 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     for (const c of [total.totalCents, total.depositCents, total.balanceCents, total.taxCents])
       expect(text).toContain(usd(c));
     expect(text).toContain('Revision 1');
-    expect(text).toContain('anchored to the wall');
+    // the safety block states this work's own checks and what is included, nothing it does not have
+    expect(text).toMatch(/Safety[\s\S]*Each caster carries up to \d+ lb[\s\S]*Included for safety[\s\S]*caster/);
+    expect(text).not.toMatch(/supplied anchor kit|load limits stated here/);
+    // quantities as people write them, in the imperial demo shop's units
+    expect(text).toMatch(/\b\d+ sheets?\b/);
+    expect(text).toMatch(/banding.*[\d.]+ ft\s+\$[\d.]+\/ft/);
+    expect(text).not.toMatch(/\d m\b|\bkg\b/);
     expect(text).toMatch(/Page 1 of \d/);
     expect((await owner.patch(`/api/estimates/${estimateId}`).send({ version: 3, discountCents: 5 })).status).toBe(409);
   });
@@ -391,7 +403,14 @@ describe('an estimate travels: send, accept, pay the deposit, onto the board', (
     expect(pdf.status).toBe(200);
     expect(pdf.headers['content-type']).toBe('application/pdf');
     const text = pdfText(pdf.body as Buffer);
-    expect(text).toContain(`Traveller: ${t.job.clientName}`);
+    expect(text).toContain(`Traveler: ${t.job.clientName}`);
+    // in the imperial demo shop's words: pounds, banding by the foot, actual thicknesses to 1/32 in, the piece
+    expect(text).toMatch(/About \d+ lb finished/);
+    expect(text).toMatch(/[\d.]+ ft of edges to band/);
+    expect(text).toMatch(/\b\d+\/32"/);
+    expect(text).toMatch(/Piece[\s\S]*Overall[\s\S]*Finish[\s\S]*Fronts[\s\S]*Joinery/);
+    expect(text).toMatch(/4 x 8 sheets/);
+    expect(text).not.toMatch(/\bkg\b| m of edges/);
     expect(text).toContain(t.pieces[0].parts[0].name);
     expect(text).toMatch(new RegExp(`sheet 1 of ${t.materials[0].sheetCount}`));
     expect(text).toMatch(/riving knife/);
@@ -488,7 +507,7 @@ describe('revisions', () => {
     expect((await owner.get(`/api/estimates/${r1.id}`)).body.estimate.status).toBe('superseded');
     const old = await tomasz.post(`/api/estimates/${r1.id}/accept`).send({ acceptedName: 'Tomasz Wierzbicki' });
     expect(old.status).toBe(409);
-    expect(old.body.error.message).toMatch(/replaced by a newer one/);
+    expect(old.body.error.message).toMatch(/^Replaced by revision 2: accept the latest revision\.$/);
     db.$client.prepare('update estimates set valid_until = 0 where id = ?').run(r2.id);
     const late = await tomasz.post(`/api/estimates/${r2.id}/accept`).send({ acceptedName: 'Tomasz Wierzbicki' });
     expect(late.status).toBe(409);

@@ -125,3 +125,15 @@ describe('the outbox worker under a burst of writes', () => {
     expect(new Set((await inbox()).map((m) => m.headers['message-id'])).size).toBe(total);
   });
 });
+
+describe('the shop signature', () => {
+  it('ends every queued mail with the shop’s name, address and phone, in the shop’s voice', async () => {
+    const t = await testApp();
+    await t.agent().post('/api/auth/sign-up').send({ email: 's@example.com', password: 'a-long-password', name: 'S' });
+    const [m] = t.mails();
+    assert(m);
+    expect(m.text).toMatch(/-- \nFernhill Joinery\n14 Mill Lane, Alder Cross\n555-0142\n$/);
+    expect(m.html).toContain('Fernhill Joinery<br>14 Mill Lane, Alder Cross<br>555-0142');
+    expect(m.html).not.toMatch(/Benchwright|signature-->/);
+  });
+});

@@ -8,6 +8,8 @@ export { isPlainText, isSingleLine, multiLine, singleLine } from './text';
 export * from './lifecycle';
 export * from './project-list';
 export * from './responses';
+export * from './labels';
+export { formatDate, formatDateTime } from './format';
 
 /** Every error the API answers with (DESIGN.md section 10). */
 export const ERROR_CODES = [
@@ -292,6 +294,10 @@ export interface EstimateView {
   number: string;
   revision: number;
   status: EstimateStatus;
+  /** the shop's units: what the figures a person reads are written in */
+  units: 'in' | 'mm';
+  /** a superseded revision: the revision sent after it */
+  replacedBy: number | null;
   version: number;
   /** owner: the price-book version the revision was priced with (null before versions were kept) */
   priceBookVersion?: number | null;

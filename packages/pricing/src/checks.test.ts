@@ -93,8 +93,33 @@ describe('shelfSag', () => {
     });
     expect(r.ok).toBe(false);
     expect(r.message).toMatch(/thicker shelf/);
-    expect(r.message).toMatch(/centre support/);
+    expect(r.message).toMatch(/center support/);
     expect(r.message).toMatch(/edge strip/);
+  });
+  it('speaks in one unit system and states the load it assumed', () => {
+    const input = { spanMm: toMm(40), depthMm: 280, thicknessMm: 18.26, modulusMPa: 6550, loadKPa: 1.915 };
+    const imperial = shelfSag({ ...input, creepFactor: 1.5, unit: 'in' }).message;
+    expect(imperial).toMatch(
+      /^A 40 in shelf would sag about 0\.\d\d in under a load of 40 lb\/ft², more than the 0\.07 in allowed/,
+    );
+    expect(imperial).toMatch(/to \d+ in or less/);
+    expect(imperial).not.toMatch(/mm|kPa/);
+    const metric = shelfSag({ ...input, creepFactor: 1.5, unit: 'mm' }).message;
+    expect(metric).toMatch(/^A 1016 mm shelf would sag about [\d.]+ mm under a load of 1\.9 kPa/);
+    expect(metric).not.toMatch(/ in |lb/);
+  });
+  it('tells the client what they can do, and keeps the trade remedies for the shop', () => {
+    const r = shelfSag({
+      spanMm: toMm(40),
+      depthMm: 280,
+      thicknessMm: 18.26,
+      modulusMPa: 6550,
+      loadKPa: 1.915,
+      creepFactor: 1.5,
+      unit: 'in',
+    });
+    expect(r.clientMessage).toMatch(/add a bay, or ask us about a stiffer shelf/);
+    expect(r.clientMessage).not.toMatch(/edge strip|thicker/);
   });
   it('multiplies the sag by the creep factor (AWC NDS 3.5.2: 1.5 for seasoned lumber)', () => {
     const base = { spanMm: 800, depthMm: 280, thicknessMm: 18, modulusMPa: 9000, loadKPa: 1.915 };
@@ -129,6 +154,13 @@ describe('casterCheck', () => {
     const r = casterCheck({ pieceKg: 150, workingLoadKg: 300, casters: 4, ratedLoadKg: 100 });
     expect(r.ok).toBe(false);
     expect(r.message).toMatch(/rated 150 kg or more/);
+  });
+  it('speaks in pounds for an imperial shop', () => {
+    const r = casterCheck({ pieceKg: 150, workingLoadKg: 300, casters: 4, ratedLoadKg: 100, unit: 'in' });
+    expect(r.message).toMatch(
+      /carry 331 lb with one off the floor, more than its 220 lb rating: fit casters rated 331 lb or more/,
+    );
+    expect(r.message).not.toMatch(/kg/);
   });
 });
 

@@ -1,27 +1,7 @@
 import { FOOT_MIN_CLEARANCE_MM, FOOT_TRAVEL_MM, type CutList, type CutPart } from './cut-list';
 import type { PriceBook, ShopSettings } from './price-book';
 import { len } from './messages';
-import { toInches, toMm, type LengthUnit } from './units';
-
-/** Pounds in one kilogram (the international pound is exactly 0.45359237 kg). */
-const LB_PER_KG = 1 / 0.45359237;
-/** lb/ft2 in one kPa: 1000 N/m2 over 4.4482216 N/lb, times 0.09290304 m2/ft2. */
-const PSF_PER_KPA = (1000 / 4.4482216152605) * 0.09290304;
-
-/** A mass as a sentence reads it: pounds for a shop in inches, kilograms for a metric one. */
-function mass(kg: number, units: LengthUnit): string {
-  return units === 'in' ? `${(kg * LB_PER_KG).toFixed(0)} lb` : `${kg.toFixed(0)} kg`;
-}
-
-/** A small length (a sag) to a hundredth of an inch or a tenth of a millimetre. */
-function small(mm: number, units: LengthUnit): string {
-  return units === 'in' ? `${toInches(mm).toFixed(2)} in` : `${mm.toFixed(1)} mm`;
-}
-
-/** A shelf load: 40 lb/ft2 for a shop in inches, 1.9 kPa for a metric one. */
-function load(kPa: number, units: LengthUnit): string {
-  return units === 'in' ? `${(kPa * PSF_PER_KPA).toFixed(0)} lb/ft²` : `${kPa.toFixed(1)} kPa`;
-}
+import { formatAreaLoad, formatMeasure, formatWeight, LB_PER_KG, toInches, toMm, type LengthUnit } from './units';
 
 export interface ShelfSagInput {
   spanMm: number;
@@ -34,15 +14,18 @@ export interface ShelfSagInput {
   creepFactor?: number;
   /** allowable sag is span / limitRatio; 600 is 0.02 in per foot */
   limitRatio?: number;
-  /** the units the message speaks (inches unless told) */
-  units?: LengthUnit;
+  /** the units the message speaks in: inches and lb/ft² ('in'), or millimetres and kPa ('mm'; the default) */
+  unit?: LengthUnit;
 }
 
 export interface ShelfSagResult {
   sagMm: number;
   allowableMm: number;
   ok: boolean;
+  /** the shop's wording: the figures, the load assumed and the remedies of the trade */
   message: string;
+  /** the client's wording when the shelf sags too much: what they can do about it */
+  clientMessage?: string;
 }
 
 /**
@@ -73,13 +56,26 @@ export function shelfSag(input: ShelfSagInput): ShelfSagResult {
   const sagMm = ((5 * w * L ** 4) / (384 * E * I)) * creep;
   const allowableMm = L / ratio;
   const ok = sagMm <= allowableMm + 1e-9;
-  const u = input.units ?? 'in';
-  const span = len(L, u);
-  const under = `under a load of ${load(loadKPa, u)}`;
-  const message = ok
-    ? `A ${span} shelf sags about ${small(sagMm, u)} ${under}, within the ${small(allowableMm, u)} allowed.`
-    : `A ${span} shelf would sag about ${small(sagMm, u)} ${under}, more than the ${small(allowableMm, u)} allowed: use a thicker shelf, add a centre support or partition to shorten the span (to ${len(maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio: ratio, creepFactor: creep }), u)} or less), or glue a solid-wood edge strip under the front edge.`;
-  return { sagMm, allowableMm, ok, message };
+  // one unit system throughout, and the load it assumed stated
+  const unit = input.unit ?? 'mm';
+  const span = (mm: number, round: (x: number) => number = (x) => Math.round(x * 10) / 10) =>
+    unit === 'in' ? `${round(toInches(mm))} in` : `${round(mm)} mm`;
+  const load = formatAreaLoad(loadKPa, unit);
+  if (ok)
+    return {
+      sagMm,
+      allowableMm,
+      ok,
+      message: `A ${span(L)} shelf sags about ${formatMeasure(sagMm, unit)} under a load of ${load}, within the ${formatMeasure(allowableMm, unit)} allowed.`,
+    };
+  const maxSpan = maxShelfSpan({ thicknessMm: t, modulusMPa: E, loadKPa, limitRatio: ratio, creepFactor: creep });
+  return {
+    sagMm,
+    allowableMm,
+    ok,
+    message: `A ${span(L)} shelf would sag about ${formatMeasure(sagMm, unit)} under a load of ${load}, more than the ${formatMeasure(allowableMm, unit)} allowed: use a thicker shelf, add a center support or partition to shorten the span (to ${span(maxSpan, Math.floor)} or less), or glue a solid-wood edge strip under the front edge.`,
+    clientMessage: `A shelf ${span(L)} wide would bend under a full load (${load}, about what books weigh): add a bay, or ask us about a stiffer shelf.`,
+  };
 }
 
 /**
@@ -112,8 +108,8 @@ export interface CasterCheckInput {
   workingLoadKg: number;
   casters: number;
   ratedLoadKg: number;
-  /** pounds for 'in', kilograms for 'mm' (kilograms unless told) */
-  units?: LengthUnit;
+  /** the units the message speaks in: pounds ('in') or kilograms ('mm'; the default) */
+  unit?: LengthUnit;
 }
 
 /**
@@ -121,7 +117,7 @@ export interface CasterCheckInput {
  * the floor (uneven floors, common practice).
  * @example casterCheck({ pieceKg: 120, workingLoadKg: 200, casters: 8, ratedLoadKg: 100 }).ok // true
  */
-export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg, units = 'mm' }: CasterCheckInput): {
+export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg, unit = 'mm' }: CasterCheckInput): {
   perCasterKg: number;
   ok: boolean;
   message: string;
@@ -129,12 +125,14 @@ export function casterCheck({ pieceKg, workingLoadKg, casters, ratedLoadKg, unit
   if (casters < 2) throw new RangeError('a caster check needs at least two casters');
   const perCasterKg = (pieceKg + workingLoadKg) / (casters - 1);
   const ok = perCasterKg <= ratedLoadKg;
+  const w = (kg: number) => formatWeight(kg, unit);
+  const atLeast = unit === 'in' ? `${Math.ceil(perCasterKg * LB_PER_KG)} lb` : `${Math.ceil(perCasterKg)} kg`;
   return {
     perCasterKg,
     ok,
     message: ok
-      ? `Each caster carries up to ${mass(perCasterKg, units)} (one assumed off the floor), within its ${mass(ratedLoadKg, units)} rating.`
-      : `Each caster would carry ${mass(perCasterKg, units)} with one off the floor, more than its ${mass(ratedLoadKg, units)} rating: fit casters rated ${units === 'in' ? `${Math.ceil(perCasterKg * LB_PER_KG)} lb` : `${Math.ceil(perCasterKg)} kg`} or more, add casters, or lower the working load.`,
+      ? `Each caster carries up to ${w(perCasterKg)} (one assumed off the floor), within its ${w(ratedLoadKg)} rating.`
+      : `Each caster would carry ${w(perCasterKg)} with one off the floor, more than its ${w(ratedLoadKg)} rating: fit casters rated ${atLeast} or more, add casters, or lower the working load.`,
   };
 }
 
@@ -151,7 +149,10 @@ export type CheckLevel = 'error' | 'warning' | 'caution';
 export interface Check {
   code: string;
   level: CheckLevel;
+  /** the shop's wording */
   message: string;
+  /** the client's wording, when the shop's asks for a remedy only the shop can carry out */
+  clientMessage?: string;
   /** field the check is about, when there is one */
   path?: string;
 }
@@ -198,7 +199,7 @@ export function pieceChecks(
       modulusMPa: mat.modulusMPa,
       loadKPa: settings.shelfLoadKPa,
       creepFactor: settings.shelfCreepFactor,
-      units: settings.units,
+      unit: settings.units,
     };
     const hard = shelfSag({ ...base, limitRatio: 144 });
     const soft = shelfSag({ ...base, limitRatio: settings.shelfSagRatio });
@@ -208,8 +209,16 @@ export function pieceChecks(
         level: 'error',
         path: 'bays',
         message: `${mat.name} cannot carry this span: ${hard.message}`,
+        ...(hard.clientMessage ? { clientMessage: hard.clientMessage } : {}),
       });
-    else if (!soft.ok) checks.push({ code: 'shelf_sag', level: 'warning', path: 'bays', message: soft.message });
+    else if (!soft.ok)
+      checks.push({
+        code: 'shelf_sag',
+        level: 'warning',
+        path: 'bays',
+        message: soft.message,
+        ...(soft.clientMessage ? { clientMessage: soft.clientMessage } : {}),
+      });
   }
   if (g.casters > 0 && g.casterId) {
     const caster = book.hardware.find((h) => h.id === g.casterId);
@@ -219,7 +228,7 @@ export function pieceChecks(
         workingLoadKg: g.workingLoadKg,
         casters: g.casters,
         ratedLoadKg: caster.ratedLoadKg,
-        units: settings.units,
+        unit: settings.units,
       });
       checks.push({ code: 'caster_load', level: c.ok ? 'caution' : 'error', path: 'casterId', message: c.message });
     }
@@ -278,6 +287,14 @@ export function pieceChecks(
       level: 'caution',
       message:
         'Hang wall cabinets from the rail with screws into studs or fasteners rated for the wall; have built-ins and anything electrical installed by licensed trades under local code.',
+    });
+  // a built-in stands on the floor fixed to the wall: a base cabinet under a counter, a bookcase in an alcove
+  if (!g.freeStanding && !g.wallHung && !g.mobile)
+    checks.push({
+      code: 'built_in',
+      level: 'caution',
+      message:
+        'Built in: level and shim it, then fasten it to the wall studs through the back rail; any plumbing and electrical work around it is for licensed trades under local code.',
     });
   return { checks, massKg, needsAntiTip };
 }

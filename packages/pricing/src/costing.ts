@@ -7,7 +7,7 @@ import { finishCoverage, finishGallons } from './finish';
 import { hardwareFor, type HardwareLine } from './hardware';
 import { bandingMetres, labourCounts, labourHours } from './labour';
 import { nestByMaterial, type NestEffort, type NestPart, type NestResult } from './nesting';
-import { byId, STAGE_KEYS, type PriceBook, type ShopSettings, type StageKey } from './price-book';
+import { byId, STAGE_KEYS, STAGE_LABELS, type PriceBook, type ShopSettings, type StageKey } from './price-book';
 import { boardFeet, toInches } from './units';
 
 import { at } from './_lib/at';
@@ -83,6 +83,8 @@ export interface EstimateOptions {
   effort?: NestEffort;
   discountCents?: number;
   seed?: number;
+  /** the shop's names for its stages (the board's labels), for the labour lines; the first names by default */
+  stageLabels?: Partial<Record<StageKey, string>>;
 }
 
 const usd = (cents: number): Dinero<number> => dinero({ amount: cents, currency: USD });
@@ -203,7 +205,7 @@ export function estimate(
   ];
   lines.push(...consumablesLines(lines, settings));
   const hours = jobHours(built, all, layouts, finish.m2Coats, book, settings);
-  lines.push(...labourLines(hours.byStage, settings));
+  lines.push(...labourLines(hours.byStage, settings, options.stageLabels));
 
   const totals = totalsFor(lines, settings, options.discountCents ?? 0);
   const costCents = lines.reduce((s, l) => s + l.costCents, 0);
@@ -348,7 +350,7 @@ function lumberLines(all: readonly JobPart[], book: PriceBook, settings: ShopSet
     return line(
       'solid_wood',
       id,
-      `${lum.name}, with ${Math.round(settings.lumberWaste * 100)} % waste`,
+      `${lum.name}, with ${Math.round(settings.lumberWaste * 100)}% waste`,
       r3(bf * (1 + settings.lumberWaste)),
       'bd ft',
       lum.pricePerBoardFootCents,
@@ -367,7 +369,7 @@ function bandingLines(all: readonly JobPart[], book: PriceBook, settings: ShopSe
     return line(
       'edge_banding',
       id,
-      `${b.name}, with ${Math.round(settings.bandingWaste * 100)} % waste`,
+      `${b.name}, with ${Math.round(settings.bandingWaste * 100)}% waste`,
       r3(metres * (1 + settings.bandingWaste)),
       'm',
       b.pricePerMetreCents,
@@ -442,7 +444,7 @@ function consumablesLines(materialLines: readonly EstimateLine[], settings: Shop
     {
       group: 'consumables',
       ref: 'consumables',
-      description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)} % of materials)`,
+      description: `Glue, abrasives, fasteners and sundries (${Math.round(settings.consumablesRate * 100)}% of materials)`,
       quantity: 1,
       unit: 'lot',
       unitPriceCents: times(c, 1 + markup),
@@ -482,23 +484,25 @@ function jobHours(
   return labourHours(counts, book);
 }
 
-const STAGE_NAMES: Record<StageKey, string> = {
-  material: 'material and set-up',
-  cutting: 'cutting',
-  casework: 'casework',
-  drawers_doors: 'drawers and doors',
-  finish: 'finishing',
-  ready: 'final check',
-  delivered: 'delivery',
-};
-
-/** Labour: one line per stage with hours, at the shop rate, costed at the labour cost per hour. */
-function labourLines(byStage: Record<StageKey, number>, settings: ShopSettings): EstimateLine[] {
+/** Labour: one line per stage with hours, named as the board names the stage, at the shop rate, costed at the labour cost per hour. */
+function labourLines(
+  byStage: Record<StageKey, number>,
+  settings: ShopSettings,
+  labels: Partial<Record<StageKey, string>> = {},
+): EstimateLine[] {
   const lines: EstimateLine[] = [];
   for (const stage of STAGE_KEYS) {
     const h = Math.round(byStage[stage] * 100) / 100;
     if (h <= 0) continue;
-    const l = line('labour', stage, `Shop time: ${STAGE_NAMES[stage]}`, h, 'h', settings.shopRateCents, 0);
+    const l = line(
+      'labour',
+      stage,
+      `Shop time: ${labels[stage] ?? STAGE_LABELS[stage]}`,
+      h,
+      'h',
+      settings.shopRateCents,
+      0,
+    );
     l.costCents = times(settings.labourCostPerHourCents, h);
     lines.push(l);
   }

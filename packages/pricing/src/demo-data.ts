@@ -185,7 +185,7 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       massKg: 0.09,
     },
     { id: 'shelf-pin', name: 'Shelf pin, 5 mm', kind: 'shelf_pin', unit: 'each', priceCents: 15, massKg: 0.002 },
-    { id: 'pull-bar-128', name: 'Bar pull, 128 mm centres', kind: 'pull', unit: 'each', priceCents: 650, massKg: 0.08 },
+    { id: 'pull-bar-128', name: 'Bar pull, 128 mm centers', kind: 'pull', unit: 'each', priceCents: 650, massKg: 0.08 },
     {
       id: 'caster-locking-5in',
       name: 'Locking swivel caster, 5 in',

@@ -49,7 +49,7 @@ describe('sheetLayoutDrawing', () => {
     const texts = d.shapes.flatMap((s) => (s.type === 'text' ? [s.text] : []));
     for (const c of sheet0.cuts) expect(texts).toContain(String(c.order));
     expect(d.shapes.filter((s) => s.type === 'rect' && s.style === 'offcut')).toHaveLength(sheet0.offcuts.length);
-    expect(texts[texts.length - 2]).toMatch(/^Test sheet: 96" x 48", yield \d+ %$/);
+    expect(texts[texts.length - 2]).toMatch(/^Test sheet: 96" x 48", yield \d+%$/);
   });
 });
 

@@ -472,7 +472,7 @@ export function sheetLayoutDrawing(
     type: 'text',
     x: 0,
     y: -size * 0.8,
-    text: `${title}: ${fmt(L, unit)} x ${fmt(Wd, unit)}, yield ${(sheet.yieldRatio * 100).toFixed(0)} %`,
+    text: `${title}: ${fmt(L, unit)} x ${fmt(Wd, unit)}, yield ${(sheet.yieldRatio * 100).toFixed(0)}%`,
     size: size * 1.1,
     anchor: 'start',
     weight: 'bold',

@@ -17,6 +17,7 @@ export {
   PriceBook,
   ShopSettings,
   STAGE_KEYS,
+  STAGE_LABELS,
   StageKey,
   SheetGood,
   Lumber,
@@ -30,3 +31,4 @@ export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';
 export type { LineGroup } from './line-groups';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';
 export type { ChecklistItem } from './checklist';
+export { joineryOf, pieceSummary, type TravellerPiece } from './piece-summary';

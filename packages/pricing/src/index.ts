@@ -31,6 +31,7 @@ export type {
 export { demoPriceBook, demoSettings } from './demo-data';
 export { traveller, SHOP_CAUTIONS } from './traveller';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';
+export { joineryOf, pieceSummary, type TravellerPiece } from './piece-summary';
 export {
   LABOUR_OPERATION_KEYS,
   LABOUR_DRIVERS,

@@ -8,14 +8,6 @@ import { labourCounts, labourHours } from './labour';
 import { LABOUR_OPERATION_KEYS, PriceBook } from './price-book';
 import { toMm } from './units';
 
-const compartment = (kind: 'drawer' | 'door', adjustableShelves = 0) => ({
-  kind,
-  heightMm: null,
-  doors: 1 as const,
-  adjustableShelves,
-  fixedShelves: 0,
-});
-
 /** The standard bench: the double-sided assembly bench of the design's defaults. */
 const benchLike: BuildSpec = designs['assembly-bench'].defaults;
 

@@ -13,6 +13,20 @@ const fraction = z.number().min(0).max(1);
 export const STAGE_KEYS = ['material', 'cutting', 'casework', 'drawers_doors', 'finish', 'ready', 'delivered'] as const;
 export const StageKey = z.enum(STAGE_KEYS);
 export type StageKey = z.infer<typeof StageKey>;
+/**
+ * The board's columns as first named; the shop may rename them (the API keeps
+ * its own labels with the stages), and whatever names a stage for people —
+ * the board, the estimate's labour lines — reads the shop's labels.
+ */
+export const STAGE_LABELS: Record<StageKey, string> = {
+  material: 'Material',
+  cutting: 'Cutting',
+  casework: 'Casework',
+  drawers_doors: 'Drawers & doors',
+  finish: 'Finish',
+  ready: 'Ready',
+  delivered: 'Delivered',
+};
 
 export const SheetGood = z.object({
   id,

@@ -3,6 +3,7 @@ import { estimate } from './costing';
 import { demoPriceBook, demoSettings } from './demo-data';
 import { designs, parseSpec } from './designs';
 import { SHOP_CAUTIONS, traveller } from './traveller';
+import { pieceSummary } from './piece-summary';
 import { toSvg } from './drawings';
 import { at } from './_lib/at';
 
@@ -76,5 +77,49 @@ describe('traveller', () => {
     expect(t.cautions).toEqual(expect.arrayContaining([...SHOP_CAUTIONS]));
     expect(t.cautions.some((c) => /anchor/i.test(c))).toBe(true);
     expect(JSON.stringify(t)).not.toMatch(/cents|price/i);
+  });
+});
+
+describe('traveller cautions and the piece section', () => {
+  const items = [{ spec: spec('bookcase'), quantity: 1 }];
+  const e = estimate(items, demoPriceBook, demoSettings, { effort: 'quick' });
+  const t = traveller(e, demoPriceBook, demoSettings);
+  it('cautions about full sheets, narrow rips, pocket holes and the bander’s hot glue, and defers to the manuals last', () => {
+    const all = t.cautions.join('\n');
+    expect(all).toMatch(/4 x 8 sheets: carry them with two people or on a sheet cart.*infeed and outfeed support/);
+    expect(all).toMatch(/Never rip a piece narrower than the blade guard/);
+    expect(all).toMatch(/Pocket holes/);
+    expect(all).toMatch(/glue pot .* hot enough to burn/);
+    expect(t.cautions.at(-1)).toMatch(/machine’s manual and your local workplace safety rules/);
+  });
+  it('returns each piece’s overall size, finish and coats, reveal and overlay, and joinery', () => {
+    const p = t.pieces[0];
+    expect(p).toMatchObject({
+      widthMm: designs.bookcase.defaults.widthMm,
+      heightMm: designs.bookcase.defaults.heightMm,
+      depthMm: designs.bookcase.defaults.depthMm,
+      revealMm: demoSettings.revealMm,
+      overlayMm: demoSettings.overlayMm,
+    });
+    expect(p?.finish?.name).toMatch(/satin/);
+    expect(p?.finish?.coats).toBeGreaterThan(0);
+    expect(p?.joinery?.join(' ')).toMatch(/Dadoes and grooves: \d+, 1\/4 in deep/);
+  });
+  it('writes the piece section in the shop’s units', () => {
+    const rows = Object.fromEntries(pieceSummary(at(t.pieces, 0), 'in'));
+    expect(rows.Overall).toMatch(/^\d+[^x]*" W x \d+[^x]*" H x \d+[^x]*" D$/);
+    expect(rows.Finish).toMatch(/satin, \d coats$/);
+    expect(rows.Fronts).toBe('1/8" reveal, 23/32" overlay');
+    expect(rows.Joinery).toMatch(/Dadoes/);
+  });
+});
+
+describe('a built-in base cabinet', () => {
+  it('carries the built-in caution: fasten to studs, plumbing and electrical by licensed trades', () => {
+    const e = estimate([{ spec: spec('base-cabinet'), quantity: 1 }], demoPriceBook, demoSettings, { effort: 'quick' });
+    const c = e.checks.find((x) => x.code === 'built_in');
+    expect(c?.message).toMatch(/fasten it to the wall studs/);
+    expect(c?.message).toMatch(/plumbing and electrical work .* licensed trades under local code/);
+    expect(traveller(e, demoPriceBook, demoSettings).cautions).toContain(c?.message);
   });
 });

@@ -5,6 +5,7 @@ import { designs } from './designs';
 import { sheetLayoutDrawing, type Drawing } from './drawings';
 import { bandingMetres } from './labour';
 import type { Machining } from './machining';
+import { joineryOf, type TravellerPiece } from './piece-summary';
 
 /**
  * The shop's usual safety cautions for the traveller (DESIGN.md section 7).
@@ -13,7 +14,11 @@ import type { Machining } from './machining';
  */
 export const SHOP_CAUTIONS: readonly string[] = [
   'Eye and ear protection at every machine; a dust mask or respirator when cutting MDF or sanding, with the dust collector running.',
+  'Full 4 x 8 sheets: carry them with two people or on a sheet cart, and set up infeed and outfeed support before breaking one down at the saw.',
   'Table saw: blade guard and riving knife on, a push stick for narrow rips, and stand out of line with the blade.',
+  'Never rip a piece narrower than the blade guard and riving knife allow (the saw’s manual says how narrow): cut it from a wider board, or hold it in a jig.',
+  'Pocket holes: clamp the work in the jig, keep fingers clear of the bit, and let the drill stop before lifting it out.',
+  'Edge bander: the glue pot and the fresh glue line are hot enough to burn; keep hands clear of the feed and let it cool before cleaning.',
   'Unplug the machine before changing a blade or bit. Feed the router against the bit’s rotation and clamp small work.',
   'Nailers: keep hands clear of the nose and disconnect the air before clearing a jam.',
   'Finishing: ventilate, wear the respirator the finish’s safety data sheet names, and keep sparks and flames away from solvents.',
@@ -46,7 +51,7 @@ export interface TravellerSheet {
 }
 
 export interface Traveller {
-  pieces: { title: string; quantity: number; parts: TravellerPart[] }[];
+  pieces: TravellerPiece[];
   materials: {
     materialName: string;
     sheetCount: number;
@@ -74,11 +79,22 @@ export interface Traveller {
  * t.materials[0].sheets[0].drawing // one sheet to scale, for toSvg or the PDF
  */
 export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings): Traveller {
+  const finishOf = (spec: { finishId?: string | null; coats?: number | null }) => {
+    const f = spec.finishId ? book.finishes.find((x) => x.id === spec.finishId) : undefined;
+    return f ? { name: f.name, coats: spec.coats ?? f.defaultCoats } : null;
+  };
   const materialName = (id: string) =>
     book.sheetGoods.find((s) => s.id === id)?.name ?? book.lumber.find((l) => l.id === id)?.name ?? id;
   const pieces = e.pieces.map((p) => ({
     title: designs[p.spec.design].name,
     quantity: p.quantity,
+    widthMm: p.spec.widthMm,
+    heightMm: p.spec.heightMm,
+    depthMm: p.spec.depthMm,
+    finish: finishOf(p.spec),
+    revealMm: settings.revealMm,
+    overlayMm: settings.overlayMm,
+    joinery: joineryOf(p.parts, settings.units),
     parts: p.parts.map((part) => ({
       name: part.name,
       materialName: materialName(part.materialId),

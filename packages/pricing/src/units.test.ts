@@ -1,5 +1,22 @@
 import { describe, expect, it } from 'vitest';
-import { boardFeet, formatLength, LengthParseError, parseLength, toInches, toMm } from './units';
+import {
+  boardFeet,
+  displayUnit,
+  formatArea,
+  formatAreaLoad,
+  formatLength,
+  formatLineal,
+  formatMeasure,
+  formatQuantity,
+  formatThickness,
+  formatVolume,
+  formatWeight,
+  LengthParseError,
+  parseLength,
+  toInches,
+  toMm,
+  unitPriceFactor,
+} from './units';
 
 describe('toMm and toInches', () => {
   it('uses the international inch of exactly 25.4 mm', () => {
@@ -64,5 +81,80 @@ describe('boardFeet', () => {
   });
   it('returns 1 for a board foot (1 x 12 x 12 in)', () => {
     expect(boardFeet(1, 12, 12)).toBe(1);
+  });
+});
+
+describe('formatThickness', () => {
+  it('returns actual plywood thickness to the nearest 1/32 in, not the nominal 3/4', () => {
+    expect(formatThickness(18.26, 'in')).toBe('23/32"');
+    expect(formatThickness(19.05, 'in')).toBe('3/4"');
+  });
+  it('returns millimetres to one decimal for a metric shop', () => {
+    expect(formatThickness(18.26, 'mm')).toBe('18.3 mm');
+    expect(formatThickness(18, 'mm')).toBe('18 mm');
+  });
+});
+
+describe('formatLineal', () => {
+  it('returns banding by the lineal foot for an imperial shop', () => {
+    expect(formatLineal(37.08, 'in')).toBe('121.7 ft');
+  });
+  it('returns metres for a metric shop', () => {
+    expect(formatLineal(37.08, 'mm')).toBe('37.1 m');
+  });
+});
+
+describe('formatWeight', () => {
+  it('returns pounds for an imperial shop and kilograms for a metric one', () => {
+    expect(formatWeight(54.4311, 'in')).toBe('120 lb');
+    expect(formatWeight(54.4311, 'mm')).toBe('54 kg');
+  });
+  it('returns one decimal under ten', () => {
+    expect(formatWeight(2, 'in')).toBe('4.4 lb');
+  });
+});
+
+describe('formatArea, formatVolume, formatAreaLoad, formatMeasure', () => {
+  it('returns square feet or square metres', () => {
+    expect(formatArea(1, 'in')).toBe('10.8 ft²');
+    expect(formatArea(1, 'mm')).toBe('1 m²');
+  });
+  it('returns gallons or litres', () => {
+    expect(formatVolume(0.8, 'in')).toBe('0.8 gal');
+    expect(formatVolume(1, 'mm')).toBe('3.8 L');
+  });
+  it('returns a shelf load of 1.915 kPa as 40 lb/ft²', () => {
+    expect(formatAreaLoad(1.915, 'in')).toBe('40 lb/ft²');
+    expect(formatAreaLoad(1.915, 'mm')).toBe('1.9 kPa');
+  });
+  it('returns a small measure in inches to the hundredth, or millimetres', () => {
+    expect(formatMeasure(3.2, 'in')).toBe('0.13 in');
+    expect(formatMeasure(3.2, 'mm')).toBe('3.2 mm');
+  });
+});
+
+describe('formatQuantity', () => {
+  it('returns quantities as a person writes them', () => {
+    expect(formatQuantity(2, 'sheet', 'in')).toBe('2 sheets');
+    expect(formatQuantity(1, 'sheet', 'in')).toBe('1 sheet');
+    expect(formatQuantity(6, 'pair', 'in')).toBe('6 pairs');
+    expect(formatQuantity(11.55, 'm', 'in')).toBe('37.9 ft');
+    expect(formatQuantity(0.8, 'gal', 'in')).toBe('0.8 gal');
+    expect(formatQuantity(12, 'each', 'in')).toBe('12');
+    expect(formatQuantity(3.456, 'h', 'in')).toBe('3.46 h');
+  });
+  it('returns the metric figures for a metric shop', () => {
+    expect(formatQuantity(37.08, 'm', 'mm')).toBe('37.1 m');
+  });
+  it('keeps the line amount: the unit price follows the shown unit', () => {
+    expect(unitPriceFactor('m', 'in')).toBeCloseTo(0.3048);
+    expect(displayUnit('m', 'in')).toBe('ft');
+    expect(unitPriceFactor('sheet', 'in')).toBe(1);
+  });
+  describe('invalid input', () => {
+    it('refuses a number that is not finite', () => {
+      expect(() => formatQuantity(Number.NaN, 'sheet', 'in')).toThrow(RangeError);
+      expect(() => formatLineal(Infinity, 'in')).toThrow(RangeError);
+    });
   });
 });

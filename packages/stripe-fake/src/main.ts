@@ -9,6 +9,8 @@ const fake = createStripeFake({
   baseUrl: process.env.STRIPE_FAKE_PUBLIC_URL ?? `http://${host}:${port}`,
   webhookUrl: process.env.STRIPE_FAKE_WEBHOOK_URL ?? 'http://127.0.0.1:3000/api/webhooks/stripe',
   webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? 'whsec_local_benchwright',
+  // the shop's name as its Stripe account would show it on the payment page
+  businessName: process.env.STRIPE_FAKE_BUSINESS_NAME ?? 'Fernhill Joinery',
 });
 const server = fake.app.listen(port, host, () => console.log(`Stripe stand-in on http://${host}:${port}`));
 const stop = () => {

@@ -23,6 +23,8 @@ export interface FakeOptions {
   baseUrl: string;
   webhookUrl: string;
   webhookSecret: string;
+  /** the business the hosted page says the client pays, as Stripe shows the account's business name */
+  businessName?: string;
   /** first retry after this many ms, doubling; default 1000 */
   retryBaseMs?: number;
   maxAttempts?: number;
@@ -437,7 +439,7 @@ export function createStripeFake(opts: FakeOptions) {
         .type('html')
         .send(page('Payment not found', '<p>This payment link is not known.</p>'));
     expireIfDue(s);
-    res.type('html').send(payPage(s));
+    res.type('html').send(payPage(s, opts.businessName));
   });
   app.post('/pay/:id', (req, res) => {
     const s = state.sessions[req.params.id];
@@ -447,7 +449,7 @@ export function createStripeFake(opts: FakeOptions) {
         .type('html')
         .send(page('Payment not found', '<p>This payment link is not known.</p>'));
     expireIfDue(s);
-    if (s.status !== 'open') return void res.status(409).type('html').send(payPage(s));
+    if (s.status !== 'open') return void res.status(409).type('html').send(payPage(s, opts.businessName));
     const body = req.body as Obj;
     const card = String(body.card_number ?? '').replace(/[\s-]/g, '');
     const exp = /^(\d{2})\s*\/\s*(\d{2})$/.exec(String(body.exp ?? ''));
@@ -462,13 +464,13 @@ export function createStripeFake(opts: FakeOptions) {
       return void res
         .status(400)
         .type('html')
-        .send(payPage(s, problems.join(' ')));
+        .send(payPage(s, opts.businessName, problems.join(' ')));
     if (card !== '4242424242424242') {
       // 4000 0000 0000 0002 and any other number: declined, no event, the session stays open
       return void res
         .status(402)
         .type('html')
-        .send(payPage(s, 'Your card was declined. No payment was taken; try another card.'));
+        .send(payPage(s, opts.businessName, 'Your card was declined. No payment was taken; try another card.'));
     }
     pay(s);
     res.redirect(303, String(s.success_url).replace('{CHECKOUT_SESSION_ID}', String(s.id)));
@@ -616,11 +618,11 @@ h1{font-size:20px;margin:0 0 6px}.amount{font-size:30px;font-weight:700;margin:8
 .problem{background:#f8e3df;border-left:4px solid #a33;padding:10px;margin:10px 0}.note{font-size:13px;color:#56624f;margin-top:16px}</style></head><body><main>${body}</main></body></html>`;
 }
 
-function payPage(s: Obj, problem?: string): string {
+function payPage(s: Obj, businessName: string | undefined, problem?: string): string {
   const lines = (s._lines as { description: string; quantity: number }[])
     .map((l) => `<li>${esc(l.description)}${l.quantity > 1 ? ` x ${l.quantity}` : ''}</li>`)
     .join('');
-  const head = `<p class="note">Test payment page (local Stripe stand-in)</p><h1>Pay ${esc(s.customer_email ? `as ${s.customer_email}` : '')}</h1><div class="amount">${esc(money(s.amount_total as number, s.currency as string))}</div><ul>${lines}</ul>`;
+  const head = `<p class="note">Test payment page (local Stripe stand-in)</p><h1>${esc(businessName ? `Pay ${businessName}` : 'Pay')}</h1><div class="amount">${esc(money(s.amount_total as number, s.currency as string))}</div><ul>${lines}</ul>`;
   if (s.status === 'complete') return page('Paid', `${head}<p>This payment is complete. Thank you.</p>`);
   if (s.status === 'expired')
     return page('Expired', `${head}<p>This payment link has expired. Ask for a new one from the portal.</p>`);

@@ -46,6 +46,7 @@ async function start(file = stateFile) {
     webhookUrl: `http://127.0.0.1:${hookPort}/hook`,
     webhookSecret: SECRET,
     retryBaseMs: 50,
+    businessName: 'Fernhill Joinery',
   });
   server.on('request', fake.app);
   stripe = new Stripe('sk_test_contract', { host: '127.0.0.1', port, protocol: 'http', maxNetworkRetries: 0 });
@@ -143,6 +144,8 @@ describe('POST /v1/checkout/sessions', () => {
     const page = await (await fetch(s.url!)).text();
     expect(page).toContain('$1,636.78');
     expect(page).toContain('Deposit: assembly bench, revision 1');
+    expect(page).toContain('<h1>Pay Fernhill Joinery</h1>');
+    expect(page).not.toContain('Pay as');
     expect((await stripe.checkout.sessions.retrieve(s.id)).id).toBe(s.id);
   });
   it('refuses missing line items with a parameter error', async () => {

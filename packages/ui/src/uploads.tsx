@@ -1,5 +1,5 @@
 import { useId, useRef, type ReactNode } from 'react';
-import type { UploadSummary } from '@benchwright/contracts';
+import { formatDate, type UploadSummary } from '@benchwright/contracts';
 import { Button, Notice } from './components';
 
 /** 1536000 -> "1.5 MB". */
@@ -77,8 +77,7 @@ export function UploadGallery({
               </p>
               <p className="text-xs text-ink-soft">
                 {u.stageKey ? `${stageLabel ? stageLabel(u.stageKey) : u.stageKey} · ` : ''}
-                {u.by.name} · {new Date(u.at).toLocaleDateString('en-US', { dateStyle: 'medium' })} ·{' '}
-                {formatBytes(u.sizeBytes)}
+                {u.by.name} · {formatDate(u.at)} · {formatBytes(u.sizeBytes)}
               </p>
               {onRemove && canRemove?.(u) ? (
                 <Button variant="quiet" className="px-0 py-1 text-sm" onClick={() => onRemove(u)} disabled={pending}>

@@ -18,6 +18,7 @@ import {
   type ShopSettings,
   type Traveller,
   validateSpec,
+  type StageKey,
 } from '@benchwright/pricing';
 
 export interface EngineItem {
@@ -35,11 +36,18 @@ export type EngineTask =
   | { kind: 'ping' }
   | { kind: 'check'; items: RequestItem[]; book: PriceBook; settings: ShopSettings }
   | { kind: 'preview'; items: RequestItem[]; book: PriceBook; settings: ShopSettings }
-  | { kind: 'price'; items: EngineItem[]; book: PriceBook; settings: ShopSettings };
+  | {
+      kind: 'price';
+      items: EngineItem[];
+      book: PriceBook;
+      settings: ShopSettings;
+      /** the board's stage labels, for the labour lines */
+      stageLabels?: Partial<Record<StageKey, string>>;
+    };
 
 export interface PreviewResult {
   budget: { lowCents: number; highCents: number };
-  checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string }[];
+  checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string; clientMessage?: string }[];
   items: { drawingSvg: string; massKg: number }[];
   lines: Estimate['lines'];
   totals: Estimate['totals'];
@@ -114,7 +122,12 @@ export function preview(items: EngineItem[], book: PriceBook, settings: ShopSett
   const budget = rangeOf(e.totals.totalCents, settings.budgetSpread);
   return {
     budget: { lowCents: budget.lowCents, highCents: budget.highCents },
-    checks: e.checks.map((c) => ({ code: c.code, level: c.level, message: c.message })),
+    checks: e.checks.map((c) => ({
+      code: c.code,
+      level: c.level,
+      message: c.message,
+      ...(c.clientMessage ? { clientMessage: c.clientMessage } : {}),
+    })),
     items: e.pieces.map((p) => ({ drawingSvg: toSvg(p.elevation), massKg: Math.round(p.massKg * 10) / 10 })),
     lines: e.lines,
     totals: e.totals,
@@ -124,8 +137,13 @@ export function preview(items: EngineItem[], book: PriceBook, settings: ShopSett
   };
 }
 
-export function price(items: EngineItem[], book: PriceBook, settings: ShopSettings): PricedResult {
-  const e = estimate(items, book, settings, { effort: 'thorough' });
+export function price(
+  items: EngineItem[],
+  book: PriceBook,
+  settings: ShopSettings,
+  stageLabels?: Partial<Record<StageKey, string>>,
+): PricedResult {
+  const e = estimate(items, book, settings, { effort: 'thorough', ...(stageLabels ? { stageLabels } : {}) });
   return { estimate: e, traveller: traveller(e, book, settings) };
 }
 
@@ -143,6 +161,6 @@ export default function run({ task, started }: { task: EngineTask; started: Mess
       return 'refused' in c ? c : preview(c.items, task.book, task.settings);
     }
     case 'price':
-      return price(task.items, task.book, task.settings);
+      return price(task.items, task.book, task.settings, task.stageLabels);
   }
 }

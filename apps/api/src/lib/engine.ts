@@ -67,3 +67,10 @@ export async function travellerFor(db: Pick<Db, 'select'>, pool: EnginePool, pro
   const r = await pool.run({ kind: 'price', items: projectSpecs(db, projectId), book, settings });
   return { units: settings.units, ...r.traveller };
 }
+
+/** A check as the client reads it: the shop's remedy replaced by what the client can do, where they differ. */
+export function forClient<C extends { code: string; level: string; message: string; clientMessage?: string }>(
+  checks: readonly C[],
+): { code: string; level: C['level']; message: string }[] {
+  return checks.map((c) => ({ code: c.code, level: c.level, message: c.clientMessage ?? c.message }));
+}

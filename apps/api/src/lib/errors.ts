@@ -27,7 +27,7 @@ export class Unauthenticated extends AppError {
   }
 }
 export class Forbidden extends AppError {
-  constructor(message = 'Your role does not allow this.') {
+  constructor(message = 'Your account cannot do this. If you need to, ask the shop.') {
     super(403, 'forbidden', message);
   }
 }

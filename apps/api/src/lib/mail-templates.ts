@@ -1,3 +1,4 @@
+import { formatDate } from '@benchwright/contracts';
 /** Our own plain, warm mail look: ink on paper, a wood-brown rule, the shop's name. */
 export interface MailContent {
   subject: string;
@@ -18,11 +19,37 @@ function layout(shop: string, heading: string, paragraphs: string[], action?: { 
   const button = action
     ? `<p style="margin:22px 0"><a href="${esc(action.url)}" style="background:#7a4a24;color:#fffaf2;text-decoration:none;padding:10px 18px;border-radius:4px;font-weight:600">${esc(action.label)}</a></p><p style="font-size:13px;color:#5b5148">Or paste this address into your browser: ${esc(action.url)}</p>`
     : '';
-  return `<!doctype html><html><body style="margin:0;background:#f6f1e7;font-family:'Source Sans 3',Helvetica,Arial,sans-serif;color:#231c15"><div style="max-width:560px;margin:0 auto;padding:28px">${LOGO_MARK}<div style="border-bottom:3px solid #7a4a24;padding-bottom:8px;margin-bottom:20px;font-weight:700;letter-spacing:.02em">${esc(shop)}</div><h1 style="font-size:20px;margin:0 0 16px">${esc(heading)}</h1>${body}${button}<p style="font-size:12px;color:#5b5148;margin-top:28px">Sent by ${esc(shop)} through Benchwright.</p></div></body></html>`;
+  return `<!doctype html><html><body style="margin:0;background:#f6f1e7;font-family:'Source Sans 3',Helvetica,Arial,sans-serif;color:#231c15"><div style="max-width:560px;margin:0 auto;padding:28px">${LOGO_MARK}<div style="border-bottom:3px solid #7a4a24;padding-bottom:8px;margin-bottom:20px;font-weight:700;letter-spacing:.02em">${esc(shop)}</div><h1 style="font-size:20px;margin:0 0 16px">${esc(heading)}</h1>${body}${button}${SIGNATURE}</div></body></html>`;
 }
 
-function text(paragraphs: string[], action?: { label: string; url: string }, shop?: string): string {
-  return [...paragraphs, ...(action ? [`${action.label}: ${action.url}`] : []), '', `-- ${shop}`].join('\n\n');
+// the templates leave the signature out: `signMail` adds the shop's own, so every mail ends the same way
+function text(paragraphs: string[], action?: { label: string; url: string }): string {
+  return [...paragraphs, ...(action ? [`${action.label}: ${action.url}`] : [])].join('\n\n');
+}
+
+const SIGNATURE = '<!--signature-->';
+
+/** The shop as it signs its mail: from the shop settings (name, address, phone). */
+export interface ShopSignature {
+  name: string;
+  address: string;
+  phone: string;
+}
+
+/**
+ * Ends a mail with the shop's own signature, in its own voice: its name, then
+ * its address and phone when the shop has set them. The mailer signs every
+ * message it queues, so no template can forget.
+ * @example signMail(verificationMail('Fernhill Joinery', ...), { name: 'Fernhill Joinery', address: '...', phone: '...' })
+ */
+export function signMail(content: MailContent, shop: ShopSignature): MailContent {
+  const lines = [shop.name, ...shop.address.split(/\r?\n/), shop.phone].map((l) => l.trim()).filter(Boolean);
+  const html = `<p style="font-size:13px;color:#5b5148;margin-top:28px;border-top:1px solid #d8cbb8;padding-top:12px">${lines.map(esc).join('<br>')}</p>`;
+  return {
+    ...content,
+    text: `${content.text.replace(/\s+$/, '')}\n\n-- \n${lines.join('\n')}\n`,
+    html: content.html.includes(SIGNATURE) ? content.html.replace(SIGNATURE, html) : content.html,
+  };
 }
 
 export function verificationMail(shop: string, name: string, url: string): MailContent {
@@ -33,7 +60,7 @@ export function verificationMail(shop: string, name: string, url: string): MailC
   const a = { label: 'Confirm my e-mail', url };
   return {
     subject: `Confirm your e-mail for ${shop}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Confirm your e-mail', p, a),
   };
 }
@@ -46,7 +73,7 @@ export function resetMail(shop: string, name: string, url: string): MailContent 
   const a = { label: 'Choose a new password', url };
   return {
     subject: `Reset your ${shop} password`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Reset your password', p, a),
   };
 }
@@ -54,12 +81,12 @@ export function resetMail(shop: string, name: string, url: string): MailContent 
 export function invitationMail(shop: string, name: string, inviter: string, url: string): MailContent {
   const p = [
     `Hello ${name},`,
-    `${inviter} has invited you to the ${shop} shop app, where the production board, the travellers and the hour logs live. Set your password with the link below; it works for 7 days.`,
+    `${inviter} has invited you to the ${shop} shop app, where the production board, the travelers and the hour logs live. Set your password with the link below; it works for 7 days.`,
   ];
   const a = { label: 'Set my password', url };
   return {
     subject: `You're invited to the ${shop} shop app`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Join the shop app', p, a),
   };
 }
@@ -82,7 +109,7 @@ export function clientInvitationMail(
   const a = { label: 'Claim my account', url };
   return {
     subject: project ? `${shop} has started a project for you` : `Your account with ${shop}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, project ? 'A project for you' : 'Claim your account', p, a),
   };
 }
@@ -102,7 +129,7 @@ export function projectStartedMail(
   const a = { label: 'Open the project', url };
   return {
     subject: `${shop} has started a project for you`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'A project for you', p, a),
   };
 }
@@ -123,12 +150,12 @@ export function estimateMail(
   const p = [
     `Hello ${name},`,
     `Your estimate from ${shop} is ready (revision ${revision}): ${dollars(totalCents)} in all, with a deposit of ${dollars(depositCents)} to start the work. The PDF is attached.`,
-    `It holds until ${validUntil.toLocaleDateString('en-US', { dateStyle: 'long' })}. Read it, ask anything in the portal, and accept it there when you are ready.`,
+    `It holds until ${formatDate(validUntil)}. Read it, ask anything in the portal, and accept it there when you are ready.`,
   ];
   const a = { label: 'See the estimate', url };
   return {
     subject: `Your estimate from ${shop} (revision ${revision})`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Your estimate is ready', p, a),
   };
 }
@@ -144,7 +171,7 @@ export function withdrawnMail(shop: string, name: string, revision: number, reas
   const a = { label: 'Open the project', url };
   return {
     subject: `Revision ${revision} of your estimate from ${shop} is withdrawn`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'An estimate is withdrawn', p, a),
   };
 }
@@ -158,7 +185,7 @@ export function depositReceiptMail(shop: string, name: string, amountCents: numb
   const a = { label: 'Follow my project', url };
   return {
     subject: `Deposit receipt: ${dollars(amountCents)} received by ${shop}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Deposit received', p, a),
   };
 }
@@ -168,7 +195,7 @@ export function ownerDepositNotice(shop: string, client: string, amountCents: nu
   const a = { label: 'Open the board', url };
   return {
     subject: `Paid: ${client}'s deposit of ${dollars(amountCents)}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'A deposit came in', p, a),
   };
 }
@@ -181,7 +208,7 @@ export function balanceRequestMail(shop: string, name: string, amountCents: numb
   const a = { label: 'Pay the balance', url };
   return {
     subject: `Your piece is ready: balance of ${dollars(amountCents)} due`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Ready for you', p, a),
   };
 }
@@ -191,7 +218,7 @@ export function balanceReceiptMail(shop: string, name: string, amountCents: numb
   const a = { label: 'See my project', url };
   return {
     subject: `Balance receipt: ${dollars(amountCents)} received by ${shop}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Balance received', p, a),
   };
 }
@@ -204,7 +231,7 @@ export function refundMail(shop: string, name: string, amountCents: number, url:
   const a = { label: 'See my project', url };
   return {
     subject: `Refund of ${dollars(amountCents)} from ${shop}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'Refund sent', p, a),
   };
 }
@@ -214,7 +241,7 @@ export function stageMail(shop: string, name: string, news: string, url: string)
   const a = { label: 'See my project', url };
   return {
     subject: `News of your piece from ${shop}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, 'News from the shop', p, a),
   };
 }
@@ -224,7 +251,7 @@ export function commentMail(shop: string, toName: string, fromName: string, comm
   const a = { label: 'Open the project', url };
   return {
     subject: `A comment from ${fromName}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, `A comment from ${fromName}`, p, a),
   };
 }
@@ -241,7 +268,7 @@ export function requestNotice(
   const a = { label: 'Open the request', url };
   return {
     subject: `New request from ${client}`,
-    text: text(p, a, shop),
+    text: text(p, a),
     html: layout(shop, `A request from ${client}`, p, a),
   };
 }

@@ -3,8 +3,8 @@ import { resolve } from 'node:path';
 import { and, asc, eq, lte } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../db/client';
-import { outbox } from '../db/schema';
-import { LOGO_MARK, LOGO_CID, type MailContent } from './mail-templates';
+import { outbox, shopSettings } from '../db/schema';
+import { LOGO_MARK, LOGO_CID, signMail, type MailContent } from './mail-templates';
 import { logoPath } from './shop-logo';
 
 type Tx = Pick<Db, 'insert' | 'select'>;
@@ -16,9 +16,14 @@ export interface MailAttachment {
   cid?: string;
 }
 
-/** Queues a message in the caller's transaction; the worker sends it. Attachment paths are relative to the worker's
- * `filesDir` (the PDF folder). The shop's logo, when it has one, goes inline where the layout marks it. */
-export function queueMail(tx: Tx, to: string, content: MailContent, attachments: MailAttachment[] = []): string {
+/** Queues a message in the caller's transaction, signed with the shop's name, address and phone as they stand
+ * in the shop settings; the worker sends it. Attachment paths are relative to the worker's `filesDir` (the PDF
+ * folder). The shop's logo, when it has one, goes inline where the layout marks it. */
+export function queueMail(tx: Tx, to: string, unsigned: MailContent, attachments: MailAttachment[] = []): string {
+  const shop = tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
+  const content = shop
+    ? signMail(unsigned, { name: shop.shopName, address: shop.address, phone: shop.phone })
+    : unsigned;
   const id = randomUUID();
   const logo = content.html.includes(LOGO_MARK) ? logoPath(tx) : null;
   const html = content.html.replace(

@@ -73,8 +73,9 @@ export async function priceRecord(
   book: PriceBook,
   settings: ShopSettings,
   priceBookVersion?: number,
+  stageLabels?: Partial<Record<StageKey, string>>,
 ): Promise<RevisionRecord> {
-  const r = await pool.run({ kind: 'price', items, book, settings });
+  const r = await pool.run({ kind: 'price', items, book, settings, ...(stageLabels ? { stageLabels } : {}) });
   return {
     kind: 'revision',
     pricedAt: new Date().toISOString(),

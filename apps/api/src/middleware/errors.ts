@@ -31,7 +31,11 @@ export function errorHandler(log: { error: (o: object, msg: string) => void }): 
       else if (status && status >= 400 && status < 500) e = new Invalid('The request could not be read.');
       else {
         log.error({ err, path: req.path }, 'unhandled error');
-        e = new AppError(500, 'internal', 'Something went wrong on our side; it has been logged.');
+        e = new AppError(
+          500,
+          'internal',
+          'Something went wrong at our end, so that did not go through. Please try again in a moment; if it keeps happening, write to us.',
+        );
       }
     }
     if (res.headersSent) return;

@@ -1,4 +1,4 @@
-import { fireEvent, render, screen } from '@testing-library/react';
+import { fireEvent, render, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { App } from './app';
 import { createTestRouter } from './router';
@@ -75,5 +75,70 @@ describe('the traveller page', () => {
     render(<App router={createTestRouter('/jobs/j1')} />);
     expect(await screen.findByText(/Sheets as laid out for revision 1/)).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Lay out again with today’s stock' })).toBeNull();
+  });
+});
+
+describe('the traveler in an imperial shop’s words', () => {
+  it('reads pounds, feet, 1/32 in thicknesses, the due date, a Qty column and the piece section', async () => {
+    const full = {
+      ...traveller(asPriced),
+      job: { ...job, dueDate: '2026-03-14' },
+      massKg: 54.4311,
+      pieces: [
+        {
+          title: 'Bookcase',
+          quantity: 1,
+          widthMm: 914.4,
+          heightMm: 1828.8,
+          depthMm: 304.8,
+          finish: { name: 'Waterborne polyurethane, satin', coats: 3 },
+          revealMm: 3,
+          overlayMm: 18,
+          joinery: ['Dadoes and grooves: 6, 1/4 in deep, glued'],
+          parts: [
+            {
+              name: 'Side',
+              materialName: 'Birch plywood',
+              stock: 'sheet',
+              quantity: 2,
+              lengthMm: 1828.8,
+              widthMm: 292,
+              thicknessMm: 18.26,
+              grain: 'length',
+              banding: '1 long',
+            },
+          ],
+        },
+      ],
+      pickList: [{ name: 'Shelf pin, 5 mm', kind: 'shelf_pin', pieces: 16 }],
+      bandingMetres: [{ name: 'Birch banding', metres: 37.08 }],
+    };
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async (url: string) => {
+        const u = String(url);
+        const body = u.endsWith('/auth/me')
+          ? { user: { id: 'u', email: 'x@example.com', name: 'Idris', role: 'builder', emailVerified: true } }
+          : u.endsWith('/jobs/stages')
+            ? { stages: [{ key: 'material', label: 'Material', position: 0 }] }
+            : u.endsWith('/traveller')
+              ? { traveller: full }
+              : {};
+        return new Response(JSON.stringify(body), { status: 200, headers: { 'Content-Type': 'application/json' } });
+      }),
+    );
+    render(<App router={createTestRouter('/jobs/j1')} />);
+    expect(await screen.findByRole('heading', { name: 'Traveler: Tomasz' })).toBeTruthy();
+    expect(screen.getByText(/due Mar 14, 2026 · about 120 lb finished/)).toBeTruthy();
+    expect(screen.getByText('Birch banding: 121.7 ft of edges to band (before waste)')).toBeTruthy();
+    expect(screen.getByRole('cell', { name: '23/32"' })).toBeTruthy();
+    const pick = screen.getByRole('table', { name: 'Pick list' });
+    expect(within(pick).getByRole('columnheader', { name: 'Qty' })).toBeTruthy();
+    expect(screen.queryByRole('columnheader', { name: 'Pieces' })).toBeNull();
+    const piece = screen.getByRole('region', { name: 'Piece: Bookcase' });
+    expect(piece.textContent).toContain('36" W x 72" H x 12" D');
+    expect(piece.textContent).toContain('Waterborne polyurethane, satin, 3 coats');
+    expect(piece.textContent).toContain('1/8" reveal, 23/32" overlay');
+    expect(piece.textContent).toContain('Dadoes and grooves');
   });
 });

@@ -3,9 +3,9 @@
  * owner's estimate editor: cut list, sheet layouts, pick list.
  */
 import { Drawing, Length, Panel, TableHead } from '@benchwright/ui';
-import type { LengthUnit, Traveller } from '@benchwright/pricing/geometry';
+import { formatLineal, formatThickness, type LengthUnit, type Traveller } from '@benchwright/pricing/geometry';
 
-const pct = (r: number) => `${Math.round(r * 100)} %`;
+const pct = (r: number) => `${Math.round(r * 100)}%`;
 
 /** What the panels need: the engine's traveller, without the hours and cautions, and the shop's units. */
 export type Layouts = Pick<Traveller, 'pieces' | 'materials' | 'pickList' | 'bandingMetres'> & { units: LengthUnit };
@@ -33,9 +33,7 @@ export function CutListPanel({ layouts: t }: { layouts: Layouts }) {
                   <td>
                     <Length mm={part.widthMm} unit={u} />
                   </td>
-                  <td>
-                    <Length mm={part.thicknessMm} unit={u} />
-                  </td>
+                  <td className="tabular-nums">{formatThickness(part.thicknessMm, u)}</td>
                   <td>{part.materialName}</td>
                   <td>{part.grain}</td>
                   <td>{part.banding || '–'}</td>
@@ -78,7 +76,7 @@ export function PickListPanel({ layouts: t }: { layouts: Layouts }) {
   return (
     <Panel title="Pick list">
       <table className="w-full text-left" aria-label="Pick list">
-        <TableHead columns={['Hardware', 'Kind', 'Pieces']} />
+        <TableHead columns={['Hardware', 'Kind', 'Qty']} />
         <tbody>
           {t.pickList.map((h) => (
             <tr key={h.name} className="border-b border-rule/50">
@@ -93,7 +91,7 @@ export function PickListPanel({ layouts: t }: { layouts: Layouts }) {
         <ul className="mt-3 list-disc pl-6">
           {t.bandingMetres.map((b) => (
             <li key={b.name}>
-              {b.name}: {b.metres.toFixed(1)} m of edges to band (before waste)
+              {b.name}: {formatLineal(b.metres, t.units)} of edges to band (before waste)
             </li>
           ))}
         </ul>

@@ -122,7 +122,7 @@ describe('the standard bench', () => {
       workingLoadKg: 200,
       casters: 6,
       ratedLoadKg: 100,
-      units: demoSettings.units,
+      unit: demoSettings.units,
     });
     expect(e.checks.find((c) => c.code === 'caster_load')?.message).toBe(expected.message);
     expect(e.massKg).toBeGreaterThan(150);

@@ -1,12 +1,17 @@
 import { Document, Image, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
 import {
   designs,
+  displayUnit,
   formatLength,
+  formatQuantity,
   LINE_GROUP_LABELS,
   LINE_GROUPS,
+  unitPriceFactor,
   type Drawing,
+  type LengthUnit,
   type LineGroup,
 } from '@benchwright/pricing';
+import { formatDate } from '@benchwright/contracts';
 import { dollars } from '../mail-templates';
 import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
@@ -67,18 +72,36 @@ export interface EstimatePdfInput {
     balanceCents: number;
   };
   depositRate: number;
+  /** the shop's units: sizes and quantities are written in them */
+  units: LengthUnit;
+  safety: EstimateSafety;
 }
 
-export const CAUTIONS = [
-  'Tall pieces must be anchored to the wall with the supplied anchor kit or fasteners suited to the wall; do not let children climb furniture.',
-  'Lock the casters of mobile pieces before use; respect the load limits stated here, and do not stand on benches or cabinets.',
-  'Built-ins, and anything electrical or plumbed, are to be installed by licensed trades under local code.',
-];
+/** The safety block: what this work is built to carry and what comes with it, from its own checks. */
+export interface EstimateSafety {
+  /** the rated shelf load, e.g. "40 lb/ft²", when the work has shelves */
+  shelfLoad: string | null;
+  /** the pieces' own checks (caster load, tip-over, anchoring, built-in...), in the client's words */
+  checks: string[];
+  /** safety hardware on the estimate's lines, e.g. "Anti-tip wall anchor kit: 1 set" */
+  included: string[];
+}
+
+// a price per converted unit (per foot from per metre) keeps a tenth of a cent, so quantity x price still reads true
+const perUnitUsd = new Intl.NumberFormat('en-US', {
+  style: 'currency',
+  currency: 'USD',
+  minimumFractionDigits: 2,
+  maximumFractionDigits: 3,
+});
+const perUnit = (cents: number) => perUnitUsd.format(cents / 100);
+
+/** Said of all furniture, after the work's own checks. */
+export const GENERAL_CAUTIONS = ['Do not stand on benches or cabinets, and do not let children climb furniture.'];
 
 function EstimateDocument({ d }: { d: EstimatePdfInput }) {
-  const fmtDate = (x: Date) => x.toLocaleDateString('en-US', { dateStyle: 'long' });
+  const fmtDate = (x: Date) => formatDate(x);
   const groups = LINE_GROUPS.filter((g) => d.lines.some((l) => l.group === g));
-  const qty = (q: number) => (Number.isInteger(q) ? String(q) : q.toFixed(2));
   return (
     <Document title={`Estimate ${d.number} revision ${d.revision}`} author={d.shop.name}>
       <Page size="LETTER" style={s.page}>
@@ -109,7 +132,8 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
         <Text style={s.h2}>The work</Text>
         {d.items.map((it, i) => {
           const name = (designs as Record<string, { name: string }>)[it.spec.design]?.name ?? it.spec.design;
-          const size = `${formatLength(it.spec.widthMm, { unit: 'in' })} W x ${formatLength(it.spec.heightMm, { unit: 'in' })} H x ${formatLength(it.spec.depthMm, { unit: 'in' })} D`;
+          const len = (mm: number) => formatLength(mm, { unit: d.units });
+          const size = `${len(it.spec.widthMm)} W x ${len(it.spec.heightMm)} H x ${len(it.spec.depthMm)} D`;
           return (
             <View key={i} wrap={false} style={{ flexDirection: 'row', marginBottom: 8 }}>
               <View style={{ width: 250 }}>
@@ -147,10 +171,11 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
               {lines.map((l, i) => (
                 <View key={i} style={s.row} wrap={false}>
                   <Text style={s.cDesc}>{l.description}</Text>
-                  <Text style={s.cQty}>
-                    {qty(l.quantity)} {l.unit}
+                  <Text style={s.cQty}>{formatQuantity(l.quantity, l.unit, d.units)}</Text>
+                  <Text style={s.cUnit}>
+                    {perUnit(l.unitPriceCents * unitPriceFactor(l.unit, d.units))}
+                    {['m', 'gal', 'kg'].includes(l.unit) ? `/${displayUnit(l.unit, d.units)}` : ''}
                   </Text>
-                  <Text style={s.cUnit}>{dollars(l.unitPriceCents)}</Text>
                   <Text style={s.cAmt}>{dollars(l.amountCents)}</Text>
                 </View>
               ))}
@@ -177,7 +202,7 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
             <Text>{dollars(d.totals.totalCents)}</Text>
           </View>
           <View style={s.totalRow}>
-            <Text>Deposit ({Math.round(d.depositRate * 100)} %)</Text>
+            <Text>Deposit ({Math.round(d.depositRate * 100)}%)</Text>
             <Text>{dollars(d.totals.depositCents)}</Text>
           </View>
           <View style={s.totalRow}>
@@ -196,11 +221,32 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
         </View>
         <View wrap={false}>
           <Text style={s.h2}>Safety</Text>
-          {CAUTIONS.map((c) => (
+          {d.safety.shelfLoad ? (
+            <Text style={s.caution}>
+              · Shelves are built to carry {d.safety.shelfLoad} spread evenly (about what a shelf of books weighs); put
+              the heaviest things on the lowest shelves.
+            </Text>
+          ) : null}
+          {d.safety.checks.map((c) => (
             <Text key={c} style={s.caution}>
               · {c}
             </Text>
           ))}
+          {GENERAL_CAUTIONS.map((c) => (
+            <Text key={c} style={s.caution}>
+              · {c}
+            </Text>
+          ))}
+          <Text style={[s.caution, { marginTop: 4, fontWeight: 600 }]}>Included for safety</Text>
+          {d.safety.included.length ? (
+            d.safety.included.map((c) => (
+              <Text key={c} style={s.caution}>
+                · {c}
+              </Text>
+            ))
+          ) : (
+            <Text style={s.caution}>· No safety hardware is on this estimate.</Text>
+          )}
         </View>
         <PageFooter>{`${d.shop.name} · Estimate ${d.number}, revision ${d.revision}`}</PageFooter>
       </Page>

@@ -3,7 +3,7 @@
  * wood colours, and the engine's drawing data drawn with react-pdf's SVG.
  */
 import { createRequire } from 'node:module';
-import { Circle, Font, Line, Rect, Svg, Text, View } from '@react-pdf/renderer';
+import { Circle, Font, G, Line, Rect, Svg, Text, View } from '@react-pdf/renderer';
 import type { Drawing, ShapeStyle } from '@benchwright/pricing';
 
 const require = createRequire(import.meta.url);
@@ -21,15 +21,39 @@ export const WOOD = '#7a4a24';
 export const MUTED = '#5b5148';
 export const RULE = '#d8ccb8';
 
-// fills by style; offcuts are a light grey that stays readable printed in black and white
+// fills by style; offcuts are white and hatched, as the drawing's legend and the screen's SVG draw them
 const FILL: Partial<Record<ShapeStyle, string>> = {
   top: '#e3d6c1',
   kick: '#d9d2c7',
   case: '#f1ebe0',
   part: '#f6f1e7',
-  offcut: '#e4e4e4',
+  offcut: '#ffffff',
   trim: '#cdb79a',
 };
+
+/**
+ * The 45-degree hatch of a rectangle as line segments clipped to it (react-pdf's SVG has no pattern fill), the
+ * same hatch `toSvg` draws with a pattern: lines x + y = c every `gap`, each cut to the rectangle's edges.
+ * @example hatchSegments(0, 0, 10, 10, 5) // three segments across the square
+ */
+export function hatchSegments(
+  x: number,
+  y: number,
+  w: number,
+  h: number,
+  gap: number,
+): [number, number, number, number][] {
+  const out: [number, number, number, number][] = [];
+  if (!(w > 0 && h > 0 && gap > 0)) return out;
+  for (let c = x + y + gap; c < x + w + y + h; c += gap) {
+    // enters along the left or top edge, leaves along the bottom or right edge
+    const x1 = Math.max(x, c - (y + h));
+    const x2 = Math.min(x + w, c - y);
+    if (x2 - x1 <= 1e-9) continue;
+    out.push([x1, c - x1, x2, c - x2]);
+  }
+  return out;
+}
 
 /** The engine's drawing data drawn with react-pdf's SVG primitives. */
 export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number }) {
@@ -42,16 +66,22 @@ export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number
         switch (sh.type) {
           case 'rect':
             return (
-              <Rect
-                key={i}
-                x={sh.x}
-                y={sh.y}
-                width={sh.width}
-                height={sh.height}
-                stroke={INK}
-                strokeWidth={1.2 * k}
-                fill={FILL[sh.style] ?? '#ffffff'}
-              />
+              <G key={i}>
+                <Rect
+                  x={sh.x}
+                  y={sh.y}
+                  width={sh.width}
+                  height={sh.height}
+                  stroke={INK}
+                  strokeWidth={1.2 * k}
+                  fill={FILL[sh.style] ?? '#ffffff'}
+                />
+                {sh.style === 'offcut'
+                  ? hatchSegments(sh.x, sh.y, sh.width, sh.height, 12 * k).map(([x1, y1, x2, y2], j) => (
+                      <Line key={j} x1={x1} y1={y1} x2={x2} y2={y2} stroke={INK} strokeWidth={0.6 * k} />
+                    ))
+                  : null}
+              </G>
             );
           case 'line':
           case 'arrow':

@@ -1,5 +1,14 @@
 import { Document, Image, Page, renderToBuffer, StyleSheet, Text, View } from '@react-pdf/renderer';
-import { formatLength, type LengthUnit, type Traveller } from '@benchwright/pricing';
+import { formatDate } from '@benchwright/contracts';
+import {
+  formatLength,
+  formatLineal,
+  formatThickness,
+  formatWeight,
+  pieceSummary,
+  type LengthUnit,
+  type Traveller,
+} from '@benchwright/pricing';
 import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
 
 const s = StyleSheet.create({
@@ -52,11 +61,11 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
   const t = d.traveller;
   const len = (mm: number) => formatLength(mm, { unit: d.units });
   return (
-    <Document title={`Traveller: ${d.clientName}`} author={d.shopName}>
+    <Document title={`Traveler: ${d.clientName}`} author={d.shopName}>
       <Page size="LETTER" style={s.page}>
         <View style={s.head}>
           <View>
-            <Text style={s.title}>Traveller: {d.clientName}</Text>
+            <Text style={s.title}>Traveler: {d.clientName}</Text>
             {d.notes ? <Text style={s.muted}>“{d.notes}”</Text> : null}
           </View>
           <View style={{ alignItems: 'flex-end' }}>
@@ -66,7 +75,8 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
             <Text>{d.shopName}</Text>
             <Text>Now in {d.stageLabel}</Text>
             <Text>Builder: {d.builderName ?? 'not set'}</Text>
-            <Text>Due: {d.dueDate ?? 'not set'}</Text>
+            <Text>Due: {d.dueDate ? formatDate(d.dueDate) : 'not set'}</Text>
+            <Text>About {formatWeight(t.massKg, d.units)} finished</Text>
           </View>
         </View>
         {d.layoutNote ? <Text style={s.muted}>{d.layoutNote}</Text> : null}
@@ -87,6 +97,21 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
             </View>
           ))}
 
+        <Text style={s.h2}>Piece</Text>
+        {t.pieces.map((p, i) => (
+          <View key={i} wrap={false}>
+            <Text style={s.h3}>
+              {p.title} x {p.quantity}
+            </Text>
+            {pieceSummary(p, d.units).map(([k, v]) => (
+              <View key={k} style={{ flexDirection: 'row' }}>
+                <Text style={{ width: 70, color: MUTED }}>{k}</Text>
+                <Text style={{ flex: 1 }}>{v}</Text>
+              </View>
+            ))}
+          </View>
+        ))}
+
         <Text style={s.h2}>Cut list</Text>
         {t.pieces.map((p, i) => (
           <View key={i}>
@@ -106,7 +131,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
                 quantity: String(part.quantity),
                 length: len(part.lengthMm),
                 width: len(part.widthMm),
-                thick: len(part.thicknessMm),
+                thick: formatThickness(part.thicknessMm, d.units),
                 material: part.materialName,
                 grain: part.grain,
                 band: part.banding || '-',
@@ -125,6 +150,11 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
         ))}
 
         <Text style={s.h2}>Pick list</Text>
+        <View style={[s.row, s.th]}>
+          <Text style={{ flex: 3 }}>Hardware</Text>
+          <Text style={{ flex: 1 }}>Kind</Text>
+          <Text style={{ flex: 1, textAlign: 'right' }}>Qty</Text>
+        </View>
         {t.pickList.map((h) => (
           <View key={h.name} style={s.row}>
             <Text style={{ flex: 3 }}>{h.name}</Text>
@@ -134,7 +164,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
         ))}
         {t.bandingMetres.map((b) => (
           <Text key={b.name} style={{ marginTop: 3 }}>
-            {b.name}: {b.metres.toFixed(1)} m of edges to band (before waste)
+            {b.name}: {formatLineal(b.metres, d.units)} of edges to band (before waste)
           </Text>
         ))}
 
@@ -149,7 +179,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           m.sheets.map((sh) => (
             <View key={`${m.materialName}-${sh.number}`} break wrap={false}>
               <Text style={s.h2}>
-                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)} % used,{' '}
+                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)}% used,{' '}
                 {sh.cuts.length} cuts
               </Text>
               <PdfDrawing drawing={sh.drawing} width={540} />
@@ -157,7 +187,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           )),
         )}
 
-        <PageFooter>{`${d.shopName} · traveller for ${d.clientName}`}</PageFooter>
+        <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
       </Page>
     </Document>
   );

@@ -1,16 +1,20 @@
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { and, asc, desc, eq, ne } from 'drizzle-orm';
-import type { User } from '@benchwright/contracts';
+import { and, asc, desc, eq, gt, ne } from 'drizzle-orm';
+import { ESTIMATE_STATUS_LABELS, formatDate, replacedBy as replacedByWords, type User } from '@benchwright/contracts';
 import {
   designs,
+  formatAreaLoad,
+  formatQuantity,
   specBays,
   totalsFor,
   upgradeSpec,
   type BuildSpec,
   type Drawing,
+  type LengthUnit,
   type LineGroup,
+  type PriceBook,
 } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import {
@@ -21,15 +25,17 @@ import {
   projects,
   revisionRecords,
   shopSettings,
+  stages,
   users,
 } from '../../db/schema';
-import { loadPricing, projectSpecs } from '../../lib/engine';
+import { forClient, loadPricing, projectSpecs } from '../../lib/engine';
 import { logoPng } from '../../lib/shop-logo';
 import type { EnginePool } from '../../lib/engine-pool';
-import { priceRecord, storedRecord } from '../../lib/record';
+import { priceRecord, storedRecord, type RevisionRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail, withdrawnMail } from '../../lib/mail-templates';
 import type { PdfPool } from '../../lib/pdf-pool';
+import type { EstimateSafety } from '../../lib/pdf/estimate-pdf';
 import { addEvent } from '../../lib/timeline';
 import { Conflict, Invalid, NotFound } from '../../lib/errors';
 import { assertCan, moveProject } from '../projects/lifecycle';
@@ -49,7 +55,7 @@ type LineRow = typeof estimateLines.$inferSelect;
 interface EngineRecord {
   drawings: Drawing[];
   layouts: { materialId: string; materialName: string; sheetCount: number; lowerBound: number; yieldRatio: number }[];
-  checks: { code: string; level: string; message: string }[];
+  checks: { code: string; level: string; message: string; clientMessage?: string }[];
   totalHours: number;
   massKg: number;
 }
@@ -63,6 +69,32 @@ export interface LineEdit {
   unitPriceCents: number;
   costCents?: number;
   overrideReason?: string | null;
+}
+
+/** Hardware a client is told is included for safety, by its price-book kind. */
+const SAFETY_KINDS = new Set(['anti_tip_kit', 'caster', 'leveling_foot']);
+
+/**
+ * The estimate PDF's safety block from the revision itself: its shelves' rated load, its pieces' own checks in the
+ * client's words, and the safety hardware on its lines (no anchor kit is promised unless one is priced).
+ */
+function safetyOf(
+  record: RevisionRecord | undefined,
+  book: PriceBook,
+  lines: { group: string; description: string; quantity: number; unit: string }[],
+  engine: EngineRecord | null,
+  units: LengthUnit,
+  shelfLoadKPa: number,
+): EstimateSafety {
+  const hasShelves = record?.estimate.pieces.some((p) => p.parts.some((x) => /shelf/i.test(x.name))) ?? false;
+  const safetyNames = new Set(book.hardware.filter((h) => SAFETY_KINDS.has(h.kind)).map((h) => h.name));
+  return {
+    shelfLoad: hasShelves ? formatAreaLoad(record?.settings.shelfLoadKPa ?? shelfLoadKPa, units) : null,
+    checks: [...new Set(forClient(engine?.checks ?? []).map((c) => c.message))],
+    included: lines
+      .filter((l) => l.group === 'hardware' && safetyNames.has(l.description))
+      .map((l) => `${l.description}: ${formatQuantity(l.quantity, l.unit, units)}`),
+  };
 }
 
 /** A short estimate number people can read over the phone: the project's first 6 characters. */
@@ -93,6 +125,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
     const owner = viewer.role === 'owner';
     const engine = e.engine as EngineRecord | null;
     return {
+      units: shopUnits(),
+      replacedBy: e.status === 'superseded' ? replacedBy(e) : null,
       id: e.id,
       projectId: e.projectId,
       number: estimateNumber(e.projectId),
@@ -125,9 +159,28 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       },
       hoursByStage: owner ? e.hoursByStage : undefined,
       drawings: engine?.drawings ?? [],
-      checks: engine?.checks ?? [],
+      checks: owner ? (engine?.checks ?? []) : forClient(engine?.checks ?? []),
       ...(owner && engine ? { layouts: engine.layouts, costCents: lines.reduce((a, l) => a + l.costCents, 0) } : {}),
     };
+  }
+
+  /** The shop's units, which every figure a person reads follows (the settings row only, not the price book). */
+  function shopUnits(): 'in' | 'mm' {
+    const s = db.select({ settings: shopSettings.settings }).from(shopSettings).where(eq(shopSettings.id, 1)).get();
+    return s?.settings.units ?? 'in';
+  }
+
+  /** The revision sent after a superseded one (the next one the client was sent), for "Replaced by revision N". */
+  function replacedBy(e: EstimateRow): number | null {
+    const later = db
+      .select({ revision: estimates.revision })
+      .from(estimates)
+      .where(
+        and(eq(estimates.projectId, e.projectId), gt(estimates.revision, e.revision), ne(estimates.status, 'draft')),
+      )
+      .orderBy(asc(estimates.revision))
+      .get();
+    return later?.revision ?? null;
   }
 
   /** The project's accepted revision other than `id`, if any: while one stands, no other is sent or accepted. */
@@ -219,7 +272,15 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
         return view(owner, row(id));
       }
       const { book, settings, bookVersion } = loadPricing(db);
-      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings, bookVersion);
+      // the labour lines name the stages as the board does (the shop may have renamed them)
+      const stageLabels = Object.fromEntries(
+        db
+          .select()
+          .from(stages)
+          .all()
+          .map((x) => [x.key, x.label]),
+      );
+      const record = await priceRecord(pool, projectSpecs(db, projectId), book, settings, bookVersion, stageLabels);
       const e = record.estimate;
       const engine: EngineRecord = {
         drawings: e.pieces.map((p) => p.elevation),
@@ -230,7 +291,12 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
           lowerBound: l.lowerBound,
           yieldRatio: l.yieldRatio,
         })),
-        checks: e.checks.map((c) => ({ code: c.code, level: c.level, message: c.message })),
+        checks: e.checks.map((c) => ({
+          code: c.code,
+          level: c.level,
+          message: c.message,
+          ...(c.clientMessage ? { clientMessage: c.clientMessage } : {}),
+        })),
         totalHours: e.totalHours,
         massKg: e.massKg,
       };
@@ -381,9 +447,12 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       const engine = e.engine as EngineRecord | null;
       const nameOf = (mid: string) =>
         book.sheetGoods.find((m) => m.id === mid)?.name ?? book.lumber.find((m) => m.id === mid)?.name ?? mid;
+      const units = record?.settings.units ?? shop.settings.units;
       const pdf = await pdfs.render({
         kind: 'estimate',
         input: {
+          units,
+          safety: safetyOf(record, book, lines, engine, units, shop.settings.shelfLoadKPa),
           shop: {
             name: shop.shopName,
             address: shop.address,
@@ -502,8 +571,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       if (e.status !== 'sent')
         throw new Conflict(
           e.status === 'superseded'
-            ? `Revision ${e.revision} was replaced by a newer one; accept the latest revision.`
-            : `Revision ${e.revision} is ${e.status} and cannot be accepted.`,
+            ? `${replacedByWords(replacedBy(e) ?? e.revision + 1)}: accept the latest revision.`
+            : `Revision ${e.revision} is ${ESTIMATE_STATUS_LABELS[e.status].toLowerCase()} and cannot be accepted.`,
         );
       const accepted = otherAccepted(e.projectId, e.id);
       if (accepted)
@@ -516,7 +585,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
           addEvent(tx, e.projectId, 'estimate_expired', `Estimate revision ${e.revision} expired unaccepted.`);
         });
         throw new Conflict(
-          `Revision ${e.revision} expired on ${e.validUntil.toLocaleDateString('en-US', { dateStyle: 'long' })}; ask the shop for a new one.`,
+          `Revision ${e.revision} expired on ${formatDate(e.validUntil)}; ask the shop for a new one.`,
         );
       }
       const at = new Date();

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq } from 'drizzle-orm';
 import { stageChecklist, type StageKey, type Traveller } from '@benchwright/pricing';
-import type { JobsQuery, User } from '@benchwright/contracts';
+import { formatDate, type JobsQuery, type User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
 import { estimates, jobChecks, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
@@ -152,7 +152,7 @@ export function createJobsService(
       const again = latestRelayout(db, j.id);
       const paper = again?.record.traveller ?? record.traveller;
       const budget = roundedHours(j.hoursBudget);
-      const on = (iso: string) => new Date(iso).toLocaleDateString('en-US', { dateStyle: 'long', timeZone: 'UTC' });
+      const on = (iso: string) => formatDate(iso);
       return {
         job: view(j),
         ...paper,

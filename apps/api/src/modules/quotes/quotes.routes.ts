@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { QuotePreviewBody } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
-import { loadPricing } from '../../lib/engine';
+import { forClient, loadPricing } from '../../lib/engine';
 import type { EnginePool } from '../../lib/engine-pool';
 import { Invalid, parse, RateLimited } from '../../lib/errors';
 
@@ -34,7 +34,8 @@ export function quotesRoutes(db: Db, pool: EnginePool, opts: { enabled: boolean;
     res.json({
       quote: {
         budget: q.budget,
-        checks: q.checks,
+        // the client reads what they can do; the owner keeps the shop's wording
+        checks: owner ? q.checks : forClient(q.checks),
         items: q.items,
         hours: Math.round(hours * 10) / 10,
         ...(owner

@@ -8,7 +8,7 @@ export function HomeRoute() {
     <>
       <h1 className="mb-2 text-3xl font-bold">Furniture built for the way you work</h1>
       <p className="mb-6 max-w-2xl text-lg text-ink-soft">
-        Pick one of our designs, set it to your space, and we will send you an estimate priced from a real cut list.
+        Pick one of our designs, set it to your space, and and the shop will send you an estimate for it.
       </p>
       <Panel title="Our designs">
         <ul className="grid gap-4 sm:grid-cols-2">

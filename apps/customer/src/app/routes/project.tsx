@@ -1,6 +1,6 @@
 import { useEffect, useRef } from 'react';
 import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
-import { canDo } from '@benchwright/contracts';
+import { canDo, formatDateTime } from '@benchwright/contracts';
 import { Button, CommentForm, Money, Notice, Panel, useComment } from '@benchwright/ui';
 import { useMe } from '@benchwright/ui/auth';
 import { paths } from '../../config/paths';
@@ -80,9 +80,7 @@ export function ProjectRoute() {
         <ol className="border-l-2 border-wood pl-4" aria-label="Timeline">
           {p.timeline.map((t) => (
             <li key={t.id} className="mb-2">
-              <span className="text-sm text-ink-soft">
-                {new Date(t.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}
-              </span>
+              <span className="text-sm text-ink-soft">{formatDateTime(t.at)}</span>
               <br />
               {t.by ? <span className="font-semibold">{t.by}: </span> : null}
               {t.message}

@@ -1,7 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Button, CommentForm, Notice, Panel, useComment } from '@benchwright/ui';
-import { canStartRevision, type Project } from '@benchwright/contracts';
+import { canStartRevision, formatDateTime, SHOP_PROJECT_STATUS_LABELS, type Project } from '@benchwright/contracts';
 import { RoleGate } from '../../components/layout';
 import { paths } from '../../config/paths';
 import { useCreateEstimate, useEstimate } from '../../features/estimates/api/estimates';
@@ -34,7 +34,7 @@ function RequestPage({ id }: { id: string }) {
           ← Requests
         </Link>
       </p>
-      <Panel title={`${p.client.name}: ${p.status.replace(/_/g, ' ')}`}>
+      <Panel title={`${p.client.name}: ${SHOP_PROJECT_STATUS_LABELS[p.status]}`}>
         {p.notes ? <p className="mb-2">“{p.notes}”</p> : null}
         <ul className="list-disc pl-6">
           {p.items.map((i) => {
@@ -94,9 +94,7 @@ function Conversation({ project }: { project: Project }) {
         <ol className="mb-3 border-l-2 border-wood pl-4" aria-label="Comments">
           {comments.map((c) => (
             <li key={c.id} className="mb-2">
-              <span className="text-sm text-ink-soft">
-                {new Date(c.at).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}
-              </span>
+              <span className="text-sm text-ink-soft">{formatDateTime(c.at)}</span>
               <br />
               <span className="font-semibold">{c.by}: </span>
               {c.message}

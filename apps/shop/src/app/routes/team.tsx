@@ -12,7 +12,7 @@ export function TeamRoute() {
       </Panel>
       <Panel title="Invite a builder">
         <p className="mb-4 text-ink-soft">
-          Builders see the production board, travellers and hour logs; never prices or payments.
+          Builders see the production board, travelers and hour logs; never prices or payments.
         </p>
         <InviteForm />
       </Panel>

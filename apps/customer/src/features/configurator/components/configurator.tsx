@@ -1,6 +1,13 @@
 import { useEffect, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { designs, formatLength, parseLength, type DesignSlug, type LengthUnit } from '@benchwright/pricing/geometry';
+import {
+  designs,
+  formatLength,
+  formatWeight,
+  parseLength,
+  type DesignSlug,
+  type LengthUnit,
+} from '@benchwright/pricing/geometry';
 import { ApiRequestError, Button, Field, formatMoney, Notice, Panel } from '@benchwright/ui';
 import { useMe } from '@benchwright/ui/auth';
 import { paths } from '../../../config/paths';
@@ -218,7 +225,7 @@ function BayEditor({
 /**
  * The configurator: set one of the shop's designs to your space and see its
  * drawing, weight, checks and budget range at once (from the server's
- * preview, which prices a real cut list), then ask for an estimate.
+ * preview, a budget range from the designs' cut list), then ask the shop for an estimate.
  */
 export function Configurator({ slug }: { slug: DesignSlug }) {
   const design = designs[slug];
@@ -248,7 +255,7 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
           {(['in', 'mm'] as const).map((u) => (
             <label key={u}>
               <input type="radio" name="unit" checked={unit === u} onChange={() => setUnit(u)} />{' '}
-              {u === 'in' ? 'inches' : 'millimetres'}
+              {u === 'in' ? 'inches' : 'millimeters'}
             </label>
           ))}
         </div>
@@ -362,8 +369,8 @@ export function Configurator({ slug }: { slug: DesignSlug }) {
                 {quantity > 1 ? ` for ${quantity}` : ''}
               </p>
               <p className="mb-3 text-sm text-ink-soft">
-                A budget from the real cut list and sheet layouts at today’s prices, tax included; your estimate will be
-                exact. About {Math.round(q.items[0].massKg)} kg each.
+                A budget range at today’s prices, tax included. Your estimate comes from the shop, once they have looked
+                at your request. About {formatWeight(q.items[0].massKg, unit)} each.
               </p>
               <LeadTimeNote hours={q.hours} />
               {q.checks.length ? (

@@ -1,7 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { AcceptEstimateBody, LINE_GROUP_LABELS, LINE_GROUPS } from '@benchwright/contracts';
+import { AcceptEstimateBody, formatDate, LINE_GROUP_LABELS, LINE_GROUPS, replacedBy } from '@benchwright/contracts';
+import { formatQuantity } from '@benchwright/pricing/geometry';
 import { applyServerIssues, Button, Drawing, Field, Money, Notice, Panel } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useAcceptEstimate } from '../api/accept-estimate';
@@ -9,7 +10,6 @@ import { useDepositCheckout } from '../api/checkout';
 import { useEstimate, type ClientEstimate } from '../api/get-estimate';
 
 function Lines({ e }: { e: ClientEstimate }) {
-  const qty = (q: number) => (Number.isInteger(q) ? String(q) : q.toFixed(2));
   return (
     <table className="w-full border-collapse text-left" aria-label="Priced items">
       <thead>
@@ -31,9 +31,7 @@ function Lines({ e }: { e: ClientEstimate }) {
             .map((l) => (
               <tr key={l.id} className="border-b border-rule">
                 <td className="py-1">{l.description}</td>
-                <td className="py-1 text-right">
-                  {qty(l.quantity)} {l.unit}
-                </td>
+                <td className="py-1 text-right">{formatQuantity(l.quantity, l.unit, e.units)}</td>
                 <td className="py-1 text-right">
                   <Money cents={l.amountCents} />
                 </td>
@@ -129,9 +127,7 @@ export function EstimateView({
   return (
     <Panel title={`Estimate ${e.number}, revision ${e.revision}`}>
       <p className="mb-3 text-ink-soft">
-        {e.status === 'sent' && e.validUntil
-          ? `Valid until ${new Date(e.validUntil).toLocaleDateString('en-US', { dateStyle: 'long' })}. `
-          : null}
+        {e.status === 'sent' && e.validUntil ? `Valid until ${formatDate(e.validUntil)}. ` : null}
         <a href={paths.estimatePdf.getHref(e.id)} className="text-wood underline">
           Download the PDF
         </a>
@@ -158,10 +154,12 @@ export function EstimateView({
         {e.status === 'accepted' && !depositDue ? (
           <p className="text-ink-soft">
             Accepted by {e.acceptedName}
-            {e.acceptedAt ? ` on ${new Date(e.acceptedAt).toLocaleDateString('en-US', { dateStyle: 'long' })}` : ''}.
+            {e.acceptedAt ? ` on ${formatDate(e.acceptedAt)}` : ''}.
           </p>
         ) : null}
-        {e.status === 'superseded' ? <Notice>A newer revision replaces this one.</Notice> : null}
+        {e.status === 'superseded' ? (
+          <Notice>{e.replacedBy ? `${replacedBy(e.replacedBy)}.` : 'Replaced by a newer revision.'}</Notice>
+        ) : null}
         {e.status === 'expired' ? <Notice>This estimate expired; ask the shop for a new one.</Notice> : null}
         {e.status === 'withdrawn' ? (
           <Notice>The shop withdrew this revision; the project page says why, and a new revision will follow.</Notice>

@@ -1,24 +1,12 @@
-import type { ProjectStatus, ProjectSummary } from '@benchwright/contracts';
+import { CLIENT_PROJECT_STATUS_LABELS, formatDate, type ProjectSummary } from '@benchwright/contracts';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Link } from 'react-router-dom';
 import { Button, Money, Notice } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useProjects } from '../api/get-projects';
 
-export const STATUS_WORDS: Record<ProjectStatus, string> = {
-  requested: 'Estimate requested',
-  estimating: 'Being estimated',
-  estimate_sent: 'Estimate ready to review',
-  accepted: 'Accepted, deposit due',
-  deposit_paid: 'Deposit paid',
-  in_production: 'In the shop',
-  ready: 'Ready, balance due',
-  delivered: 'Delivered',
-  closed: 'Closed',
-  declined: 'Declined',
-  expired: 'Estimate expired',
-  cancelled: 'Cancelled',
-};
+/** The client's words for a project's status (one map, in the contracts). */
+export const STATUS_WORDS = CLIENT_PROJECT_STATUS_LABELS;
 
 export function itemName(spec: unknown): string {
   const slug = (spec as { design?: string }).design;
@@ -39,7 +27,7 @@ function ProjectRow({ p }: { p: ProjectSummary }) {
       </div>
       {p.notes ? <p className="text-ink-soft">{p.notes}</p> : null}
       <p className="text-sm text-ink-soft">
-        Asked on {new Date(p.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })}
+        Asked on {formatDate(p.createdAt)}
         {latest ? (
           <>
             {' '}

@@ -12,6 +12,7 @@ import {
 } from '@dnd-kit/core';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { formatDate } from '@benchwright/contracts';
 import { Button, Notice } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useJobs, useLogTime, useMoveJob, useStages, type Job, type Stage, type StageKey } from '../api/jobs';
@@ -113,7 +114,7 @@ function Card({ job, stages, onMove }: { job: Job; stages: Stage[]; onMove: (to:
       </div>
       <p className="mt-1 text-sm">
         Builder: {job.builder?.name ?? 'not set'}
-        {job.dueDate ? ` · due ${job.dueDate}` : ''}
+        {job.dueDate ? ` · due ${formatDate(job.dueDate)}` : ''}
       </p>
       <p className={`text-sm ${over ? 'font-semibold text-alert' : ''}`} aria-label="Hours used">
         {h(job.hoursLogged.total)} of {h(job.hoursBudgeted.total)} h used; this stage {h(job.hoursLogged[job.stage])} of{' '}
@@ -121,7 +122,7 @@ function Card({ job, stages, onMove }: { job: Job; stages: Stage[]; onMove: (to:
       </p>
       <p className="mt-1 text-sm">
         <Link to={paths.job.getHref(job.id)} className="text-wood underline">
-          Traveller: cut list, sheets, pick list
+          Traveler: cut list, sheets, pick list
         </Link>
       </p>
       <label className="mt-2 block text-sm">

@@ -1,4 +1,6 @@
 import { Link } from 'react-router-dom';
+import { formatDate } from '@benchwright/contracts';
+import { formatWeight, pieceSummary } from '@benchwright/pricing/geometry';
 import { Button, Notice, Panel, TableHead } from '@benchwright/ui';
 import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../../components/shop-paper';
 import { paths } from '../../../config/paths';
@@ -32,14 +34,14 @@ export function TravellerPage({
   const t = q.data;
   const stageLabel = (key: string) => stages.data?.find((s) => s.key === key)?.label ?? key.replace(/_/g, ' ');
   return (
-    <article aria-label={`Traveller for ${t.job.clientName}`}>
+    <article aria-label={`Traveler for ${t.job.clientName}`}>
       <p className="mb-2 print:hidden">
         <Link to={paths.board.getHref()} className="text-wood underline">
           ← Production board
         </Link>
       </p>
       <header className="mb-4 flex flex-wrap items-baseline justify-between gap-3">
-        <h1 className="text-2xl font-bold">Traveller: {t.job.clientName}</h1>
+        <h1 className="text-2xl font-bold">Traveler: {t.job.clientName}</h1>
         <span className="flex gap-3 print:hidden">
           <a href={paths.travellerPdf.getHref(t.job.id)} className="px-4 py-2 font-semibold text-wood underline">
             Download PDF
@@ -55,7 +57,7 @@ export function TravellerPage({
       <p className="mb-4">
         {t.job.project.notes ? `“${t.job.project.notes}” · ` : ''}now in {stageLabel(t.job.stage)} · builder{' '}
         {t.job.builder?.name ?? 'not set'}
-        {t.job.dueDate ? ` · due ${t.job.dueDate}` : ''} · about {Math.round(t.massKg)} kg finished
+        {t.job.dueDate ? ` · due ${formatDate(t.job.dueDate)}` : ''} · about {formatWeight(t.massKg, t.units)} finished
       </p>
       {t.layout ? (
         <p className="mb-4 text-sm text-ink-soft">
@@ -104,6 +106,30 @@ export function TravellerPage({
       </Panel>
 
       <StageChecklist t={t} stageLabel={stageLabel} order={stages.data?.map((s) => s.key) ?? []} />
+      <Panel title="Piece">
+        {t.pieces.map((p, i) => {
+          const rows = pieceSummary(p, t.units);
+          return (
+            <section key={i} className="mb-3" aria-label={`Piece: ${p.title}`}>
+              <h3 className="mb-1 font-semibold">
+                {p.title} × {p.quantity}
+              </h3>
+              {rows.length ? (
+                <dl className="grid grid-cols-[8rem_1fr] gap-x-3 text-sm">
+                  {rows.map(([k, v]) => (
+                    <div key={k} className="contents">
+                      <dt className="text-ink-soft">{k}</dt>
+                      <dd>{v}</dd>
+                    </div>
+                  ))}
+                </dl>
+              ) : (
+                <p className="text-sm text-ink-soft">The estimate this job was priced from predates this section.</p>
+              )}
+            </section>
+          );
+        })}
+      </Panel>
       <CutListPanel layouts={t} />
       <SheetLayoutsPanel layouts={t} />
       <PickListPanel layouts={t} />

@@ -91,7 +91,7 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
         {estimate.layouts
           .map(
             (l) =>
-              `${l.materialName} ${l.sheetCount} (least possible ${l.lowerBound}, yield ${Math.round(l.yieldRatio * 100)} %)`,
+              `${l.materialName} ${l.sheetCount} (least possible ${l.lowerBound}, yield ${Math.round(l.yieldRatio * 100)}%)`,
           )
           .join('; ')}
       </p>

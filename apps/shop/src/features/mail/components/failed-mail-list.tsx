@@ -1,7 +1,8 @@
+import { formatDateTime } from '@benchwright/contracts';
 import { Button, Notice, TableHead } from '@benchwright/ui';
 import { useFailedMail, useRetryMail } from '../api/failed-mail';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' });
+const when = (iso: string) => formatDateTime(iso);
 
 /** Mail the relay has refused so far: the worker keeps trying with growing waits; the owner can try one now. */
 export function FailedMailList() {

@@ -1,20 +1,6 @@
+import { SHOP_PROJECT_STATUS_LABELS, type ProjectStatus } from '@benchwright/contracts';
 import { formatMoney, Notice, Panel } from '@benchwright/ui';
 import { useOverview } from '../api/overview';
-
-const WORDS: Record<string, string> = {
-  requested: 'Requested',
-  estimating: 'Being estimated',
-  estimate_sent: 'Estimate sent',
-  accepted: 'Accepted, deposit due',
-  deposit_paid: 'Deposit paid',
-  in_production: 'In production',
-  ready: 'Ready',
-  delivered: 'Delivered',
-  closed: 'Closed',
-  declined: 'Declined',
-  expired: 'Expired',
-  cancelled: 'Cancelled',
-};
 
 function Tile({ label, value, note }: { label: string; value: string; note?: string }) {
   return (
@@ -37,7 +23,7 @@ function Bar({ value, max, tone }: { value: number; max: number; tone: 'budget' 
   );
 }
 
-/** The owner's overview: the pipeline, this month's money, the win rate, and hours estimated against hours used. */
+/** The owner's overview: work by status, this month's money, the share of estimates accepted, and hours estimated against hours used. */
 export function OverviewPage() {
   const q = useOverview();
   if (q.isPending) return <p>Loading the overview…</p>;
@@ -45,7 +31,7 @@ export function OverviewPage() {
   const o = q.data;
   const month = new Date(`${o.month}-01T12:00:00`).toLocaleDateString('en-US', { month: 'long', year: 'numeric' });
   const max = Math.max(1, ...o.hours.flatMap((h) => [h.budgetHours, h.usedHours]));
-  const rate = o.winRate.quoted ? `${Math.round((o.winRate.won / o.winRate.quoted) * 100)} %` : '–';
+  const rate = o.winRate.quoted ? `${Math.round((o.winRate.won / o.winRate.quoted) * 100)}%` : '–';
   const maxCount = Math.max(1, ...Object.values(o.pipeline));
   return (
     <>
@@ -65,16 +51,20 @@ export function OverviewPage() {
           value={formatMoney(o.collectedThisMonth.balancesCents)}
           note="after refunds"
         />
-        <Tile label="Win rate" value={rate} note={`${o.winRate.won} of ${o.winRate.quoted} quoted projects accepted`} />
+        <Tile
+          label="Estimates accepted"
+          value={rate}
+          note={`${o.winRate.won} of ${o.winRate.quoted} quoted projects accepted`}
+        />
       </div>
-      <Panel title="Pipeline">
-        <table className="w-full text-left" aria-label="Pipeline">
+      <Panel title="Work by status">
+        <table className="w-full text-left" aria-label="Work by status">
           <tbody>
             {Object.entries(o.pipeline)
               .filter(([, n]) => n > 0)
               .map(([status, n]) => (
                 <tr key={status} className="border-b border-rule/50">
-                  <td className="w-48 py-1">{WORDS[status] ?? status}</td>
+                  <td className="w-48 py-1">{SHOP_PROJECT_STATUS_LABELS[status as ProjectStatus] ?? status}</td>
                   <td className="w-10 tabular-nums">{n}</td>
                   <td>
                     <Bar value={n} max={maxCount} tone="used" />

@@ -1,3 +1,4 @@
+import { formatDate } from '@benchwright/contracts';
 import { useEffect, useState } from 'react';
 import { Button, formatMoney, Money, Notice, TableHead } from '@benchwright/ui';
 import { toCents, toDollars } from '../../../lib/money';
@@ -82,7 +83,7 @@ export function PaymentsTable() {
         <tbody>
           {rows.map((p) => (
             <tr key={p.id} className="border-b border-rule/50 align-top">
-              <td className="py-2">{new Date(p.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })}</td>
+              <td className="py-2">{formatDate(p.createdAt)}</td>
               <td>{p.clientName}</td>
               <td>{p.kind}</td>
               <td>

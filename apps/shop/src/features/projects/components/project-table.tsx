@@ -1,7 +1,9 @@
 import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import {
+  formatDate,
   PROJECT_STATUSES,
+  SHOP_PROJECT_STATUS_LABELS,
   type ProjectSort,
   type ProjectStatus,
   type ProjectSummary,
@@ -92,7 +94,7 @@ export function ProjectTable({ empty, linkTo }: { empty: string; linkTo?: (proje
             <option value="all">All projects</option>
             {PROJECT_STATUSES.map((s) => (
               <option key={s} value={s}>
-                {s.replace(/_/g, ' ')}
+                {SHOP_PROJECT_STATUS_LABELS[s]}
               </option>
             ))}
           </select>
@@ -142,10 +144,8 @@ export function ProjectTable({ empty, linkTo }: { empty: string; linkTo?: (proje
                       )}
                     </td>
                     <td className="py-2">{what(p)}</td>
-                    <td className="py-2">{p.status.replace(/_/g, ' ')}</td>
-                    <td className="py-2">
-                      {new Date(p.createdAt).toLocaleDateString('en-US', { dateStyle: 'medium' })}
-                    </td>
+                    <td className="py-2">{SHOP_PROJECT_STATUS_LABELS[p.status]}</td>
+                    <td className="py-2">{formatDate(p.createdAt)}</td>
                     <td className="py-2 text-right">{e ? <Money cents={e.totals.totalCents} /> : '—'}</td>
                   </tr>
                 );
