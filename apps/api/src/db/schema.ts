@@ -15,6 +15,8 @@ export const users = sqliteTable('users', {
   /** null for a builder who has not yet accepted the invitation */
   passwordHash: text(),
   emailVerifiedAt: integer({ mode: 'timestamp_ms' }),
+  /** a new address asked for on the account page: it replaces `email` only when its link is followed */
+  pendingEmail: text(),
   createdAt: createdAt(),
 });
 
@@ -32,6 +34,12 @@ export const sessions = sqliteTable('sessions', {
   createdAt: integer({ mode: 'timestamp_ms' })
     .notNull()
     .default(sql`0`),
+  /** the browser's User-Agent at sign-in, cut to 300 characters: shown on the account page */
+  userAgent: text().notNull().default(''),
+  /** the last request made with the session, written at most once a minute */
+  lastSeenAt: integer({ mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`0`),
 });
 
 /** Single-use, expiring tokens, stored as SHA-256 hashes only. */
@@ -42,7 +50,7 @@ export const tokens = sqliteTable(
     userId: text()
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    kind: text({ enum: ['verify_email', 'reset_password', 'invitation'] }).notNull(),
+    kind: text({ enum: ['verify_email', 'reset_password', 'invitation', 'change_email'] }).notNull(),
     tokenHash: text().notNull().unique(),
     expiresAt: integer({ mode: 'timestamp_ms' }).notNull(),
     usedAt: integer({ mode: 'timestamp_ms' }),

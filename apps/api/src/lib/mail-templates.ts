@@ -198,3 +198,31 @@ export function requestNotice(
     html: layout(shop, `A request from ${client}`, p, a),
   };
 }
+
+export function emailChangeMail(shop: string, name: string, url: string): MailContent {
+  const p = [
+    `Hello ${name},`,
+    `You asked ${shop} to use this address for your account from now on. Confirm it with the link below; it works for 48 hours and only once. Until then, mail keeps going to your old address.`,
+    'If you did not ask for this, ignore this message: nothing changes.',
+  ];
+  const a = { label: 'Use this address', url };
+  return {
+    subject: `Confirm your new e-mail for ${shop}`,
+    text: text(p, a, shop),
+    html: layout(shop, 'Confirm your new e-mail', p, a),
+  };
+}
+
+/** To the old address when a change is asked for, so a stolen session cannot move the account quietly. */
+export function emailChangeNoticeMail(shop: string, name: string, newEmail: string): MailContent {
+  const p = [
+    `Hello ${name},`,
+    `Someone signed in to your ${shop} account asked to use ${newEmail} as its address. It changes only when the link sent there is followed.`,
+    'If this was not you, change your password on your account page and end the sessions you do not recognise.',
+  ];
+  return {
+    subject: `A new e-mail was asked for your ${shop} account`,
+    text: text(p, undefined, shop),
+    html: layout(shop, 'A new e-mail was asked for', p),
+  };
+}

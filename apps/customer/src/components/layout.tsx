@@ -21,7 +21,13 @@ export function Layout() {
                 <NavLink to={paths.projects.getHref()} className="font-semibold text-wood">
                   My projects
                 </NavLink>
-                <span className="text-ink-soft">{me.data.name}</span>
+                <NavLink
+                  to={paths.account.getHref()}
+                  className="text-ink-soft"
+                  aria-label={`Your account (${me.data.name})`}
+                >
+                  {me.data.name}
+                </NavLink>
                 <Button
                   variant="quiet"
                   onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref()) })}

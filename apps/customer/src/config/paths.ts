@@ -10,6 +10,8 @@ export const paths = {
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
   design: { path: '/designs/:slug', getHref: (slug: string) => `/designs/${encodeURIComponent(slug)}` },
+  account: { path: '/account', getHref: () => '/account' },
+  confirmEmail: { path: '/confirm-email', getHref: () => '/confirm-email' },
   projects: { path: '/projects', getHref: () => '/projects' },
   project: { path: '/projects/:id', getHref: (id: string) => `/projects/${encodeURIComponent(id)}` },
   /** a project's file and its thumbnail, served by the API (through the dev proxy) */

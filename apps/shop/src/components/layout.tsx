@@ -100,7 +100,13 @@ export function ShopLayout() {
           Mail
         </NavLink>
       ) : null}
-      <span className="ml-4 text-sm text-wood-light">{user.name}</span>
+      <NavLink
+        to={paths.account.getHref()}
+        className={`ml-4 text-sm ${link}`}
+        aria-label={`Your account (${user.name})`}
+      >
+        {user.name}
+      </NavLink>
       <Button variant="quiet" className="text-wood-light" onClick={out}>
         Sign out
       </Button>
