@@ -93,7 +93,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     portalUrl: env.PORTAL_URL,
     shopUrl: env.SHOP_URL,
   });
-  const jobsService = createJobsService(db, env.PORTAL_URL, pool);
+  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.UPLOADS_DIR);
 
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(helmet());

@@ -157,6 +157,10 @@ export const TimelineEvent = z.object({
   /** who did it, when a person did (a comment's author) */
   by: z.string().nullable(),
   at: z.iso.datetime(),
+  /** stage news and progress photos: the stage's key */
+  stage: z.enum(STAGE_KEYS).optional(),
+  /** progress photos (upload ids): the photo of a `progress_photo` event, or, for the client, those under stage news */
+  photos: z.array(z.string()).optional(),
 });
 export type TimelineEvent = z.infer<typeof TimelineEvent>;
 /** Files a project accepts (`POST /api/projects/:id/uploads`, multipart field `file`): the type is read from the bytes. */

@@ -4,6 +4,14 @@ import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS } from '@benchwright/co
 import { LINE_GROUPS, type PriceBook, type ShopSettings, type StageKey } from '@benchwright/pricing';
 import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
+/**
+ * A mail's attachment: a file by its path relative to the PDF folder, or small bytes kept in the row (base64), such as
+ * a progress photo's thumbnail shown inline by its `cid`.
+ */
+export type MailAttachment =
+  | { filename: string; path: string; contentType: string }
+  | { filename: string; content: string; contentType: string; cid: string };
+
 const now = sql`(unixepoch() * 1000)`;
 const createdAt = () => integer({ mode: 'timestamp_ms' }).notNull().default(now);
 
@@ -288,6 +296,10 @@ export const projectEvents = sqliteTable(
     kind: text().notNull(),
     message: text().notNull(),
     actorId: text().references(() => users.id),
+    /** `stage` events: the stage entered; `progress_photo` events: the stage the photo was taken in */
+    stageKey: text({ enum: STAGE_KEYS }),
+    /** `progress_photo` events: the photo (its row may since have been removed) */
+    uploadId: text(),
     createdAt: createdAt(),
   },
   (t) => [index('project_events_project').on(t.projectId)],
@@ -316,10 +328,7 @@ export const outbox = sqliteTable(
     subject: text().notNull(),
     text: text().notNull(),
     html: text().notNull(),
-    attachments: text({ mode: 'json' })
-      .$type<{ filename: string; path: string; contentType: string }[]>()
-      .notNull()
-      .default([]),
+    attachments: text({ mode: 'json' }).$type<MailAttachment[]>().notNull().default([]),
     status: text({ enum: ['pending', 'sent'] })
       .notNull()
       .default('pending'),

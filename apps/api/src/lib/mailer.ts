@@ -3,19 +3,14 @@ import { resolve } from 'node:path';
 import { and, asc, eq, lte } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../db/client';
-import { outbox } from '../db/schema';
+import { outbox, type MailAttachment } from '../db/schema';
 import type { MailContent } from './mail-templates';
 
 type Tx = Pick<Db, 'insert'>;
 
 /** Queues a message in the caller's transaction; the worker sends it. Attachment paths are relative to the worker's
  * `filesDir` (the PDF folder). */
-export function queueMail(
-  tx: Tx,
-  to: string,
-  content: MailContent,
-  attachments: { filename: string; path: string; contentType: string }[] = [],
-): string {
+export function queueMail(tx: Tx, to: string, content: MailContent, attachments: MailAttachment[] = []): string {
   const id = randomUUID();
   tx.insert(outbox)
     .values({
@@ -85,7 +80,9 @@ export function createMailWorker(
         text: m.text,
         html: m.html,
         messageId: m.messageId,
-        attachments: m.attachments?.map((a) => ({ ...a, path: resolve(filesDir, a.path) })),
+        attachments: m.attachments?.map((a) =>
+          'path' in a ? { ...a, path: resolve(filesDir, a.path) } : { ...a, encoding: 'base64' },
+        ),
       });
       db.update(outbox)
         .set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null })
