@@ -11,11 +11,11 @@ export function Layout() {
   return (
     <div className="min-h-screen">
       <header className="border-b-4 border-wood bg-paper-deep">
-        <div className="mx-auto flex max-w-4xl items-center justify-between px-6 py-4">
+        <div className="mx-auto flex max-w-4xl flex-wrap items-center justify-between gap-2 px-4 py-4 sm:px-6">
           <Link to={paths.home.getHref()} className="text-xl font-bold tracking-wide text-ink no-underline">
             Fernhill Joinery <span className="font-normal text-ink-soft">· client portal</span>
           </Link>
-          <nav aria-label="Main" className="flex items-center gap-4">
+          <nav aria-label="Main" className="flex flex-wrap items-center gap-x-4 gap-y-1">
             {me.data ? (
               <>
                 <NavLink to={paths.projects.getHref()} className="font-semibold text-wood">
@@ -48,7 +48,7 @@ export function Layout() {
           </nav>
         </div>
       </header>
-      <main className="mx-auto max-w-4xl px-6 py-8">
+      <main className="mx-auto max-w-4xl px-4 py-8 sm:px-6">
         <Outlet />
       </main>
     </div>

@@ -83,7 +83,7 @@ describe('AccountPage', () => {
     stubApi();
     renderPage();
     const form = await screen.findByRole('form', { name: 'Your password' });
-    const [current, next] = form.querySelectorAll('input');
+    const [current, next] = Array.from(form.querySelectorAll('input'));
     fireEvent.input(current!, { target: { value: 'wrong-one-here' } });
     fireEvent.input(next!, { target: { value: 'a-brand-new-password' } });
     fireEvent.submit(form);

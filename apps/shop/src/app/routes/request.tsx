@@ -34,7 +34,7 @@ function RequestPage({ id }: { id: string }) {
           ← Requests
         </Link>
       </p>
-      <Panel title={`${p.client.name}: ${p.status.replace(/_/g, ' ')}`}>
+      <Panel level={1} title={`${p.client.name}: ${p.status.replace(/_/g, ' ')}`}>
         {p.notes ? <p className="mb-2">“{p.notes}”</p> : null}
         <ul className="list-disc pl-6">
           {p.items.map((i) => {
