@@ -11,3 +11,8 @@ setup('a demo client signs in to the portal', async ({ page }) => {
   await signIn(page, PORTAL, 'priya@example.com');
   await page.context().storageState({ path: authFile('priya') });
 });
+
+setup('the builder signs in to the shop app', async ({ page }) => {
+  await signIn(page, SHOP, 'idris@fernhill.example');
+  await page.context().storageState({ path: authFile('builder') });
+});

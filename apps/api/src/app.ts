@@ -12,6 +12,8 @@ import { originCheck } from './middleware/origin';
 import { requireRole, sessionMiddleware } from './middleware/session';
 import { priceBookRoutes } from './modules/price-book/price-book.routes';
 import { createPriceBookService } from './modules/price-book/price-book.service';
+import { accountRoutes, confirmEmailChangeRoute } from './modules/account/account.routes';
+import { createAccountService } from './modules/account/account.service';
 import { authRoutes } from './modules/auth/auth.routes';
 import { createAuthService } from './modules/auth/auth.service';
 import { designsRoutes } from './modules/designs/designs.routes';
@@ -75,6 +77,15 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     },
   });
 
+  const account = createAccountService({
+    db,
+    shopName: () => loadPricing(db).shopName,
+    portalUrl: env.PORTAL_URL,
+    shopUrl: env.SHOP_URL,
+    sessionMaxAgeMs: env.SESSION_MAX_DAYS * 24 * 3600_000,
+    mailLimits: { enabled: env.RATE_LIMITS, perHour: env.VERIFY_MAILS_PER_HOUR },
+  });
+
   const pool =
     given ??
     createEnginePool({
@@ -98,7 +109,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     portalUrl: env.PORTAL_URL,
     shopUrl: env.SHOP_URL,
   });
-  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.SHOP_URL, pdfs, env.PDF_DIR);
+  const jobsService = createJobsService(db, env.PORTAL_URL, pool, env.SHOP_URL, pdfs, env.PDF_DIR, env.UPLOADS_DIR);
 
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(helmet());
@@ -106,7 +117,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   app.use('/api/webhooks/stripe', webhookRoute(paymentsService));
   app.use(express.json({ limit: env.JSON_LIMIT }));
   app.use(originCheck(appOrigins(env)));
-  app.use(sessionMiddleware(lucia, env.SESSION_MAX_DAYS * 24 * 3600_000));
+  app.use(sessionMiddleware(lucia, env.SESSION_MAX_DAYS * 24 * 3600_000, account.touch));
   // what the API answers is personal or changes by the minute: no cache keeps it (the estimate PDF says private)
   app.use('/api', noStore);
 
@@ -132,7 +143,16 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     signUpsPerIp: env.SIGNUPS_PER_IP,
     passwordResetsPerIp: env.PASSWORD_RESETS_PER_IP,
   };
-  app.use('/api/auth', authRoutes(auth, lucia, limits));
+  app.use(
+    '/api/auth',
+    authRoutes(auth, lucia, limits),
+    confirmEmailChangeRoute(account, { enabled: env.RATE_LIMITS, failuresPerIp: env.SIGNIN_ATTEMPTS_PER_IP }),
+  );
+  app.use(
+    '/api/account',
+    requireRole(),
+    accountRoutes(account, lucia, { enabled: env.RATE_LIMITS, passwordChecksPerUser: env.ACCOUNT_PASSWORD_CHECKS }),
+  );
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
   app.use('/api/designs', designsRoutes());
   app.use('/api/quotes', quotesRoutes(db, pool, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));

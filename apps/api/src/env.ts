@@ -64,6 +64,8 @@ const Env = z.object({
   RATE_LIMITS: bool.default(true),
   SIGNIN_FAILS_PER_EMAIL_IP: z.coerce.number().int().positive().default(10),
   SIGNIN_ATTEMPTS_PER_IP: z.coerce.number().int().positive().default(50),
+  /** wrong current passwords on the account page per account in 15 minutes */
+  ACCOUNT_PASSWORD_CHECKS: z.coerce.number().int().positive().default(10),
   SIGNUPS_PER_IP: z.coerce.number().int().positive().default(20),
   PASSWORD_RESETS_PER_IP: z.coerce.number().int().positive().default(30),
   RESET_MAILS_PER_HOUR: z.coerce.number().int().positive().default(3),

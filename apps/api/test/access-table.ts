@@ -80,6 +80,27 @@ export const ACCESS: RouteAccess[] = [
     expect: anyone,
     body: () => ({ token: 'a'.repeat(43), password: 'a-long-password-1' }),
   },
+  {
+    method: 'POST',
+    path: '/api/auth/confirm-email-change',
+    expect: anyone,
+    body: () => ({ token: 'a'.repeat(43) }),
+  },
+  // the account page: each signed-in person's own (empty bodies: a 400 is access, and nothing changes)
+  { method: 'GET', path: '/api/account', expect: signedIn },
+  { method: 'PATCH', path: '/api/account', expect: signedIn },
+  { method: 'POST', path: '/api/account/email', expect: signedIn },
+  { method: 'POST', path: '/api/account/password', expect: signedIn },
+  { method: 'GET', path: '/api/account/sessions', expect: signedIn },
+  // ends the role's other sessions; the one the table walks with stays
+  { method: 'POST', path: '/api/account/sessions/end-others', expect: signedIn },
+  // a session that is not the caller's (here nobody's) is 404 to everyone signed in
+  {
+    method: 'DELETE',
+    path: '/api/account/sessions/:id',
+    expect: a(401, 404, 404, 404, 404),
+    params: () => ({ id: 'f'.repeat(32) }),
+  },
   { method: 'GET', path: '/api/users', expect: ownerOnly },
   {
     method: 'POST',

@@ -110,6 +110,10 @@ describe('GET /api/projects/:id timeline', () => {
     expect(timeline.find((e) => e.kind === 'estimate_sent')!.message).toMatch(/revision 1 sent: \$[\d,]+\.\d\d/);
     expect(timeline.filter((e) => e.kind === 'comment').map((e) => e.by)).toEqual(['Tomasz Wierzbicki', 'Maren Holt']);
     expect(JSON.stringify(timeline)).not.toMatch(/priced|started from|asked of the card processor|logged|Assigned/);
+    // the shop's words stay in the shop: stage news and the request in the client's own
+    expect(timeline.find((e) => e.kind === 'stage')!.message).toBe('Your piece is being cut.');
+    expect(timeline.find((e) => e.kind === 'requested')!.message).toBe('You asked for an estimate.');
+    expect(JSON.stringify(timeline)).not.toMatch(/Moved to|on the board|Tomasz Wierzbicki asked/);
   });
 });
 

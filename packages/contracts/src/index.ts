@@ -65,6 +65,34 @@ export type InvitationBody = z.input<typeof InvitationBody>;
 export const AcceptInvitationBody = z.object({ token, password });
 export type AcceptInvitationBody = z.input<typeof AcceptInvitationBody>;
 
+/** The account page: a new name. */
+export const UpdateAccountBody = z.object({ name });
+export type UpdateAccountBody = z.input<typeof UpdateAccountBody>;
+const currentPassword = z.string().min(1, 'enter your current password').max(200, 'use at most 200 characters');
+/** A new e-mail address: it takes effect when the link mailed to it is followed. */
+export const ChangeEmailBody = z.object({ email, currentPassword });
+export type ChangeEmailBody = z.input<typeof ChangeEmailBody>;
+export const ConfirmEmailChangeBody = z.object({ token });
+/** A new password: the current one is asked for, and the account's other sessions end. */
+export const ChangePasswordBody = z
+  .object({ currentPassword, newPassword: password })
+  .refine((b) => b.currentPassword !== b.newPassword, {
+    path: ['newPassword'],
+    message: 'choose a password other than the current one',
+  });
+export type ChangePasswordBody = z.input<typeof ChangePasswordBody>;
+
+/** One signed-in browser. `id` is a digest of the session, never the session's own secret id. */
+export const AccountSession = z.object({
+  id: z.string(),
+  createdAt: z.string(),
+  lastSeenAt: z.string().nullable(),
+  userAgent: z.string(),
+  current: z.boolean(),
+});
+export type AccountSession = z.infer<typeof AccountSession>;
+export const AccountSessionsResponse = z.object({ sessions: z.array(AccountSession) });
+
 export const User = z.object({
   id: z.string(),
   email: z.string(),
@@ -73,6 +101,10 @@ export const User = z.object({
   emailVerified: z.boolean(),
 });
 export type User = z.infer<typeof User>;
+/** The account page's subject: the user and the address waiting for its link, if any. */
+export const Account = User.extend({ pendingEmail: z.string().nullable() });
+export type Account = z.infer<typeof Account>;
+export const AccountResponse = z.object({ account: Account });
 
 export const ItemInput = z.object({
   spec: BuildSpec,
@@ -131,6 +163,10 @@ export const TimelineEvent = z.object({
   /** who did it, when a person did (a comment's author) */
   by: z.string().nullable(),
   at: z.iso.datetime(),
+  /** stage news and progress photos: the stage's key */
+  stage: z.enum(STAGE_KEYS).optional(),
+  /** progress photos (upload ids): the photo of a `progress_photo` event, or, for the client, those under stage news */
+  photos: z.array(z.string()).optional(),
 });
 export type TimelineEvent = z.infer<typeof TimelineEvent>;
 /** Files a project accepts (`POST /api/projects/:id/uploads`, multipart field `file`): the type is read from the bytes. */

@@ -72,14 +72,16 @@ export function Notice({ tone = 'info', children }: { tone?: 'info' | 'error' | 
   );
 }
 
-export function Panel({ title, children }: { title?: string; children: ReactNode }) {
+/** A titled section; `level={1}` makes its title the page's one `h1` (the first panel of a page without another). */
+export function Panel({ title, level = 2, children }: { title?: string; level?: 1 | 2; children: ReactNode }) {
   const titleId = useId();
+  const Heading = level === 1 ? 'h1' : 'h2';
   return (
     <section className="mb-6 rounded border border-rule bg-white/70 p-6" aria-labelledby={title ? titleId : undefined}>
       {title ? (
-        <h2 id={titleId} className="mb-4 text-xl font-semibold">
+        <Heading id={titleId} className={`mb-4 font-semibold ${level === 1 ? 'text-2xl' : 'text-xl'}`}>
           {title}
-        </h2>
+        </Heading>
       ) : null}
       {children}
     </section>

@@ -3,12 +3,13 @@ import { and, count, eq, gt, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { tokens } from '../db/schema';
 
-export type TokenKind = 'verify_email' | 'reset_password' | 'invitation';
+export type TokenKind = 'verify_email' | 'reset_password' | 'invitation' | 'change_email';
 
 export const TOKEN_LIFETIME_MS: Record<TokenKind, number> = {
   verify_email: 48 * 3600_000,
   reset_password: 3600_000,
   invitation: 7 * 24 * 3600_000,
+  change_email: 48 * 3600_000,
 };
 
 export function hashToken(token: string): string {

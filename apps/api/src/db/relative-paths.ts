@@ -27,9 +27,9 @@ export function relativeFilePaths(db: Db, pdfDir: string): number {
       }
     }
     for (const m of tx.select({ id: outbox.id, attachments: outbox.attachments }).from(outbox).all()) {
-      if (m.attachments.some((a) => isAbsolute(a.path))) {
+      if (m.attachments.some((a) => 'path' in a && isAbsolute(a.path))) {
         tx.update(outbox)
-          .set({ attachments: m.attachments.map((a) => ({ ...a, path: rel(a.path) })) })
+          .set({ attachments: m.attachments.map((a) => ('path' in a ? { ...a, path: rel(a.path) } : a)) })
           .where(eq(outbox.id, m.id))
           .run();
         changed++;

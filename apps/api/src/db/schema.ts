@@ -4,6 +4,14 @@ import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS } from '@benchwright/co
 import { LINE_GROUPS, type ShopSettings, type StageKey } from '@benchwright/pricing';
 import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
+/**
+ * A mail's attachment: a file by its path relative to the PDF folder, or small bytes kept in the row (base64), such as
+ * a progress photo's thumbnail shown inline by its `cid`.
+ */
+export type MailAttachment =
+  | { filename: string; path: string; contentType: string; cid?: string }
+  | { filename: string; content: string; contentType: string; cid: string };
+
 const now = sql`(unixepoch() * 1000)`;
 /** `CASE status WHEN 'requested' THEN 0 ... END`, in the order of PROJECT_STATUSES */
 const STATUS_RANK = sql.raw(
@@ -24,6 +32,8 @@ export const users = sqliteTable(
     /** a client's contact details, as the owner took them down */
     phone: text().notNull().default(''),
     address: text().notNull().default(''),
+    /** a new address asked for on the account page: it replaces `email` only when its link is followed */
+    pendingEmail: text(),
     createdAt: createdAt(),
   },
   // the project list sorted by client
@@ -44,6 +54,12 @@ export const sessions = sqliteTable('sessions', {
   createdAt: integer({ mode: 'timestamp_ms' })
     .notNull()
     .default(sql`0`),
+  /** the browser's User-Agent at sign-in, cut to 300 characters: shown on the account page */
+  userAgent: text().notNull().default(''),
+  /** the last request made with the session, written at most once a minute */
+  lastSeenAt: integer({ mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`0`),
 });
 
 /** Single-use, expiring tokens, stored as SHA-256 hashes only. */
@@ -54,7 +70,7 @@ export const tokens = sqliteTable(
     userId: text()
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    kind: text({ enum: ['verify_email', 'reset_password', 'invitation'] }).notNull(),
+    kind: text({ enum: ['verify_email', 'reset_password', 'invitation', 'change_email'] }).notNull(),
     tokenHash: text().notNull().unique(),
     expiresAt: integer({ mode: 'timestamp_ms' }).notNull(),
     usedAt: integer({ mode: 'timestamp_ms' }),
@@ -404,6 +420,10 @@ export const projectEvents = sqliteTable(
     kind: text().notNull(),
     message: text().notNull(),
     actorId: text().references(() => users.id),
+    /** `stage` events: the stage entered; `progress_photo` events: the stage the photo was taken in */
+    stageKey: text({ enum: STAGE_KEYS }),
+    /** `progress_photo` events: the photo (its row may since have been removed) */
+    uploadId: text(),
     createdAt: createdAt(),
   },
   (t) => [index('project_events_project').on(t.projectId)],
@@ -432,10 +452,7 @@ export const outbox = sqliteTable(
     subject: text().notNull(),
     text: text().notNull(),
     html: text().notNull(),
-    attachments: text({ mode: 'json' })
-      .$type<{ filename: string; path: string; contentType: string; cid?: string }[]>()
-      .notNull()
-      .default([]),
+    attachments: text({ mode: 'json' }).$type<MailAttachment[]>().notNull().default([]),
     status: text({ enum: ['pending', 'sent'] })
       .notNull()
       .default('pending'),

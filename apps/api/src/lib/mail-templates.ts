@@ -14,12 +14,18 @@ function esc(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 }
 
-function layout(shop: string, heading: string, paragraphs: string[], action?: { label: string; url: string }): string {
+function layout(
+  shop: string,
+  heading: string,
+  paragraphs: string[],
+  action?: { label: string; url: string },
+  extraHtml = '',
+): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 14px;line-height:1.5">${esc(p)}</p>`).join('');
   const button = action
     ? `<p style="margin:22px 0"><a href="${esc(action.url)}" style="background:#7a4a24;color:#fffaf2;text-decoration:none;padding:10px 18px;border-radius:4px;font-weight:600">${esc(action.label)}</a></p><p style="font-size:13px;color:#5b5148">Or paste this address into your browser: ${esc(action.url)}</p>`
     : '';
-  return `<!doctype html><html><body style="margin:0;background:#f6f1e7;font-family:'Source Sans 3',Helvetica,Arial,sans-serif;color:#231c15"><div style="max-width:560px;margin:0 auto;padding:28px">${LOGO_MARK}<div style="border-bottom:3px solid #7a4a24;padding-bottom:8px;margin-bottom:20px;font-weight:700;letter-spacing:.02em">${esc(shop)}</div><h1 style="font-size:20px;margin:0 0 16px">${esc(heading)}</h1>${body}${button}${SIGNATURE}</div></body></html>`;
+  return `<!doctype html><html><body style="margin:0;background:#f6f1e7;font-family:'Source Sans 3',Helvetica,Arial,sans-serif;color:#231c15"><div style="max-width:560px;margin:0 auto;padding:28px">${LOGO_MARK}<div style="border-bottom:3px solid #7a4a24;padding-bottom:8px;margin-bottom:20px;font-weight:700;letter-spacing:.02em">${esc(shop)}</div><h1 style="font-size:20px;margin:0 0 16px">${esc(heading)}</h1>${body}${extraHtml}${button}${SIGNATURE}</div></body></html>`;
 }
 
 // the templates leave the signature out: `signMail` adds the shop's own, so every mail ends the same way
@@ -200,7 +206,35 @@ export function ownerDepositNotice(shop: string, client: string, amountCents: nu
   };
 }
 
-export function balanceRequestMail(shop: string, name: string, amountCents: number, url: string): MailContent {
+/** Progress photos shown in a stage mail: inline thumbnails, by the `cid` of each attachment. */
+export interface StagePhotos {
+  photos: { cid: string }[];
+  /** the stage they were taken in (the one just left) */
+  fromLabel: string;
+}
+
+function photosHtml(shown?: StagePhotos): string {
+  if (!shown?.photos.length) return '';
+  const imgs = shown.photos
+    .map(
+      (p, i) =>
+        `<img src="cid:${esc(p.cid)}" alt="Photo ${i + 1} from the ${esc(shown.fromLabel)} stage" width="160" style="width:160px;height:auto;margin:0 8px 8px 0;border:1px solid #d9cdb8;border-radius:4px">`,
+    )
+    .join('');
+  return `<p style="margin:0 0 8px;line-height:1.5">${esc(photosLine(shown))}</p><div style="margin:0 0 14px">${imgs}</div>`;
+}
+const photosLine = (shown: StagePhotos) =>
+  `${shown.photos.length === 1 ? 'A photo' : `${shown.photos.length} photos`} from the ${shown.fromLabel} stage, just finished:`;
+const photosText = (shown?: StagePhotos) =>
+  shown?.photos.length ? [`${photosLine(shown)} they are attached to this message.`] : [];
+
+export function balanceRequestMail(
+  shop: string,
+  name: string,
+  amountCents: number,
+  url: string,
+  shown?: StagePhotos,
+): MailContent {
   const p = [
     `Hello ${name},`,
     `Your piece is finished and ready. The balance of ${dollars(amountCents)} is now due; you can pay it in the portal, and we will arrange delivery.`,
@@ -208,8 +242,8 @@ export function balanceRequestMail(shop: string, name: string, amountCents: numb
   const a = { label: 'Pay the balance', url };
   return {
     subject: `Your piece is ready: balance of ${dollars(amountCents)} due`,
-    text: text(p, a),
-    html: layout(shop, 'Ready for you', p, a),
+    text: text([...p, ...photosText(shown)], a),
+    html: layout(shop, 'Ready for you', p, a, photosHtml(shown)),
   };
 }
 
@@ -236,13 +270,15 @@ export function refundMail(shop: string, name: string, amountCents: number, url:
   };
 }
 
-export function stageMail(shop: string, name: string, news: string, url: string): MailContent {
+/** The one mail of a stage change: the news in the client's words, and the photos of the stage just left. */
+export function stageMail(shop: string, name: string, news: string, url: string, shown?: StagePhotos): MailContent {
   const p = [`Hello ${name},`, news];
   const a = { label: 'See my project', url };
+  const headline = news.split('. ').at(-1)?.replace(/\.$/, '') ?? news;
   return {
-    subject: `News of your piece from ${shop}`,
-    text: text(p, a),
-    html: layout(shop, 'News from the shop', p, a),
+    subject: `${headline}: news from ${shop}`,
+    text: text([...p, ...photosText(shown)], a),
+    html: layout(shop, 'News from the shop', p, a, photosHtml(shown)),
   };
 }
 
@@ -270,5 +306,33 @@ export function requestNotice(
     subject: `New request from ${client}`,
     text: text(p, a),
     html: layout(shop, `A request from ${client}`, p, a),
+  };
+}
+
+export function emailChangeMail(shop: string, name: string, url: string): MailContent {
+  const p = [
+    `Hello ${name},`,
+    `You asked ${shop} to use this address for your account from now on. Confirm it with the link below; it works for 48 hours and only once. Until then, mail keeps going to your old address.`,
+    'If you did not ask for this, ignore this message: nothing changes.',
+  ];
+  const a = { label: 'Use this address', url };
+  return {
+    subject: `Confirm your new e-mail for ${shop}`,
+    text: text(p, a),
+    html: layout(shop, 'Confirm your new e-mail', p, a),
+  };
+}
+
+/** To the old address when a change is asked for, so a stolen session cannot move the account quietly. */
+export function emailChangeNoticeMail(shop: string, name: string, newEmail: string): MailContent {
+  const p = [
+    `Hello ${name},`,
+    `Someone signed in to your ${shop} account asked to use ${newEmail} as its address. It changes only when the link sent there is followed.`,
+    'If this was not you, change your password on your account page and end the sessions you do not recognise.',
+  ];
+  return {
+    subject: `A new e-mail was asked for your ${shop} account`,
+    text: text(p),
+    html: layout(shop, 'A new e-mail was asked for', p),
   };
 }

@@ -3,18 +3,12 @@ import { resolve } from 'node:path';
 import { and, asc, eq, lte } from 'drizzle-orm';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Db } from '../db/client';
-import { outbox, shopSettings } from '../db/schema';
+import { outbox, shopSettings, type MailAttachment } from '../db/schema';
 import { LOGO_MARK, LOGO_CID, signMail, type MailContent } from './mail-templates';
 import { logoPath } from './shop-logo';
 
 type Tx = Pick<Db, 'insert' | 'select'>;
-export interface MailAttachment {
-  filename: string;
-  path: string;
-  contentType: string;
-  /** an inline image, shown where the HTML says `cid:<cid>` */
-  cid?: string;
-}
+export type { MailAttachment };
 
 /** Queues a message in the caller's transaction, signed with the shop's name, address and phone as they stand
  * in the shop settings; the worker sends it. Attachment paths are relative to the worker's `filesDir` (the PDF
@@ -102,7 +96,9 @@ export function createMailWorker(
         text: m.text,
         html: m.html,
         messageId: m.messageId,
-        attachments: m.attachments?.map((a) => ({ ...a, path: resolve(filesDir, a.path) })),
+        attachments: m.attachments?.map((a) =>
+          'path' in a ? { ...a, path: resolve(filesDir, a.path) } : { ...a, encoding: 'base64' },
+        ),
       });
       db.update(outbox)
         .set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null })

@@ -36,8 +36,18 @@ export function sessionIdFromCookies(header: string | undefined, name: string): 
   return null;
 }
 
-/** Reads the session cookie, refreshes it when Lucia says so, and sets res.locals.user. */
-export function sessionMiddleware(lucia: AppLucia, maxAgeMs = 30 * 24 * 3600_000): RequestHandler {
+/** How often a session's `lastSeenAt` is written: at most once a minute, so a busy page is not a write a request. */
+export const LAST_SEEN_EVERY_MS = 60_000;
+
+/**
+ * Reads the session cookie, refreshes it when Lucia says so, and sets res.locals.user. `touch` records that the
+ * session was used (the account page's "last seen"); it is called at most once a minute per session.
+ */
+export function sessionMiddleware(
+  lucia: AppLucia,
+  maxAgeMs = 30 * 24 * 3600_000,
+  touch?: (sessionId: string, at: Date) => void,
+): RequestHandler {
   return async (req, res, next) => {
     res.locals.user = null;
     res.locals.sessionId = null;
@@ -56,6 +66,8 @@ export function sessionMiddleware(lucia: AppLucia, maxAgeMs = 30 * 24 * 3600_000
       return next();
     }
     res.locals.sessionId = session.id;
+    const now = Date.now();
+    if (touch && now - session.lastSeenAt.getTime() >= LAST_SEEN_EVERY_MS) touch(session.id, new Date(now));
     res.locals.user = {
       id: user.id,
       email: user.email,

@@ -1,6 +1,7 @@
 import { createBrowserRouter, createMemoryRouter, type RouteObject } from 'react-router-dom';
 import { Layout } from '../components/layout';
 import { paths } from '../config/paths';
+import { AccountRoute, ConfirmEmailRoute } from './routes/account';
 import { DesignRoute } from './routes/design';
 import { ForgotPasswordRoute } from './routes/forgot-password';
 import { HomeRoute } from './routes/home';
@@ -26,6 +27,8 @@ export const routes: RouteObject[] = [
       { path: paths.claimAccount.path, element: <ClaimAccountRoute /> },
       { path: paths.projects.path, element: <ProjectsRoute /> },
       { path: paths.project.path, element: <ProjectRoute /> },
+      { path: paths.account.path, element: <AccountRoute /> },
+      { path: paths.confirmEmail.path, element: <ConfirmEmailRoute /> },
     ],
   },
 ];

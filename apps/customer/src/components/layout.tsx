@@ -11,7 +11,7 @@ export function Layout() {
   return (
     <div className="min-h-screen">
       <header className="border-b-4 border-wood bg-paper-deep">
-        <div className="mx-auto flex max-w-4xl items-center justify-between px-6 py-4">
+        <div className="mx-auto flex max-w-4xl flex-wrap items-center justify-between gap-2 px-4 py-4 sm:px-6">
           <Link
             to={paths.home.getHref()}
             className="flex items-center gap-3 text-xl font-bold tracking-wide text-ink no-underline"
@@ -19,13 +19,19 @@ export function Layout() {
             <ShopLogo className="h-10 w-auto" />
             Fernhill Joinery <span className="font-normal text-ink-soft">· client portal</span>
           </Link>
-          <nav aria-label="Main" className="flex items-center gap-4">
+          <nav aria-label="Main" className="flex flex-wrap items-center gap-x-4 gap-y-1">
             {me.data ? (
               <>
                 <NavLink to={paths.projects.getHref()} className="font-semibold text-wood">
                   My projects
                 </NavLink>
-                <span className="text-ink-soft">{me.data.name}</span>
+                <NavLink
+                  to={paths.account.getHref()}
+                  className="text-ink-soft"
+                  aria-label={`Your account (${me.data.name})`}
+                >
+                  {me.data.name}
+                </NavLink>
                 <Button
                   variant="quiet"
                   onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.getHref()) })}
@@ -46,7 +52,7 @@ export function Layout() {
           </nav>
         </div>
       </header>
-      <main className="mx-auto max-w-4xl px-6 py-8">
+      <main className="mx-auto max-w-4xl px-4 py-8 sm:px-6">
         <Outlet />
       </main>
     </div>

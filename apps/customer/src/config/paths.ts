@@ -12,6 +12,8 @@ export const paths = {
   /** the link in the mail when the shop adds a client (the API's clients module) */
   claimAccount: { path: '/claim-account', getHref: () => '/claim-account' },
   design: { path: '/designs/:slug', getHref: (slug: string) => `/designs/${encodeURIComponent(slug)}` },
+  account: { path: '/account', getHref: () => '/account' },
+  confirmEmail: { path: '/confirm-email', getHref: () => '/confirm-email' },
   projects: { path: '/projects', getHref: () => '/projects' },
   project: { path: '/projects/:id', getHref: (id: string) => `/projects/${encodeURIComponent(id)}` },
   /** a project's file and its thumbnail, served by the API (through the dev proxy) */

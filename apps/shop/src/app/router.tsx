@@ -1,6 +1,7 @@
 import { createBrowserRouter, createMemoryRouter, type RouteObject } from 'react-router-dom';
 import { PublicLayout, ShopLayout } from '../components/layout';
 import { paths } from '../config/paths';
+import { AccountRoute, ConfirmEmailRoute } from './routes/account';
 import { AcceptInvitationRoute } from './routes/accept-invitation';
 import { BoardRoute } from './routes/board';
 import { JobRoute } from './routes/job';
@@ -24,6 +25,7 @@ export const routes: RouteObject[] = [
       { path: paths.acceptInvitation.path, element: <AcceptInvitationRoute /> },
       { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
       { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
+      { path: paths.confirmEmail.path, element: <ConfirmEmailRoute /> },
     ],
   },
   {
@@ -42,6 +44,7 @@ export const routes: RouteObject[] = [
       { path: paths.settings.path, element: <SettingsRoute /> },
       { path: paths.clients.path, element: <ClientsRoute /> },
       { path: paths.client.path, element: <ClientRoute /> },
+      { path: paths.account.path, element: <AccountRoute /> },
     ],
   },
 ];

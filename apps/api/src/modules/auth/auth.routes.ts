@@ -47,21 +47,21 @@ export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits
   const signUps = limiter({ enabled, windowMs: 60 * 60_000, limit: limits.signUpsPerIp });
   const resetsPerIp = limiter({ enabled, windowMs: 60 * 60_000, limit: limits.passwordResetsPerIp });
 
-  const startSession = async (res: import('express').Response, userId: string) => {
-    res.append('Set-Cookie', await newSession(lucia, userId));
+  const startSession = async (req: Request, res: import('express').Response, userId: string) => {
+    res.append('Set-Cookie', await newSession(lucia, userId, req.get('user-agent') ?? ''));
   };
 
   r.post('/sign-up', signUps, async (req, res) => {
     const body = parse(SignUpBody, req.body);
     const user = await service.signUp(body);
-    await startSession(res, user.id);
+    await startSession(req, res, user.id);
     res.status(201).json({ user });
   });
 
   r.post('/sign-in', perIp, perEmailIp, async (req, res) => {
     const body = parse(SignInBody, req.body);
     const user = await service.signIn(body);
-    await startSession(res, user.id);
+    await startSession(req, res, user.id);
     res.json({ user });
   });
 
@@ -95,14 +95,14 @@ export function authRoutes(service: AuthService, lucia: AppLucia, limits: Limits
     const { token, password } = parse(ResetPasswordBody, req.body);
     const user = await service.resetPassword(token, password);
     await lucia.invalidateUserSessions(user.id);
-    await startSession(res, user.id);
+    await startSession(req, res, user.id);
     res.json({ user });
   });
 
   r.post('/accept-invitation', async (req, res) => {
     const { token, password } = parse(AcceptInvitationBody, req.body);
     const user = await service.acceptInvitation(token, password);
-    await startSession(res, user.id);
+    await startSession(req, res, user.id);
     res.json({ user });
   });
 

@@ -1,9 +1,23 @@
 import { randomUUID } from 'node:crypto';
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { and, asc, desc, eq, gte, isNotNull } from 'drizzle-orm';
 import { stageChecklist, type StageKey, type Traveller } from '@benchwright/pricing';
 import { formatDate, type JobsQuery, type User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
-import { estimates, jobChecks, jobLayouts, jobs, projects, stages, timeEntries, users } from '../../db/schema';
+import {
+  estimates,
+  jobChecks,
+  jobLayouts,
+  jobs,
+  projectEvents,
+  projects,
+  stages,
+  timeEntries,
+  uploads,
+  users,
+  type MailAttachment,
+} from '../../db/schema';
 import { loadPricing, projectSpecs } from '../../lib/engine';
 import { logoPng } from '../../lib/shop-logo';
 import type { EnginePool } from '../../lib/engine-pool';
@@ -11,7 +25,7 @@ import { latestRelayout, recordOf, relayoutRecord, roundedHours, totalOf } from 
 import type { PdfPool } from '../../lib/pdf-pool';
 import { queueMail } from '../../lib/mailer';
 import { balanceRequestMail, stageMail } from '../../lib/mail-templates';
-import { addEvent } from '../../lib/timeline';
+import { addEvent, STAGE_NEWS } from '../../lib/timeline';
 import { Conflict, Forbidden, Invalid, NotFound } from '../../lib/errors';
 import { balanceSettled, closeIfSettled, moveProject } from '../projects/lifecycle';
 import { deliveredJobs, jobView, openJobs } from './jobs.repo';
@@ -28,7 +42,15 @@ export function openJob(tx: Tx, projectId: string, hoursBudget: Partial<Record<S
     .run();
 }
 
-/** `pdfDir`: where the shop's logo is kept (lib/shop-logo.ts), for the traveller PDF */
+type InlinePhoto = Extract<MailAttachment, { cid: string }>;
+
+/** The most photos one stage mail shows (their thumbnails, inline): a mail stays small. */
+const PHOTOS_PER_MAIL = 8;
+
+/**
+ * `pdfDir`: where the shop's logo is kept (lib/shop-logo.ts), for the traveller PDF; `uploadsDir`: the progress
+ * photos' thumbnails, shown in the stage mail.
+ */
 export function createJobsService(
   db: Db,
   portalUrl: string,
@@ -36,8 +58,47 @@ export function createJobsService(
   shopUrl: string,
   pdfs: PdfPool,
   pdfDir?: string,
+  uploadsDir?: string,
 ) {
-  /** One job as the board shows it (jobs.repo.ts). */
+  /**
+   * The progress photos added while the job was in `stage` this time round (since it last entered it), as inline
+   * attachments of their thumbnails. Read in the move's transaction; a thumbnail gone from the disk is left out.
+   */
+  function stagePhotos(tx: Tx, job: typeof jobs.$inferSelect, stage: StageKey): InlinePhoto[] {
+    if (!uploadsDir) return [];
+    const entered =
+      tx
+        .select({ at: projectEvents.createdAt })
+        .from(projectEvents)
+        .where(and(eq(projectEvents.projectId, job.projectId), eq(projectEvents.kind, 'stage')))
+        .orderBy(desc(projectEvents.createdAt))
+        .get()?.at ?? job.createdAt;
+    const rows = tx
+      .select({ id: uploads.id, thumbnailPath: uploads.thumbnailPath })
+      .from(uploads)
+      .where(
+        and(
+          eq(uploads.projectId, job.projectId),
+          eq(uploads.stageKey, stage),
+          isNotNull(uploads.thumbnailPath),
+          gte(uploads.createdAt, entered),
+        ),
+      )
+      .orderBy(asc(uploads.createdAt))
+      .all()
+      .slice(0, PHOTOS_PER_MAIL);
+    return rows.flatMap((r, i) => {
+      try {
+        const content = readFileSync(join(uploadsDir, r.thumbnailPath!)).toString('base64');
+        return [
+          { filename: `photo-${i + 1}.webp`, content, contentType: 'image/webp', cid: `photo-${r.id}@benchwright` },
+        ];
+      } catch {
+        return [];
+      }
+    });
+  }
+
   function view(j: typeof jobs.$inferSelect) {
     return jobView(db, j.id)!;
   }
@@ -63,7 +124,12 @@ export function createJobsService(
     const url = `${portalUrl}/projects/${project.id}`;
     if (project.status === 'closed')
       throw new Conflict('This project is closed: delivered and paid in full. Its job stays in Delivered.');
-    addEvent(tx, project.id, 'stage', `Moved to ${label}.`, actor.id);
+    const fromLabel = tx.select().from(stages).where(eq(stages.key, from)).get()?.label ?? from;
+    // one mail per move, with the photos of the stage just left (read before this move's event is written)
+    const photos = stagePhotos(tx, job, from);
+    const shown = { photos, fromLabel };
+    addEvent(tx, project.id, 'stage', `Moved to ${label}.`, actor.id, { stageKey: to });
+    let news = STAGE_NEWS[to];
     if (to === 'ready') {
       moveProject(tx, project.id, 'mark_ready');
       if (!balanceSettled(tx, project.id)) {
@@ -73,26 +139,18 @@ export function createJobsService(
           .where(eq(estimates.projectId, project.id))
           .all()
           .find((e) => e.status === 'accepted');
-        queueMail(tx, client.email, balanceRequestMail(shop, client.name, est?.balanceCents ?? 0, url));
+        queueMail(tx, client.email, balanceRequestMail(shop, client.name, est?.balanceCents ?? 0, url, shown), photos);
+        return;
       }
     } else if (to === 'delivered') {
       moveProject(tx, project.id, 'deliver');
-      queueMail(
-        tx,
-        client.email,
-        stageMail(shop, client.name, 'Your piece has been delivered. Thank you for having us build it.', url),
-      );
+      news = 'Your piece has been delivered. Thank you for having us build it.';
       closeIfSettled(tx, project.id);
-    } else {
-      if (project.status === 'deposit_paid' && to !== 'material') {
-        moveProject(tx, project.id, 'start_production');
-        queueMail(
-          tx,
-          client.email,
-          stageMail(shop, client.name, 'Your material is in and your piece is now being built in the shop.', url),
-        );
-      } else if (from === 'ready' || from === 'delivered') moveProject(tx, project.id, 'resume_work');
-    }
+    } else if (project.status === 'deposit_paid' && to !== 'material') {
+      moveProject(tx, project.id, 'start_production');
+      news = `Your material is in and your piece is now being built in the shop. ${news}`;
+    } else if (from === 'ready' || from === 'delivered') moveProject(tx, project.id, 'resume_work');
+    queueMail(tx, client.email, stageMail(shop, client.name, news, url, shown), photos);
   }
 
   /** The job's stage checklist from its paper, with who ticked each step and when. */

@@ -38,6 +38,8 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
         message: projectEvents.message,
         createdAt: projectEvents.createdAt,
         by: users.name,
+        stageKey: projectEvents.stageKey,
+        uploadId: projectEvents.uploadId,
       })
       .from(projectEvents)
       .leftJoin(users, eq(users.id, projectEvents.actorId))

@@ -3,7 +3,7 @@ import { mkdirSync } from 'node:fs';
 import { rm, writeFile } from 'node:fs/promises';
 import { isAbsolute, relative, resolve } from 'node:path';
 import { count, eq } from 'drizzle-orm';
-import { UPLOADS_PER_PROJECT, type UploadSummary, type User } from '@benchwright/contracts';
+import { UPLOADS_PER_PROJECT, type StageKey, type UploadSummary, type User } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
 import { jobs, stages, uploads } from '../../db/schema';
 import { Conflict, Forbidden, Invalid, NotFound } from '../../lib/errors';
@@ -63,7 +63,7 @@ export function createUploadsService({ db, dir, projects }: { db: Db; dir: strin
     ): Promise<UploadSummary> {
       projects.get(viewer, projectId);
       if (!file) throw new Invalid('Attach a file.', [{ path: 'file', message: 'choose a file to attach' }]);
-      let stageKey: string | null = null;
+      let stageKey: StageKey | null = null;
       let stageLabel = '';
       if (purpose === 'progress') {
         if (viewer.role === 'client') throw new Forbidden('Progress photos come from the shop.');
@@ -118,7 +118,11 @@ export function createUploadsService({ db, dir, projects }: { db: Db; dir: strin
               stageKey,
             })
             .run();
-          if (stageKey) addEvent(tx, projectId, 'progress_photo', `A photo from the ${stageLabel} stage.`, viewer.id);
+          if (stageKey)
+            addEvent(tx, projectId, 'progress_photo', `A photo from the ${stageLabel} stage.`, viewer.id, {
+              stageKey,
+              uploadId: id,
+            });
           else
             addEvent(
               tx,

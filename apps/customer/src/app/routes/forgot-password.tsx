@@ -3,7 +3,7 @@ import { ForgotPasswordForm } from '@benchwright/ui/auth';
 
 export function ForgotPasswordRoute() {
   return (
-    <Panel title="Forgot your password?">
+    <Panel level={1} title="Forgot your password?">
       <p className="mb-4 text-ink-soft">
         Give the e-mail you signed up with and we will send a link to choose a new password.
       </p>

@@ -84,6 +84,24 @@ export function ProjectRoute() {
               <br />
               {t.by ? <span className="font-semibold">{t.by}: </span> : null}
               {t.message}
+              {t.photos?.length ? (
+                <ul className="mt-2 flex flex-wrap gap-2" aria-label={`Photos: ${t.message}`}>
+                  {t.photos
+                    .filter((id) => p.uploads.some((u) => u.id === id))
+                    .map((id, i) => (
+                      <li key={id}>
+                        <a href={paths.upload.getHref(id)} target="_blank" rel="noreferrer">
+                          <img
+                            src={paths.uploadThumbnail.getHref(id)}
+                            alt={`Progress photo ${i + 1}`}
+                            className="h-24 w-24 rounded border border-rule object-cover"
+                            loading="lazy"
+                          />
+                        </a>
+                      </li>
+                    ))}
+                </ul>
+              ) : null}
             </li>
           ))}
         </ol>

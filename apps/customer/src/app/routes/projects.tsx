@@ -19,7 +19,7 @@ export function ProjectsRoute() {
       {!me.data.emailVerified && !params.get('welcome') ? (
         <Notice>Your e-mail is not confirmed yet: look for our message at {me.data.email}.</Notice>
       ) : null}
-      <Panel title="My projects">
+      <Panel level={1} title="My projects">
         <ProjectList />
       </Panel>
     </>

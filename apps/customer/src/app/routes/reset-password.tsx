@@ -8,7 +8,7 @@ export function ResetPasswordRoute() {
   const navigate = useNavigate();
   const token = params.get('token') ?? '';
   return (
-    <Panel title="Choose a new password">
+    <Panel level={1} title="Choose a new password">
       {token ? (
         <ResetPasswordForm token={token} onDone={() => navigate(paths.projects.getHref())} />
       ) : (

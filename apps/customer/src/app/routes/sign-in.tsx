@@ -8,7 +8,7 @@ export function SignInRoute() {
   const [params] = useSearchParams();
   const redirect = params.get('redirect');
   return (
-    <Panel title="Sign in">
+    <Panel level={1} title="Sign in">
       <SignInForm onDone={() => navigate(safeRedirect(redirect, paths.projects.getHref()))} />
       <p className="mt-4">
         <Link to={paths.forgotPassword.getHref()} className="text-wood underline">

@@ -6,7 +6,7 @@ import { SignUpForm } from '../../features/auth/components/sign-up-form';
 export function SignUpRoute() {
   const navigate = useNavigate();
   return (
-    <Panel title="Create your account">
+    <Panel level={1} title="Create your account">
       <p className="mb-4 text-ink-soft">
         With an account you can ask for estimates, follow your piece through the shop and pay online.
       </p>

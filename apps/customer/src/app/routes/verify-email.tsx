@@ -16,7 +16,7 @@ export function VerifyEmailRoute() {
     }
   }, [token, verify]);
   return (
-    <Panel title="Confirm your e-mail">
+    <Panel level={1} title="Confirm your e-mail">
       {!token ? (
         <Notice tone="error">This link has no confirmation code. Open the link from the e-mail again.</Notice>
       ) : null}

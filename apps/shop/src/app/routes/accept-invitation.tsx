@@ -28,9 +28,13 @@ export function AcceptInvitationRoute() {
     }
   });
   if (!token)
-    return <Notice tone="error">This invitation link has no code. Open the link from the e-mail again.</Notice>;
+    return (
+      <Panel level={1} title="Set your password">
+        <Notice tone="error">This invitation link has no code. Open the link from the e-mail again.</Notice>
+      </Panel>
+    );
   return (
-    <Panel title="Set your password">
+    <Panel level={1} title="Set your password">
       <p className="mb-4 text-ink-soft">Welcome to the shop. Choose a password to finish setting up your account.</p>
       {message ? <Notice tone="error">{message}</Notice> : null}
       <form onSubmit={onSubmit} noValidate aria-label="Set your password">

@@ -6,7 +6,7 @@ import { canSeeMail } from '../../lib/policies';
 export function MailRoute() {
   return (
     <RoleGate allow={canSeeMail}>
-      <Panel title="Failed e-mails">
+      <Panel level={1} title="Failed e-mails">
         <FailedMailList />
       </Panel>
     </RoleGate>

@@ -5,7 +5,7 @@ import { ForgotPasswordForm, ResetPasswordForm } from '@benchwright/ui/auth';
 
 export function ForgotPasswordRoute() {
   return (
-    <Panel title="Forgot your password?">
+    <Panel level={1} title="Forgot your password?">
       <ForgotPasswordForm />
     </Panel>
   );
@@ -16,7 +16,7 @@ export function ResetPasswordRoute() {
   const navigate = useNavigate();
   const token = params.get('token') ?? '';
   return (
-    <Panel title="Choose a new password">
+    <Panel level={1} title="Choose a new password">
       {token ? (
         <ResetPasswordForm token={token} onDone={() => navigate(paths.home.getHref())} />
       ) : (

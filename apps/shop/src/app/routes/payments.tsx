@@ -6,7 +6,7 @@ import { canSeePayments } from '../../lib/policies';
 export function PaymentsRoute() {
   return (
     <RoleGate allow={canSeePayments}>
-      <Panel title="Payments and refunds">
+      <Panel level={1} title="Payments and refunds">
         <PaymentsTable />
       </Panel>
     </RoleGate>

@@ -34,7 +34,7 @@ function RequestPage({ id }: { id: string }) {
           ← Requests
         </Link>
       </p>
-      <Panel title={`${p.client.name}: ${SHOP_PROJECT_STATUS_LABELS[p.status]}`}>
+      <Panel level={1} title={`${p.client.name}: ${SHOP_PROJECT_STATUS_LABELS[p.status]}`}>
         {p.notes ? <p className="mb-2">“{p.notes}”</p> : null}
         <ul className="list-disc pl-6">
           {p.items.map((i) => {

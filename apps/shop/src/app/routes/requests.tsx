@@ -7,7 +7,7 @@ import { paths } from '../../config/paths';
 export function RequestsRoute() {
   return (
     <RoleGate allow={canSeeRequests}>
-      <Panel title="Requests and estimates">
+      <Panel level={1} title="Requests and estimates">
         <ProjectTable empty="No requests yet." linkTo={paths.request.getHref} />
       </Panel>
     </RoleGate>

@@ -6,7 +6,7 @@ import { SignInForm } from '@benchwright/ui/auth';
 export function SignInRoute() {
   const navigate = useNavigate();
   return (
-    <Panel title="Sign in to the shop">
+    <Panel level={1} title="Sign in to the shop">
       <SignInForm onDone={() => navigate(paths.home.getHref())} />
       <p className="mt-4">
         <Link to={paths.forgotPassword.getHref()} className="text-wood underline">

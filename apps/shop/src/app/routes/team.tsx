@@ -7,7 +7,7 @@ import { canInviteBuilders } from '../../lib/policies';
 export function TeamRoute() {
   return (
     <RoleGate allow={canInviteBuilders}>
-      <Panel title="The team">
+      <Panel level={1} title="The team">
         <TeamList />
       </Panel>
       <Panel title="Invite a builder">

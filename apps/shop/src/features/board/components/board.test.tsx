@@ -75,3 +75,23 @@ describe('moving a job on the board', () => {
     expect(screen.queryByRole('dialog')).toBeNull();
   });
 });
+
+describe('a progress photo from the card', () => {
+  it('opens the camera and sends the photo to the job’s project as a progress photo', async () => {
+    board();
+    const finish = await screen.findByRole('region', { name: 'Finish' });
+    const input = within(finish).getByLabelText('Add a photo to Finish') as HTMLInputElement;
+    expect(input.accept).toBe('image/*');
+    expect(input.getAttribute('capture')).toBe('environment');
+    const file = new File([new Uint8Array([0xff, 0xd8, 0xff])], 'carcass.jpg', { type: 'image/jpeg' });
+    fireEvent.change(input, { target: { files: [file] } });
+    const fetchMock = vi.mocked(fetch);
+    await vi.waitFor(() => {
+      const post = fetchMock.mock.calls.find(([u, init]) => String(u) === '/api/projects/p1/uploads' && init?.body);
+      expect(post).toBeTruthy();
+      const body = post![1]!.body as FormData;
+      expect(body.get('purpose')).toBe('progress');
+      expect((body.get('file') as File).name).toBe('carcass.jpg');
+    });
+  });
+});

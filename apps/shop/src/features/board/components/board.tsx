@@ -13,7 +13,7 @@ import {
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDate } from '@benchwright/contracts';
-import { Button, Notice } from '@benchwright/ui';
+import { Button, Notice, useAttachUpload } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useJobs, useLogTime, useMoveJob, useStages, type Job, type Stage, type StageKey } from '../api/jobs';
 import { CONFIRMED_STAGES, ConfirmMove } from './confirm-move';
@@ -92,6 +92,45 @@ function LogHours({ job, stages }: { job: Job; stages: Stage[] }) {
   );
 }
 
+/**
+ * A progress photo from the card, on a phone: the camera opens (`capture`), and the photo goes to the job's current
+ * stage; the client hears of it in the one mail sent when the job moves on.
+ */
+function CardPhoto({ job, stageLabel }: { job: Job; stageLabel: string }) {
+  const attach = useAttachUpload(job.project.id);
+  const [added, setAdded] = useState(0);
+  return (
+    <div className="mt-2 text-sm">
+      <label className="block font-semibold">
+        Add a photo to {stageLabel}
+        <input
+          type="file"
+          accept="image/*"
+          capture="environment"
+          disabled={attach.isPending}
+          aria-describedby={`photo-status-${job.id}`}
+          className="mt-1 block w-full max-w-full text-sm font-normal"
+          onChange={(e) => {
+            const input = e.currentTarget;
+            const file = input.files?.[0];
+            if (file) attach.mutate({ file, progress: true }, { onSuccess: () => setAdded((n) => n + 1) });
+            input.value = '';
+          }}
+        />
+      </label>
+      <p id={`photo-status-${job.id}`} role="status" className="text-ink-soft">
+        {attach.isPending
+          ? 'Sending the photo…'
+          : attach.isError
+            ? attach.error.message
+            : added
+              ? `${added === 1 ? 'A photo' : `${added} photos`} added; the client sees ${added === 1 ? 'it' : 'them'} now and is mailed when the job moves on.`
+              : ''}
+      </p>
+    </div>
+  );
+}
+
 function Card({ job, stages, onMove }: { job: Job; stages: Stage[]; onMove: (to: StageKey) => void }) {
   const { attributes, listeners, setNodeRef, transform, isDragging } = useDraggable({ id: job.id });
   const over = job.hoursLogged.total > job.hoursBudgeted.total;
@@ -128,6 +167,7 @@ function Card({ job, stages, onMove }: { job: Job; stages: Stage[]; onMove: (to:
       <label className="mt-2 block text-sm">
         Move to <StageSelect stages={stages} label={`Move ${job.clientName} to`} value={job.stage} onChange={onMove} />
       </label>
+      <CardPhoto job={job} stageLabel={stages.find((x) => x.key === job.stage)?.label ?? job.stage} />
       <LogHours job={job} stages={stages} />
     </article>
   );
