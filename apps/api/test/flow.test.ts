@@ -595,7 +595,8 @@ describe('POST /api/estimates/:id/withdraw with a deposit checkout open', () => 
   it('expires the checkout at the card processor first, so the withdrawn revision can no longer be paid', async () => {
     const owner = await agent('maren@fernhill.example');
     const guild = await agent('guild@example.com');
-    const project = (await guild.get('/api/projects')).body.projects[0];
+    const listed = (await guild.get('/api/projects')).body.projects[0];
+    const project = (await guild.get(`/api/projects/${listed.id}`)).body.project;
     const sent = project.estimates.find((e: { status: string }) => e.status === 'sent');
     expect(
       (await guild.post(`/api/estimates/${sent.id}/accept`).send({ acceptedName: 'Alder Cross Guild' })).status,

@@ -190,19 +190,19 @@ describe('the price book', () => {
     expect((await csv(owner, 'banding', out)).body.preview).toEqual({ added: [], changed: [], errors: [] });
   });
 
-  it('edits a labour operation, named by its key', async () => {
+  it('edits a labour operation, named by its key, and retires one (the list of operations is open)', async () => {
     const v0 = await version(owner);
-    const r = await owner.patch('/api/price-book/labour/part_cut').send({ item: { minutes: 2.5 } });
+    const r = await owner.patch('/api/price-book/labour/part-cut').send({ item: { minutes: 3 } });
     expect(r.status).toBe(200);
     expect(r.body).toMatchObject({
-      entry: { id: 'part_cut', item: { key: 'part_cut', minutes: 2.5 } },
+      entry: { id: 'part-cut', item: { key: 'part-cut', minutes: 3 } },
       version: v0 + 1,
     });
-    expect(loadBook(t.db).book.labour.find((o) => o.key === 'part_cut')?.minutes).toBe(2.5);
-    // every operation the engine needs must stay: retiring one is refused
-    const retire = await owner.patch('/api/price-book/labour/part_cut').send({ retired: true });
-    expect(retire.status).toBe(400);
-    expect(retire.body.error.issues[0].message).toContain('part_cut');
+    expect(loadBook(t.db).book.labour.find((o) => o.key === 'part-cut')?.minutes).toBe(3);
+    const retire = await owner.patch('/api/price-book/labour/part-cut').send({ retired: true });
+    expect(retire.status).toBe(200);
+    expect(loadBook(t.db).book.labour.some((o) => o.key === 'part-cut')).toBe(false);
+    expect((await owner.patch('/api/price-book/labour/part-cut').send({ retired: false })).status).toBe(200);
   });
 
   describe('refuses bad CSV with per-row errors and saves nothing', () => {

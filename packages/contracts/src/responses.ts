@@ -37,6 +37,12 @@ export const EstimateViewSchema = z.strictObject({
   number: z.string(),
   revision: z.number().int().min(1),
   status: z.enum(ESTIMATE_STATUSES),
+  /** the shop's units: what the figures a person reads are written in */
+  units: z.enum(['in', 'mm']),
+  /** a superseded revision: the revision sent after it */
+  replacedBy: z.number().int().min(1).nullable(),
+  /** owner: the price-book version the revision was priced with */
+  priceBookVersion: z.number().int().min(1).nullable().optional(),
   version: z.number().int().min(1),
   validUntil: iso.nullable(),
   sentAt: iso.nullable(),

@@ -125,7 +125,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
     const owner = viewer.role === 'owner';
     const engine = e.engine as EngineRecord | null;
     return {
-      units: shopUnits(),
+      // as the revision was priced (its record): a sent estimate reads the same after the shop changes its units
+      units: storedRecord(db, e.id)?.settings.units ?? shopUnits(),
       replacedBy: e.status === 'superseded' ? replacedBy(e) : null,
       id: e.id,
       projectId: e.projectId,
