@@ -107,7 +107,7 @@ test('the builder opens the job’s traveller from its card: cut list, drawn she
   await expect(sheet.locator('svg rect').first()).toBeVisible();
   await expect(paper.getByText(/Sheet 1: \d+% used, \d+ cuts/).first()).toBeVisible();
   await expect(paper.getByRole('table', { name: 'Pick list' }).getByRole('row').nth(1)).toBeVisible();
-  await expect(paper.getByText(/riving knife/)).toBeVisible();
+  await expect(paper.getByText(/blade guard and riving knife on/)).toBeVisible();
   await expect(paper.getByText(/anchor this/i)).toBeVisible();
   await expect(paper).not.toContainText('$');
   // the same paper as a PDF

@@ -13,7 +13,7 @@ test("the owner prices the guild's request, changes a line with a reason, and se
   await expect(page.getByRole('heading', { name: /Estimate E-[0-9A-F]{6}, revision 1 \(draft\)/ })).toBeVisible({
     timeout: patient(20_000),
   });
-  await expect(page.getByText(/Sheets: 3\/4 in birch plywood \d+ \(least possible \d+, yield \d+ %\)/)).toBeVisible();
+  await expect(page.getByText(/Sheets: 3\/4 in birch plywood \d+ \(least possible \d+, yield \d+ ?%\)/)).toBeVisible();
   // the cut list and every sheet behind the sheet count
   await page.getByRole('button', { name: 'Show the cut list and sheet layouts' }).click();
   await expect(page.getByRole('table', { name: 'Cut list: Wall cabinet' }).getByRole('row').nth(1)).toBeVisible({
