@@ -45,10 +45,10 @@ test('the owner changes the price of 3/4 in plywood and a new revision is priced
 test('the owner imports a CSV with one bad row and is shown the row; nothing can be confirmed', async ({ page }) => {
   const csv = await (await page.request.get('/api/price-book/lumber.csv')).text();
   const lines = csv.split('\r\n');
-  const header = lines[0]!.split(',');
+  const header = cells(lines[0]!);
   const price = header.indexOf('price_per_board_foot_usd');
   expect(price).toBeGreaterThan(0);
-  const bad = lines[2]!.split(',');
+  const bad = cells(lines[2]!);
   bad[price] = '-1';
   const edited = [...lines.slice(0, 2), bad.join(','), ...lines.slice(3)].join('\r\n');
 
@@ -66,3 +66,19 @@ test('the owner imports a CSV with one bad row and is shown the row; nothing can
   await expect(errors.getByRole('row')).toHaveCount(2);
   await expect(preview.getByRole('button', { name: 'Confirm the import' })).toBeDisabled();
 });
+
+/** A CSV line's cells as written (quotes kept), so that joining them with commas gives the line back. */
+function cells(line: string): string[] {
+  const out: string[] = [];
+  let cur = '';
+  let quoted = false;
+  for (const ch of line) {
+    if (ch === '"') quoted = !quoted;
+    if (ch === ',' && !quoted) {
+      out.push(cur);
+      cur = '';
+    } else cur += ch;
+  }
+  out.push(cur);
+  return out;
+}

@@ -63,10 +63,10 @@ test.describe('the owner', () => {
     await form.getByLabel('Due').fill('2026-12-24');
     await form.getByRole('button', { name: 'Save' }).click();
     await expect(form.getByText('Saved.')).toBeVisible();
-    await expect(page.getByText(/due 2026-12-24/).first()).toBeVisible();
+    await expect(page.getByText(/due Dec 24, 2026/).first()).toBeVisible();
     await page.goto('/board');
     await expect(
-      page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByText(/due 2026-12-24/),
+      page.getByRole('article', { name: 'Job for Tomasz Wierzbicki' }).getByText(/due Dec 24, 2026/),
     ).toBeVisible();
   });
 });
