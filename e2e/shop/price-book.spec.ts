@@ -5,13 +5,10 @@ test.use({ storageState: authFile('owner') });
 
 /** The unit price of the estimate line whose description starts with `what`, once the editor shows it. */
 async function unitPriceOf(page: Page, what: string): Promise<string | undefined> {
-  const lines = page.getByRole('table', { name: 'Line items' }).getByLabel(/^Line \d+ description$/);
-  for (let i = 0; i < (await lines.count()); i++) {
-    const label = await lines.nth(i).getAttribute('aria-label');
-    if ((await lines.nth(i).inputValue()).startsWith(what))
-      return page.getByLabel(label!.replace('description', 'unit price')).inputValue();
-  }
-  return undefined;
+  // an engine line's description is text in its row; a line the owner added has it in a field
+  const row = page.getByRole('table', { name: 'Line items' }).getByRole('row').filter({ hasText: what }).first();
+  if ((await row.count()) === 0) return undefined;
+  return row.getByLabel(/^Line \d+ unit price$/).inputValue();
 }
 
 test('the owner changes the price of 3/4 in plywood and a new revision is priced with it', async ({ page }) => {

@@ -33,8 +33,21 @@ test('the owner changes the tax rate and sees it on a newly priced revision', as
   // no tax at all: the next revision shows it exactly
   await setTaxRate(page, '0');
   try {
-    await page.goto('/requests');
-    await page.getByRole('link', { name: "Alder Cross Makers' Guild" }).click();
+    // a request the owner takes by phone for a client (other specs leave drafts on the demo's requests)
+    const clients = (await (await page.request.get('/api/clients')).json()) as { clients: { id: string }[] };
+    const bookcase = (await (await page.request.get('/api/designs/bookcase')).json()) as {
+      design: { defaults: unknown };
+    };
+    const made = await page.request.post('/api/projects', {
+      data: {
+        clientId: clients.clients[0]!.id,
+        notes: 'Taken by phone: a bookcase like the one in the gallery.',
+        items: [{ spec: bookcase.design.defaults, quantity: 1 }],
+      },
+    });
+    expect(made.status()).toBe(201);
+    const { project } = (await made.json()) as { project: { id: string } };
+    await page.goto(`/requests/${project.id}`);
     await page.getByRole('button', { name: /^Price (an estimate|a new revision)$/ }).click();
     const draft = page.getByRole('heading', { name: /Estimate E-[0-9A-F]{6}, revision (\d+) \(draft\)/ });
     await expect(draft).toBeVisible({ timeout: patient(20_000) });
