@@ -149,7 +149,7 @@ function Form({ settings, reload }: { settings: SettingsView; reload: () => Prom
         </Notice>
       ) : null}
       <Panel title="The shop">
-        <p className="mb-4 text-ink-soft">On the estimate, the traveller, the mail and both apps.</p>
+        <p className="mb-4 text-ink-soft">On the estimate, the traveler, the mail and both apps.</p>
         <Field
           label="Shop name"
           value={draft.profile.shopName}
