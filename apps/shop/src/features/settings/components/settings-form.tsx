@@ -208,7 +208,7 @@ function Form({ settings, reload }: { settings: SettingsView; reload: () => Prom
       ))}
       <Panel title="The board">
         <p className="mb-4 text-ink-soft">
-          The stages’ names on the board, the job page, the traveller and the timeline. The stages themselves and their
+          The stages’ names on the board, the job page, the traveler and the timeline. The stages themselves and their
           order stay.
         </p>
         <div className="grid gap-x-6 sm:grid-cols-2">
