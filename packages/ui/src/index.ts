@@ -23,3 +23,5 @@ export {
 } from './uploads-api';
 export { UploadGallery, formatBytes } from './uploads';
 export { ShopLogo } from './shop-logo';
+export { getProjectsPage, projectsQueryOptions, projectsSearch, useProjects } from './projects-api';
+export type { ProjectListFilters } from './projects-api';

@@ -3,7 +3,7 @@ import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Link } from 'react-router-dom';
 import { Button, Money, Notice } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
-import { useProjects } from '../api/get-projects';
+import { useProjects } from '@benchwright/ui';
 
 /** The client's words for a project's status (one map, in the contracts). */
 export const STATUS_WORDS = CLIENT_PROJECT_STATUS_LABELS;

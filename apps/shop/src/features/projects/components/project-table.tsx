@@ -10,7 +10,7 @@ import {
   type SortDirection,
 } from '@benchwright/contracts';
 import { Button, Money, Notice } from '@benchwright/ui';
-import { useProjects } from '../api/get-projects';
+import { useProjects } from '@benchwright/ui';
 
 // once the deposit is paid a project is a job on the board, and a closed one is done
 const PAST_REQUEST: ProjectStatus[] = ['deposit_paid', 'in_production', 'ready', 'delivered', 'closed'];

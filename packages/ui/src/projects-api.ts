@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
 import type { ProjectSort, ProjectStatus, ProjectsResponse, SortDirection } from '@benchwright/contracts';
-import { api } from '@benchwright/ui';
+import { api } from './api-client';
 
 /** What the list asks the API for (`GET /api/projects`); each page follows the last one's cursor. */
 export interface ProjectListFilters {
