@@ -28,6 +28,31 @@ export function Button({
 type FieldProps = InputHTMLAttributes<HTMLInputElement> & { label: string; error?: string; hint?: string };
 
 /** A labelled input with its error beside it; keeps what was typed (uncontrolled, for react-hook-form). */
+/**
+ * The "more" button under a paged list (TanStack Query's infinite query): shown only while a next page exists,
+ * disabled while it loads.
+ */
+export function MoreButton({
+  list,
+  label = 'Load more',
+}: {
+  list: { hasNextPage: boolean; isFetchingNextPage: boolean; fetchNextPage: () => unknown };
+  label?: string;
+}) {
+  if (!list.hasNextPage) return null;
+  return (
+    <Button
+      type="button"
+      variant="quiet"
+      className="mt-3"
+      disabled={list.isFetchingNextPage}
+      onClick={() => void list.fetchNextPage()}
+    >
+      {list.isFetchingNextPage ? 'Loading…' : label}
+    </Button>
+  );
+}
+
 export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field(
   { label, error, hint, id, ...props },
   ref,

@@ -1,5 +1,6 @@
 export {
   Button,
+  MoreButton,
   CommentForm,
   Drawing,
   Field,

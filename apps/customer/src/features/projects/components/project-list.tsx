@@ -1,7 +1,7 @@
 import { CLIENT_PROJECT_STATUS_LABELS, formatDate, type ProjectSummary } from '@benchwright/contracts';
 import { designs, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Link } from 'react-router-dom';
-import { Button, Money, Notice } from '@benchwright/ui';
+import { MoreButton, Money, Notice } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useProjects } from '@benchwright/ui';
 
@@ -58,17 +58,7 @@ export function ProjectList() {
           <ProjectRow key={p.id} p={p} />
         ))}
       </ul>
-      {q.hasNextPage ? (
-        <Button
-          type="button"
-          variant="quiet"
-          className="mt-3"
-          disabled={q.isFetchingNextPage}
-          onClick={() => void q.fetchNextPage()}
-        >
-          {q.isFetchingNextPage ? 'Loading…' : 'Show older projects'}
-        </Button>
-      ) : null}
+      <MoreButton list={q} label="Show older projects" />
     </>
   );
 }

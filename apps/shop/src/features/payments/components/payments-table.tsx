@@ -1,6 +1,6 @@
 import { formatDate } from '@benchwright/contracts';
 import { useEffect, useState } from 'react';
-import { Button, formatMoney, Money, Notice, TableHead } from '@benchwright/ui';
+import { Button, formatMoney, MoreButton, Money, Notice, TableHead } from '@benchwright/ui';
 import { toCents, toDollars } from '../../../lib/money';
 import { usePayments, useRefund, type Payment } from '../api/payments';
 
@@ -100,17 +100,7 @@ export function PaymentsTable() {
           ))}
         </tbody>
       </table>
-      {q.hasNextPage ? (
-        <Button
-          type="button"
-          variant="quiet"
-          className="mt-3"
-          disabled={q.isFetchingNextPage}
-          onClick={() => void q.fetchNextPage()}
-        >
-          {q.isFetchingNextPage ? 'Loading…' : 'Load more'}
-        </Button>
-      ) : null}
+      <MoreButton list={q} />
     </>
   );
 }

@@ -9,7 +9,7 @@ import {
   type ProjectSummary,
   type SortDirection,
 } from '@benchwright/contracts';
-import { Button, Money, Notice } from '@benchwright/ui';
+import { MoreButton, Money, Notice } from '@benchwright/ui';
 import { useProjects } from '@benchwright/ui';
 
 // once the deposit is paid a project is a job on the board, and a closed one is done
@@ -152,17 +152,7 @@ export function ProjectTable({ empty, linkTo }: { empty: string; linkTo?: (proje
               })}
             </tbody>
           </table>
-          {list.hasNextPage ? (
-            <Button
-              type="button"
-              variant="quiet"
-              className="mt-3"
-              disabled={list.isFetchingNextPage}
-              onClick={() => void list.fetchNextPage()}
-            >
-              {list.isFetchingNextPage ? 'Loading…' : 'Load more'}
-            </Button>
-          ) : null}
+          <MoreButton list={list} />
         </>
       )}
     </div>
