@@ -1,4 +1,5 @@
 import { defineConfig } from '@playwright/test';
+import { urls } from '../scripts/ports';
 
 // deadlines, not waits: a spec ends as soon as what it waits for is true (E2E_TIME_SCALE stretches them on a busy machine)
 const scale = Number(process.env.E2E_TIME_SCALE ?? 1) || 1;
@@ -34,13 +35,13 @@ export default defineConfig({
       name: 'customer',
       testMatch: /customer\/.*\.spec\.ts/,
       dependencies: ['setup'],
-      use: { baseURL: 'http://127.0.0.1:5173' },
+      use: { baseURL: urls.portal },
     },
     {
       name: 'shop',
       testMatch: /shop\/.*\.spec\.ts/,
       dependencies: ['setup'],
-      use: { baseURL: 'http://127.0.0.1:5174' },
+      use: { baseURL: urls.shop },
     },
   ],
 });

@@ -1,8 +1,11 @@
 import { expect, type Page } from '@playwright/test';
 
-export const PORTAL = 'http://127.0.0.1:5173';
-export const SHOP = 'http://127.0.0.1:5174';
-export const MAILDEV = 'http://127.0.0.1:1080';
+import { urls } from '../scripts/ports';
+
+export const PORTAL = urls.portal;
+export const SHOP = urls.shop;
+export const MAILDEV = urls.mail;
+export const STRIPE = urls.stripe;
 export const DEMO_PASSWORD = 'bench-demo-2026';
 
 /**

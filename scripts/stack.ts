@@ -3,7 +3,7 @@
  * the Stripe stand-in (:12111), the API (:3000, which applies the migrations
  * and seeds the demo on start, its payments through the stand-in),
  * the client portal (:5173) and the shop app (:5174). Prints the URLs and the
- * demo sign-ins once everything answers; Ctrl-C stops everything.
+ * demo sign-ins once everything answers; Ctrl-C stops everything. STACK_PORT_OFFSET moves every port (scripts/ports.ts).
  *
  *   pnpm exec tsx scripts/stack.ts            # as the start command runs it
  *   STACK_DATA=data/e2e pnpm exec tsx scripts/stack.ts --fresh   # a fresh database (the e2e run)
@@ -18,6 +18,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { MailDev } from 'maildev';
+import { ports, urls } from './ports';
 
 const root = resolve(import.meta.dirname, '..');
 const data = resolve(root, process.env.STACK_DATA ?? 'data');
@@ -48,7 +49,17 @@ const env = {
   UPLOADS_DIR: resolve(data, 'uploads'),
   PDF_DIR: resolve(data, 'estimates'),
   STRIPE_FAKE_STATE: resolve(data, 'stripe-fake.json'),
-  SMTP_URL: process.env.SMTP_URL ?? 'smtp://127.0.0.1:1025',
+  SMTP_URL: process.env.SMTP_URL ?? `smtp://127.0.0.1:${ports.smtp}`,
+  PORT: String(ports.api),
+  API_URL: urls.api,
+  PORTAL_URL: urls.portal,
+  SHOP_URL: urls.shop,
+  PORTAL_PORT: String(ports.portal),
+  SHOP_PORT: String(ports.shop),
+  APP_ORIGINS: [urls.portal, urls.shop].join(','),
+  STRIPE_API_BASE: urls.stripe,
+  STRIPE_FAKE_PORT: String(ports.stripe),
+  STRIPE_FAKE_WEBHOOK_URL: `${urls.api}/api/webhooks/stripe`,
   FORCE_COLOR: '0',
   ...(prod ? { ...secrets(), NODE_ENV: 'production' } : {}),
 };
@@ -109,8 +120,8 @@ process.on('SIGINT', () => void stop(0));
 process.on('SIGTERM', () => void stop(0));
 
 maildev = new MailDev({
-  smtp: 1025,
-  web: 1080,
+  smtp: ports.smtp,
+  web: ports.mailWeb,
   ip: '127.0.0.1',
   webIp: '127.0.0.1',
   mailDirectory: resolve(data, 'maildev'),
@@ -118,7 +129,7 @@ maildev = new MailDev({
 });
 await maildev.start();
 run('stripe', ['--filter', '@benchwright/stripe-fake', 'start'], root);
-await waitFor('http://127.0.0.1:12111/__fake/events', 'the Stripe stand-in').catch(async (err) => {
+await waitFor(`${urls.stripe}/__fake/events`, 'the Stripe stand-in').catch(async (err) => {
   console.error(String(err));
   await stop(1);
 });
@@ -131,21 +142,23 @@ const serve = (dist: string, port: number) => [
   dist,
   '--port',
   String(port),
+  '--api',
+  urls.api,
 ];
 if (prod) {
-  run('portal', serve('apps/customer/dist', 5173), root);
-  run('shop', serve('apps/shop/dist', 5174), root);
+  run('portal', serve('apps/customer/dist', ports.portal), root);
+  run('shop', serve('apps/shop/dist', ports.shop), root);
 } else {
   run('portal', ['--filter', '@benchwright/customer', 'dev'], root);
   run('shop', ['--filter', '@benchwright/shop', 'dev'], root);
 }
 
 try {
-  await waitFor('http://127.0.0.1:3000/api/health', 'the API');
+  await waitFor(`${urls.api}/api/health`, 'the API');
   // the entry module answers once Vite has transformed it and optimised its dependencies
-  await waitFor(`http://127.0.0.1:5173/${prod ? '' : 'src/main.tsx'}`, 'the client portal');
-  await waitFor(`http://127.0.0.1:5174/${prod ? '' : 'src/main.tsx'}`, 'the shop app');
-  await waitFor('http://127.0.0.1:1080/api/healthz', 'maildev');
+  await waitFor(`${urls.portal}/${prod ? '' : 'src/main.tsx'}`, 'the client portal');
+  await waitFor(`${urls.shop}/${prod ? '' : 'src/main.tsx'}`, 'the shop app');
+  await waitFor(`${urls.mail}/api/healthz`, 'maildev');
 } catch (err) {
   console.error(String(err));
   await stop(1);
@@ -154,11 +167,11 @@ try {
 console.log(`
 Benchwright is running${prod ? ' (production build)' : ''} (demo data: Fernhill Joinery, invented).
 
-  client portal   http://127.0.0.1:5173
-  shop app        http://127.0.0.1:5174
-  API             http://127.0.0.1:3000/api  (health: /api/health)
-  mail inbox      http://127.0.0.1:1080/index.html (maildev; SMTP on 127.0.0.1:1025)
-  Stripe stand-in http://127.0.0.1:12111     (test cards: 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)
+  client portal   ${urls.portal}
+  shop app        ${urls.shop}
+  API             ${urls.api}/api  (health: /api/health)
+  mail inbox      ${urls.mail}/index.html (maildev; SMTP on 127.0.0.1:${ports.smtp})
+  Stripe stand-in ${urls.stripe}     (test cards: 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)
 
 Demo sign-ins, all with the password bench-demo-2026:
   maren@fernhill.example   owner (shop app)

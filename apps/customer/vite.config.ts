@@ -3,6 +3,8 @@ import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vitest/config';
 
 const api = process.env.API_URL ?? 'http://127.0.0.1:3000';
+// scripts/stack.ts sets these when STACK_PORT_OFFSET moves the stack (scripts/ports.ts)
+const port = Number(process.env.PORTAL_PORT ?? 5173);
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
@@ -10,11 +12,11 @@ export default defineConfig({
   server: {
     warmup: { clientFiles: ['./src/main.tsx'] },
     host: '127.0.0.1',
-    port: 5173,
+    port,
     strictPort: true,
     proxy: { '/api': { target: api, changeOrigin: false } },
   },
-  preview: { host: '127.0.0.1', port: 5173, strictPort: true, proxy: { '/api': { target: api, changeOrigin: false } } },
+  preview: { host: '127.0.0.1', port, strictPort: true, proxy: { '/api': { target: api, changeOrigin: false } } },
   optimizeDeps: {
     include: [
       'react',

@@ -3,6 +3,8 @@ import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vitest/config';
 
 const api = process.env.API_URL ?? 'http://127.0.0.1:3000';
+// scripts/stack.ts sets these when STACK_PORT_OFFSET moves the stack (scripts/ports.ts)
+const port = Number(process.env.SHOP_PORT ?? 5174);
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
@@ -10,11 +12,11 @@ export default defineConfig({
   server: {
     warmup: { clientFiles: ['./src/main.tsx'] },
     host: '127.0.0.1',
-    port: 5174,
+    port,
     strictPort: true,
     proxy: { '/api': { target: api, changeOrigin: false } },
   },
-  preview: { host: '127.0.0.1', port: 5174, strictPort: true, proxy: { '/api': { target: api, changeOrigin: false } } },
+  preview: { host: '127.0.0.1', port, strictPort: true, proxy: { '/api': { target: api, changeOrigin: false } } },
   optimizeDeps: {
     include: [
       'react',

@@ -7,11 +7,12 @@
  */
 import { chromium } from '@playwright/test';
 import { parseArgs } from 'node:util';
+import { urls } from '../../scripts/ports';
 
 const { values } = parseArgs({
   options: {
     runs: { type: 'string', default: '5' },
-    url: { type: 'string', default: 'http://127.0.0.1:5173/designs/assembly-bench' },
+    url: { type: 'string', default: `${urls.portal}/designs/assembly-bench` },
   },
 });
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { authFile, patient } from '../support';
+import { authFile, patient, PORTAL, STRIPE } from '../support';
 
 test.use({ storageState: authFile('priya') });
 
@@ -33,7 +33,7 @@ test('she reads the sent estimate, accepts it by typing her name, and pays the d
   await expect(page.getByLabel('Status')).toHaveText('Accepted, deposit due');
 
   await page.getByRole('button', { name: 'Pay the deposit' }).click();
-  await expect(page).toHaveURL(/127\.0\.0\.1:12111\/pay\/cs_test_/);
+  await expect(page).toHaveURL((u) => u.href.startsWith(`${STRIPE}/pay/cs_test_`));
   await page.getByLabel('Card number').fill('4000 0000 0000 0002');
   await page.getByLabel('Expiry (MM/YY)').fill('12/34');
   await page.getByLabel('Security code').fill('123');
@@ -46,7 +46,10 @@ test('she reads the sent estimate, accepts it by typing her name, and pays the d
   await page.getByLabel('Name on card').fill('Priya Natarajan');
   await page.getByRole('button', { name: /^Pay \$/ }).click();
 
-  await expect(page).toHaveURL(/127\.0\.0\.1:5173\/projects\/.+\?session_id=cs_test_/);
+  await expect(page).toHaveURL(
+    (u) =>
+      u.href.startsWith(`${PORTAL}/projects/`) && u.searchParams.get('session_id')?.startsWith('cs_test_') === true,
+  );
   await expect(page.getByText('your deposit is paid and your piece is on our production board')).toBeVisible({
     timeout: patient(20_000),
   });
