@@ -117,7 +117,7 @@ export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number
               ? [sh.x1, sh.y1 + sh.offset, sh.x2, sh.y2 + sh.offset]
               : [sh.x1 + sh.offset, sh.y1, sh.x2 + sh.offset, sh.y2];
             return (
-              <View key={i}>
+              <G key={i}>
                 <Line x1={ax} y1={ay} x2={bx} y2={by} stroke={INK} strokeWidth={0.8 * k} />
                 <Text
                   x={horizontal ? (ax + bx) / 2 : ax + sh.size * 0.6}
@@ -127,7 +127,7 @@ export function PdfDrawing({ drawing, width }: { drawing: Drawing; width: number
                 >
                   {sh.text}
                 </Text>
-              </View>
+              </G>
             );
           }
         }
