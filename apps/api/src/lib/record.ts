@@ -1,6 +1,8 @@
 import { desc, eq, isNull } from 'drizzle-orm';
 import {
+  choicesOf,
   STAGE_KEYS,
+  type Choice,
   type Estimate,
   type LengthUnit,
   type PriceBook,
@@ -39,6 +41,11 @@ export interface RevisionRecord {
   estimate: Estimate;
   /** the shop paper, hours as budgeted (rounded as the job's budget is) */
   traveller: TravellerPaper;
+  /**
+   * each item's choices in plain words, as the book named them when it was priced; absent in records made before
+   * they were kept and in backfilled ones (which would read a later book), which then show none
+   */
+  choices?: Choice[][];
 }
 
 /** A job laid out again with the stock of the day ("lay out again with today's stock"). */
@@ -85,6 +92,7 @@ export async function priceRecord(
     settings,
     estimate: r.estimate,
     traveller: paper(r, settings),
+    choices: items.map((it) => choicesOf(it.spec, book, settings.units)),
   };
 }
 
@@ -136,7 +144,9 @@ export async function recordOf(
   const stored = storedRecord(db, row.id);
   if (stored) return stored;
   const { items, book, settings } = load();
-  const record = { ...(await priceRecord(pool, items, book, settings)), backfilled: true };
+  // no choices: they would be read from that day's book, not the one the revision was priced with
+  const { choices: _today, ...priced } = await priceRecord(pool, items, book, settings);
+  const record = { ...priced, backfilled: true };
   db.insert(revisionRecords).values({ estimateId: row.id, record }).onConflictDoNothing().run();
   return storedRecord(db, row.id)!;
 }
