@@ -96,21 +96,31 @@ export async function priceRecord(
   };
 }
 
-/** Lays a job's items out again with today's book on the pool. */
+/**
+ * Lays a job's items out again with today's book on the pool. `choices` are the accepted revision's: the
+ * traveller's piece section keeps what the client chose, in the words of the book they accepted.
+ */
 export async function relayoutRecord(
   pool: EnginePool,
   items: EngineItem[],
   book: PriceBook,
   settings: ShopSettings,
+  choices?: Choice[][],
 ): Promise<LayoutRecord> {
   const r = await pool.run({ kind: 'price', items, book, settings });
+  const traveller = paper(r, settings);
   return {
     kind: 'relayout',
     laidOutAt: new Date().toISOString(),
     book,
     settings,
     layouts: r.estimate.layouts,
-    traveller: paper(r, settings),
+    traveller: {
+      ...traveller,
+      pieces: traveller.pieces.map(({ choices: _today, ...p }, i) =>
+        choices?.[i] ? { ...p, choices: choices[i] } : p,
+      ),
+    },
   };
 }
 
