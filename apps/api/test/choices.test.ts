@@ -1,4 +1,5 @@
 import { execFileSync } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -7,7 +8,7 @@ import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { EstimateResponse } from '@benchwright/contracts';
 import { designs } from '@benchwright/pricing';
-import { revisionRecords } from '../src/db/schema';
+import { estimates, jobs, revisionRecords } from '../src/db/schema';
 import { storedRecord } from '../src/lib/record';
 import { contract, testApp, type TestApp } from './helpers';
 
@@ -35,6 +36,8 @@ describe('the client’s choices kept with the revision', () => {
   let client: Awaited<ReturnType<TestApp['signIn']>>;
   let estimateId: string;
   let trimOnRevision: string | undefined;
+  let jobId: string;
+  let travellerChoices: { label: string; value: string }[] | undefined;
 
   beforeAll(async () => {
     t = await testApp({ PDF_DIR: join(mkdtempSync(join(tmpdir(), 'bw-choices-')), 'pdf') });
@@ -73,6 +76,26 @@ describe('the client’s choices kept with the revision', () => {
     expect(text).toContain('Arrangement: Main case 62 in wide');
   }, 120_000);
 
+  it('the traveller and its PDF carry the choices in the piece section', async () => {
+    expect(
+      (await client.post(`/api/estimates/${estimateId}/accept`).send({ acceptedName: 'Guild Member' })).status,
+    ).toBe(200);
+    // the job a paid deposit makes (modules/payments), with the revision's hours as its budget
+    const est = t.db.select().from(estimates).where(eq(estimates.id, estimateId)).get()!;
+    jobId = randomUUID();
+    t.db
+      .insert(jobs)
+      .values({ id: jobId, projectId: est.projectId, stageKey: 'material', hoursBudget: est.hoursByStage })
+      .run();
+    const builder = await t.signIn('idris@fernhill.example');
+    const paper = (await builder.get(`/api/jobs/${jobId}/traveller`)).body.traveller;
+    travellerChoices = paper.pieces[0].choices;
+    expect(travellerChoices?.find((c) => c.label === 'Trim')?.value).toBe(trimOnRevision);
+    const pdf = await binary(builder.get(`/api/jobs/${jobId}/traveller.pdf`));
+    expect(pdf.status).toBe(200);
+    expect(pdfText(pdf.body as Buffer).replace(/\s+/g, ' ')).toContain('Black walnut, 3 1/2 in wide');
+  }, 120_000);
+
   it('after the price book renames and reprices the walnut, the sent revision’s choices are unchanged', async () => {
     const before = contract(EstimateResponse, await client.get(`/api/estimates/${estimateId}`)).estimate.choices;
     const edit = await owner
@@ -82,6 +105,10 @@ describe('the client’s choices kept with the revision', () => {
     const after = contract(EstimateResponse, await client.get(`/api/estimates/${estimateId}`)).estimate.choices;
     expect(after).toEqual(before);
     expect(after[0]!.find((c) => c.label === 'Trim')?.value).toBe(trimOnRevision);
+    const builder = await t.signIn('idris@fernhill.example');
+    expect((await builder.get(`/api/jobs/${jobId}/traveller`)).body.traveller.pieces[0].choices).toEqual(
+      travellerChoices,
+    );
     // a preview today speaks of the renamed wood, so the book did change
     const preview = await t
       .agent()
