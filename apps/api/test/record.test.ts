@@ -138,6 +138,13 @@ describe('the revision of record', () => {
       expect(again.units).not.toBe(before.units);
       // hours stay the job's budget
       expect(again.hoursByStage).toEqual(before.hoursByStage);
+      // the piece section keeps what the client chose, in the words of the book they accepted
+      expect(before.pieces[0].choices.find((c: { label: string }) => c.label === 'Case').value).not.toContain(
+        '(new supplier)',
+      );
+      expect(again.pieces.map((p: { choices: unknown }) => p.choices)).toEqual(
+        before.pieces.map((p: { choices: unknown }) => p.choices),
+      );
       const pdf = pdfText((await binary(idris.get(`/api/jobs/${job.id}/traveller.pdf`))).body as Buffer);
       expect(pdf).toContain('Laid out again on');
       // the revision's own record is kept as it was

@@ -355,6 +355,8 @@ export interface EstimateView {
   }[];
   totals: EstimateSummary['totals'];
   drawings: Drawing[];
+  /** per item, the client's choices in plain words as the revision was priced (none for one recorded before) */
+  choices: { label: string; value: string }[][];
   checks: { code: string; level: 'error' | 'warning' | 'caution'; message: string }[];
   /** owner */
   hoursByStage?: Record<string, number>;

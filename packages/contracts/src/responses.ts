@@ -64,6 +64,8 @@ export const EstimateViewSchema = z.strictObject({
   ),
   totals: TotalsShape,
   drawings: z.array(z.unknown()),
+  /** per item, the client's choices in plain words as the revision was priced; empty for a revision recorded before */
+  choices: z.array(z.array(z.strictObject({ label: z.string().min(1), value: z.string() }))),
   checks: z.array(Check),
   hoursByStage: z.record(z.string(), hours).optional(),
   layouts: z

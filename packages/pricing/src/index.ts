@@ -52,3 +52,5 @@ export { stageChecklist } from './checklist';
 export type { ChecklistItem } from './checklist';
 export { hoursFeedback, HOURS_FEEDBACK } from './hours-feedback';
 export type { DeliveredJobHours, StageHours } from './hours-feedback';
+export { choicesOf } from './choices';
+export type { Choice } from './choices';

@@ -1,3 +1,4 @@
+import type { Choice } from './choices';
 import type { TravellerPart } from './traveller';
 import { formatLength, toMm, type LengthUnit } from './units';
 
@@ -22,6 +23,8 @@ export interface TravellerPiece {
   revealMm?: number;
   overlayMm?: number;
   joinery?: string[];
+  /** the client's choices in plain words (choices.ts); absent in revisions recorded before they were kept */
+  choices?: Choice[];
 }
 
 /**
@@ -61,5 +64,7 @@ export function pieceSummary(p: TravellerPiece, unit: LengthUnit): [string, stri
     rows.push(['Fronts', `${len(p.revealMm)} reveal, ${len(p.overlayMm)} overlay`]);
   if (p.joinery)
     rows.push(['Joinery', p.joinery.length ? p.joinery.join('; ') : 'No dadoes or pocket holes in the cut list']);
+  // the client's choices, but for the size and finish said above
+  for (const c of p.choices ?? []) if (c.label !== 'Size' && c.label !== 'Finish') rows.push([c.label, c.value]);
   return rows;
 }

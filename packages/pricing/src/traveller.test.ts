@@ -112,6 +112,16 @@ describe('traveller cautions and the piece section', () => {
     expect(rows.Fronts).toBe('1/8" reveal, 23/32" overlay');
     expect(rows.Joinery).toMatch(/Dadoes/);
   });
+  it('carries the client’s choices in the piece section, once each', () => {
+    const rows = pieceSummary(at(t.pieces, 0), 'in');
+    expect(Object.fromEntries(rows)).toMatchObject({
+      Case: '3/4 in birch plywood',
+      'Edge banding': 'Birch veneer banding, 7/8 in',
+      Sections: 'open, 4 adjustable shelves and 1 fixed shelf',
+    });
+    expect(rows.filter(([k]) => k === 'Finish')).toHaveLength(1);
+    expect(rows.map(([k]) => k)).not.toContain('Size');
+  });
 });
 
 describe('a built-in base cabinet', () => {

@@ -1,3 +1,4 @@
+import { choicesOf } from './choices';
 import type { Estimate } from './costing';
 import type { Cut } from './nesting';
 import type { PriceBook, ShopSettings, StageKey } from './price-book';
@@ -95,6 +96,7 @@ export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings):
     revealMm: settings.revealMm,
     overlayMm: settings.overlayMm,
     joinery: joineryOf(p.parts, settings.units),
+    choices: choicesOf(p.spec, book, settings.units),
     parts: p.parts.map((part) => ({
       name: part.name,
       materialName: materialName(part.materialId),

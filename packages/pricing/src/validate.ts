@@ -68,14 +68,77 @@ const SHEET_KINDS: Record<SheetUse, readonly SheetGood['kind'][]> = {
   top: ['plywood', 'mdf', 'particleboard', 'hardboard'],
 };
 
-/** Every item the spec names is in the price book, in the right list and of a kind that suits its part. */
+/** What a price-book item is, in a client's words, whichever list holds it (undefined: in none). */
+function kindOf(book: PriceBook, id: string): { name: string; what: string } | undefined {
+  const sheet = book.sheetGoods.find((x) => x.id === id);
+  if (sheet) return { name: sheet.name, what: `a sheet material (${SHEET_KIND_WORDS[sheet.kind]})` };
+  const lumber = book.lumber.find((x) => x.id === id);
+  if (lumber) return { name: lumber.name, what: 'solid wood' };
+  const banding = book.edgeBanding.find((x) => x.id === id);
+  if (banding) return { name: banding.name, what: 'edge banding' };
+  const finish = book.finishes.find((x) => x.id === id);
+  if (finish) return { name: finish.name, what: 'a finish' };
+  const hw = book.hardware.find((x) => x.id === id);
+  if (hw) return { name: hw.name, what: `hardware (${HARDWARE_WORDS[hw.kind]})` };
+  return undefined;
+}
+
+const SHEET_KIND_WORDS: Record<SheetGood['kind'], string> = {
+  plywood: 'plywood',
+  mdf: 'MDF',
+  particleboard: 'particleboard',
+  hardboard: 'hardboard',
+};
+const HARDWARE_WORDS: Record<HardwareKind, string> = {
+  slide: 'a drawer slide',
+  hinge: 'a hinge',
+  shelf_pin: 'a shelf pin',
+  pull: 'a pull',
+  caster: 'a caster',
+  leveling_foot: 'a leveling foot',
+  pocket_screw: 'a pocket screw',
+  rail_screw: 'a rail screw',
+  anti_tip_kit: 'an anti-tip kit',
+  hanging_rail: 'a hanging rail',
+  screw: 'a screw',
+  bolt: 'a bolt',
+  connector: 'a connector',
+};
+
+/** The sheet kinds a use takes, in words: `plywood, MDF or particleboard`. */
+function sheetWords(use: SheetUse): string {
+  const words = SHEET_KINDS[use].map((k) => SHEET_KIND_WORDS[k]);
+  return words.length > 1 ? `${words.slice(0, -1).join(', ')} or ${words.at(-1)}` : (words[0] ?? '');
+}
+
+/**
+ * Every item the spec names is in the price book, in the right list and of a
+ * kind that suits its part; each refusal names the field, what it holds and
+ * what kind the part needs. Items the piece does not use (the casters of a
+ * bench on feet, a laminated top's skins) are not looked at, so retiring them
+ * refuses nothing.
+ */
 function references(spec: BuildSpec, book: PriceBook): SpecIssue[] {
   const issues: SpecIssue[] = [];
+  /** An id in no list, or in another list than `wanted`: its issue. */
+  const wrong = (path: string, id: string, what: string, wanted: string): boolean => {
+    const other = kindOf(book, id);
+    issues.push({
+      path,
+      message: other
+        ? `The ${what} must be ${wanted}; ${other.name} is ${other.what}.`
+        : `The ${what} "${id}" is not in the shop's price book (or is no longer offered): choose ${wanted}.`,
+    });
+    return false;
+  };
   const sheet = (path: string, id: string, use: SheetUse, what: string, minMm = 0) => {
     const m = book.sheetGoods.find((x) => x.id === id);
-    if (!m) return issues.push({ path, message: `The ${what} "${id}" is not a sheet material the shop stocks.` });
+    if (!m) return wrong(path, id, what, `a sheet material (${sheetWords(use)})`);
     if (!SHEET_KINDS[use].includes(m.kind))
-      return issues.push({ path, message: `${m.name} is ${m.kind}, which is not used for the ${what}.` });
+      return issues.push({
+        path,
+        message: `${m.name} is ${SHEET_KIND_WORDS[m.kind]}, which is not used for the ${what}: choose ${sheetWords(use)}.`,
+      });
     if (m.thicknessMm < minMm)
       issues.push({
         path,
@@ -84,8 +147,7 @@ function references(spec: BuildSpec, book: PriceBook): SpecIssue[] {
   };
   const hardware = (path: string, id: string, kind: HardwareKind, what: string) => {
     const h = book.hardware.find((x) => x.id === id);
-    if (!h) issues.push({ path, message: `The ${what} "${id}" is not in the shop's hardware.` });
-    else if (h.kind !== kind) issues.push({ path, message: `${h.name} is not a ${what}.` });
+    if (!h || h.kind !== kind) wrong(path, id, what, `${HARDWARE_WORDS[kind]} from the shop's hardware`);
   };
   sheet('carcassMaterialId', spec.carcassMaterialId, 'case', 'case material', MIN_PANEL_MM);
   sheet('backMaterialId', spec.backMaterialId, 'back', 'back material');
@@ -107,12 +169,12 @@ function references(spec: BuildSpec, book: PriceBook): SpecIssue[] {
       message: `${bottom.name} is as thick as the drawer sides: choose a thinner drawer bottom.`,
     });
   if (!book.edgeBanding.some((b) => b.id === spec.bandingId))
-    issues.push({ path: 'bandingId', message: `The edge banding "${spec.bandingId}" is not in the price book.` });
+    wrong('bandingId', spec.bandingId, 'edge banding', "one of the shop's edge bandings");
   hardware('pullId', spec.pullId, 'pull', 'pull');
   if (spec.finishId && !book.finishes.some((f) => f.id === spec.finishId))
-    issues.push({ path: 'finishId', message: `The finish "${spec.finishId}" is not in the price book.` });
+    wrong('finishId', spec.finishId, 'finish', "one of the shop's finishes");
   if (spec.trim && !book.lumber.some((l) => l.id === spec.trim?.lumberId))
-    issues.push({ path: 'trim.lumberId', message: `The trim wood "${spec.trim.lumberId}" is not in the price book.` });
+    wrong('trim.lumberId', spec.trim.lumberId, 'trim', "solid wood from the shop's lumber");
   if (spec.design === 'assembly-bench') {
     if (spec.mobility !== 'leveling-feet') hardware('casterId', spec.casterId, 'caster', 'caster');
     if (spec.mobility !== 'locking-casters') hardware('footId', spec.footId, 'leveling_foot', 'leveling foot');

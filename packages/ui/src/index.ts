@@ -26,3 +26,5 @@ export { UploadGallery, formatBytes } from './uploads';
 export { ShopLogo } from './shop-logo';
 export { getProjectsPage, projectsQueryOptions, projectsSearch, useProjects } from './projects-api';
 export type { ProjectListFilters } from './projects-api';
+export { ChoicesList } from './choices';
+export type { PieceChoices } from './choices';

@@ -1,6 +1,8 @@
 import { desc, eq, isNull } from 'drizzle-orm';
 import {
+  choicesOf,
   STAGE_KEYS,
+  type Choice,
   type Estimate,
   type LengthUnit,
   type PriceBook,
@@ -39,6 +41,11 @@ export interface RevisionRecord {
   estimate: Estimate;
   /** the shop paper, hours as budgeted (rounded as the job's budget is) */
   traveller: TravellerPaper;
+  /**
+   * each item's choices in plain words, as the book named them when it was priced; absent in records made before
+   * they were kept and in backfilled ones (which would read a later book), which then show none
+   */
+  choices?: Choice[][];
 }
 
 /** A job laid out again with the stock of the day ("lay out again with today's stock"). */
@@ -85,24 +92,35 @@ export async function priceRecord(
     settings,
     estimate: r.estimate,
     traveller: paper(r, settings),
+    choices: items.map((it) => choicesOf(it.spec, book, settings.units)),
   };
 }
 
-/** Lays a job's items out again with today's book on the pool. */
+/**
+ * Lays a job's items out again with today's book on the pool. `choices` are the accepted revision's: the
+ * traveller's piece section keeps what the client chose, in the words of the book they accepted.
+ */
 export async function relayoutRecord(
   pool: EnginePool,
   items: EngineItem[],
   book: PriceBook,
   settings: ShopSettings,
+  choices?: Choice[][],
 ): Promise<LayoutRecord> {
   const r = await pool.run({ kind: 'price', items, book, settings });
+  const traveller = paper(r, settings);
   return {
     kind: 'relayout',
     laidOutAt: new Date().toISOString(),
     book,
     settings,
     layouts: r.estimate.layouts,
-    traveller: paper(r, settings),
+    traveller: {
+      ...traveller,
+      pieces: traveller.pieces.map(({ choices: _today, ...p }, i) =>
+        choices?.[i] ? { ...p, choices: choices[i] } : p,
+      ),
+    },
   };
 }
 
@@ -136,7 +154,9 @@ export async function recordOf(
   const stored = storedRecord(db, row.id);
   if (stored) return stored;
   const { items, book, settings } = load();
-  const record = { ...(await priceRecord(pool, items, book, settings)), backfilled: true };
+  // no choices: they would be read from that day's book, not the one the revision was priced with
+  const { choices: _today, ...priced } = await priceRecord(pool, items, book, settings);
+  const record = { ...priced, backfilled: true };
   db.insert(revisionRecords).values({ estimateId: row.id, record }).onConflictDoNothing().run();
   return storedRecord(db, row.id)!;
 }

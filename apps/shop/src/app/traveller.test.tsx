@@ -95,6 +95,7 @@ describe('the traveler in an imperial shop’s words', () => {
           revealMm: 3,
           overlayMm: 18,
           joinery: ['Dadoes and grooves: 6, 1/4 in deep, glued'],
+          choices: [{ label: 'Back', value: '1/4 in birch plywood, set in grooves' }],
           parts: [
             {
               name: 'Side',
@@ -140,5 +141,8 @@ describe('the traveler in an imperial shop’s words', () => {
     expect(piece.textContent).toContain('Waterborne polyurethane, satin, 3 coats');
     expect(piece.textContent).toContain('1/8" reveal, 23/32" overlay');
     expect(piece.textContent).toContain('Dadoes and grooves');
+    expect(within(piece).getByText('Back').nextElementSibling?.textContent).toBe(
+      '1/4 in birch plywood, set in grooves',
+    );
   });
 });

@@ -53,6 +53,8 @@ export interface EstimatePdfInput {
     quantity: number;
     materials: string[];
     finish: string | null;
+    /** the client's choices as the revision was priced; when given they replace the materials and finish lines */
+    choices?: { label: string; value: string }[];
     drawing: Drawing;
   }[];
   lines: {
@@ -145,8 +147,20 @@ function EstimateDocument({ d }: { d: EstimatePdfInput }) {
                   {name}
                 </Text>
                 <Text>{size}</Text>
-                <Text>Materials: {it.materials.join(', ')}</Text>
-                <Text>Finish: {it.finish ?? 'none (unfinished)'}</Text>
+                {it.choices?.length ? (
+                  it.choices
+                    .filter((c) => c.label !== 'Size')
+                    .map((c) => (
+                      <Text key={c.label}>
+                        {c.label}: {c.value}
+                      </Text>
+                    ))
+                ) : (
+                  <>
+                    <Text>Materials: {it.materials.join(', ')}</Text>
+                    <Text>Finish: {it.finish ?? 'none (unfinished)'}</Text>
+                  </>
+                )}
               </View>
             </View>
           );

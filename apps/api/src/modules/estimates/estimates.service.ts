@@ -124,9 +124,10 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       .all();
     const owner = viewer.role === 'owner';
     const engine = e.engine as EngineRecord | null;
+    const record = storedRecord(db, e.id);
     return {
       // as the revision was priced (its record): a sent estimate reads the same after the shop changes its units
-      units: storedRecord(db, e.id)?.settings.units ?? shopUnits(),
+      units: record?.settings.units ?? shopUnits(),
       replacedBy: e.status === 'superseded' ? replacedBy(e) : null,
       id: e.id,
       projectId: e.projectId,
@@ -160,6 +161,8 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       },
       hoursByStage: owner ? e.hoursByStage : undefined,
       drawings: engine?.drawings ?? [],
+      // each item's choices as they were priced; a revision recorded before they were kept has none
+      choices: record?.choices ?? [],
       checks: owner ? (engine?.checks ?? []) : forClient(engine?.checks ?? []),
       ...(owner && engine ? { layouts: engine.layouts, costCents: lines.reduce((a, l) => a + l.costCents, 0) } : {}),
     };
@@ -490,6 +493,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
               quantity: it.quantity,
               materials: mats,
               finish: spec.finishId ? (book.finishes.find((f) => f.id === spec.finishId)?.name ?? spec.finishId) : null,
+              choices: record?.choices?.[i] ?? [],
               drawing: engine?.drawings[i] ?? {
                 title: designs[spec.design].name,
                 viewBox: { x: 0, y: 0, width: 1, height: 1 },

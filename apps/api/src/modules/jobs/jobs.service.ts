@@ -243,7 +243,7 @@ export function createJobsService(
       const j = row(id);
       const { record } = await accepted(j);
       const { book, settings } = loadPricing(db);
-      const layout = await relayoutRecord(pool, record.items, book, settings);
+      const layout = await relayoutRecord(pool, record.items, book, settings, record.choices);
       db.transaction((tx) => {
         tx.insert(jobLayouts).values({ id: randomUUID(), jobId: j.id, actorId: actor.id, record: layout }).run();
         addEvent(tx, j.projectId, 'relayout', 'The sheets were laid out again with today’s stock.', actor.id);

@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { AcceptEstimateBody, formatDate, LINE_GROUP_LABELS, LINE_GROUPS, replacedBy } from '@benchwright/contracts';
 import { formatQuantity } from '@benchwright/pricing/geometry';
-import { applyServerIssues, Button, Drawing, Field, Money, Notice, Panel } from '@benchwright/ui';
+import { applyServerIssues, Button, ChoicesList, Drawing, Field, Money, Notice, Panel } from '@benchwright/ui';
 import { paths } from '../../../config/paths';
 import { useAcceptEstimate } from '../api/accept-estimate';
 import { useDepositCheckout } from '../api/checkout';
@@ -137,6 +137,10 @@ export function EstimateView({
           <Drawing drawing={d} />
         </div>
       ))}
+      <ChoicesList
+        heading="Your choices"
+        pieces={(e.choices ?? []).map((choices, i) => ({ title: e.drawings[i]?.title, choices }))}
+      />
       <Lines e={e} />
       {e.checks.length ? (
         <div className="mt-4">

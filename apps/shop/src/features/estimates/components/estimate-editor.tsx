@@ -1,7 +1,7 @@
 import { useEffect, useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
 import { LINE_GROUP_LABELS, type LineGroup } from '@benchwright/contracts';
-import { ApiRequestError, Button, Money, Notice, Panel } from '@benchwright/ui';
+import { ApiRequestError, Button, ChoicesList, Money, Notice, Panel } from '@benchwright/ui';
 import { useSendEstimate, useUpdateEstimate, type OwnerEstimate } from '../api/estimates';
 import { WithdrawAcceptance } from './withdraw-acceptance';
 import { toCents, toDollars } from '../../../lib/money';
@@ -95,6 +95,10 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
           )
           .join('; ')}
       </p>
+      <ChoicesList
+        heading="The client's choices"
+        pieces={(estimate.choices ?? []).map((choices, i) => ({ title: estimate.drawings[i]?.title, choices }))}
+      />
       <form onSubmit={onSave} noValidate aria-label="Edit the estimate">
         <table className="w-full border-collapse text-left" aria-label="Line items">
           <thead>
