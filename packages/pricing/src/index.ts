@@ -50,5 +50,5 @@ export { leadTime, bookedHours, leadTimeDates } from './lead-time';
 export type { LeadTime, BookedJob } from './lead-time';
 export { stageChecklist } from './checklist';
 export type { ChecklistItem } from './checklist';
-export { hoursFeedback, HOURS_FEEDBACK } from './hours-feedback';
-export type { DeliveredJobHours, StageHours } from './hours-feedback';
+export { hoursFeedback, HOURS_FEEDBACK, scaleStandards } from './hours-feedback';
+export type { DeliveredJobHours, StageHours, StandardChange } from './hours-feedback';

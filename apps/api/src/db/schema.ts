@@ -381,7 +381,11 @@ export const jobChecks = sqliteTable(
   (t) => [primaryKey({ columns: [t.jobId, t.itemKey] })],
 );
 
-/** Per stage, the owner's last answer to the hours suggestion (applied or dismissed): later deliveries count from it. */
+/**
+ * Per stage, the owner's last answer to the hours suggestion (applied or dismissed) and the price-book version
+ * the last applied one wrote: the stage then compares only jobs priced from that version on (and, after a
+ * dismissal, delivered after it). See modules/hours/hours.service.ts.
+ */
 export const hoursFeedbackMarks = sqliteTable('hours_feedback_marks', {
   stageKey: text({ enum: STAGE_KEYS }).primaryKey(),
   action: text({ enum: ['applied', 'dismissed'] }).notNull(),
@@ -389,6 +393,8 @@ export const hoursFeedbackMarks = sqliteTable('hours_feedback_marks', {
     .notNull()
     .references(() => users.id),
   at: integer({ mode: 'timestamp_ms' }).notNull(),
+  /** the price-book version the stage's last applied suggestion wrote; kept when a later one is dismissed */
+  appliedVersion: integer(),
 });
 
 export const timeEntries = sqliteTable(
