@@ -229,6 +229,7 @@ export const ACCESS: RouteAccess[] = [
 
   // the price book: the owner's alone
   { method: 'GET', path: '/api/price-book', expect: ownerOnly },
+  { method: 'GET', path: '/api/price-book/versions', expect: ownerOnly },
   { method: 'GET', path: '/api/price-book/:kind.csv', expect: ownerOnly, params: () => ({ kind: 'lumber' }) },
   {
     method: 'POST',

@@ -264,3 +264,18 @@ export const HoursAppliedResponse = HoursFeedbackResponse.extend({
     changes: z.array(StandardChangeSchema),
   }),
 });
+
+/** `GET /api/price-book/versions` (owner): the price book's versions, the latest first, a page at a time */
+export const PriceBookVersionsResponse = z.strictObject({
+  versions: z.array(
+    z.strictObject({
+      version: z.number().int().min(1),
+      createdAt: iso,
+      /** who made the change; null for the seed and the start-up move */
+      by: z.strictObject({ id: z.string(), name: z.string() }).nullable(),
+      summary: z.string(),
+    }),
+  ),
+  nextCursor: z.string().nullable(),
+});
+export type PriceBookVersionSummary = z.infer<typeof PriceBookVersionsResponse>['versions'][number];
