@@ -109,6 +109,7 @@ const CONTRACTS: Record<string, z.ZodType> = {
   'GET /api/lead-time': contracts.LeadTimeResponse,
   'GET /api/mail/failed': contracts.FailedMailsResponse,
   'GET /api/hours-feedback': contracts.HoursFeedbackResponse,
+  'GET /api/clients': contracts.ClientsResponse,
   'GET /api/price-book/versions': contracts.PriceBookVersionsResponse,
   'POST /api/hours-feedback/:stage/dismiss': contracts.HoursFeedbackResponse,
   'POST /api/hours-feedback/:stage/apply': contracts.HoursAppliedResponse,
