@@ -218,9 +218,18 @@ export const ACCESS: RouteAccess[] = [
     expect: ownerOnly,
     params: () => ({ stage: 'casework' }),
   },
+  {
+    // the demo has no suggestion standing, so the owner's answer is a 409 about the request: access all the same
+    method: 'POST',
+    path: '/api/hours-feedback/:stage/apply',
+    expect: ownerOnly,
+    params: () => ({ stage: 'casework' }),
+    body: () => ({ version: 1 }),
+  },
 
   // the price book: the owner's alone
   { method: 'GET', path: '/api/price-book', expect: ownerOnly },
+  { method: 'GET', path: '/api/price-book/versions', expect: ownerOnly },
   { method: 'GET', path: '/api/price-book/:kind.csv', expect: ownerOnly, params: () => ({ kind: 'lumber' }) },
   {
     method: 'POST',

@@ -108,6 +108,11 @@ const CONTRACTS: Record<string, z.ZodType> = {
   'GET /api/overview': contracts.OverviewResponse,
   'GET /api/lead-time': contracts.LeadTimeResponse,
   'GET /api/mail/failed': contracts.FailedMailsResponse,
+  'GET /api/hours-feedback': contracts.HoursFeedbackResponse,
+  'GET /api/clients': contracts.ClientsResponse,
+  'GET /api/price-book/versions': contracts.PriceBookVersionsResponse,
+  'POST /api/hours-feedback/:stage/dismiss': contracts.HoursFeedbackResponse,
+  'POST /api/hours-feedback/:stage/apply': contracts.HoursAppliedResponse,
 };
 
 /**

@@ -1,6 +1,7 @@
 import * as z from 'zod';
 import { multiLine, singleLine } from './text';
 import { PROJECT_STATUSES } from './lifecycle';
+import { ListCursor, ListLimit } from './project-list';
 
 /** `POST /api/clients`: a client who called or walked in; they get a mail to claim the account in the portal. */
 export const CreateClientBody = z
@@ -23,12 +24,16 @@ export type CreateClientBody = z.input<typeof CreateClientBody>;
 export const CLIENT_SORTS = ['name', 'projects', 'accepted', 'paid', 'activity'] as const;
 export type ClientSort = (typeof CLIENT_SORTS)[number];
 
-/** `GET /api/clients?q=&sort=&order=&limit=` */
+/**
+ * `GET /api/clients?q=&sort=&order=&cursor=&limit=`: a page of clients (50 by default, at most 200), keyset-paged
+ * like the projects: `nextCursor` (opaque, for its sort and order) names where the next page starts.
+ */
 export const ClientsQuery = z.object({
   q: singleLine().trim().max(120, 'use at most 120 characters').default(''),
   sort: z.enum(CLIENT_SORTS).default('activity'),
   order: z.enum(['asc', 'desc']).default('desc'),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
+  cursor: ListCursor.optional(),
+  limit: ListLimit,
 });
 export type ClientsQuery = z.input<typeof ClientsQuery>;
 
@@ -59,3 +64,21 @@ export interface ClientDetail extends ClientSummary {
     items: number;
   }[];
 }
+
+/** `GET /api/clients` (owner) */
+export const ClientsResponse = z.strictObject({
+  clients: z.array(
+    z.strictObject({
+      id: z.string(),
+      name: z.string(),
+      email: z.string(),
+      phone: z.string(),
+      claimed: z.boolean(),
+      projectCount: z.number().int().min(0),
+      acceptedCents: z.number().int(),
+      paidCents: z.number().int(),
+      lastActivityAt: z.iso.datetime(),
+    }),
+  ),
+  nextCursor: z.string().nullable(),
+});

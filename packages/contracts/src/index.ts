@@ -316,6 +316,15 @@ export const LogTimeBody = z.object({
 /** A board stage named in a path. */
 export const StageParam = z.enum(STAGE_KEYS, 'Name a stage of the board.');
 
+/**
+ * `POST /api/hours-feedback/:stage/apply`: the price-book version the owner saw the suggestion against (409 if the
+ * book changed since).
+ */
+export const ApplyHoursBody = z.object({
+  version: z.number('Send the price-book version you saw.').int().min(1, 'Send the price-book version you saw.'),
+});
+export type ApplyHoursBody = z.infer<typeof ApplyHoursBody>;
+
 /** `PUT /api/jobs/:id/checks/:key`: a step of the stage checklist ticked or unticked. */
 export const CheckBody = z.object({ done: z.boolean() });
 export const CheckKey = z

@@ -2,6 +2,7 @@
 // each kind (derived from the engine's item schemas, so a field the engine adds gets its column by itself), and
 // the request bodies and answers.
 import * as z from 'zod';
+import { ListCursor, ListLimit } from './project-list';
 import {
   EdgeBanding,
   Finish,
@@ -109,6 +110,10 @@ export const PriceItemPatch = z
   .refine((b) => b.item !== undefined || b.retired !== undefined, 'send the fields to change, or retired');
 export type PriceItemPatch = z.input<typeof PriceItemPatch>;
 export const PriceImportQuery = z.object({ dryRun: z.enum(['0', '1', 'true', 'false']).optional() });
+
+/** `GET /api/price-book/versions`: the latest first, a page at a time (keyset cursor). */
+export const PriceBookVersionsQuery = z.object({ cursor: ListCursor.optional(), limit: ListLimit });
+export type PriceBookVersionsQuery = z.output<typeof PriceBookVersionsQuery>;
 
 /** One item of a kind as the API gives it. */
 export interface PriceBookEntry {

@@ -223,3 +223,61 @@ export const FailedMailsResponse = z.strictObject({
     }),
   ),
 });
+
+/** One time standard an applied hours suggestion changes: minutes per unit of its driver, now and after. */
+const StandardChangeSchema = z.strictObject({
+  key: z.string(),
+  name: z.string(),
+  driver: z.string(),
+  minutes: z.number().min(0),
+  newMinutes: z.number().min(0),
+});
+export type StandardChange = z.infer<typeof StandardChangeSchema>;
+const StageFeedbackSchema = z.strictObject({
+  stage: z.enum(STAGE_KEYS),
+  label: z.string(),
+  jobs: z.number().int().min(0),
+  ratios: z.array(z.number()),
+  medianRatio: z.number().nullable(),
+  suggestedFactor: z.number().positive().nullable(),
+  /** what applying the suggestion would write; empty without a suggestion */
+  standards: z.array(StandardChangeSchema),
+  lastAction: z
+    .strictObject({
+      action: z.enum(['applied', 'dismissed']),
+      at: iso,
+      appliedVersion: z.number().int().min(1).nullable(),
+    })
+    .nullable(),
+});
+export type StageFeedback = z.infer<typeof StageFeedbackSchema>;
+/** `GET /api/hours-feedback`, `POST /api/hours-feedback/:stage/dismiss` (owner) */
+export const HoursFeedbackResponse = z.strictObject({
+  stages: z.array(StageFeedbackSchema),
+  /** the price book's version the suggestions were read against: send it back to apply one */
+  priceBookVersion: z.number().int().min(1),
+});
+/** `POST /api/hours-feedback/:stage/apply` (owner): the feedback after, and what was applied */
+export const HoursAppliedResponse = HoursFeedbackResponse.extend({
+  applied: z.strictObject({
+    stage: z.enum(STAGE_KEYS),
+    factor: z.number().positive(),
+    version: z.number().int().min(1),
+    changes: z.array(StandardChangeSchema),
+  }),
+});
+
+/** `GET /api/price-book/versions` (owner): the price book's versions, the latest first, a page at a time */
+export const PriceBookVersionsResponse = z.strictObject({
+  versions: z.array(
+    z.strictObject({
+      version: z.number().int().min(1),
+      createdAt: iso,
+      /** who made the change; null for the seed and the start-up move */
+      by: z.strictObject({ id: z.string(), name: z.string() }).nullable(),
+      summary: z.string(),
+    }),
+  ),
+  nextCursor: z.string().nullable(),
+});
+export type PriceBookVersionSummary = z.infer<typeof PriceBookVersionsResponse>['versions'][number];

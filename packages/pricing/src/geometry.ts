@@ -26,6 +26,7 @@ export {
   Finish,
   LabourOperation,
   LabourOperationFields,
+  LABOUR_DRIVER_UNITS,
 } from './price-book';
 export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';
 export type { LineGroup } from './line-groups';

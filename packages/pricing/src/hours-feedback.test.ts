@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { hoursFeedback } from './hours-feedback';
+import { hoursFeedback, scaleStandards } from './hours-feedback';
+import type { LabourOperation } from './price-book';
 
 const job = (budget: number, logged: number) => ({ budget: { casework: budget }, logged: { casework: logged } });
 const casework = (jobs: Parameters<typeof hoursFeedback>[0]) =>
@@ -31,5 +32,26 @@ describe('hoursFeedback', () => {
   });
   it('averages the two middle ratios of an even count', () => {
     expect(casework([job(10, 10), job(10, 12), job(10, 14), job(10, 16)]).medianRatio).toBeCloseTo(1.3);
+  });
+});
+
+describe('scaleStandards', () => {
+  const ops: LabourOperation[] = [
+    { key: 'case_assembly', name: 'Case assembly', driver: 'case', minutes: 45, stage: 'casework' },
+    { key: 'part_cut', name: 'Part cut', driver: 'part', minutes: 0.35, stage: 'casework' },
+    { key: 'finish_coat', name: 'Finish coat', driver: 'finish_m2_coat', minutes: 6, stage: 'finish' },
+  ];
+  it("scales the minutes of the stage's operations only, to a hundredth of a minute", () => {
+    expect(scaleStandards(ops, 'casework', 1.2)).toEqual([
+      { key: 'case_assembly', name: 'Case assembly', driver: 'case', minutes: 45, newMinutes: 54 },
+      { key: 'part_cut', name: 'Part cut', driver: 'part', minutes: 0.35, newMinutes: 0.42 },
+    ]);
+  });
+  it('leaves nothing to change for a stage with no operations', () => {
+    expect(scaleStandards(ops, 'delivered', 1.3)).toEqual([]);
+  });
+  it('refuses a factor that is not a positive number', () => {
+    expect(() => scaleStandards(ops, 'casework', 0)).toThrow(RangeError);
+    expect(() => scaleStandards(ops, 'casework', Number.NaN)).toThrow(RangeError);
   });
 });

@@ -1,4 +1,4 @@
-import { STAGE_KEYS, type StageKey } from './price-book';
+import { STAGE_KEYS, type LabourOperation, type StageKey } from './price-book';
 
 /** One delivered job's hours per stage: the budget it was priced with and the hours logged. */
 export interface DeliveredJobHours {
@@ -65,4 +65,36 @@ export function hoursFeedback(
     const suggestedFactor = m !== null && ratios.length >= minJobs ? Math.min(1 + limit, Math.max(1 - limit, m)) : null;
     return { stage, jobs: ratios.length, ratios, medianRatio: m, suggestedFactor };
   });
+}
+
+/** One time standard as an applied suggestion changes it: minutes per unit of its driver, before and after. */
+export interface StandardChange {
+  key: string;
+  name: string;
+  driver: LabourOperation['driver'];
+  minutes: number;
+  newMinutes: number;
+}
+
+/**
+ * The time standards behind a stage scaled by a factor (an hours suggestion the owner applies): every labour
+ * operation whose stage is `stage`, its minutes times `factor`, rounded to a hundredth of a minute (finer than any
+ * standard is timed, coarse enough to read; a rounding to whole or tenth minutes would move the small standards,
+ * such as a fraction of a minute per part, by far more than the factor). Operations of other stages are left out.
+ *
+ * @example
+ * scaleStandards([{ key: 'case_assembly', minutes: 45, stage: 'casework', ... }], 'casework', 1.2)
+ * // [{ key: 'case_assembly', minutes: 45, newMinutes: 54, ... }]
+ */
+export function scaleStandards(labour: readonly LabourOperation[], stage: StageKey, factor: number): StandardChange[] {
+  if (!(factor > 0) || !Number.isFinite(factor)) throw new RangeError(`a factor must be positive, not ${factor}`);
+  return labour
+    .filter((op) => op.stage === stage)
+    .map((op) => ({
+      key: op.key,
+      name: op.name,
+      driver: op.driver,
+      minutes: op.minutes,
+      newMinutes: Math.round(op.minutes * factor * 100) / 100,
+    }));
 }

@@ -36,8 +36,11 @@ export const users = sqliteTable(
     pendingEmail: text(),
     createdAt: createdAt(),
   },
-  // the project list sorted by client
-  (t) => [index('users_name').on(t.name, t.id)],
+  // the project list sorted by client; the clients list sorted by name (keyset on name without case, then id)
+  (t) => [
+    index('users_name').on(t.name, t.id),
+    index('users_role_name_nocase').on(t.role, sql`${t.name} collate nocase`, t.id),
+  ],
 );
 
 /**
@@ -169,6 +172,8 @@ export const projects = sqliteTable(
     index('projects_client_created').on(t.clientId, t.createdAt, t.id),
     // sorted by client: users by name (users_name), then each client's projects by id
     index('projects_client_id').on(t.clientId, t.id),
+    // the clients list: a client's latest project change (last activity)
+    index('projects_client_updated').on(t.clientId, t.updatedAt),
     index('projects_status_created').on(t.status, t.createdAt, t.id),
     index('projects_created').on(t.createdAt, t.id),
     index('projects_updated').on(t.updatedAt, t.id),
@@ -381,7 +386,11 @@ export const jobChecks = sqliteTable(
   (t) => [primaryKey({ columns: [t.jobId, t.itemKey] })],
 );
 
-/** Per stage, the owner's last answer to the hours suggestion (applied or dismissed): later deliveries count from it. */
+/**
+ * Per stage, the owner's last answer to the hours suggestion (applied or dismissed) and the price-book version
+ * the last applied one wrote: the stage then compares only jobs priced from that version on (and, after a
+ * dismissal, delivered after it). See modules/hours/hours.service.ts.
+ */
 export const hoursFeedbackMarks = sqliteTable('hours_feedback_marks', {
   stageKey: text({ enum: STAGE_KEYS }).primaryKey(),
   action: text({ enum: ['applied', 'dismissed'] }).notNull(),
@@ -389,6 +398,8 @@ export const hoursFeedbackMarks = sqliteTable('hours_feedback_marks', {
     .notNull()
     .references(() => users.id),
   at: integer({ mode: 'timestamp_ms' }).notNull(),
+  /** the price-book version the stage's last applied suggestion wrote; kept when a later one is dismissed */
+  appliedVersion: integer(),
 });
 
 export const timeEntries = sqliteTable(
@@ -426,7 +437,11 @@ export const projectEvents = sqliteTable(
     uploadId: text(),
     createdAt: createdAt(),
   },
-  (t) => [index('project_events_project').on(t.projectId)],
+  // a project's events; the latest of them for the clients list's last activity
+  (t) => [
+    index('project_events_project').on(t.projectId),
+    index('project_events_project_created').on(t.projectId, t.createdAt),
+  ],
 );
 
 export const comments = sqliteTable('comments', {

@@ -8,7 +8,7 @@ import type { ClientsService } from './clients.service';
 export function clientsRoutes(service: ClientsService, idempotent: RequestHandler): Router {
   const r = Router();
   r.get('/', (req, res) => {
-    res.json({ clients: service.list(parse(ClientsQuery, req.query)) });
+    res.json(service.list(parse(ClientsQuery, req.query)));
   });
   r.get('/:id', (req, res) => {
     res.json({ client: service.get(req.params.id) });

@@ -6,6 +6,7 @@ import type { Db } from '../../db/client';
 import { projectItems, projects, users } from '../../db/schema';
 import { issueToken } from '../../auth/tokens';
 import { Conflict, Invalid, NotFound } from '../../lib/errors';
+import { decodeCursor, encodeCursor } from '../../lib/cursor';
 import { loadPricing } from '../../lib/engine';
 import { queueMail } from '../../lib/mailer';
 import { clientInvitationMail } from '../../lib/mail-templates';
@@ -13,35 +14,39 @@ import { clientInvitationMail } from '../../lib/mail-templates';
 type Query = z.output<typeof ClientsQuery>;
 type NewClient = z.output<typeof CreateClientBody>;
 
-/**
- * The figures of each client in one statement: projects, the accepted revisions' totals, what was paid less
- * refunds, and the latest event on any of their projects, each summed per client in a grouped subquery (never a
- * query per row).
- */
-const FIGURES = sql`
+/** Each figure of a client, as a correlated subquery on `u` (each an index look-up: see the indexes in schema.ts). */
+const PROJECTS = `(select count(*) from projects p where p.client_id = u.id)`;
+const ACCEPTED = `(select coalesce(sum(e.total_cents), 0) from projects p
+    join estimates e on e.project_id = p.id and e.status = 'accepted' where p.client_id = u.id)`;
+const PAID = `(select coalesce(sum(pm.amount_cents - pm.refunded_cents), 0) from projects p
+    join payments pm on pm.project_id = p.id
+    where p.client_id = u.id and pm.status in ('paid', 'refunded', 'partially_refunded'))`;
+/** the latest of: the account made, a project changed, an event on a project */
+const ACTIVITY = `max(u.created_at,
+    coalesce((select max(p.updated_at) from projects p where p.client_id = u.id), 0),
+    coalesce((select max((select max(ev.created_at) from project_events ev where ev.project_id = p.id))
+                from projects p where p.client_id = u.id), 0))`;
+
+/** The figures of the clients named in a JSON array of ids, in one statement. */
+const FIGURES = `
   select u.id, u.name, u.email, u.phone, u.address, u.password_hash is not null as claimed, u.created_at as createdAt,
-    coalesce(p.n, 0) as projectCount,
-    coalesce(a.cents, 0) as acceptedCents,
-    coalesce(m.cents, 0) as paidCents,
-    max(u.created_at, coalesce(p.last, 0), coalesce(ev.last, 0)) as lastActivity
+    ${PROJECTS} as projectCount, ${ACCEPTED} as acceptedCents, ${PAID} as paidCents, ${ACTIVITY} as lastActivity
   from users u
-  left join (
-    select client_id, count(*) as n, max(updated_at) as last from projects group by client_id
-  ) p on p.client_id = u.id
-  left join (
-    select pr.client_id, sum(e.total_cents) as cents from estimates e join projects pr on pr.id = e.project_id
-    where e.status = 'accepted' group by pr.client_id
-  ) a on a.client_id = u.id
-  left join (
-    select pr.client_id, sum(pm.amount_cents - pm.refunded_cents) as cents from payments pm
-    join projects pr on pr.id = pm.project_id
-    where pm.status in ('paid', 'refunded', 'partially_refunded') group by pr.client_id
-  ) m on m.client_id = u.id
-  left join (
-    select pr.client_id, max(ev.created_at) as last from project_events ev join projects pr on pr.id = ev.project_id
-    group by pr.client_id
-  ) ev on ev.client_id = u.id
-  where u.role = 'client'`;
+  where u.role = 'client' and u.id in (select value from json_each(?))`;
+
+/**
+ * Each sort's key as SQL on `u`, and its type in a cursor. By name, the page walks users_role_name_nocase; by a
+ * figure, the key is computed for each client that matches (one correlated look-up each: a shop has hundreds of
+ * clients, not millions; a figure cannot be indexed without being kept on the row), and only the page's clients
+ * get their other figures.
+ */
+const KEYS: Record<Query['sort'], { sql: string; type: 'string' | 'number' }> = {
+  name: { sql: 'u.name collate nocase', type: 'string' },
+  projects: { sql: PROJECTS, type: 'number' },
+  accepted: { sql: ACCEPTED, type: 'number' },
+  paid: { sql: PAID, type: 'number' },
+  activity: { sql: ACTIVITY, type: 'number' },
+};
 
 interface Row {
   id: string;
@@ -56,14 +61,6 @@ interface Row {
   paidCents: number;
   lastActivity: number;
 }
-
-const ORDER: Record<Query['sort'], string> = {
-  name: 'name collate nocase',
-  projects: 'projectCount',
-  accepted: 'acceptedCents',
-  paid: 'paidCents',
-  activity: 'lastActivity',
-};
 
 const summary = (r: Row): ClientSummary => ({
   id: r.id,
@@ -82,19 +79,48 @@ const like = (q: string) => `%${q.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c
 
 export function createClientsService(db: Db, urls: { portalUrl: string }) {
   return {
-    list(query: Query): ClientSummary[] {
-      const where = query.q
-        ? sql` and (lower(u.name) like ${like(query.q)} escape '\\' or lower(u.email) like ${like(query.q)} escape '\\')`
-        : sql``;
+    /**
+     * A page of clients in two statements whatever its size: the page's ids by the sort's key (keyset: after the
+     * cursor's key and id, the id breaking ties in the same direction), then the page's figures.
+     */
+    list(query: Query): { clients: ClientSummary[]; nextCursor: string | null } {
+      const key = KEYS[query.sort];
+      const where = [`u.role = 'client'`];
+      const params: (string | number)[] = [];
+      if (query.q) {
+        where.push(`(lower(u.name) like ? escape '\\' or lower(u.email) like ? escape '\\')`);
+        params.push(like(query.q), like(query.q));
+      }
       const dir = query.order === 'asc' ? 'asc' : 'desc';
-      const rows = db.all<Row>(
-        sql`select * from (${FIGURES}${where}) order by ${sql.raw(ORDER[query.sort])} ${sql.raw(dir)}, name collate nocase asc, id asc limit ${query.limit}`,
-      );
-      return rows.map(summary);
+      // by name, the expression itself (with its collation, so that the index serves); by a figure, its column
+      const k = query.sort === 'name' ? key.sql : 'k';
+      if (query.cursor) {
+        const at = decodeCursor(query.cursor, query.sort, dir, key.type);
+        where.push(`(${k}, u.id) ${dir === 'asc' ? '>' : '<'} (?, ?)`);
+        params.push(at.key, at.id);
+      }
+      // 1: the page's ids and keys, one row more than asked to know whether another page follows
+      const page = db.$client
+        .prepare(
+          `select u.id, ${key.sql} as k from users u where ${where.join(' and ')}
+            order by ${k} ${dir}, u.id ${dir} limit ?`,
+        )
+        .all(...params, query.limit + 1) as { id: string; k: string | number }[];
+      const more = page.length > query.limit;
+      if (more) page.pop();
+      if (!page.length) return { clients: [], nextCursor: null };
+      // 2: their figures
+      const rows = db.$client.prepare(FIGURES).all(JSON.stringify(page.map((r) => r.id))) as Row[];
+      const byId = new Map(rows.map((r) => [r.id, r]));
+      const last = page.at(-1)!;
+      return {
+        clients: page.map((p) => summary(byId.get(p.id)!)),
+        nextCursor: more ? encodeCursor({ sort: query.sort, dir, key: last.k, id: last.id }) : null,
+      };
     },
 
     get(id: string): ClientDetail {
-      const r = db.get<Row | undefined>(sql`${FIGURES} and u.id = ${id}`);
+      const r = db.$client.prepare(FIGURES).get(JSON.stringify([id])) as Row | undefined;
       if (!r) throw new NotFound('The client');
       const list = db
         .select({

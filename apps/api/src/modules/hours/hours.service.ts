@@ -1,49 +1,92 @@
-import { asc, desc, eq } from 'drizzle-orm';
-import { hoursFeedback, STAGE_KEYS, type StageKey } from '@benchwright/pricing';
+import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { hoursFeedback, scaleStandards, STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
-import type { Db } from '../../db/client';
-import { hoursFeedbackMarks, jobs, stages, timeEntries } from '../../db/schema';
+import type { Db, Tx } from '../../db/client';
+import { estimates, hoursFeedbackMarks, jobs, stages, timeEntries } from '../../db/schema';
+import { loadPricing } from '../../lib/engine';
+import { Conflict, Invalid } from '../../lib/errors';
+import { checkBook, latestVersion, readRows, saveChange } from '../../lib/price-book';
+
+/** A factor as people read it on the version's summary: "× 1.2", "× 0.85". */
+const times = (f: number) => `× ${Number(f.toFixed(2))}`;
 
 /**
  * Hours that teach the price book: each stage's logged hours against its
  * budget over the last delivered jobs, and a suggested change to the time
- * standards behind the stage (engine: hoursFeedback). Once the owner applies
- * or dismisses a stage's suggestion, that stage counts only the jobs
- * delivered after it, so the next suggestion comes from jobs priced since.
+ * standards behind the stage (engine: hoursFeedback), which the owner applies
+ * (a new price-book version) or dismisses.
+ *
+ * Which jobs a stage compares, after the owner answered:
+ * - Applied: only jobs priced from the price-book version the change wrote, or
+ *   a later one (their accepted revision's `price_book_version`). The jobs
+ *   counted before were budgeted with the old standards; their ratios still say
+ *   "too low" against those old budgets, so counting them again would suggest
+ *   the same change a second time and compound it. A job priced before versions
+ *   were kept (no version) counts as priced before any applied change. We key on
+ *   the version rather than on the delivery date: a job priced with the old
+ *   standards but delivered after the change would otherwise skew the next
+ *   suggestion the same way.
+ * - Dismissed: only jobs delivered after the dismissal (the owner said "not
+ *   from these jobs"; the next suggestion comes from new deliveries). A
+ *   dismissal after an applied change keeps the applied version's rule too.
  */
 export function createHoursService(db: Db) {
-  function marks() {
+  function marks(d: Pick<Db, 'select'>) {
     return new Map(
-      db
+      d
         .select()
         .from(hoursFeedbackMarks)
         .all()
         .map((m) => [m.stageKey, m]),
     );
   }
-  return {
-    get() {
-      const delivered = db
+  /** Every stage's comparison and suggestion, read through `d` (the database, or the apply's transaction). */
+  function feedback(d: Pick<Db, 'select'>) {
+    const delivered = d
+      .select()
+      .from(jobs)
+      .where(eq(jobs.stageKey, 'delivered'))
+      .orderBy(desc(jobs.updatedAt))
+      .limit(200)
+      .all();
+    const entries = d.select().from(timeEntries).all();
+    // the price-book version each delivered job was priced from: its project's accepted revision's
+    const pricedWith = new Map(
+      delivered.length
+        ? d
+            .select({ projectId: estimates.projectId, version: estimates.priceBookVersion })
+            .from(estimates)
+            .where(
+              and(
+                eq(estimates.status, 'accepted'),
+                inArray(
+                  estimates.projectId,
+                  delivered.map((j) => j.projectId),
+                ),
+              ),
+            )
+            .all()
+            .map((e) => [e.projectId, e.version ?? 0])
+        : [],
+    );
+    const labels = new Map(
+      d
         .select()
-        .from(jobs)
-        .where(eq(jobs.stageKey, 'delivered'))
-        .orderBy(desc(jobs.updatedAt))
-        .limit(200)
-        .all();
-      const entries = db.select().from(timeEntries).all();
-      const labels = new Map(
-        db
-          .select()
-          .from(stages)
-          .orderBy(asc(stages.position))
-          .all()
-          .map((s) => [s.key, s.label]),
-      );
-      const since = marks();
-      return STAGE_KEYS.map((stage) => {
-        const after = since.get(stage)?.at;
+        .from(stages)
+        .orderBy(asc(stages.position))
+        .all()
+        .map((s) => [s.key, s.label]),
+    );
+    const since = marks(d);
+    const pricing = loadPricing(d);
+    return {
+      bookVersion: pricing.bookVersion,
+      labour: pricing.activeBook.labour,
+      stages: STAGE_KEYS.map((stage) => {
+        const mark = since.get(stage);
         const compared = delivered
-          .filter((j) => !after || j.updatedAt > after)
+          .filter((j) => mark?.appliedVersion == null || (pricedWith.get(j.projectId) ?? 0) >= mark.appliedVersion)
+          .filter((j) => mark?.action !== 'dismissed' || j.updatedAt > mark.at)
           .map((j) => ({
             budget: j.hoursBudget,
             logged: {
@@ -51,14 +94,30 @@ export function createHoursService(db: Db) {
             } as Partial<Record<StageKey, number>>,
           }));
         const f = hoursFeedback(compared).find((x) => x.stage === stage)!;
-        const mark = since.get(stage);
         return {
           ...f,
           label: labels.get(stage) ?? stage,
-          lastAction: mark ? { action: mark.action, at: mark.at.toISOString() } : null,
+          /** what applying the suggestion would write: each of the stage's operations, old and new minutes */
+          standards:
+            f.suggestedFactor === null ? [] : scaleStandards(pricing.activeBook.labour, stage, f.suggestedFactor),
+          lastAction: mark
+            ? {
+                action: mark.action,
+                at: mark.at.toISOString(),
+                appliedVersion: mark.appliedVersion ?? null,
+              }
+            : null,
         };
-      });
-    },
+      }),
+    };
+  }
+  const view = (d: Pick<Db, 'select'>) => {
+    const f = feedback(d);
+    return { stages: f.stages, priceBookVersion: f.bookVersion };
+  };
+
+  return {
+    get: () => view(db),
     /** The owner sets a stage's suggestion aside: it comes back from the jobs delivered after now. */
     dismiss(actor: User, stage: StageKey) {
       db.insert(hoursFeedbackMarks)
@@ -68,7 +127,60 @@ export function createHoursService(db: Db) {
           set: { action: 'dismissed', userId: actor.id, at: new Date() },
         })
         .run();
-      return this.get();
+      return view(db);
+    },
+    /**
+     * The owner applies a stage's suggestion: the stage's labour operations (active ones: retired ones price no new
+     * work) scaled by the suggested factor, saved as one new price-book version in one transaction, checked as any
+     * edit of the book is, and the version kept on the stage's mark (see above). `seenVersion` is the book's version
+     * the owner looked at: 409 if the book changed since, or if the suggestion no longer stands.
+     */
+    apply(actor: User, stage: StageKey, seenVersion: number) {
+      return db.transaction((tx: Tx) => {
+        const latest = latestVersion(tx);
+        if (!latest) throw new Error('the price book is not seeded');
+        if (latest.number !== seenVersion)
+          throw new Conflict(
+            `The price book changed since you looked (it is at version ${latest.number} now). Look at the suggestion again.`,
+          );
+        const f = feedback(tx);
+        const s = f.stages.find((x) => x.stage === stage)!;
+        if (s.suggestedFactor === null)
+          throw new Conflict(
+            `There is no suggestion for ${s.label} now; it needs at least 3 delivered jobs to compare.`,
+          );
+        if (!s.standards.length)
+          throw new Conflict(`No labour standards in the price book belong to ${s.label}; there is nothing to change.`);
+        const rows = readRows(tx);
+        const newMinutes = new Map(s.standards.map((c) => [c.key, c.newMinutes]));
+        const changed: { kind: 'labour'; id: string }[] = [];
+        for (const r of rows.labour) {
+          const m = newMinutes.get(String(r.item.key));
+          if (r.retiredAt || m === undefined) continue;
+          r.item = { ...r.item, minutes: m };
+          changed.push({ kind: 'labour', id: r.id });
+        }
+        const meta = { currency: latest.currency, note: latest.note };
+        const issues = checkBook(rows, meta, loadPricing(tx).settings, changed, readRows(tx));
+        if (issues.length)
+          throw new Invalid(
+            'That change would leave the price book unusable.',
+            issues.map((i) => ({ path: 'labour', message: i.message })),
+          );
+        const version = saveChange(tx, rows, changed, meta, {
+          userId: actor.id,
+          summary: `Labour standards for ${s.label} ${times(s.suggestedFactor)} from hours (${s.jobs} delivered job${s.jobs === 1 ? '' : 's'}).`,
+        });
+        const at = new Date();
+        tx.insert(hoursFeedbackMarks)
+          .values({ stageKey: stage, action: 'applied', userId: actor.id, at, appliedVersion: version })
+          .onConflictDoUpdate({
+            target: hoursFeedbackMarks.stageKey,
+            set: { action: 'applied', userId: actor.id, at, appliedVersion: version },
+          })
+          .run();
+        return { ...view(tx), applied: { stage, factor: s.suggestedFactor, version, changes: s.standards } };
+      });
     },
   };
 }

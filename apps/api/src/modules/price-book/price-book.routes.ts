@@ -2,6 +2,7 @@ import express, { Router } from 'express';
 import {
   PRICE_IMPORT_MAX_BYTES,
   PriceBookKind,
+  PriceBookVersionsQuery,
   PriceImportQuery,
   PriceItemBody,
   PriceItemPatch,
@@ -43,6 +44,9 @@ export function priceBookRoutes(service: PriceBookService): Router {
   const user = (res: express.Response) => res.locals.user as User;
   r.get('/', (_req, res) => {
     res.json({ priceBook: service.view() });
+  });
+  r.get('/versions', (req, res) => {
+    res.json(service.versions(parse(PriceBookVersionsQuery, req.query)));
   });
   r.get('/:kind.csv', (req, res) => {
     const kind = kindOf(req.params.kind);

@@ -1,5 +1,5 @@
 import { isDeepStrictEqual } from 'node:util';
-import { eq } from 'drizzle-orm';
+import { desc, eq, lt } from 'drizzle-orm';
 import * as z from 'zod';
 import { ShopSettings } from '@benchwright/pricing';
 import {
@@ -14,7 +14,8 @@ import {
   type User,
 } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
-import { shopSettings } from '../../db/schema';
+import { priceBookVersions, shopSettings, users } from '../../db/schema';
+import { decodeCursor, encodeCursor } from '../../lib/cursor';
 import { Invalid, NotFound } from '../../lib/errors';
 import {
   bookView,
@@ -71,6 +72,43 @@ export function createPriceBookService(db: Db) {
 
   return {
     view: () => bookView(db),
+
+    /**
+     * The book's versions, the latest first, `limit` a page: one statement a page (the snapshots are not read),
+     * keyed on the version number, which is the table's primary key.
+     */
+    versions(q: { cursor?: string; limit: number }) {
+      const after = q.cursor ? Number(decodeCursor(q.cursor, 'version', 'desc', 'number').key) : undefined;
+      const rows = db
+        .select({
+          version: priceBookVersions.number,
+          createdAt: priceBookVersions.createdAt,
+          summary: priceBookVersions.summary,
+          userId: priceBookVersions.userId,
+          userName: users.name,
+        })
+        .from(priceBookVersions)
+        .leftJoin(users, eq(users.id, priceBookVersions.userId))
+        .where(after === undefined ? undefined : lt(priceBookVersions.number, after))
+        .orderBy(desc(priceBookVersions.number))
+        .limit(q.limit + 1)
+        .all();
+      const more = rows.length > q.limit;
+      const page = more ? rows.slice(0, q.limit) : rows;
+      const last = page.at(-1);
+      return {
+        versions: page.map((r) => ({
+          version: r.version,
+          createdAt: r.createdAt.toISOString(),
+          by: r.userId ? { id: r.userId, name: r.userName ?? '' } : null,
+          summary: r.summary,
+        })),
+        nextCursor:
+          more && last
+            ? encodeCursor({ sort: 'version', dir: 'desc', key: last.version, id: String(last.version) })
+            : null,
+      };
+    },
 
     add(user: User, kind: PriceBookKind, raw: Record<string, unknown>) {
       const p = parseItemOrIssues(kind, raw);

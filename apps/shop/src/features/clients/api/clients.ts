@@ -1,4 +1,12 @@
-import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions,
+  keepPreviousData,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
 import type {
   ClientDetail,
   ClientSort,
@@ -14,14 +22,30 @@ export interface ClientsParams {
   q: string;
   sort: ClientSort;
   order: 'asc' | 'desc';
+  /** the page size; the API's default (50) when absent */
+  limit?: number;
 }
-export const getClients = async (p: ClientsParams) => {
-  const qs = new URLSearchParams({ sort: p.sort, order: p.order, limit: '500', ...(p.q ? { q: p.q } : {}) });
-  return (await api<{ clients: ClientSummary[] }>(`/clients?${qs}`)).clients;
+/** One page of clients; each page follows the last one's cursor. */
+export const getClientsPage = async (p: ClientsParams, cursor: string | null) => {
+  const qs = new URLSearchParams({
+    sort: p.sort,
+    order: p.order,
+    ...(p.q ? { q: p.q } : {}),
+    ...(p.limit ? { limit: String(p.limit) } : {}),
+    ...(cursor ? { cursor } : {}),
+  });
+  return api<{ clients: ClientSummary[]; nextCursor: string | null }>(`/clients?${qs}`);
 };
+/** Under ['clients'], so whatever invalidates the clients refreshes every page. */
 export const clientsQueryOptions = (p: ClientsParams) =>
-  queryOptions({ queryKey: ['clients', p], queryFn: () => getClients(p), placeholderData: keepPreviousData });
-export const useClients = (p: ClientsParams) => useQuery(clientsQueryOptions(p));
+  infiniteQueryOptions({
+    queryKey: ['clients', 'list', p],
+    queryFn: ({ pageParam }) => getClientsPage(p, pageParam),
+    initialPageParam: null as string | null,
+    getNextPageParam: (last) => last.nextCursor ?? null,
+    placeholderData: keepPreviousData,
+  });
+export const useClients = (p: ClientsParams) => useInfiniteQuery(clientsQueryOptions(p));
 
 export const getClient = async (id: string) =>
   (await api<{ client: ClientDetail }>(`/clients/${encodeURIComponent(id)}`)).client;

@@ -29,13 +29,19 @@ const clients = [
   },
 ];
 
-function withClients() {
+/** The API stand-in: the clients a page at a time (`limit`), the cursor the index of the next one. */
+function withClients(pageSize?: number) {
   const urls: string[] = [];
   vi.stubGlobal(
     'fetch',
     vi.fn(async (url: string) => {
       urls.push(String(url));
-      return new Response(JSON.stringify({ clients }), {
+      const qs = new URL(String(url), 'http://x').searchParams;
+      const from = Number(qs.get('cursor') ?? 0);
+      const limit = Number(qs.get('limit') ?? 50);
+      const page = clients.slice(from, from + limit);
+      const nextCursor = from + limit < clients.length ? String(from + limit) : null;
+      return new Response(JSON.stringify({ clients: page, nextCursor }), {
         status: 200,
         headers: { 'Content-Type': 'application/json' },
       });
@@ -44,7 +50,7 @@ function withClients() {
   render(
     <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
       <MemoryRouter>
-        <ClientsTable linkTo={(id) => `/clients/${id}`} />
+        <ClientsTable linkTo={(id) => `/clients/${id}`} pageSize={pageSize} />
       </MemoryRouter>
     </QueryClientProvider>,
   );
@@ -72,5 +78,16 @@ describe('the clients table', () => {
     await vi.waitFor(() => expect(urls.at(-1)).toContain('sort=name&order=desc'));
     fireEvent.change(screen.getByLabelText('Search clients'), { target: { value: 'hol' } });
     await vi.waitFor(() => expect(urls.at(-1)).toContain('q=hol'));
+  });
+
+  it('loads the next page by the cursor the API gave, keeping the rows already shown', async () => {
+    const urls = withClients(1);
+    await screen.findByRole('link', { name: 'Priya Natarajan' });
+    expect(screen.queryByRole('link', { name: 'Hollis Reed' })).toBeNull();
+    fireEvent.click(screen.getByRole('button', { name: 'Load more' }));
+    await screen.findByRole('link', { name: 'Hollis Reed' });
+    expect(screen.getByRole('link', { name: 'Priya Natarajan' })).toBeTruthy();
+    expect(urls.at(-1)).toContain('cursor=1');
+    expect(screen.queryByRole('button', { name: 'Load more' })).toBeNull();
   });
 });

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import type { ClientSort } from '@benchwright/contracts';
-import { Money, Notice } from '@benchwright/ui';
+import { formatDate, type ClientSort } from '@benchwright/contracts';
+import { Button, Money, Notice } from '@benchwright/ui';
 import { useClients, type ClientsParams } from '../api/clients';
 
 const COLUMNS: { sort: ClientSort; label: string; numeric?: boolean }[] = [
@@ -13,9 +13,10 @@ const COLUMNS: { sort: ClientSort; label: string; numeric?: boolean }[] = [
 ];
 
 /** The shop's clients with their figures (computed by the API), sorted by any column and searched by name or e-mail. */
-export function ClientsTable({ linkTo }: { linkTo: (id: string) => string }) {
-  const [params, setParams] = useState<ClientsParams>({ q: '', sort: 'activity', order: 'desc' });
+export function ClientsTable({ linkTo, pageSize }: { linkTo: (id: string) => string; pageSize?: number }) {
+  const [params, setParams] = useState<ClientsParams>({ q: '', sort: 'activity', order: 'desc', limit: pageSize });
   const clients = useClients(params);
+  const rows = clients.data?.pages.flatMap((p) => p.clients) ?? [];
   const sortBy = (sort: ClientSort) =>
     setParams((p) => ({
       ...p,
@@ -58,7 +59,7 @@ export function ClientsTable({ linkTo }: { linkTo: (id: string) => string }) {
             </tr>
           </thead>
           <tbody>
-            {(clients.data ?? []).map((c) => (
+            {rows.map((c) => (
               <tr key={c.id} className="border-b border-rule/60">
                 <td className="py-2">
                   <Link to={linkTo(c.id)} className="font-semibold text-wood underline">
@@ -76,10 +77,10 @@ export function ClientsTable({ linkTo }: { linkTo: (id: string) => string }) {
                 <td className="py-2 text-right">
                   <Money cents={c.paidCents} />
                 </td>
-                <td className="py-2">{new Date(c.lastActivityAt).toLocaleDateString()}</td>
+                <td className="py-2">{formatDate(c.lastActivityAt)}</td>
               </tr>
             ))}
-            {clients.data?.length === 0 ? (
+            {clients.data && rows.length === 0 ? (
               <tr>
                 <td colSpan={5} className="py-3 text-ink-soft">
                   {params.q ? 'No client matches that search.' : 'No clients yet.'}
@@ -89,6 +90,17 @@ export function ClientsTable({ linkTo }: { linkTo: (id: string) => string }) {
           </tbody>
         </table>
       )}
+      {clients.hasNextPage ? (
+        <Button
+          type="button"
+          variant="quiet"
+          className="mt-3"
+          disabled={clients.isFetchingNextPage}
+          onClick={() => void clients.fetchNextPage()}
+        >
+          {clients.isFetchingNextPage ? 'Loading…' : 'Load more'}
+        </Button>
+      ) : null}
     </div>
   );
 }

@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
 import { LINE_GROUP_LABELS, type LineGroup } from '@benchwright/contracts';
+import { displayUnit, formatQuantity, unitPriceFactor, type LengthUnit } from '@benchwright/pricing/geometry';
 import { ApiRequestError, Button, ChoicesList, Money, Notice, Panel } from '@benchwright/ui';
 import { useSendEstimate, useUpdateEstimate, type OwnerEstimate } from '../api/estimates';
 import { WithdrawAcceptance } from './withdraw-acceptance';
@@ -21,20 +22,48 @@ interface EditorForm {
   discount: string;
 }
 
+/**
+ * The editor shows each quantity and unit price in the shop's units, as the client's estimate and the PDF do (a line
+ * of banding, stored in metres, reads in feet for an imperial shop, and its price per foot); the stored line keeps
+ * the engine's unit. `unitPriceFactor` is the price per shown unit over the price per stored unit, so a shown
+ * quantity is the stored one divided by it.
+ */
+const shownQuantity = (quantity: number, unit: string, units: LengthUnit) =>
+  String(Math.round((quantity / unitPriceFactor(unit, units)) * 100) / 100);
+const shownPrice = (cents: number, unit: string, units: LengthUnit) =>
+  toDollars(Math.round(cents * unitPriceFactor(unit, units)));
+
 function formOf(e: OwnerEstimate): EditorForm {
   return {
     lines: e.lines.map((l) => ({
       id: l.id,
       group: l.group,
       description: l.description,
-      quantity: String(l.quantity),
+      quantity: shownQuantity(l.quantity, l.unit, e.units),
       unit: l.unit,
-      unitPrice: toDollars(l.unitPriceCents),
+      unitPrice: shownPrice(l.unitPriceCents, l.unit, e.units),
       costCents: l.costCents,
       overrideReason: l.overrideReason ?? '',
     })),
     discount: toDollars(e.totals.discountCents),
   };
+}
+
+/**
+ * A line as saved: a field the owner left as shown keeps the stored value exactly (a round trip through feet would
+ * move it by a rounding and read as a change that needs a reason); a changed one is turned back to the stored unit.
+ */
+function storedLine(
+  l: LineForm,
+  shown: LineForm | undefined,
+  stored: { quantity: number; unitPriceCents: number } | undefined,
+  units: LengthUnit,
+) {
+  const f = unitPriceFactor(l.unit, units);
+  const quantity = stored && shown && l.quantity === shown.quantity ? stored.quantity : Number(l.quantity) * f;
+  const unitPriceCents =
+    stored && shown && l.unitPrice === shown.unitPrice ? stored.unitPriceCents : Math.round(toCents(l.unitPrice) / f);
+  return { quantity, unitPriceCents };
 }
 
 /** The owner's draft: quantities and prices editable, a reason for every change, manual lines, the discount, then send. */
@@ -58,16 +87,19 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
         body: {
           version: estimate.version,
           discountCents: toCents(v.discount || '0'),
-          lines: v.lines.map((l) => ({
-            id: l.id,
-            group: l.group,
-            description: l.description,
-            quantity: Number(l.quantity),
-            unit: l.unit,
-            unitPriceCents: toCents(l.unitPrice),
-            costCents: l.costCents,
-            overrideReason: l.overrideReason.trim() || null,
-          })),
+          lines: v.lines.map((l) => {
+            const shown = l.id ? formOf(estimate).lines.find((x) => x.id === l.id) : undefined;
+            const stored = l.id ? estimate.lines.find((x) => x.id === l.id) : undefined;
+            return {
+              id: l.id,
+              group: l.group,
+              description: l.description,
+              ...storedLine(l, shown, stored, estimate.units),
+              unit: l.unit,
+              costCents: l.costCents,
+              overrideReason: l.overrideReason.trim() || null,
+            };
+          }),
         },
       });
       setMessage({ tone: 'ok', text: 'Saved.' });
@@ -104,8 +136,8 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
           <thead>
             <tr className="border-b-2 border-rule">
               <th className="py-1">Item</th>
-              <th className="w-24 py-1 text-right">Quantity</th>
-              <th className="w-28 py-1 text-right">Unit price ($)</th>
+              <th className="w-36 py-1 text-right">Quantity</th>
+              <th className="w-36 py-1 text-right">Unit price ($)</th>
               <th className="w-28 py-1 text-right">Amount</th>
               <th className="w-64 py-1 pl-4">Reason for a change</th>
             </tr>
@@ -128,20 +160,35 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
                     )}
                   </td>
                   <td className="py-1">
-                    <input
-                      aria-label={`Line ${i + 1} quantity`}
-                      className={input}
-                      disabled={!draft}
-                      {...form.register(`lines.${i}.quantity`)}
-                    />
+                    {draft ? (
+                      <span className="flex items-center gap-1">
+                        <input
+                          aria-label={`Line ${i + 1} quantity`}
+                          className={input}
+                          {...form.register(`lines.${i}.quantity`)}
+                        />
+                        <span className="w-10 text-sm text-ink-soft">{displayUnit(f.unit, estimate.units)}</span>
+                      </span>
+                    ) : (
+                      <span className="block text-right" aria-label={`Line ${i + 1} quantity`}>
+                        {estimate.lines[i]
+                          ? formatQuantity(estimate.lines[i].quantity, estimate.lines[i].unit, estimate.units)
+                          : f.quantity}
+                      </span>
+                    )}
                   </td>
                   <td className="py-1">
-                    <input
-                      aria-label={`Line ${i + 1} unit price`}
-                      className={input}
-                      disabled={!draft}
-                      {...form.register(`lines.${i}.unitPrice`)}
-                    />
+                    <span className="flex items-center gap-1">
+                      <input
+                        aria-label={`Line ${i + 1} unit price`}
+                        className={input}
+                        disabled={!draft}
+                        {...form.register(`lines.${i}.unitPrice`)}
+                      />
+                      <span className="w-10 text-sm text-ink-soft">
+                        {unitPriceFactor(f.unit, estimate.units) !== 1 ? `/${displayUnit(f.unit, estimate.units)}` : ''}
+                      </span>
+                    </span>
                   </td>
                   <td className="py-1 text-right">
                     {estimate.lines[i] ? <Money cents={estimate.lines[i].amountCents} /> : '—'}

@@ -3,6 +3,7 @@ import { Notice, Panel } from '@benchwright/ui';
 import { usePriceBook } from '../api/price-book';
 import { CsvImport } from './csv-import';
 import { PriceTable } from './price-table';
+import { VersionHistory } from './version-history';
 
 /** The owner's price book: a section per kind, each with its table and its CSV. */
 export function PriceBookPage() {
@@ -25,6 +26,7 @@ export function PriceBookPage() {
           </Panel>
         );
       })}
+      <VersionHistory />
     </>
   );
 }

@@ -1,0 +1,1 @@
+ALTER TABLE `hours_feedback_marks` ADD `applied_version` integer;
