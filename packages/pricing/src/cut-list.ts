@@ -114,6 +114,8 @@ export interface PieceGeometry {
   feetClearanceMm?: number;
   /** the feet's mounting blocks: how many (glued up `layers` high under each foot), each `sideMm` square */
   footBlocks?: { count: number; layers: number; sideMm: number } | null;
+  /** the fronts lap the case edges, or sit inside their openings (the shop's default or the spec's) */
+  frontStyle?: 'overlay' | 'inset';
 }
 
 export interface CutList {
@@ -326,6 +328,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
 
   const list = new PartList();
   const geo: PieceGeometry = {
+    frontStyle: spec.frontStyle ?? settings.frontStyle,
     widthMm: spec.widthMm,
     heightMm: spec.heightMm,
     depthMm: spec.depthMm,
@@ -757,6 +760,10 @@ function buildCase(
   geo.cases.push(outline);
   const outerInset = Math.max(0, t - settings.overlayMm) + settings.revealMm / 2;
   const half = settings.revealMm / 2;
+  // inset fronts sit inside their openings, the reveal on every side, and take the front's thickness of depth
+  const inset = (spec.frontStyle ?? settings.frontStyle) === 'inset';
+  const reveal = settings.revealMm;
+  const frontDepth = inset ? m.front.thicknessMm : 0;
   const insideBottom = cs.yMm + cs.toeKickMm + t; // from the floor
 
   let x = cs.xMm + t;
@@ -804,8 +811,10 @@ function buildCase(
     const edgeExt = (j: number, side: -1 | 1): number => {
       const c = at(bay.compartments, j);
       const n = bay.compartments[j + side];
+      const joint = !!n && n.kind === 'drawer' && c.kind === 'drawer';
+      if (inset) return joint ? -half : -reveal;
       if (!n) return t - outerInset;
-      return n.kind === 'drawer' && c.kind === 'drawer' ? -half : t / 2 - half;
+      return joint ? -half : t / 2 - half;
     };
     const step = (spec.drawerFronts ?? settings.drawerFronts) === 'graduated' ? settings.drawerFrontStepMm : 0;
     for (let j = 0; j < bay.compartments.length; ) {
@@ -839,9 +848,14 @@ function buildCase(
         machining: bandOps(...(faceBand ? (['front'] as const) : [])),
       });
     }
-    // the face boundaries of this bay (centre of partitions, case edge less the overlay)
-    const left = b === 0 ? cs.xMm + outerInset : x - t / 2 + half;
-    const right = b === bays.length - 1 ? cs.xMm + cs.widthMm - outerInset : x + bw + t / 2 - half;
+    // the face boundaries of this bay (overlay: centre of partitions, case edge less the overlay; inset: the
+    // opening less the reveal)
+    const left = inset ? x + reveal : b === 0 ? cs.xMm + outerInset : x - t / 2 + half;
+    const right = inset
+      ? x + bw - reveal
+      : b === bays.length - 1
+        ? cs.xMm + cs.widthMm - outerInset
+        : x + bw + t / 2 - half;
     let y = insideBottom;
     bay.compartments.forEach((c: Compartment, j) => {
       const h = at(heights, j);
@@ -851,13 +865,23 @@ function buildCase(
       const below = !prev ? 'edge' : prev.kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
       const above = !next ? 'edge' : next.kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
       const bottom =
-        below === 'edge' ? cs.yMm + cs.toeKickMm + outerInset : below === 'divider' ? y - t / 2 + half : y + half;
+        below === 'joint'
+          ? y + half
+          : inset
+            ? y + reveal
+            : below === 'edge'
+              ? cs.yMm + cs.toeKickMm + outerInset
+              : y - t / 2 + half;
       const top =
-        above === 'edge'
-          ? cs.yMm + cs.heightMm - outerInset
-          : above === 'divider'
-            ? y + h + t / 2 - half
-            : y + h - half;
+        above === 'joint'
+          ? y + h - half
+          : inset
+            ? y + h - reveal
+            : above === 'edge'
+              ? cs.yMm + cs.heightMm - outerInset
+              : y + h + t / 2 - half;
+      // behind an inset door, shelves and their front pin rows stand back by the door's thickness
+      const doorDepth = c.kind === 'door' ? frontDepth : 0;
       if (above === 'divider') {
         outline.shelvesMm.push([x, y + h, bw]);
         dividerDado(b, y + h, 'fixed shelf');
@@ -870,10 +894,11 @@ function buildCase(
             floorMm: floor - foot,
             heightMm: h,
             backSetbackMm: backRowSetback(face === 'inside' ? panelDepth : insideDepth),
+            frontSetbackMm: PIN_SETBACK_MM + doorDepth,
           }),
         );
       }
-      const shelfDepth = insideDepth - SHELF_FRONT_SETBACK_MM;
+      const shelfDepth = insideDepth - SHELF_FRONT_SETBACK_MM - doorDepth;
       if (c.kind !== 'drawer') {
         if (c.adjustableShelves > 0) {
           list.add({
@@ -902,7 +927,7 @@ function buildCase(
             materialId: m.carcass.id,
             quantity: c.fixedShelves,
             lengthMm: bw + 2 * dado,
-            widthMm: insideDepth,
+            widthMm: insideDepth - doorDepth,
             thicknessMm: t,
             grain: carcassGrain(true),
             bandedEdges: { long: faceBand as 0 | 1, short: 0 },
@@ -919,7 +944,12 @@ function buildCase(
           }
         }
         if (c.adjustableShelves > 0 || c.fixedShelves > 0 || dividers > 0)
-          geo.shelfSpans.push({ spanMm: bw, depthMm: insideDepth, materialId: m.carcass.id, thicknessMm: t });
+          geo.shelfSpans.push({
+            spanMm: bw,
+            depthMm: insideDepth - doorDepth,
+            materialId: m.carcass.id,
+            thicknessMm: t,
+          });
       }
       if (c.kind === 'door') {
         // a door wider than the shop hangs becomes a pair (validation refuses a pair still too wide)
@@ -944,7 +974,7 @@ function buildCase(
             widthMm: fw,
             heightMm: top - bottom,
             massKg: doorMassKg,
-            overlay: hingeOverlay(onEnd ? t - outerInset : t / 2 - half, t),
+            overlay: inset ? 'inset' : hingeOverlay(onEnd ? t - outerInset : t / 2 - half, t),
           });
         }
         list.add({
@@ -966,7 +996,7 @@ function buildCase(
       } else if (c.kind === 'drawer') {
         let box: DrawerBox;
         try {
-          box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth });
+          box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth - frontDepth });
         } catch {
           throw new BuildError(
             `${where(b, j)}: a ${len(bw)} wide, ${len(h)} high opening with ${len(insideDepth)} of depth takes no drawer box. Make the drawer taller or wider, or the case deeper.`,
