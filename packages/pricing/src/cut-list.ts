@@ -697,38 +697,78 @@ function buildCase(
     });
     geo.hangingRailWidthMm = cs.widthMm;
   }
-  // The back, as a shop handles one larger than its sheet: grain up the case if the sheet allows, else turned
-  // with the grain across; else (grooved) split over partitions into pieces that each fit (common practice).
+  // The back, as a shop handles one larger than its sheet (common practice): a back with grain runs it up the case
+  // as the sides do, so it is split over partitions into pieces that each fit with their grain up; a piece that
+  // still does not fit is turned with its grain across, and one too large either way is split across over back
+  // rails, one in each bay it covers, the pieces meeting on the rail's centre line.
   const backHeight = grooved ? insideHeight + 2 * DADO_MM : cs.heightMm - cs.toeKickMm;
-  const backWidths: number[] = [];
-  if (grooved && !sheetFits(m.back, sheetTrimMm, backHeight, insideWidth + 2 * DADO_MM, 'free') && bays.length > 1) {
+  const backGrain = grainOf(m.back, true);
+  const fitsUp = (w: number, h = backHeight) => sheetFits(m.back, sheetTrimMm, h, w, backGrain);
+  const fitsAny = (w: number, h = backHeight) => sheetFits(m.back, sheetTrimMm, h, w, 'free');
+  // a run of bays a, ..., z under one piece: grooved, from the groove in one side or partition to the next; applied,
+  // from the case's outer edge or a partition's centre line to the next
+  const spanOf = (a: number, z: number) =>
+    bayWidths.slice(a, z + 1).reduce((sum, w) => sum + w, 0) +
+    (z - a) * t +
+    (grooved ? 2 * DADO_MM : (a === 0 ? t : t / 2) + (z === bays.length - 1 ? t : t / 2));
+  const runs: [number, number][] = [];
+  if (!fitsUp(spanOf(0, bays.length - 1)) && bays.length > 1) {
     let from = 0;
     while (from < bays.length) {
-      let to = from; // bays from..to share a piece, from the groove in one side or partition to the next
-      const spanOf = (a: number, z: number) =>
-        bayWidths.slice(a, z + 1).reduce((sum, w) => sum + w, 0) + (z - a) * t + 2 * DADO_MM;
-      while (to + 1 < bays.length && sheetFits(m.back, sheetTrimMm, backHeight, spanOf(from, to + 1), 'free')) to++;
-      backWidths.push(spanOf(from, to));
+      let to = from;
+      while (to + 1 < bays.length && fitsUp(spanOf(from, to + 1))) to++;
+      runs.push([from, to]);
       from = to + 1;
     }
-  } else backWidths.push(grooved ? insideWidth + 2 * DADO_MM : cs.widthMm);
-  const backPieces = backWidths.length;
-  backWidths.forEach((w, i) => {
-    const upright = sheetFits(m.back, sheetTrimMm, backHeight, w, 'fixed');
-    list.add({
-      id: backPieces > 1 ? `${k}-back-${i + 1}` : `${k}-back`,
-      name: backPieces > 1 ? `back, piece ${i + 1}` : 'back',
-      materialId: m.back.id,
-      quantity: 1,
-      lengthMm: upright ? backHeight : w,
-      widthMm: upright ? w : backHeight,
-      thicknessMm: bt,
-      grain: grainOf(m.back, true),
-      bandedEdges: { long: 0, short: 0 },
-      pocketHoles: 0,
-      dados: 0,
-      finishFaces: 1,
-    });
+  } else runs.push([0, bays.length - 1]);
+  const backOverPartitions = grooved && runs.length > 1;
+  const backParts: { w: number; h: number; rows: number; bays: number[] }[] = runs.map(([a, z]) => {
+    const w = spanOf(a, z);
+    let rows = 1;
+    while (!fitsAny(w, backHeight / rows) && rows < 4) rows++;
+    if (!fitsAny(w, backHeight / rows)) rows = 1; // too wide for any sheet: validation names it
+    return { w, h: backHeight / rows, rows, bays: bayWidths.slice(a, z + 1) };
+  });
+  const backCount = backParts.reduce((sum, p) => sum + p.rows, 0);
+  let piece = 0;
+  backParts.forEach(({ w, h, rows, bays: covered }) => {
+    // grain up the case where the sheet allows (a grainless back too, as it has always been laid out)
+    const upright = sheetFits(m.back, sheetTrimMm, h, w, 'fixed');
+    for (let r = 0; r < rows; r++) {
+      piece++;
+      list.add({
+        id: backCount > 1 ? `${k}-back-${piece}` : `${k}-back`,
+        name: backCount > 1 ? `back, piece ${piece}` : 'back',
+        materialId: m.back.id,
+        quantity: 1,
+        lengthMm: upright ? h : w,
+        widthMm: upright ? w : h,
+        thicknessMm: bt,
+        grain: backGrain,
+        bandedEdges: { long: 0, short: 0 },
+        pocketHoles: 0,
+        dados: 0,
+        finishFaces: 1,
+      });
+    }
+    if (rows > 1)
+      covered.forEach((bw, i) =>
+        list.add({
+          id: `${k}-back-rail-${piece}-${i + 1}`,
+          name: 'back rail',
+          materialId: m.carcass.id,
+          quantity: rows - 1,
+          lengthMm: bw,
+          widthMm: RAIL_WIDTH_MM,
+          thicknessMm: t,
+          grain: 'free',
+          bandedEdges: { long: 0, short: 0 },
+          pocketHoles: 4,
+          dados: 0,
+          finishFaces: 0,
+          machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
+        }),
+      );
   });
   if (bays.length > 1) {
     list.add({
@@ -743,7 +783,7 @@ function buildCase(
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
       pocketHoles: 2 * screwsPerJoint(insideDepth),
-      dados: (butt ? 0 : Math.max(...dividersPerBay)) + (backPieces > 1 ? 1 : 0),
+      dados: (butt ? 0 : Math.max(...dividersPerBay)) + (backOverPartitions ? 1 : 0),
       finishFaces: 2,
     });
   }
@@ -1132,8 +1172,9 @@ function shareBacks(places: readonly CasePlace[], geo: PieceGeometry, list: Part
     if (drop !== null) open.add(drop);
   }
   for (const i of open) {
-    const k = list.parts.findIndex((p) => p.id === `c${i + 1}-back`);
-    if (k >= 0) list.parts.splice(k, 1);
+    // the back, every piece of a split one, and its back rails
+    const own = new RegExp(`^c${i + 1}-back(-\\d+|-rail-\\d+-\\d+)?$`);
+    for (let k = list.parts.length - 1; k >= 0; k--) if (own.test(at(list.parts, k).id)) list.parts.splice(k, 1);
   }
   geo.sharedBacks = [...open].map((i) => `c${i + 1}`);
 }
