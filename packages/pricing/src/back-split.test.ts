@@ -91,6 +91,32 @@ describe('a back larger than its sheet, split as a shop splits it', () => {
     },
   );
 
+  it('gives a drawer whose opening a back rail crosses a box short enough to clear the rail', () => {
+    // 13 1/2 in deep: a 12 in slide without the rail; the 3/4 in rail leaves room for a 10 in one
+    const drawerAtRail = {
+      ...tallWide,
+      widthMm: toMm(34),
+      depthMm: toMm(13.5),
+      bays: [
+        {
+          widthMm: null,
+          compartments: [
+            { kind: 'open', heightMm: 1000, doors: 1, adjustableShelves: 2, fixedShelves: 0 },
+            { kind: 'drawer', heightMm: 200, doors: 1, adjustableShelves: 0, fixedShelves: 0 },
+            { kind: 'open', heightMm: null, doors: 1, adjustableShelves: 2, fixedShelves: 0 },
+          ],
+        },
+      ],
+    } as BuildSpec;
+    const slide = (book: PriceBook) =>
+      cutList(drawerAtRail, book, demoSettings).geometry.drawers.map((d) => d.slideLengthIn);
+    expect(slide(demoPriceBook)).toEqual([12]);
+    expect(slide(fiveByFive)).toEqual([10]);
+    const v = validateSpec(drawerAtRail, fiveByFive, demoSettings);
+    expect(v.ok ? [] : v.issues).toEqual([]);
+    placesEverything(drawerAtRail, fiveByFive, 'quick');
+  });
+
   it('keeps a back that fits whole in one piece, with no rail', () => {
     expect(backs(designs.bookcase.defaults).map((p) => p.id)).toEqual(['c1-back']);
     expect(

@@ -722,11 +722,16 @@ function buildCase(
     }
   } else runs.push([0, bays.length - 1]);
   const backOverPartitions = grooved && runs.length > 1;
+  const railsInBay: number[][] = bays.map(() => []);
   const backParts: { w: number; h: number; rows: number; bays: number[] }[] = runs.map(([a, z]) => {
     const w = spanOf(a, z);
     let rows = 1;
     while (!fitsAny(w, backHeight / rows) && rows < 4) rows++;
     if (!fitsAny(w, backHeight / rows)) rows = 1; // too wide for any sheet: validation names it
+    // the rails' centre lines, from the floor, in each bay the piece covers
+    const backFoot = grooved ? cs.yMm + cs.toeKickMm + t - DADO_MM : cs.yMm + cs.toeKickMm;
+    for (let bay = a; bay <= z; bay++)
+      for (let r = 1; r < rows; r++) at(railsInBay, bay).push(backFoot + (r * backHeight) / rows);
     return { w, h: backHeight / rows, rows, bays: bayWidths.slice(a, z + 1) };
   });
   const backCount = backParts.reduce((sum, p) => sum + p.rows, 0);
@@ -1036,7 +1041,9 @@ function buildCase(
       } else if (c.kind === 'drawer') {
         let box: DrawerBox;
         try {
-          box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth - frontDepth });
+          // a back rail across the drawer's opening takes its thickness off the depth the box may have
+          const rail = at(railsInBay, b).some((r) => r + RAIL_WIDTH_MM / 2 > y && r - RAIL_WIDTH_MM / 2 < y + h);
+          box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth - frontDepth - (rail ? t : 0) });
         } catch {
           throw new BuildError(
             `${where(b, j)}: a ${len(bw)} wide, ${len(h)} high opening with ${len(insideDepth)} of depth takes no drawer box. Make the drawer taller or wider, or the case deeper.`,
