@@ -134,6 +134,15 @@ describe('front style', () => {
     expect(2 * pair.widthMm + 3 * reveal).toBeCloseTo(toMm(30) - 2 * t, 6);
   });
 
+  it('gives a stack of inset drawers fronts of equal height that, with their reveals, fill the opening', () => {
+    const f = fronts(bench, insetShop);
+    expect(f).toHaveLength(3);
+    for (const h of f) expect(h).toBeCloseTo(f[0]!, 6);
+    // one opening, three fronts and four reveals (top, bottom and two between)
+    const caseHeight = cutList(bench, demoPriceBook, insetShop).parts.find((p) => p.id === 'c1-partition')!.lengthMm;
+    expect(3 * f[0]! + 4 * reveal).toBeCloseTo(caseHeight - 2 * toMm(0.25), 6);
+  });
+
   it("hangs inset doors on the book's inset hinges, and keeps overlay hinges for overlay fronts", () => {
     const hingeIds = (settings: ShopSettings) =>
       hardwareFor(cutList(designs['base-cabinet'].defaults, demoPriceBook, settings), demoPriceBook, {
