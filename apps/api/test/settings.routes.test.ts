@@ -154,6 +154,38 @@ describe('a settings change and the estimates', () => {
   });
 });
 
+describe('a front-style change and the estimates', () => {
+  it('hangs the next revision on inset hinges and leaves a sent one on the hinges it was priced with', async () => {
+    const t = await app();
+    const owner = await t.signIn(OWNER);
+    const priya = await t.signIn('priya@example.com');
+    const projectId = (await priya.get('/api/projects')).body.projects[0].id as string;
+    const hingeRefs = (e: { lines: { group: string; ref: string }[] }) =>
+      e.lines.filter((l) => l.ref.startsWith('hinge')).map((l) => l.ref);
+    const r1 = (await owner.post(`/api/projects/${projectId}/estimates`).send({})).body.estimate;
+    expect((await owner.post(`/api/estimates/${r1.id}/send`)).status).toBe(200);
+    const sent = storedRecord(t.db, r1.id)!.estimate;
+    expect(hingeRefs(sent).length).toBeGreaterThan(0);
+    expect(hingeRefs(sent)).not.toContain('hinge-inset');
+
+    const v = (await owner.get('/api/settings')).body.settings.version;
+    const patch = await owner.patch('/api/settings').send({ version: v, values: { frontStyle: 'inset' } });
+    expect(patch.status).toBe(200);
+    expect(patch.body.settings.values.frontStyle).toBe('inset');
+    expect((await owner.patch('/api/settings').send({ version: v + 1, values: { frontStyle: 'flush' } })).status).toBe(
+      400,
+    );
+
+    // the sent revision: the same lines, its record still overlay
+    expect(hingeRefs(storedRecord(t.db, r1.id)!.estimate)).toEqual(hingeRefs(sent));
+    expect(storedRecord(t.db, r1.id)!.settings.frontStyle).toBe('overlay');
+    // the next revision hangs its doors inset
+    const r2 = await owner.post(`/api/projects/${projectId}/estimates`).send({});
+    expect(r2.status).toBe(201);
+    expect(hingeRefs(storedRecord(t.db, r2.body.estimate.id)!.estimate)).toEqual(['hinge-inset']);
+  });
+});
+
 describe('the logo', () => {
   let t: TestApp;
   let owner: Agent;

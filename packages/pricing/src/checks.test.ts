@@ -192,3 +192,32 @@ describe('tip-over caution (27 in from 16 CFR part 1261 / ASTM F2057-23, applied
     expect(r.checks.find((x) => x.code === 'tip_over')?.message).toMatch(/does not by itself make the piece safe/);
   });
 });
+
+describe("the demo book's panel and lumber properties, as their sources give them", () => {
+  const sheet = (id: string) => demoPriceBook.sheetGoods.find((m) => m.id === id);
+  const lumber = (id: string) => demoPriceBook.lumber.find((m) => m.id === id);
+  it('takes the MDF modulus from IS 12406:2003 (2,800 N/mm2 minimum average up to 20 mm thick)', () => {
+    // Indian Standard IS 12406:2003, table of physical and mechanical properties, read in a secondary copy
+    // (a maker's page quoting it); a standard's minimum, so the shelf check errs on the safe side
+    expect(sheet('mdf-18')?.modulusMPa).toBe(2800);
+    expect(sheet('mdf-12')?.modulusMPa).toBe(2800);
+    // at that stiffness a 3/4 in MDF shelf reaches span/144 under 40 lb/ft2 (creep 1.5) at about 26 in
+    const span = maxShelfSpan({
+      thicknessMm: 19.05,
+      modulusMPa: 2800,
+      loadKPa: 1.915,
+      limitRatio: 144,
+      creepFactor: 1.5,
+    });
+    expect(toInches(span)).toBeGreaterThan(25);
+    expect(toInches(span)).toBeLessThan(27);
+  });
+  it('takes the clear-wood figures at 12 % moisture from the Forest Products Laboratory tables', () => {
+    // black walnut: FPL species sheet (Alden, Hardwoods of North America, FPL-GTR-83, 1995), Dry row:
+    // specific gravity 0.55, modulus 11.6 GPa
+    expect(lumber('walnut-4-4')).toMatchObject({ modulusMPa: 11600, densityKgM3: Math.round(0.55 * 1.12 * 1000) });
+    // sugar maple: Wood Handbook (FPL-GTR-190, 2010) Table 5-3a, 12 % row, as tabulated in a secondary copy:
+    // specific gravity 0.63, modulus 12,600 MPa
+    expect(lumber('hard-maple-4-4')).toMatchObject({ modulusMPa: 12600, densityKgM3: Math.round(0.63 * 1.12 * 1000) });
+  });
+});

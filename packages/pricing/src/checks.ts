@@ -254,6 +254,7 @@ export function pieceChecks(
         message: `Raised, the leveling feet clear the floor by only ${g.feetClearanceMm.toFixed(0)} mm, so the bench will not roll: choose shorter feet or taller casters (the feet adjust about ${FOOT_TRAVEL_MM.toFixed(0)} mm, from memory).`,
       });
   }
+  checks.push(...insetFrontChecks(list, book, settings));
   const hasFronts = g.doors.length > 0 || g.drawers.length > 0;
   let needsAntiTip = false;
   const rule =
@@ -297,4 +298,33 @@ export function pieceChecks(
         'Built in: level and shim it, then fasten it to the wall studs through the back rail; any plumbing and electrical work around it is for licensed trades under local code.',
     });
   return { checks, massKg, needsAntiTip };
+}
+
+/** Below this reveal an inset front binds in its opening as the case moves (1/16 in, common practice). */
+export const MIN_INSET_REVEAL_MM = 1.5;
+
+/**
+ * Inset fronts: the book should hold a hinge made for inset doors (else the
+ * first hinge is priced, which does not suit them), and the reveal should
+ * leave the front room to open.
+ */
+function insetFrontChecks(list: CutList, book: PriceBook, settings: ShopSettings): Check[] {
+  const out: Check[] = [];
+  const insetDoors = list.geometry.doors.filter((d) => d.overlay === 'inset').length;
+  if (insetDoors > 0 && !book.hardware.some((h) => h.kind === 'hinge' && h.overlay === 'inset'))
+    out.push({
+      code: 'inset_hinge',
+      level: 'warning',
+      path: 'frontStyle',
+      message: `The price book has no hinge marked for inset doors, so the ${insetDoors === 1 ? 'inset door is' : `${insetDoors} inset doors are`} priced with another hinge: add an inset hinge to the book, or choose overlay fronts.`,
+    });
+  const g = list.geometry;
+  if (g.frontStyle === 'inset' && g.fronts.length > 0 && settings.revealMm < MIN_INSET_REVEAL_MM)
+    out.push({
+      code: 'inset_reveal',
+      level: 'warning',
+      path: 'frontStyle',
+      message: `Inset fronts with a ${formatMeasure(settings.revealMm, settings.units)} reveal will bind in their openings: set the reveal to ${formatMeasure(MIN_INSET_REVEAL_MM, settings.units)} or more (common practice).`,
+    });
+  return out;
 }

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { cutList, DRAWER_BOTTOM_CLEARANCE_MM } from './cut-list';
 import { demoPriceBook, demoSettings } from './demo-data';
 import { designs, type BuildSpec } from './designs';
+import { pieceChecks } from './checks';
+import { hardwareFor } from './hardware';
 import { ShopSettings } from './price-book';
 import { toMm } from './units';
 
@@ -92,8 +94,96 @@ describe('construction choices', () => {
   });
 
   it("parses settings stored before the construction settings, with today's construction", () => {
-    const { maxDoorWidthMm, caseJoinery, drawerFronts, drawerFrontStepMm, ...old } = demoSettings;
-    void [maxDoorWidthMm, caseJoinery, drawerFronts, drawerFrontStepMm];
-    expect(ShopSettings.parse(old)).toMatchObject({ maxDoorWidthMm: 610, caseJoinery: 'dado', drawerFronts: 'equal' });
+    const { maxDoorWidthMm, caseJoinery, drawerFronts, drawerFrontStepMm, frontStyle, ...old } = demoSettings;
+    void [maxDoorWidthMm, caseJoinery, drawerFronts, drawerFrontStepMm, frontStyle];
+    expect(ShopSettings.parse(old)).toMatchObject({
+      maxDoorWidthMm: 610,
+      caseJoinery: 'dado',
+      drawerFronts: 'equal',
+      frontStyle: 'overlay',
+    });
+  });
+});
+
+describe('front style', () => {
+  const insetShop = ShopSettings.parse({ ...demoSettings, frontStyle: 'inset' });
+  const reveal = demoSettings.revealMm;
+  const t = demoPriceBook.sheetGoods.find((s) => s.id === 'birch-ply-18')!.thicknessMm;
+  /** a 20 in wall cabinet with one door: its opening is the case less its two sides, top and bottom */
+  const wallDefaults = structuredClone(designs['wall-cabinet'].defaults);
+  wallDefaults.bays[0]!.compartments[0]!.doors = 1;
+  const wall = { ...wallDefaults, widthMm: toMm(20) } as BuildSpec;
+  const door = (spec: BuildSpec, settings = demoSettings) => parts(spec, settings).find((p) => p.name === 'door')!;
+
+  it('sets an inset door inside its opening with the reveal on every side: opening less 2 x reveal each way', () => {
+    const d = door(wall, insetShop);
+    expect(d.quantity).toBe(1);
+    expect(d.widthMm).toBeCloseTo(wall.widthMm - 2 * t - 2 * reveal, 6);
+    expect(d.lengthMm).toBeCloseTo(wall.heightMm - 2 * t - 2 * reveal, 6);
+    // the same door overlaid laps the case edges
+    expect(door(wall).widthMm).toBeGreaterThan(wall.widthMm - 2 * t);
+  });
+
+  it('insets a drawer front in its own opening, and a pair of doors with a reveal between them', () => {
+    const base = designs['base-cabinet'].defaults;
+    const front = parts(base, insetShop).find((p) => p.name === 'drawer front')!;
+    expect(front.widthMm).toBeCloseTo(base.bays[0]!.compartments[1]!.heightMm! - 2 * reveal, 6);
+    expect(front.lengthMm).toBeCloseTo(base.widthMm - 2 * t - 2 * reveal, 6);
+    const pair = door({ ...wall, widthMm: toMm(30) } as BuildSpec, insetShop);
+    expect(pair.quantity).toBe(2);
+    expect(2 * pair.widthMm + 3 * reveal).toBeCloseTo(toMm(30) - 2 * t, 6);
+  });
+
+  it('gives a stack of inset drawers fronts of equal height that, with their reveals, fill the opening', () => {
+    const f = fronts(bench, insetShop);
+    expect(f).toHaveLength(3);
+    for (const h of f) expect(h).toBeCloseTo(f[0]!, 6);
+    // one opening, three fronts and four reveals (top, bottom and two between)
+    const caseHeight = cutList(bench, demoPriceBook, insetShop).parts.find((p) => p.id === 'c1-partition')!.lengthMm;
+    expect(3 * f[0]! + 4 * reveal).toBeCloseTo(caseHeight - 2 * toMm(0.25), 6);
+  });
+
+  it("hangs inset doors on the book's inset hinges, and keeps overlay hinges for overlay fronts", () => {
+    const hingeIds = (settings: ShopSettings) =>
+      hardwareFor(cutList(designs['base-cabinet'].defaults, demoPriceBook, settings), demoPriceBook, {
+        antiTip: false,
+      })
+        .filter((l) => l.kind === 'hinge')
+        .map((l) => l.itemId);
+    expect(hingeIds(insetShop)).toEqual(['hinge-inset']);
+    expect(hingeIds(demoSettings)).not.toContain('hinge-inset');
+  });
+
+  it('keeps overlay fronts by default, and lets a spec override the shop either way', () => {
+    expect(demoSettings.frontStyle).toBe('overlay');
+    expect(door({ ...wall, frontStyle: 'overlay' } as BuildSpec, insetShop)).toEqual(door(wall));
+    expect(door({ ...wall, frontStyle: 'inset' } as BuildSpec)).toEqual(door(wall, insetShop));
+  });
+
+  it('stands shelves, their front pin rows and drawer boxes back by the thickness of an inset front', () => {
+    const base = designs['base-cabinet'].defaults;
+    const over = parts(base);
+    const ins = parts(base, insetShop);
+    const ft = demoPriceBook.sheetGoods.find((s) => s.id === base.frontMaterialId)!.thicknessMm;
+    const shelf = (l: typeof over) => l.find((p) => p.name === 'shelf')!;
+    expect(shelf(over).widthMm - shelf(ins).widthMm).toBeCloseTo(ft, 6);
+    const frontRow = (l: typeof over) =>
+      l
+        .find((p) => p.name === 'side')!
+        .machining.find((op) => op.kind === 'shelf_pin_row' && op.fromEdge === 'front') as { setbackMm: number };
+    expect(frontRow(ins).setbackMm - frontRow(over).setbackMm).toBeCloseTo(ft, 0);
+    const boxDepth = (l: typeof over) => l.find((p) => p.name === 'drawer side')!.lengthMm;
+    expect(boxDepth(ins)).toBeLessThanOrEqual(boxDepth(over));
+  });
+
+  it('warns when the book has no inset hinge, and when the reveal is too tight for inset fronts', () => {
+    const book = { ...demoPriceBook, hardware: demoPriceBook.hardware.filter((h) => h.id !== 'hinge-inset') };
+    const tight = ShopSettings.parse({ ...insetShop, revealMm: 1 });
+    const codes = (b: typeof book, s: ShopSettings) =>
+      pieceChecks(cutList(designs['base-cabinet'].defaults, b, s), b, s).checks.map((c) => c.code);
+    expect(codes(book, insetShop)).toContain('inset_hinge');
+    expect(codes(demoPriceBook, insetShop)).not.toContain('inset_hinge');
+    expect(codes(demoPriceBook, tight)).toContain('inset_reveal');
+    expect(codes(demoPriceBook, demoSettings)).not.toContain('inset_reveal');
   });
 });

@@ -114,6 +114,8 @@ export interface PieceGeometry {
   feetClearanceMm?: number;
   /** the feet's mounting blocks: how many (glued up `layers` high under each foot), each `sideMm` square */
   footBlocks?: { count: number; layers: number; sideMm: number } | null;
+  /** the fronts lap the case edges, or sit inside their openings (the shop's default or the spec's) */
+  frontStyle?: 'overlay' | 'inset';
 }
 
 export interface CutList {
@@ -326,6 +328,7 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
 
   const list = new PartList();
   const geo: PieceGeometry = {
+    frontStyle: spec.frontStyle ?? settings.frontStyle,
     widthMm: spec.widthMm,
     heightMm: spec.heightMm,
     depthMm: spec.depthMm,
@@ -694,38 +697,83 @@ function buildCase(
     });
     geo.hangingRailWidthMm = cs.widthMm;
   }
-  // The back, as a shop handles one larger than its sheet: grain up the case if the sheet allows, else turned
-  // with the grain across; else (grooved) split over partitions into pieces that each fit (common practice).
+  // The back, as a shop handles one larger than its sheet (common practice): a back with grain runs it up the case
+  // as the sides do, so it is split over partitions into pieces that each fit with their grain up; a piece that
+  // still does not fit is turned with its grain across, and one too large either way is split across over back
+  // rails, one in each bay it covers, the pieces meeting on the rail's centre line.
   const backHeight = grooved ? insideHeight + 2 * DADO_MM : cs.heightMm - cs.toeKickMm;
-  const backWidths: number[] = [];
-  if (grooved && !sheetFits(m.back, sheetTrimMm, backHeight, insideWidth + 2 * DADO_MM, 'free') && bays.length > 1) {
+  const backGrain = grainOf(m.back, true);
+  const fitsUp = (w: number, h = backHeight) => sheetFits(m.back, sheetTrimMm, h, w, backGrain);
+  const fitsAny = (w: number, h = backHeight) => sheetFits(m.back, sheetTrimMm, h, w, 'free');
+  // a run of bays a, ..., z under one piece: grooved, from the groove in one side or partition to the next; applied,
+  // from the case's outer edge or a partition's centre line to the next
+  const spanOf = (a: number, z: number) =>
+    bayWidths.slice(a, z + 1).reduce((sum, w) => sum + w, 0) +
+    (z - a) * t +
+    (grooved ? 2 * DADO_MM : (a === 0 ? t : t / 2) + (z === bays.length - 1 ? t : t / 2));
+  const runs: [number, number][] = [];
+  if (!fitsUp(spanOf(0, bays.length - 1)) && bays.length > 1) {
     let from = 0;
     while (from < bays.length) {
-      let to = from; // bays from..to share a piece, from the groove in one side or partition to the next
-      const spanOf = (a: number, z: number) =>
-        bayWidths.slice(a, z + 1).reduce((sum, w) => sum + w, 0) + (z - a) * t + 2 * DADO_MM;
-      while (to + 1 < bays.length && sheetFits(m.back, sheetTrimMm, backHeight, spanOf(from, to + 1), 'free')) to++;
-      backWidths.push(spanOf(from, to));
+      let to = from;
+      while (to + 1 < bays.length && fitsUp(spanOf(from, to + 1))) to++;
+      runs.push([from, to]);
       from = to + 1;
     }
-  } else backWidths.push(grooved ? insideWidth + 2 * DADO_MM : cs.widthMm);
-  const backPieces = backWidths.length;
-  backWidths.forEach((w, i) => {
-    const upright = sheetFits(m.back, sheetTrimMm, backHeight, w, 'fixed');
-    list.add({
-      id: backPieces > 1 ? `${k}-back-${i + 1}` : `${k}-back`,
-      name: backPieces > 1 ? `back, piece ${i + 1}` : 'back',
-      materialId: m.back.id,
-      quantity: 1,
-      lengthMm: upright ? backHeight : w,
-      widthMm: upright ? w : backHeight,
-      thicknessMm: bt,
-      grain: grainOf(m.back, true),
-      bandedEdges: { long: 0, short: 0 },
-      pocketHoles: 0,
-      dados: 0,
-      finishFaces: 1,
-    });
+  } else runs.push([0, bays.length - 1]);
+  const backOverPartitions = grooved && runs.length > 1;
+  const railsInBay: number[][] = bays.map(() => []);
+  const backParts: { w: number; h: number; rows: number; bays: number[] }[] = runs.map(([a, z]) => {
+    const w = spanOf(a, z);
+    let rows = 1;
+    while (!fitsAny(w, backHeight / rows) && rows < 4) rows++;
+    if (!fitsAny(w, backHeight / rows)) rows = 1; // too wide for any sheet: validation names it
+    // the rails' centre lines, from the floor, in each bay the piece covers
+    const backFoot = grooved ? cs.yMm + cs.toeKickMm + t - DADO_MM : cs.yMm + cs.toeKickMm;
+    for (let bay = a; bay <= z; bay++)
+      for (let r = 1; r < rows; r++) at(railsInBay, bay).push(backFoot + (r * backHeight) / rows);
+    return { w, h: backHeight / rows, rows, bays: bayWidths.slice(a, z + 1) };
+  });
+  const backCount = backParts.reduce((sum, p) => sum + p.rows, 0);
+  let piece = 0;
+  backParts.forEach(({ w, h, rows, bays: covered }) => {
+    // grain up the case where the sheet allows (a grainless back too, as it has always been laid out)
+    const upright = sheetFits(m.back, sheetTrimMm, h, w, 'fixed');
+    for (let r = 0; r < rows; r++) {
+      piece++;
+      list.add({
+        id: backCount > 1 ? `${k}-back-${piece}` : `${k}-back`,
+        name: backCount > 1 ? `back, piece ${piece}` : 'back',
+        materialId: m.back.id,
+        quantity: 1,
+        lengthMm: upright ? h : w,
+        widthMm: upright ? w : h,
+        thicknessMm: bt,
+        grain: backGrain,
+        bandedEdges: { long: 0, short: 0 },
+        pocketHoles: 0,
+        dados: 0,
+        finishFaces: 1,
+      });
+    }
+    if (rows > 1)
+      covered.forEach((bw, i) =>
+        list.add({
+          id: `${k}-back-rail-${piece}-${i + 1}`,
+          name: 'back rail',
+          materialId: m.carcass.id,
+          quantity: rows - 1,
+          lengthMm: bw,
+          widthMm: RAIL_WIDTH_MM,
+          thicknessMm: t,
+          grain: 'free',
+          bandedEdges: { long: 0, short: 0 },
+          pocketHoles: 4,
+          dados: 0,
+          finishFaces: 0,
+          machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
+        }),
+      );
   });
   if (bays.length > 1) {
     list.add({
@@ -740,7 +788,7 @@ function buildCase(
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
       pocketHoles: 2 * screwsPerJoint(insideDepth),
-      dados: (butt ? 0 : Math.max(...dividersPerBay)) + (backPieces > 1 ? 1 : 0),
+      dados: (butt ? 0 : Math.max(...dividersPerBay)) + (backOverPartitions ? 1 : 0),
       finishFaces: 2,
     });
   }
@@ -757,6 +805,10 @@ function buildCase(
   geo.cases.push(outline);
   const outerInset = Math.max(0, t - settings.overlayMm) + settings.revealMm / 2;
   const half = settings.revealMm / 2;
+  // inset fronts sit inside their openings, the reveal on every side, and take the front's thickness of depth
+  const inset = (spec.frontStyle ?? settings.frontStyle) === 'inset';
+  const reveal = settings.revealMm;
+  const frontDepth = inset ? m.front.thicknessMm : 0;
   const insideBottom = cs.yMm + cs.toeKickMm + t; // from the floor
 
   let x = cs.xMm + t;
@@ -804,8 +856,10 @@ function buildCase(
     const edgeExt = (j: number, side: -1 | 1): number => {
       const c = at(bay.compartments, j);
       const n = bay.compartments[j + side];
+      const joint = !!n && n.kind === 'drawer' && c.kind === 'drawer';
+      if (inset) return joint ? -half : -reveal;
       if (!n) return t - outerInset;
-      return n.kind === 'drawer' && c.kind === 'drawer' ? -half : t / 2 - half;
+      return joint ? -half : t / 2 - half;
     };
     const step = (spec.drawerFronts ?? settings.drawerFronts) === 'graduated' ? settings.drawerFrontStepMm : 0;
     for (let j = 0; j < bay.compartments.length; ) {
@@ -839,9 +893,14 @@ function buildCase(
         machining: bandOps(...(faceBand ? (['front'] as const) : [])),
       });
     }
-    // the face boundaries of this bay (centre of partitions, case edge less the overlay)
-    const left = b === 0 ? cs.xMm + outerInset : x - t / 2 + half;
-    const right = b === bays.length - 1 ? cs.xMm + cs.widthMm - outerInset : x + bw + t / 2 - half;
+    // the face boundaries of this bay (overlay: centre of partitions, case edge less the overlay; inset: the
+    // opening less the reveal)
+    const left = inset ? x + reveal : b === 0 ? cs.xMm + outerInset : x - t / 2 + half;
+    const right = inset
+      ? x + bw - reveal
+      : b === bays.length - 1
+        ? cs.xMm + cs.widthMm - outerInset
+        : x + bw + t / 2 - half;
     let y = insideBottom;
     bay.compartments.forEach((c: Compartment, j) => {
       const h = at(heights, j);
@@ -851,13 +910,23 @@ function buildCase(
       const below = !prev ? 'edge' : prev.kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
       const above = !next ? 'edge' : next.kind === 'drawer' && c.kind === 'drawer' ? 'joint' : 'divider';
       const bottom =
-        below === 'edge' ? cs.yMm + cs.toeKickMm + outerInset : below === 'divider' ? y - t / 2 + half : y + half;
+        below === 'joint'
+          ? y + half
+          : inset
+            ? y + reveal
+            : below === 'edge'
+              ? cs.yMm + cs.toeKickMm + outerInset
+              : y - t / 2 + half;
       const top =
-        above === 'edge'
-          ? cs.yMm + cs.heightMm - outerInset
-          : above === 'divider'
-            ? y + h + t / 2 - half
-            : y + h - half;
+        above === 'joint'
+          ? y + h - half
+          : inset
+            ? y + h - reveal
+            : above === 'edge'
+              ? cs.yMm + cs.heightMm - outerInset
+              : y + h + t / 2 - half;
+      // behind an inset door, shelves and their front pin rows stand back by the door's thickness
+      const doorDepth = c.kind === 'door' ? frontDepth : 0;
       if (above === 'divider') {
         outline.shelvesMm.push([x, y + h, bw]);
         dividerDado(b, y + h, 'fixed shelf');
@@ -870,10 +939,11 @@ function buildCase(
             floorMm: floor - foot,
             heightMm: h,
             backSetbackMm: backRowSetback(face === 'inside' ? panelDepth : insideDepth),
+            frontSetbackMm: PIN_SETBACK_MM + doorDepth,
           }),
         );
       }
-      const shelfDepth = insideDepth - SHELF_FRONT_SETBACK_MM;
+      const shelfDepth = insideDepth - SHELF_FRONT_SETBACK_MM - doorDepth;
       if (c.kind !== 'drawer') {
         if (c.adjustableShelves > 0) {
           list.add({
@@ -902,7 +972,7 @@ function buildCase(
             materialId: m.carcass.id,
             quantity: c.fixedShelves,
             lengthMm: bw + 2 * dado,
-            widthMm: insideDepth,
+            widthMm: insideDepth - doorDepth,
             thicknessMm: t,
             grain: carcassGrain(true),
             bandedEdges: { long: faceBand as 0 | 1, short: 0 },
@@ -919,7 +989,12 @@ function buildCase(
           }
         }
         if (c.adjustableShelves > 0 || c.fixedShelves > 0 || dividers > 0)
-          geo.shelfSpans.push({ spanMm: bw, depthMm: insideDepth, materialId: m.carcass.id, thicknessMm: t });
+          geo.shelfSpans.push({
+            spanMm: bw,
+            depthMm: insideDepth - doorDepth,
+            materialId: m.carcass.id,
+            thicknessMm: t,
+          });
       }
       if (c.kind === 'door') {
         // a door wider than the shop hangs becomes a pair (validation refuses a pair still too wide)
@@ -944,7 +1019,7 @@ function buildCase(
             widthMm: fw,
             heightMm: top - bottom,
             massKg: doorMassKg,
-            overlay: hingeOverlay(onEnd ? t - outerInset : t / 2 - half, t),
+            overlay: inset ? 'inset' : hingeOverlay(onEnd ? t - outerInset : t / 2 - half, t),
           });
         }
         list.add({
@@ -966,7 +1041,9 @@ function buildCase(
       } else if (c.kind === 'drawer') {
         let box: DrawerBox;
         try {
-          box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth });
+          // a back rail across the drawer's opening takes its thickness off the depth the box may have
+          const rail = at(railsInBay, b).some((r) => r + RAIL_WIDTH_MM / 2 > y && r - RAIL_WIDTH_MM / 2 < y + h);
+          box = drawerBox({ widthMm: bw, heightMm: h, depthMm: insideDepth - frontDepth - (rail ? t : 0) });
         } catch {
           throw new BuildError(
             `${where(b, j)}: a ${len(bw)} wide, ${len(h)} high opening with ${len(insideDepth)} of depth takes no drawer box. Make the drawer taller or wider, or the case deeper.`,
@@ -1102,8 +1179,9 @@ function shareBacks(places: readonly CasePlace[], geo: PieceGeometry, list: Part
     if (drop !== null) open.add(drop);
   }
   for (const i of open) {
-    const k = list.parts.findIndex((p) => p.id === `c${i + 1}-back`);
-    if (k >= 0) list.parts.splice(k, 1);
+    // the back, every piece of a split one, and its back rails
+    const own = new RegExp(`^c${i + 1}-back(-\\d+|-rail-\\d+-\\d+)?$`);
+    for (let k = list.parts.length - 1; k >= 0; k--) if (own.test(at(list.parts, k).id)) list.parts.splice(k, 1);
   }
   geo.sharedBacks = [...open].map((i) => `c${i + 1}`);
 }

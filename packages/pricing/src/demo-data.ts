@@ -5,20 +5,21 @@ import { toMm } from './units';
  * The demo shop's price book. INVENTED FOR THE DEMO: the prices and time
  * standards are made up and say nothing of any real supplier or shop.
  * Material properties (thickness, density, modulus): each comment names the
- * source actually read, says when it was a secondary copy, and says "from
- * memory" where no stored copy of a source was found. The Wood Handbook
- * (USDA Forest Products Laboratory, FPL-GTR-282, 2021) and the APA's panel
- * design data were the sources sought; no copy of the 2021 edition's tables
- * was found, so none of the values below is read from it.
+ * source actually read, the edition and table, and says that it was read in a
+ * secondary copy at a stored address (these machines reach no website); a
+ * value with no copy of a published table found says "from memory". Density
+ * of solid wood at 12 % moisture = specific gravity (oven-dry weight, volume at
+ * 12 %) x 1000 kg/m3 x 1.12 (the moisture's weight).
  */
 export const demoPriceBook: PriceBook = PriceBook.parse({
   currency: 'USD',
   note: 'Invented demo prices and time standards, for the Fernhill Joinery demo only.',
   sheetGoods: [
-    // Birch plywood (all three thicknesses): modulus 1,800,000 psi (12,410 MPa) as the Architectural Woodwork
-    // Standards, 1st ed. (2009), 4.4.14.10 list hardwood-faced veneer-core plywood (test/fixtures/shelf-spans.md;
-    // not re-read against the standard here). Stored copies of the APA Panel Design Specification (D510) were
-    // found but not their stiffness tables, so the APA figure is not used. Density 680 kg/m3: from memory.
+    // Birch plywood (all three thicknesses): modulus 1,800,000 psi (12,410 MPa), the value the Architectural
+    // Woodwork Standards, 1st ed. (2009), 4.4.14.10 shelf-span table uses for veneer-core plywood with hardwood
+    // veneer both faces (test/fixtures/shelf-spans.md, a copy of that table). Density 680 kg/m3: from memory (no
+    // published plywood density table was found; the Wood Handbook's clear yellow birch, specific gravity 0.62 at
+    // 12 %, would give 694 kg/m3 for an all-birch panel).
     {
       id: 'birch-ply-18',
       name: '3/4 in birch plywood',
@@ -58,11 +59,15 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       modulusMPa: 12410,
       priceCents: 4200,
     },
-    // MDF: modulus 3,450 MPa (500,000 psi), from memory. The Wood Handbook (2010, FPL-GTR-190) ch. 12 gives MDF
-    // properties by maker in its Table 12-6 (a secondary copy of the chapter's text was read, not the table);
-    // other secondary pages disagree (makeitfrom.com: 4.0 GPa, 0.75 g/cm3, citing the 1999 Wood Handbook;
-    // kerfworks.org: 350,000 psi for medium-density MDF). Density 750 kg/m3: makeitfrom.com's 0.75 g/cm3
-    // (a secondary copy citing the 1999 Wood Handbook).
+    // MDF: modulus 2,800 MPa, the minimum average modulus of elasticity for MDF up to 20 mm thick in Indian
+    // Standard IS 12406:2003 (Medium density fibre boards for general purposes), table of physical and mechanical
+    // properties, read in a secondary copy (a maker's page quoting the table) at
+    // http://www.mangalamtimber.com/index.php/technical-specifications/interior-grade. A standard's minimum, so the
+    // sag check errs on the safe side. The Wood Handbook (FPL-GTR-190, 2010) ch. 12, "Medium-Density Fiberboard",
+    // points to ANSI A208.2-2002 for MDF minimums and lists makers' values in its Table 12-6 (the text was read in
+    // a secondary copy at https://issuhub.com/view/index?id=5801&pageIndex=284; the table and the ANSI grade table
+    // were not found). Density 750 kg/m3: makeitfrom.com's MDF page (0.75 g/cm3), a secondary copy citing the Wood
+    // Handbook (1999 edition), at https://www.makeitfrom.com/material-properties/Medium-Density-Fiberboard-MDF.
     {
       id: 'mdf-18',
       name: '3/4 in MDF',
@@ -73,7 +78,7 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       sheetWidthMm: 1219.2,
       grain: 'none',
       densityKgM3: 750,
-      modulusMPa: 3450,
+      modulusMPa: 2800,
       priceCents: 4800,
     },
     {
@@ -86,10 +91,12 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       sheetWidthMm: 1219.2,
       grain: 'none',
       densityKgM3: 750,
-      modulusMPa: 3450,
+      modulusMPa: 2800,
       priceCents: 3800,
     },
-    // tempered hardboard, for backs that need no grain: density about 1000 kg/m3 and modulus about 5500 MPa, from memory
+    // Tempered hardboard, for backs that need no grain: density 1000 kg/m3 and modulus 5500 MPa, from memory (no
+    // published table of hardboard stiffness or density was found; the copy of ANSI A135.4-2012, Basic Hardboard,
+    // found stores only its front matter). Used for backs, never for a shelf.
     {
       id: 'hardboard-6',
       name: '1/4 in tempered hardboard',
@@ -105,17 +112,18 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
     },
   ],
   lumber: [
-    // Clear wood at 12 % moisture. Density at 12 % = specific gravity (oven-dry weight, volume at 12 %) x
-    // 1000 kg/m3 x 1.12. None read from the Wood Handbook itself: each figure's copy is named below.
+    // Clear wood at 12 % moisture (density from specific gravity as said above).
     {
       id: 'walnut-4-4',
       name: 'Black walnut, 4/4',
       species: 'black walnut',
       roughThicknessIn: 1,
-      // specific gravity 0.55 at 12 %, 609 kg/m3 and modulus 11,584 MPa: Tioga Hardwoods' species page
-      // (a secondary copy; it names no source, its figures match the Wood Handbook's as remembered)
-      densityKgM3: 610,
-      modulusMPa: 11590,
+      // Specific gravity 0.55 and modulus 11.6 GPa ("Dry" row): the USDA Forest Products Laboratory's species sheet
+      // "Juglans nigra, Black Walnut" (mechanical properties, 2-inch standard), the sheet of Alden, Hardwoods of
+      // North America, FPL-GTR-83 (1995), read in a secondary copy at
+      // https://docslib.org/doc/7040862/juglansnigra-family-juglandaceae-black-walnut; 0.55 x 1.12 x 1000 = 616 kg/m3
+      densityKgM3: 616,
+      modulusMPa: 11600,
       pricePerBoardFootCents: 1450,
     },
     {
@@ -123,10 +131,12 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       name: 'White oak, 4/4',
       species: 'white oak',
       roughThicknessIn: 1,
-      // specific gravity 0.68 at 12 %: G. Wengert's FDMC column quoting the Wood Handbook (Ag. Handbook 72),
-      // a secondary copy; 0.68 x 1.12 x 1000 = 762 kg/m3
+      // Specific gravity 0.68 at 12 %: G. Wengert's FDMC column quoting the Wood Handbook (Agriculture Handbook 72),
+      // a secondary copy; 0.68 x 1.12 x 1000 = 762 kg/m3. Modulus 12,270 MPa (1.78 million psi): Tioga Hardwoods'
+      // white oak page (http://www.tiogahardwoods.com/species.aspx?zone=Species&pID=987: 12,273 MPa, specific gravity
+      // 0.68), a secondary copy that names no source; the Wood Handbook's Table 5-3 row for white oak itself was not
+      // found in a stored copy.
       densityKgM3: 762,
-      // modulus 1.78 million psi (12,270 MPa): from memory (wood-database.com gives 1.762 million psi)
       modulusMPa: 12270,
       pricePerBoardFootCents: 975,
     },
@@ -135,11 +145,11 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       name: 'Hard maple, 4/4',
       species: 'hard maple',
       roughThicknessIn: 1,
-      // specific gravity 0.63 at 12 %: G. Wengert's FDMC column quoting the Wood Handbook, a secondary copy
-      // (0.63 x 1.12 x 1000 = 706 kg/m3); modulus 12.62 GPa: timberpolis.com's sugar maple page, a secondary
-      // copy naming no source (the Maple Flooring Manufacturers Association gives 1.65-1.88 million psi)
-      densityKgM3: 705,
-      modulusMPa: 12620,
+      // Specific gravity 0.63 and modulus 12,600 MPa at 12 % (sugar maple): the Wood Handbook's clear-wood strength
+      // table (Table 5-3a, metric, of FPL-GTR-190, 2010) as tabulated by engdatabase.com's "Maple, Sugar" page, a
+      // secondary copy at https://engdatabase.com/data/wood-properties/maple-sugar; 0.63 x 1.12 x 1000 = 706 kg/m3
+      densityKgM3: 706,
+      modulusMPa: 12600,
       pricePerBoardFootCents: 750,
     },
   ],

@@ -123,6 +123,8 @@ export function pinRows(o: {
   heightMm: number;
   /** the back row's centre from the part's back edge */
   backSetbackMm: number;
+  /** the front row's centre from the part's front edge (37 mm; more behind an inset door) */
+  frontSetbackMm?: number;
   only?: string;
 }): ShelfPinRowOp[] {
   const holes = Math.floor((o.heightMm - 2 * PIN_END_CLEARANCE_MM) / PIN_PITCH_MM) + 1;
@@ -131,7 +133,7 @@ export function pinRows(o: {
     kind: 'shelf_pin_row' as const,
     face: o.face,
     fromEdge: edge,
-    setbackMm: r1(edge === 'front' ? PIN_SETBACK_MM : o.backSetbackMm),
+    setbackMm: r1(edge === 'front' ? (o.frontSetbackMm ?? PIN_SETBACK_MM) : o.backSetbackMm),
     fromEnd: 'bottom' as const,
     firstHoleMm: r1(o.floorMm + PIN_END_CLEARANCE_MM),
     spacingMm: PIN_PITCH_MM,

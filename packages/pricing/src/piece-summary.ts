@@ -22,6 +22,8 @@ export interface TravellerPiece {
   finish?: { name: string; coats: number } | null;
   revealMm?: number;
   overlayMm?: number;
+  /** inset fronts sit in their openings (no overlay); absent on revisions recorded before it: overlay */
+  frontStyle?: 'overlay' | 'inset';
   joinery?: string[];
   /** the client's choices in plain words (choices.ts); absent in revisions recorded before they were kept */
   choices?: Choice[];
@@ -61,7 +63,12 @@ export function pieceSummary(p: TravellerPiece, unit: LengthUnit): [string, stri
       p.finish ? `${p.finish.name}, ${p.finish.coats} ${p.finish.coats === 1 ? 'coat' : 'coats'}` : 'None (unfinished)',
     ]);
   if (p.revealMm !== undefined && p.overlayMm !== undefined)
-    rows.push(['Fronts', `${len(p.revealMm)} reveal, ${len(p.overlayMm)} overlay`]);
+    rows.push([
+      'Fronts',
+      p.frontStyle === 'inset'
+        ? `Inset, ${len(p.revealMm)} reveal all round`
+        : `${len(p.revealMm)} reveal, ${len(p.overlayMm)} overlay`,
+    ]);
   if (p.joinery)
     rows.push(['Joinery', p.joinery.length ? p.joinery.join('; ') : 'No dadoes or pocket holes in the cut list']);
   // the client's choices, but for the size and finish said above

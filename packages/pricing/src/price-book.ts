@@ -320,6 +320,11 @@ export const ShopSettings = z.object({
   drawerFronts: z.enum(['equal', 'graduated']).default('equal'),
   /** graduated fronts: how much taller each is than the one above (1 in, common practice) */
   drawerFrontStepMm: z.number().min(0).max(100).default(25.4),
+  /**
+   * fronts lapping the case edges (`overlay`, by `overlayMm`), or set inside their openings with the reveal on
+   * every side (`inset`, hung on inset hinges; frameless casework needs no face frame for it)
+   */
+  frontStyle: z.enum(['overlay', 'inset']).default('overlay'),
   // The four below were price-book fields; their defaults (the demo shop's, invented) let settings stored before
   // the move still parse. The start-up move copies a shop's own values over from its old price book.
   /** the shop rate charged to clients, per hour */

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { estimate } from './costing';
 import { demoPriceBook, demoSettings } from './demo-data';
-import { designs, parseSpec } from './designs';
+import { designs, parseSpec, type BuildSpec } from './designs';
 import { SHOP_CAUTIONS, traveller } from './traveller';
 import { pieceSummary } from './piece-summary';
 import { toSvg } from './drawings';
@@ -121,6 +121,17 @@ describe('traveller cautions and the piece section', () => {
     });
     expect(rows.filter(([k]) => k === 'Finish')).toHaveLength(1);
     expect(rows.map(([k]) => k)).not.toContain('Size');
+  });
+  it('says inset fronts are inset, with their reveal all round', () => {
+    const e = estimate(
+      [{ spec: { ...spec('bookcase'), frontStyle: 'inset' } as BuildSpec, quantity: 1 }],
+      demoPriceBook,
+      demoSettings,
+      { effort: 'quick' },
+    );
+    const piece = at(traveller(e, demoPriceBook, demoSettings).pieces, 0);
+    expect(piece.frontStyle).toBe('inset');
+    expect(Object.fromEntries(pieceSummary(piece, 'in')).Fronts).toBe('Inset, 1/8" reveal all round');
   });
 });
 

@@ -95,6 +95,7 @@ export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings):
     finish: finishOf(p.spec),
     revealMm: settings.revealMm,
     overlayMm: settings.overlayMm,
+    frontStyle: p.spec.frontStyle ?? settings.frontStyle ?? 'overlay',
     joinery: joineryOf(p.parts, settings.units),
     choices: choicesOf(p.spec, book, settings.units),
     parts: p.parts.map((part) => ({

@@ -15,7 +15,7 @@ const priceAt = (spec: BuildSpec) =>
   );
 
 describe('validateSpec: a valid piece always prices', () => {
-  it('prices a single-sided bench 72 x 36 x 35 in with three bays: its back, too wide for the sheet, is turned', () => {
+  it('prices a single-sided bench 72 x 36 x 35 in with three bays: its back, too wide for the sheet, is split over a partition', () => {
     const spec = {
       ...bench,
       widthMm: toMm(72),
@@ -40,8 +40,11 @@ describe('validateSpec: a valid piece always prices', () => {
     const v = validateSpec(spec, demoPriceBook, demoSettings);
     expect(v.ok).toBe(true);
     for (const e of priceAt(spec)) expect(e.layouts.every((l) => l.unplaced.length === 0)).toBe(true);
-    const back = cutList(spec, demoPriceBook, demoSettings).parts.find((p) => p.name === 'back')!;
-    expect(back.lengthMm).toBeGreaterThan(back.widthMm); // grain runs across the case
+    const backs = cutList(spec, demoPriceBook, demoSettings).parts.filter((p) => p.name.startsWith('back'));
+    expect(backs).toHaveLength(2);
+    // grain up the case: each piece's length (its grain) is the back's height
+    expect(backs[0]!.lengthMm).toBeCloseTo(backs[1]!.lengthMm, 6);
+    expect(backs[0]!.lengthMm).toBeLessThan(spec.heightMm - toMm(6));
   });
 
   it('hangs a pair on a 1219 mm base cabinet with one door section (each under the 24 in maximum)', () => {
@@ -107,14 +110,17 @@ describe('validateSpec: a valid piece always prices', () => {
   it('names a part larger than any sheet and says what to change', () => {
     const book = {
       ...demoPriceBook,
-      sheetGoods: demoPriceBook.sheetGoods.map((s) => (s.id === 'birch-ply-6' ? { ...s, sheetLengthMm: 1219.2 } : s)),
+      // 2 x 2 ft sheets: narrower than the one-bay bookcase's back, which has no partition to split it over
+      sheetGoods: demoPriceBook.sheetGoods.map((s) =>
+        s.id === 'birch-ply-6' ? { ...s, sheetLengthMm: 609.6, sheetWidthMm: 609.6 } : s,
+      ),
     };
     const spec = { ...designs.bookcase.defaults, heightMm: toMm(72) } as BuildSpec;
     const v = validateSpec(spec, book, demoSettings);
     expect(v.ok).toBe(false);
     if (!v.ok) {
       expect(v.issues[0]!.path).toBe('backMaterialId');
-      expect(v.issues[0]!.message).toMatch(/^The back \(.*\) is larger than a 48 in x 48 in sheet of .*: add a bay/);
+      expect(v.issues[0]!.message).toMatch(/^The back \(.*\) is larger than a 24 in x 24 in sheet of .*: add a bay/);
     }
   });
 

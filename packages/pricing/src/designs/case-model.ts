@@ -113,6 +113,8 @@ export function caseFields(limits: CaseLimits) {
     joinery: z.enum(['dado', 'butt'], { error: 'Choose dado or butt joints for the case.' }).optional(),
     /** overrides the shop's drawer fronts: equal heights, or each a fixed step taller than the one above */
     drawerFronts: z.enum(['equal', 'graduated'], { error: 'Choose equal or graduated drawer fronts.' }).optional(),
+    /** overrides the shop's front style: fronts lapping the case edges, or set inside their openings */
+    frontStyle: z.enum(['overlay', 'inset'], { error: 'Choose overlay or inset fronts.' }).optional(),
   };
 }
 

@@ -123,6 +123,16 @@ export const SETTING_SECTIONS: { id: SectionId; title: string; intro: string; fi
         ],
       },
       { key: 'drawerFrontStepMm', label: 'Graduated fronts: step', kind: 'number', step: 1, unit: 'mm' },
+      {
+        key: 'frontStyle',
+        label: 'Doors and drawer fronts',
+        kind: 'choice',
+        options: [
+          ['overlay', 'Overlay, lapping the case edges'],
+          ['inset', 'Inset, inside their openings'],
+        ],
+        hint: 'Inset fronts keep the reveal on every side and hang on inset hinges.',
+      },
       { key: 'overlayMm', label: 'Front overlay on the case edge', kind: 'number', step: 0.5, unit: 'mm' },
       {
         key: 'shelfLoadKPa',
