@@ -603,6 +603,49 @@ export function SpecForm({
         </div>
       </Group>
 
+      {spec.design === 'base-cabinet' || spec.design === 'bookcase' || spec.design === 'wall-cabinet' ? (
+        <Group title="How it stands">
+          <div className="grid gap-x-3 sm:grid-cols-2">
+            {spec.design !== 'wall-cabinet' ? (
+              <SelectField
+                label="Installation"
+                value={spec.installation}
+                choices={[
+                  ['built-in', 'Built in, fixed to the wall'],
+                  ['free-standing', 'Free-standing'],
+                ]}
+                {...field('installation')}
+                onChange={(installation) => patch({ installation } as Partial<BuildSpec>)}
+              />
+            ) : null}
+            {spec.design === 'base-cabinet' ? (
+              <SelectField
+                label="Stands on"
+                value={spec.mobility}
+                choices={[
+                  ['none', MOBILITY.none!],
+                  ['leveling-feet', MOBILITY['leveling-feet']!],
+                ]}
+                {...field('mobility')}
+                onChange={(mobility) => patch({ mobility } as Partial<BuildSpec>)}
+              />
+            ) : null}
+            {spec.design === 'wall-cabinet' ? (
+              <SelectField
+                label="Hung on"
+                value={spec.hangingRail ? 'rail' : 'case'}
+                choices={[
+                  ['rail', 'A hanging rail screwed to the wall'],
+                  ['case', 'Screws through the case back'],
+                ]}
+                {...field('hangingRail')}
+                onChange={(v) => patch({ hangingRail: v === 'rail' } as Partial<BuildSpec>)}
+              />
+            ) : null}
+          </div>
+        </Group>
+      ) : null}
+
       <Group title="Materials">
         <div className="grid gap-x-3 sm:grid-cols-2">
           {MATERIALS.map(([k, label]) => (
