@@ -16,24 +16,24 @@ test('a client sets a wall cabinet to her space, sees the drawing and budget cha
   const before = await budget.textContent();
 
   // wider costs more
-  await page.getByLabel('Width').fill('40');
+  await page.getByLabel('Width', { exact: true }).fill('40');
   await expect(budget).not.toHaveText(before ?? '');
   // too tall is refused, with the limit
-  await page.getByLabel('Height').fill('60');
+  await page.getByLabel('Height', { exact: true }).fill('60');
   await expect(page.getByText('This cannot be built as set:')).toBeVisible();
   await expect(page.getByRole('button', { name: 'Request an estimate' })).toBeDisabled();
-  await page.getByLabel('Height').fill('30 1/2');
+  await page.getByLabel('Height', { exact: true }).fill('30 1/2');
   await expect(page.getByText('This cannot be built as set:')).toHaveCount(0);
   await expect(budget).toBeVisible();
   // a typing slip is caught beside the field and changes nothing
-  await page.getByLabel('Depth').fill('12 ft deep');
+  await page.getByLabel('Depth', { exact: true }).fill('12 ft deep');
   await expect(page.locator('#dim-depth-error')).toBeVisible();
-  await page.getByLabel('Depth').fill('12');
+  await page.getByLabel('Depth', { exact: true }).fill('12');
 
-  // the standard size comes back with one click, in the fields too
-  await page.getByRole('button', { name: 'Back to our standard size' }).click();
-  await expect(page.getByLabel('Width')).toHaveValue('30"');
-  await page.getByLabel('Width').fill('40');
+  // the standard piece comes back with one click, in the fields too
+  await page.getByRole('button', { name: 'Back to our standard piece' }).click();
+  await expect(page.getByLabel('Width', { exact: true })).toHaveValue('30"');
+  await page.getByLabel('Width', { exact: true }).fill('40');
   await page.getByLabel('Anything the shop should know').fill('Over the laundry sink, painted later.');
   await page.getByRole('button', { name: 'Request an estimate' }).click();
   await expect(page).toHaveURL(/\/projects\/[0-9a-f-]+$/);

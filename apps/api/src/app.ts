@@ -154,7 +154,7 @@ export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
     accountRoutes(account, lucia, { enabled: env.RATE_LIMITS, passwordChecksPerUser: env.ACCOUNT_PASSWORD_CHECKS }),
   );
   app.use('/api/users', requireRole('owner'), usersRoutes(auth));
-  app.use('/api/designs', designsRoutes());
+  app.use('/api/designs', designsRoutes(db));
   app.use('/api/quotes', quotesRoutes(db, pool, { enabled: env.RATE_LIMITS, perMinute: env.PREVIEWS_PER_MINUTE }));
   const clientsService = createClientsService(db, { portalUrl: env.PORTAL_URL });
   const projectsService = createProjectsService(db, { portalUrl: env.PORTAL_URL, shopUrl: env.SHOP_URL }, pool);

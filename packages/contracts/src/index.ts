@@ -250,6 +250,15 @@ export interface Design {
   summary: string;
   defaults: unknown;
   limits: Record<string, [number, number]>;
+  /** the choices for each field, keyed by the spec field's dotted path (`carcassMaterialId`, `top.skinMaterialId`) */
+  options: Record<string, DesignOption[]>;
+}
+/** One thing a client may pick for a field: a price-book item by its plain name, with a short note; no cost. */
+export interface DesignOption {
+  id: string;
+  name: string;
+  note?: string;
+  thicknessMm?: number;
 }
 export interface QuotePreview {
   budget: { lowCents: number; highCents: number };

@@ -176,6 +176,18 @@ const DesignSchema = z.strictObject({
   summary: z.string(),
   defaults: z.unknown(),
   limits: z.record(z.string(), z.tuple([z.number(), z.number()])),
+  /** the choices for each field, keyed by the field's dotted path: names and notes only, never a cost or price */
+  options: z.record(
+    z.string(),
+    z.array(
+      z.strictObject({
+        id: z.string(),
+        name: z.string(),
+        note: z.string().optional(),
+        thicknessMm: z.number().positive().optional(),
+      }),
+    ),
+  ),
 });
 export const DesignsResponse = z.strictObject({ designs: z.array(DesignSchema) });
 export const DesignResponse = z.strictObject({ design: DesignSchema });

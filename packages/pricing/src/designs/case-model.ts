@@ -157,7 +157,7 @@ export function checkInterior(
       ctx.addIssue({
         code: 'custom',
         path: ['bays', b, 'compartments'],
-        message: `The sections of ${where(b)} need ${len(set + open * 60)} but the case has ${len(room)} inside that bay: make the sections shorter or the case taller.`,
+        message: `The sections of ${where(b)} need ${len(set + open * 60)} but the case has ${len(room)} inside that bay: ${fitAdvice(bay.compartments, b, room)}`,
       });
     }
     bay.compartments.forEach((c, k) => {
@@ -177,6 +177,24 @@ export function checkInterior(
       }
     });
   });
+}
+
+/**
+ * What to change when a bay's sections do not fit: the tallest section of a set height, named, and the most it may
+ * be with the others as they are (or that it may share what is left); else shorter sections or a taller case.
+ */
+function fitAdvice(compartments: readonly Compartment[], b: number, room: number): string {
+  let k = -1;
+  compartments.forEach((c, i) => {
+    if (c.heightMm !== null && (k < 0 || c.heightMm > (compartments[k]!.heightMm ?? 0))) k = i;
+  });
+  if (k < 0) return 'take a section away or make the case taller.';
+  const others = compartments.reduce((s, c, i) => s + (i === k ? 0 : (c.heightMm ?? 60)), 0);
+  const most = room - others;
+  const named = `${where(b, k)} is set at ${len(compartments[k]!.heightMm!)}`;
+  return most >= 60
+    ? `${named}; make it at most ${len(Math.floor(most))}, let it share what is left, or make the case taller.`
+    : `${named}; let it share what is left, make the other sections shorter, or make the case taller.`;
 }
 
 /** Fixed dividers between compartments: one wherever a drawer does not sit directly on another drawer. */

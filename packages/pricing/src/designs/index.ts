@@ -15,6 +15,7 @@ import { wallCabinetDefaults, wallCabinetLimits, wallCabinetSchema } from './wal
 
 export type { AssemblyBenchSpec, BenchCase, CaseJoin, CasePlace } from './assembly-bench';
 export { benchLayout, caseJoins, upgradeSpec } from './assembly-bench';
+export { addRearCase, addSideCase, mainCaseIndex, resizeBench } from './bench-arrange';
 export type { BaseCabinetSpec } from './base-cabinet';
 export type { BookcaseSpec } from './bookcase';
 export type { WallCabinetSpec } from './wall-cabinet';

@@ -1,22 +1,33 @@
 import { Router } from 'express';
-import { designs, type DesignSlug } from '@benchwright/pricing';
+import { designs, type DesignSlug, type PriceBook } from '@benchwright/pricing';
+import type { Db } from '../../db/client';
+import { loadPricing } from '../../lib/engine';
 import { NotFound } from '../../lib/errors';
+import { designOptions } from './design-options';
 
-function view(slug: DesignSlug) {
+function view(slug: DesignSlug, book: PriceBook) {
   const d = designs[slug];
-  return { slug: d.slug, name: d.name, summary: d.summary, defaults: d.defaults, limits: d.limits };
+  return {
+    slug: d.slug,
+    name: d.name,
+    summary: d.summary,
+    defaults: d.defaults,
+    limits: d.limits,
+    options: designOptions(slug, book),
+  };
 }
 
-/** Anyone may read the designs. */
-export function designsRoutes(): Router {
+/** Anyone may read the designs, with the choices the shop's active price book offers for each (no costs). */
+export function designsRoutes(db: Db): Router {
   const r = Router();
   r.get('/', (_req, res) => {
-    res.json({ designs: (Object.keys(designs) as DesignSlug[]).map(view) });
+    const { activeBook } = loadPricing(db);
+    res.json({ designs: (Object.keys(designs) as DesignSlug[]).map((s) => view(s, activeBook)) });
   });
   r.get('/:slug', (req, res) => {
     const slug = req.params.slug;
     if (!Object.hasOwn(designs, slug)) throw new NotFound('The design');
-    res.json({ design: view(slug as DesignSlug) });
+    res.json({ design: view(slug as DesignSlug, loadPricing(db).activeBook) });
   });
   return r;
 }

@@ -13,7 +13,6 @@ import type {
   ClientSummary,
   CreateClientBody,
   CreateProjectBody,
-  Design,
   Project,
 } from '@benchwright/contracts';
 import { api } from '@benchwright/ui';
@@ -59,9 +58,6 @@ export function useCreateClient() {
   const qc = useQueryClient();
   return useMutation({ mutationFn: createClient, onSuccess: () => qc.invalidateQueries({ queryKey: ['clients'] }) });
 }
-
-export const getDesigns = async () => (await api<{ designs: Design[] }>('/designs')).designs;
-export const useDesigns = () => useQuery({ queryKey: ['designs'], queryFn: getDesigns, staleTime: Infinity });
 
 /** The owner starts a project for a client; one Idempotency-Key per attempt, as the portal's request does. */
 export const startProject = async ({ key, ...body }: CreateProjectBody & { key: string }) =>
