@@ -1,11 +1,11 @@
 import { Router } from 'express';
-import { designs, type DesignSlug, type PriceBook } from '@benchwright/pricing';
+import { designs, type DesignSlug, type LengthUnit, type PriceBook } from '@benchwright/pricing';
 import type { Db } from '../../db/client';
 import { loadPricing } from '../../lib/engine';
 import { NotFound } from '../../lib/errors';
 import { designOptions } from './design-options';
 
-function view(slug: DesignSlug, book: PriceBook) {
+function view(slug: DesignSlug, book: PriceBook, units: LengthUnit) {
   const d = designs[slug];
   return {
     slug: d.slug,
@@ -13,7 +13,7 @@ function view(slug: DesignSlug, book: PriceBook) {
     summary: d.summary,
     defaults: d.defaults,
     limits: d.limits,
-    options: designOptions(slug, book),
+    options: designOptions(slug, book, units),
   };
 }
 
@@ -21,13 +21,14 @@ function view(slug: DesignSlug, book: PriceBook) {
 export function designsRoutes(db: Db): Router {
   const r = Router();
   r.get('/', (_req, res) => {
-    const { activeBook } = loadPricing(db);
-    res.json({ designs: (Object.keys(designs) as DesignSlug[]).map((s) => view(s, activeBook)) });
+    const { activeBook, settings } = loadPricing(db);
+    res.json({ designs: (Object.keys(designs) as DesignSlug[]).map((s) => view(s, activeBook, settings.units)) });
   });
   r.get('/:slug', (req, res) => {
     const slug = req.params.slug;
     if (!Object.hasOwn(designs, slug)) throw new NotFound('The design');
-    res.json({ design: view(slug as DesignSlug, loadPricing(db).activeBook) });
+    const { activeBook, settings } = loadPricing(db);
+    res.json({ design: view(slug as DesignSlug, activeBook, settings.units) });
   });
   return r;
 }
