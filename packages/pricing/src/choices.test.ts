@@ -86,4 +86,10 @@ describe('choicesOf: the client’s choices in plain words', () => {
     const c = choicesOf({ ...bench, pullId: 'gone-pull' }, { ...demoPriceBook, hardware: [] }, 'in');
     expect(valueOf(c, 'Pulls')).toBe('gone-pull');
   });
+  it('names the fronts’ style only where the piece sets its own', () => {
+    const cabinet = structuredClone(designs['base-cabinet'].defaults) as BuildSpec;
+    const fronts = (s: BuildSpec) => choicesOf(s, demoPriceBook, 'in').find((c) => c.label === 'Fronts')?.value;
+    expect(fronts(cabinet)).toBeUndefined();
+    expect(fronts({ ...cabinet, frontStyle: 'inset' } as BuildSpec)).toBe('Inset, inside the openings');
+  });
 });

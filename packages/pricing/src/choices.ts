@@ -57,6 +57,8 @@ export function choicesOf(spec: BuildSpec, book: PriceBook, unit: LengthUnit): C
     add('Drawer bottoms', sheet(spec.drawerBottomMaterialId));
   }
   add('Edge banding', book.edgeBanding.find((x) => x.id === spec.bandingId)?.name ?? spec.bandingId);
+  if (hasFronts && spec.frontStyle)
+    add('Fronts', spec.frontStyle === 'inset' ? 'Inset, inside the openings' : 'Overlay, over the case edges');
   if (hasFronts) add('Pulls', hardware(spec.pullId));
   const finish = spec.finishId ? book.finishes.find((f) => f.id === spec.finishId) : undefined;
   if (!spec.finishId) add('Finish', 'No finish');

@@ -100,6 +100,11 @@ describe('the configurator’s choices', () => {
     expect(latest()).toMatchObject({ finishId: 'waterborne-poly', coats: 2 });
     fireEvent.change(screen.getByLabelText('Installation'), { target: { value: 'built-in' } });
     expect(latest()).toMatchObject({ installation: 'built-in' });
+    // inset fronts for this piece, then back to the shop's own default (no field at all)
+    fireEvent.change(screen.getByLabelText('Doors and drawer fronts sit'), { target: { value: 'inset' } });
+    expect(latest().frontStyle).toBe('inset');
+    fireEvent.change(screen.getByLabelText('Doors and drawer fronts sit'), { target: { value: 'shop' } });
+    expect('frontStyle' in latest()).toBe(false);
   });
 
   it('adds a rear case to the bench, back to back, and takes one away', async () => {

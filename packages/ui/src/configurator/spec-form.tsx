@@ -51,6 +51,12 @@ const MATERIALS = [
   ['drawerBottomMaterialId', 'Drawer bottoms'],
 ] as const;
 
+/** The spec with its own front style, or none (the shop's default, from its settings). */
+function withFrontStyle(s: BuildSpec, style: 'overlay' | 'inset' | undefined): BuildSpec {
+  const { frontStyle: _old, ...rest } = s;
+  return (style ? { ...rest, frontStyle: style } : rest) as BuildSpec;
+}
+
 const newSection = (): Compartment => ({
   kind: 'drawer',
   heightMm: null,
@@ -671,6 +677,17 @@ export function SpecForm({
             options={option('pullId')}
             {...field('pullId')}
             onChange={(v) => v && patch({ pullId: v })}
+          />
+          <SelectField
+            label="Doors and drawer fronts sit"
+            value={spec.frontStyle ?? 'shop'}
+            choices={[
+              ['shop', 'As the shop usually builds'],
+              ['overlay', 'Over the case edges (overlay)'],
+              ['inset', 'Inside the openings (inset)'],
+            ]}
+            {...field('frontStyle')}
+            onChange={(v) => setSpec((s) => withFrontStyle(s, v === 'shop' ? undefined : v))}
           />
         </div>
       </Group>
