@@ -10,6 +10,7 @@ import {
   type Traveller,
 } from '@benchwright/pricing';
 import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
+import { MachiningPages } from './traveller-machining-pdf';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 9, color: INK, padding: 36, paddingBottom: 52 },
@@ -189,6 +190,7 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
 
         <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
       </Page>
+      <MachiningPages traveller={t} units={d.units} footer={`${d.shopName} · traveler for ${d.clientName}`} />
     </Document>
   );
 }
