@@ -2,7 +2,7 @@
  * Traveller PDF benchmark: how long the job paper takes to draw, in-process
  * (the PDF worker runs the same code on its own thread).
  *
- *   cd apps/api && pnpm exec tsx bench/traveller-pdf.ts
+ *   cd apps/api && pnpm exec tsx bench/traveller-pdf.ts [--mixed-only]
  *
  * - the mixed job (packages/pricing/test/fixtures/mixed-job.json) priced at 'thorough', as a revision keeps it:
  *   median of 3 renders after one warm-up, wall clock and CPU, pages and bytes
@@ -73,6 +73,7 @@ console.log(
     `${pages(mid.pdf)} pages, ${(mid.pdf.length / 1024).toFixed(0)} KB`,
 );
 
+if (process.argv.includes('--mixed-only')) process.exit(0);
 const d = designs['assembly-bench'];
 const largest: EstimateItem[] = Array.from({ length: 20 }, (_, i) => {
   const spec = {

@@ -7,6 +7,7 @@
  * notes (every position in words); the job's page in the app draws them all.
  */
 import { Circle, G, Line, Page, Path, Polygon, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
+import type { ReactNode } from 'react';
 import { partDrawings, type LengthUnit, type PartDrawing, type PartShape, type Traveller } from '@benchwright/pricing';
 import { hatchSegments, INK, MUTED, PageFooter, RULE } from './pdf-drawing';
 
@@ -188,60 +189,125 @@ export function MachiningPages({
   const banded = all.filter(bandedOnly);
   const drawn = machined.slice(0, MAX_PDF_DRAWINGS);
   const rest = machined.slice(MAX_PDF_DRAWINGS);
-  return (
-    <Page size="LETTER" style={s.page}>
-      <Text style={s.h2}>Machining</Text>
-      <Text style={s.intro}>
-        Each part is drawn flat with its length across; its edges and ends are named beside it. Hatched bands are dados,
-        rabbets and grooves; circles are bores; thick lines are banded edges; slots are pocket holes. Numbers match the
-        notes under each drawing.
-      </Text>
-      <View style={s.grid}>
-        {drawn.map((d) => (
-          <View key={d.key} style={s.cell} wrap={false}>
-            <Heading d={d} />
-            <View style={{ alignItems: 'center', marginVertical: 3 }}>
-              <PdfPartDrawing d={d} width={COLUMN - 8} />
-            </View>
-            <Notes d={d} />
-          </View>
-        ))}
-      </View>
-      {rest.length ? (
-        <View>
-          <Text style={[s.h2, { marginTop: 6 }]}>
-            {rest.length} more machined {rest.length === 1 ? 'part' : 'parts'}, in words (drawn on the job’s page)
-          </Text>
-          {rest.map((d) => (
-            <View key={d.key} style={s.rest} wrap={false}>
-              <Heading d={d} />
-              <Notes d={d} />
-            </View>
-          ))}
-        </View>
-      ) : null}
-      {banded.length ? (
-        <View>
-          <Text style={[s.h2, { marginTop: 6 }]}>Banded only</Text>
-          <View style={[s.row, { fontWeight: 700 }]}>
-            <Text style={{ flex: 2 }}>Part</Text>
-            <Text style={{ flex: 0.5 }}>Qty</Text>
-            <Text style={{ flex: 2 }}>Size</Text>
-            <Text style={{ flex: 2.5 }}>Edges to band</Text>
-            <Text style={{ flex: 3 }}>For</Text>
-          </View>
-          {banded.map((d) => (
-            <View key={d.key} style={s.row} wrap={false}>
-              <Text style={{ flex: 2 }}>{d.name}</Text>
-              <Text style={{ flex: 0.5 }}>{d.quantity}</Text>
-              <Text style={{ flex: 2 }}>{d.size}</Text>
-              <Text style={{ flex: 2.5 }}>{d.notes[0]!.replace(/^Band the (.*) \(thick line\)\.$/, '$1')}</Text>
-              <Text style={{ flex: 3 }}>{d.where.join(' · ')}</Text>
-            </View>
-          ))}
-        </View>
-      ) : null}
+  // a Page element for each page's worth (laid out ahead from the drawings' heights): one long flowing page
+  // costs the renderer far more than the same content in short ones. Each may still flow on if a guess is short.
+  const pages = pack(drawn);
+  const page = (key: string, children: ReactNode) => (
+    <Page key={key} size="LETTER" style={s.page}>
+      {children}
       <PageFooter>{footer}</PageFooter>
     </Page>
   );
+  return (
+    <>
+      {pages.map((ds, i) =>
+        page(
+          `drawings-${i}`,
+          <>
+            {i === 0 ? (
+              <>
+                <Text style={s.h2}>Machining</Text>
+                <Text style={s.intro}>{INTRO}</Text>
+              </>
+            ) : null}
+            <View style={s.grid}>
+              {ds.map((d) => (
+                <View key={d.key} style={s.cell} wrap={false}>
+                  <Heading d={d} />
+                  <View style={{ alignItems: 'center', marginVertical: 3 }}>
+                    <PdfPartDrawing d={d} width={COLUMN - 8} />
+                  </View>
+                  <Notes d={d} />
+                </View>
+              ))}
+            </View>
+          </>,
+        ),
+      )}
+      {chunks(rest, 14).map((ds, i) =>
+        page(
+          `rest-${i}`,
+          <>
+            {i === 0 ? (
+              <Text style={s.h2}>
+                {rest.length} more machined {rest.length === 1 ? 'part' : 'parts'}, in words (drawn on the job’s page)
+              </Text>
+            ) : null}
+            {ds.map((d) => (
+              <View key={d.key} style={s.rest} wrap={false}>
+                <Heading d={d} />
+                <Notes d={d} />
+              </View>
+            ))}
+          </>,
+        ),
+      )}
+      {chunks(banded, 36).map((ds, i) =>
+        page(
+          `banded-${i}`,
+          <>
+            {i === 0 ? <Text style={s.h2}>Banded only</Text> : null}
+            <View style={[s.row, { fontWeight: 700 }]}>
+              <Text style={{ flex: 2 }}>Part</Text>
+              <Text style={{ flex: 0.5 }}>Qty</Text>
+              <Text style={{ flex: 2 }}>Size</Text>
+              <Text style={{ flex: 2.5 }}>Edges to band</Text>
+              <Text style={{ flex: 3 }}>For</Text>
+            </View>
+            {ds.map((d) => (
+              <View key={d.key} style={s.row} wrap={false}>
+                <Text style={{ flex: 2 }}>{d.name}</Text>
+                <Text style={{ flex: 0.5 }}>{d.quantity}</Text>
+                <Text style={{ flex: 2 }}>{d.size}</Text>
+                <Text style={{ flex: 2.5 }}>{d.notes[0]!.replace(/^Band the (.*) \(thick line\)\.$/, '$1')}</Text>
+                <Text style={{ flex: 3 }}>{d.where.join(' · ')}</Text>
+              </View>
+            ))}
+          </>,
+        ),
+      )}
+    </>
+  );
+}
+
+const INTRO =
+  'Each part is drawn flat with its length across; its edges and ends are named beside it. Hatched bands are ' +
+  'dados, rabbets and grooves; circles are bores; thick lines are banded edges; slots are pocket holes. Numbers ' +
+  'match the notes under each drawing.';
+
+function chunks<T>(xs: readonly T[], n: number): T[][] {
+  const out: T[][] = [];
+  for (let i = 0; i < xs.length; i += n) out.push(xs.slice(i, i + n));
+  return out;
+}
+
+/** Lines a text takes in a column of `width` points at `size` (about half an em a character). */
+const lines = (text: string, size: number, width: number) => Math.max(1, Math.ceil((text.length * size * 0.5) / width));
+
+/** A drawing's cell height in points, as laid out above (heading, drawing, notes, padding). */
+function cellHeight(d: PartDrawing): number {
+  const inner = COLUMN - 8;
+  const drawing = Math.min(MAX_DRAWING_HEIGHT, (inner * d.viewBox.height) / d.viewBox.width);
+  const notes = d.notes.reduce((n, x) => n + lines(`${n}. ${x}`, 7.5, inner), 0);
+  return 8 + 13 + lines(`${d.where.join(' · ')} · ${d.materialName}`, 8, inner) * 10 + 6 + drawing + notes * 9.2 + 10;
+}
+
+/** The drawings two to a row, rows to a Letter page (the first page also holds the heading and the key). */
+function pack(ds: readonly PartDrawing[]): PartDrawing[][] {
+  const pages: PartDrawing[][] = [];
+  let cur: PartDrawing[] = [];
+  let used = 60;
+  for (let i = 0; i < ds.length; i += 2) {
+    const row = ds.slice(i, i + 2);
+    const h = Math.max(...row.map(cellHeight));
+    if (cur.length && used + h > 704) {
+      pages.push(cur);
+      cur = [];
+      used = 0;
+    }
+    cur.push(...row);
+    used += h;
+  }
+  if (cur.length) pages.push(cur);
+  return pages;
 }

@@ -176,20 +176,21 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           </Text>
         ))}
 
-        {t.materials.flatMap((m) =>
-          m.sheets.map((sh) => (
-            <View key={`${m.materialName}-${sh.number}`} break wrap={false}>
-              <Text style={s.h2}>
-                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)}% used,{' '}
-                {sh.cuts.length} cuts
-              </Text>
-              <PdfDrawing drawing={sh.drawing} width={540} />
-            </View>
-          )),
-        )}
-
         <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
       </Page>
+      {/* a page of its own for each sheet: one long flowing page costs the renderer far more than its parts */}
+      {t.materials.flatMap((m) =>
+        m.sheets.map((sh) => (
+          <Page key={`${m.materialName}-${sh.number}`} size="LETTER" style={s.page}>
+            <Text style={s.h2}>
+              {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)}% used,{' '}
+              {sh.cuts.length} cuts
+            </Text>
+            <PdfDrawing drawing={sh.drawing} width={540} />
+            <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
+          </Page>
+        )),
+      )}
       <MachiningPages traveller={t} units={d.units} footer={`${d.shopName} · traveler for ${d.clientName}`} />
     </Document>
   );
