@@ -372,10 +372,12 @@ export function partDrawing(
       if (stopped) dims.push({ axis: 'y', from: W - run, to: W, foot: Math.max(near, far), text: len(run) });
       note(
         `${what} for the ${o.for}, ${FACE_WORDS[o.face]}: ${len(o.widthMm)} wide, ${len(o.depthMm)} deep, ${where}` +
-          `${stopped ? `, stopped ${len(run)} from the ${side('front').words}` : ''}${only(o)}.`,
+          `${stopped ? `, stopped: running ${len(run)} in from the ${side('front').words}` : ''}${only(o)}.`,
         [0.5, 0.3, 0.7].map((f) => [(near + far) / 2, W - run * f]),
       );
     } else {
+      // along the part; a stopped one runs from the end at the left of the drawing (the bottom or left end)
+      const startEnd = side('bottom').axis === 'x' ? side('bottom') : side('left');
       const run = Math.min(o.lengthMm, L);
       const stopped = run < L - 0.5;
       shapes.push({ type: 'cut', x: 0, y: Math.min(near, far), width: run, height: Math.abs(far - near) });
@@ -383,7 +385,7 @@ export function partDrawing(
       if (stopped) dims.push({ axis: 'x', from: 0, to: run, foot: Math.max(near, far), text: len(run) });
       note(
         `${what} for the ${o.for}, ${FACE_WORDS[o.face]}: ${len(o.widthMm)} wide, ${len(o.depthMm)} deep, ${where}` +
-          `${stopped ? `, stopped ${len(run)} from the left of the drawing` : ''}${only(o)}.`,
+          `${stopped ? `, stopped: running ${len(run)} in from the ${startEnd.words}` : ''}${only(o)}.`,
         [0.5, 0.3, 0.7].map((f) => [run * f, (near + far) / 2]),
       );
     }
