@@ -58,6 +58,22 @@ const COLS = [
   { key: 'band', label: 'Band', flex: 0.9 },
 ] as const;
 
+/** The pieces in groups of about a page of cut-list rows (a piece of more rows alone, flowing on). */
+function cutListGroups(pieces: Traveller['pieces']): { p: Traveller['pieces'][number]; i: number }[][] {
+  const groups: { p: Traveller['pieces'][number]; i: number }[][] = [];
+  let rows = Infinity;
+  pieces.forEach((p, i) => {
+    const n = p.parts.length + 3;
+    if (rows + n > 44) {
+      groups.push([]);
+      rows = 0;
+    }
+    groups[groups.length - 1]!.push({ p, i });
+    rows += n;
+  });
+  return groups;
+}
+
 function TravellerDocument({ d }: { d: TravellerPdfInput }) {
   const t = d.traveller;
   const len = (mm: number) => formatLength(mm, { unit: d.units });
@@ -113,43 +129,6 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           </View>
         ))}
 
-        <Text style={s.h2}>Cut list</Text>
-        {t.pieces.map((p, i) => (
-          <View key={i}>
-            <Text style={s.h3}>
-              {p.title} x {p.quantity}
-            </Text>
-            <View style={[s.row, s.th]}>
-              {COLS.map((c) => (
-                <Text key={c.key} style={{ flex: c.flex }}>
-                  {c.label}
-                </Text>
-              ))}
-            </View>
-            {p.parts.map((part, j) => {
-              const cells: Record<(typeof COLS)[number]['key'], string> = {
-                name: part.name,
-                quantity: String(part.quantity),
-                length: len(part.lengthMm),
-                width: len(part.widthMm),
-                thick: formatThickness(part.thicknessMm, d.units),
-                material: part.materialName,
-                grain: part.grain,
-                band: part.banding || '-',
-              };
-              return (
-                <View key={j} style={s.row} wrap={false}>
-                  {COLS.map((c) => (
-                    <Text key={c.key} style={{ flex: c.flex }}>
-                      {cells[c.key]}
-                    </Text>
-                  ))}
-                </View>
-              );
-            })}
-          </View>
-        ))}
-
         <Text style={s.h2}>Pick list</Text>
         <View style={[s.row, s.th]}>
           <Text style={{ flex: 3 }}>Hardware</Text>
@@ -178,6 +157,49 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
 
         <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
       </Page>
+      {/* the cut list on pages of its own, a few pieces to a page element: one long flowing page costs the
+          renderer far more than the same rows over several */}
+      {cutListGroups(t.pieces).map((group, g) => (
+        <Page key={`cut-list-${g}`} size="LETTER" style={s.page}>
+          {g === 0 ? <Text style={s.h2}>Cut list</Text> : null}
+          {group.map(({ p, i }) => (
+            <View key={i}>
+              <Text style={s.h3}>
+                {p.title} x {p.quantity}
+              </Text>
+              <View style={[s.row, s.th]}>
+                {COLS.map((c) => (
+                  <Text key={c.key} style={{ flex: c.flex }}>
+                    {c.label}
+                  </Text>
+                ))}
+              </View>
+              {p.parts.map((part, j) => {
+                const cells: Record<(typeof COLS)[number]['key'], string> = {
+                  name: part.name,
+                  quantity: String(part.quantity),
+                  length: len(part.lengthMm),
+                  width: len(part.widthMm),
+                  thick: formatThickness(part.thicknessMm, d.units),
+                  material: part.materialName,
+                  grain: part.grain,
+                  band: part.banding || '-',
+                };
+                return (
+                  <View key={j} style={s.row} wrap={false}>
+                    {COLS.map((c) => (
+                      <Text key={c.key} style={{ flex: c.flex }}>
+                        {cells[c.key]}
+                      </Text>
+                    ))}
+                  </View>
+                );
+              })}
+            </View>
+          ))}
+          <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
+        </Page>
+      ))}
       {/* a page of its own for each sheet: one long flowing page costs the renderer far more than its parts */}
       {t.materials.flatMap((m) =>
         m.sheets.map((sh) => (
