@@ -129,8 +129,8 @@ export function PartDrawingCard({ d }: { d: PartDrawing }) {
       </figcaption>
       <PartDrawingSvg d={d} />
       <ol className="mt-1 list-decimal pl-5 text-sm">
-        {d.notes.map((n) => (
-          <li key={n}>{n}</li>
+        {d.notes.map((n, i) => (
+          <li key={i}>{n}</li>
         ))}
       </ol>
     </figure>
