@@ -283,7 +283,9 @@ export function partDrawing(
   const side = sides(L, W, ops);
   const len = (mm: number) => drawingLength(mm, unit);
   // text about a 29th of the drawing's width: 12 px on a phone's 375 px screen, 9 pt in a PDF column
-  const s = Math.max(L / 20, W / 40);
+  // (a part wider than long is drawn taller than wide: its text follows its width, so a drawing fitted to a
+  // page's height keeps it legible)
+  const s = Math.max(L / 20, W / 24);
   const shapes: PartShape[] = [];
   const marks: PartShape[] = [];
   const dims: Dim[] = [];
