@@ -31,6 +31,8 @@ export type {
 export { demoPriceBook, demoSettings } from './demo-data';
 export { traveller, SHOP_CAUTIONS } from './traveller';
 export type { Traveller, TravellerPart, TravellerSheet } from './traveller';
+export { partDrawings, partDrawing, drawingLength, textBox, boxesOverlap } from './part-drawing';
+export type { PartDrawing, PartShape, PartText, Box } from './part-drawing';
 export { joineryOf, pieceSummary, type TravellerPiece } from './piece-summary';
 export {
   LABOUR_OPERATION_KEYS,

@@ -41,6 +41,8 @@ export interface TravellerPart {
   banding: string;
   /** what is done to the part after cutting, with positions to mark from (data; the job paper draws it) */
   machining: Machining[];
+  /** in a piece of several cases (a bench), which case the part is for, from 1; absent in a piece of one case */
+  case?: number;
 }
 
 export interface TravellerSheet {
@@ -67,6 +69,12 @@ export interface Traveller {
   massKg: number;
   /** the pieces' own cautions (anchoring, casters...) then the shop's */
   cautions: string[];
+}
+
+/** The case a part is for (its id starts `c<n>-`), where the piece has several. */
+function caseOf(id: string, parts: readonly { id: string }[]): { case?: number } {
+  const n = /^c(\d+)-/.exec(id)?.[1];
+  return n && parts.some((p) => p.id.startsWith('c2-')) ? { case: Number(n) } : {};
 }
 
 /**
@@ -114,6 +122,7 @@ export function traveller(e: Estimate, book: PriceBook, settings: ShopSettings):
         .filter(Boolean)
         .join(', '),
       machining: part.machining,
+      ...caseOf(part.id, p.parts),
     })),
   }));
   const materials = e.layouts.map((l) => ({

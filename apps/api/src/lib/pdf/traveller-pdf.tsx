@@ -10,6 +10,7 @@ import {
   type Traveller,
 } from '@benchwright/pricing';
 import { INK, MUTED, PageFooter, PdfDrawing, RULE, WOOD } from './pdf-drawing';
+import { MachiningPages } from './traveller-machining-pdf';
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Source Sans 3', fontSize: 9, color: INK, padding: 36, paddingBottom: 52 },
@@ -56,6 +57,22 @@ const COLS = [
   { key: 'grain', label: 'Grain', flex: 0.6 },
   { key: 'band', label: 'Band', flex: 0.9 },
 ] as const;
+
+/** The pieces in groups of about a page of cut-list rows (a piece of more rows alone, flowing on). */
+function cutListGroups(pieces: Traveller['pieces']): { p: Traveller['pieces'][number]; i: number }[][] {
+  const groups: { p: Traveller['pieces'][number]; i: number }[][] = [];
+  let rows = Infinity;
+  pieces.forEach((p, i) => {
+    const n = p.parts.length + 3;
+    if (rows + n > 44) {
+      groups.push([]);
+      rows = 0;
+    }
+    groups[groups.length - 1]!.push({ p, i });
+    rows += n;
+  });
+  return groups;
+}
 
 function TravellerDocument({ d }: { d: TravellerPdfInput }) {
   const t = d.traveller;
@@ -112,43 +129,6 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           </View>
         ))}
 
-        <Text style={s.h2}>Cut list</Text>
-        {t.pieces.map((p, i) => (
-          <View key={i}>
-            <Text style={s.h3}>
-              {p.title} x {p.quantity}
-            </Text>
-            <View style={[s.row, s.th]}>
-              {COLS.map((c) => (
-                <Text key={c.key} style={{ flex: c.flex }}>
-                  {c.label}
-                </Text>
-              ))}
-            </View>
-            {p.parts.map((part, j) => {
-              const cells: Record<(typeof COLS)[number]['key'], string> = {
-                name: part.name,
-                quantity: String(part.quantity),
-                length: len(part.lengthMm),
-                width: len(part.widthMm),
-                thick: formatThickness(part.thicknessMm, d.units),
-                material: part.materialName,
-                grain: part.grain,
-                band: part.banding || '-',
-              };
-              return (
-                <View key={j} style={s.row} wrap={false}>
-                  {COLS.map((c) => (
-                    <Text key={c.key} style={{ flex: c.flex }}>
-                      {cells[c.key]}
-                    </Text>
-                  ))}
-                </View>
-              );
-            })}
-          </View>
-        ))}
-
         <Text style={s.h2}>Pick list</Text>
         <View style={[s.row, s.th]}>
           <Text style={{ flex: 3 }}>Hardware</Text>
@@ -175,20 +155,65 @@ function TravellerDocument({ d }: { d: TravellerPdfInput }) {
           </Text>
         ))}
 
-        {t.materials.flatMap((m) =>
-          m.sheets.map((sh) => (
-            <View key={`${m.materialName}-${sh.number}`} break wrap={false}>
-              <Text style={s.h2}>
-                {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)}% used,{' '}
-                {sh.cuts.length} cuts
-              </Text>
-              <PdfDrawing drawing={sh.drawing} width={540} />
-            </View>
-          )),
-        )}
-
         <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
       </Page>
+      {/* the cut list on pages of its own, a few pieces to a page element: one long flowing page costs the
+          renderer far more than the same rows over several */}
+      {cutListGroups(t.pieces).map((group, g) => (
+        <Page key={`cut-list-${g}`} size="LETTER" style={s.page}>
+          {g === 0 ? <Text style={s.h2}>Cut list</Text> : null}
+          {group.map(({ p, i }) => (
+            <View key={i}>
+              <Text style={s.h3}>
+                {p.title} x {p.quantity}
+              </Text>
+              <View style={[s.row, s.th]}>
+                {COLS.map((c) => (
+                  <Text key={c.key} style={{ flex: c.flex }}>
+                    {c.label}
+                  </Text>
+                ))}
+              </View>
+              {p.parts.map((part, j) => {
+                const cells: Record<(typeof COLS)[number]['key'], string> = {
+                  name: part.name,
+                  quantity: String(part.quantity),
+                  length: len(part.lengthMm),
+                  width: len(part.widthMm),
+                  thick: formatThickness(part.thicknessMm, d.units),
+                  material: part.materialName,
+                  grain: part.grain,
+                  band: part.banding || '-',
+                };
+                return (
+                  <View key={j} style={s.row} wrap={false}>
+                    {COLS.map((c) => (
+                      <Text key={c.key} style={{ flex: c.flex }}>
+                        {cells[c.key]}
+                      </Text>
+                    ))}
+                  </View>
+                );
+              })}
+            </View>
+          ))}
+          <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
+        </Page>
+      ))}
+      {/* a page of its own for each sheet: one long flowing page costs the renderer far more than its parts */}
+      {t.materials.flatMap((m) =>
+        m.sheets.map((sh) => (
+          <Page key={`${m.materialName}-${sh.number}`} size="LETTER" style={s.page}>
+            <Text style={s.h2}>
+              {m.materialName}: sheet {sh.number} of {m.sheetCount}, {Math.round(sh.yieldRatio * 100)}% used,{' '}
+              {sh.cuts.length} cuts
+            </Text>
+            <PdfDrawing drawing={sh.drawing} width={540} />
+            <PageFooter>{`${d.shopName} · traveler for ${d.clientName}`}</PageFooter>
+          </Page>
+        )),
+      )}
+      <MachiningPages traveller={t} units={d.units} footer={`${d.shopName} · traveler for ${d.clientName}`} />
     </Document>
   );
 }

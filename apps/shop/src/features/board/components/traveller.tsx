@@ -6,6 +6,7 @@ import { CutListPanel, PickListPanel, SheetLayoutsPanel } from '../../../compone
 import { paths } from '../../../config/paths';
 import type { ReactNode } from 'react';
 import { useRelayout, useStages, useTraveller, type JobTraveller } from '../api/jobs';
+import { MachiningPanel } from './machining-drawings';
 import { StageChecklist } from './stage-checklist';
 
 /**
@@ -131,6 +132,7 @@ export function TravellerPage({
         })}
       </Panel>
       <CutListPanel layouts={t} />
+      <MachiningPanel pieces={t.pieces} units={t.units} />
       <SheetLayoutsPanel layouts={t} />
       <PickListPanel layouts={t} />
       <Panel title="Cautions">
