@@ -169,6 +169,11 @@ describe('partDrawings', () => {
     expect(ds.map((d) => d.name)).not.toContain('toe kick');
     expect(ds.map((d) => d.name)).toContain('shelf'); // banded only
   });
+  it('draws nothing, and does not fail, for a traveller recorded before parts carried their machining', () => {
+    const piece = pieceOf(base, 1);
+    const old = { ...piece, parts: piece.parts.map(({ machining: _m, ...p }) => p as TravellerPart) };
+    expect(partDrawings({ pieces: [old] }, 'in')).toEqual([]);
+  });
   it("names a bench's cases", () => {
     const ds = partDrawings({ pieces: [pieceOf(designs['assembly-bench'].defaults)] }, 'in');
     expect(ds.find((d) => d.name === 'partition' && d.where.join().includes('cases'))?.where).toEqual([

@@ -110,9 +110,12 @@ export function drawingLength(mm: number, unit: LengthUnit): string {
   return `${Number.isInteger(v) ? v : v.toFixed(1)} mm`;
 }
 
-/** Whether a part is drawn: it has machining beyond nothing, or banded edges. */
+/**
+ * Whether a part is drawn: it has machining beyond nothing, or banded edges. A traveller recorded before parts
+ * carried their machining has none to draw (its record is kept as it was).
+ */
 export function isDrawn(part: Pick<TravellerPart, 'machining'>): boolean {
-  return part.machining.length > 0;
+  return (part.machining ?? []).length > 0;
 }
 
 // ---- where a part's named edges and ends lie on the drawing ----
@@ -279,7 +282,7 @@ export function partDrawing(
 ): Pick<PartDrawing, 'viewBox' | 'textSize' | 'shapes' | 'notes'> {
   const L = part.lengthMm;
   const W = part.widthMm;
-  const ops = part.machining;
+  const ops = part.machining ?? [];
   const side = sides(L, W, ops);
   const len = (mm: number) => drawingLength(mm, unit);
   // text about a 29th of the drawing's width: 12 px on a phone's 375 px screen, 9 pt in a PDF column
