@@ -2,7 +2,8 @@ import { asc, desc, eq } from 'drizzle-orm';
 import { hoursFeedback, STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
-import { hoursFeedbackMarks, jobs, stages, timeEntries } from '../../db/schema';
+import { hoursFeedbackMarks, jobs, stages } from '../../db/schema';
+import { stmt } from '../../lib/statements';
 
 /**
  * Hours that teach the price book: each stage's logged hours against its
@@ -30,7 +31,14 @@ export function createHoursService(db: Db) {
         .orderBy(desc(jobs.updatedAt))
         .limit(200)
         .all();
-      const entries = db.select().from(timeEntries).all();
+      // the hours logged per job and stage, summed in the database for the delivered jobs above only
+      const logged = new Map<string, number>();
+      const sums = stmt(
+        db.$client,
+        `SELECT job_id AS jobId, stage_key AS stage, sum(hours) AS hours FROM time_entries
+          WHERE job_id IN (SELECT value FROM json_each(?)) GROUP BY job_id, stage_key`,
+      ).all(JSON.stringify(delivered.map((j) => j.id))) as { jobId: string; stage: string; hours: number }[];
+      for (const r of sums) logged.set(`${r.jobId} ${r.stage}`, r.hours);
       const labels = new Map(
         db
           .select()
@@ -47,7 +55,7 @@ export function createHoursService(db: Db) {
           .map((j) => ({
             budget: j.hoursBudget,
             logged: {
-              [stage]: entries.filter((e) => e.jobId === j.id && e.stageKey === stage).reduce((s, e) => s + e.hours, 0),
+              [stage]: logged.get(`${j.id} ${stage}`) ?? 0,
             } as Partial<Record<StageKey, number>>,
           }));
         const f = hoursFeedback(compared).find((x) => x.stage === stage)!;
