@@ -270,6 +270,13 @@ export const revisionRecords = sqliteTable('revision_records', {
     .primaryKey()
     .references(() => estimates.id, { onDelete: 'cascade' }),
   record: text({ mode: 'json' }).$type<RevisionRecord>().notNull(),
+  /**
+   * the record's `settings.units`, kept apart so the estimate view reads its units without loading the whole
+   * record; written with the record (`recordRow` in lib/record.ts), never changed
+   */
+  units: text({ enum: ['in', 'mm'] })
+    .notNull()
+    .default('in'),
   createdAt: createdAt(),
 });
 

@@ -118,6 +118,20 @@ export function latestRelayout(db: Pick<Db, 'select'>, jobId: string) {
 }
 
 /** A revision's stored record, if it has one. */
+/** The row that keeps a revision's record, with the units people read it in beside it. */
+export function recordRow(estimateId: string, record: RevisionRecord) {
+  return { estimateId, record, units: record.settings.units };
+}
+
+/** The units a revision was priced in (its record's), read from its own column: the record stays unread. */
+export function recordUnits(db: Pick<Db, 'select'>, estimateId: string): 'in' | 'mm' | undefined {
+  return db
+    .select({ units: revisionRecords.units })
+    .from(revisionRecords)
+    .where(eq(revisionRecords.estimateId, estimateId))
+    .get()?.units;
+}
+
 export function storedRecord(db: Pick<Db, 'select'>, estimateId: string): RevisionRecord | undefined {
   return db
     .select({ record: revisionRecords.record })
@@ -137,7 +151,7 @@ export async function recordOf(
   if (stored) return stored;
   const { items, book, settings } = load();
   const record = { ...(await priceRecord(pool, items, book, settings)), backfilled: true };
-  db.insert(revisionRecords).values({ estimateId: row.id, record }).onConflictDoNothing().run();
+  db.insert(revisionRecords).values(recordRow(row.id, record)).onConflictDoNothing().run();
   return storedRecord(db, row.id)!;
 }
 

@@ -31,7 +31,7 @@ import {
 import { forClient, loadPricing, projectSpecs } from '../../lib/engine';
 import { logoPng } from '../../lib/shop-logo';
 import type { EnginePool } from '../../lib/engine-pool';
-import { priceRecord, storedRecord, type RevisionRecord } from '../../lib/record';
+import { priceRecord, recordRow, recordUnits, storedRecord, type RevisionRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail, withdrawnMail } from '../../lib/mail-templates';
 import type { PdfPool } from '../../lib/pdf-pool';
@@ -126,7 +126,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
     const engine = e.engine as EngineRecord | null;
     return {
       // as the revision was priced (its record): a sent estimate reads the same after the shop changes its units
-      units: storedRecord(db, e.id)?.settings.units ?? shopUnits(),
+      units: recordUnits(db, e.id) ?? shopUnits(),
       replacedBy: e.status === 'superseded' ? replacedBy(e) : null,
       id: e.id,
       projectId: e.projectId,
@@ -255,7 +255,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
             .run();
           // the same items and the same engine result: the copy keeps the record it was made from
           const record = storedRecord(tx, latest.id);
-          if (record) tx.insert(revisionRecords).values({ estimateId: id, record }).run();
+          if (record) tx.insert(revisionRecords).values(recordRow(id, record)).run();
           writeLines(
             tx,
             id,
@@ -315,7 +315,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
         tx.insert(estimates)
           .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine, priceBookVersion: bookVersion })
           .run();
-        tx.insert(revisionRecords).values({ estimateId: id, record }).run();
+        tx.insert(revisionRecords).values(recordRow(id, record)).run();
         writeLines(
           tx,
           id,
