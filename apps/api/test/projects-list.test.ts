@@ -249,3 +249,22 @@ describe('GET /api/projects: statements', () => {
 it('every status has projects in the scale seed', () => {
   expect(new Set(rows().map((r) => r.status))).toEqual(new Set(PROJECT_STATUSES));
 });
+
+it('keeps each item’s design in its own column, from its spec, on insert and when the spec changes', () => {
+  const db = t.db.$client;
+  const { id: projectId } = db.prepare('SELECT id FROM projects LIMIT 1').get() as { id: string };
+  const id = `design-column-${Date.now()}`;
+  db.prepare('INSERT INTO project_items (id, project_id, position, spec, quantity) VALUES (?, ?, 99, ?, 1)').run(
+    id,
+    projectId,
+    JSON.stringify({ design: 'bookcase', widthMm: 800 }),
+  );
+  const design = () =>
+    (db.prepare('SELECT design FROM project_items WHERE id = ?').get(id) as { design: string }).design;
+  expect(design()).toBe('bookcase');
+  db.prepare('UPDATE project_items SET spec = ? WHERE id = ?').run(JSON.stringify({ design: 'wall-cabinet' }), id);
+  expect(design()).toBe('wall-cabinet');
+  db.prepare('UPDATE project_items SET spec = ? WHERE id = ?').run(JSON.stringify({ widthMm: 1 }), id);
+  expect(design()).toBe('');
+  db.prepare('DELETE FROM project_items WHERE id = ?').run(id);
+});

@@ -188,6 +188,11 @@ export const projectItems = sqliteTable(
     position: integer().notNull(),
     spec: text({ mode: 'json' }).notNull(),
     quantity: integer().notNull(),
+    /**
+     * the spec's design slug, kept by the database itself (triggers in migration 0012 set it from `spec` on every
+     * insert and spec update), so the project list names the items without parsing each spec; never written by code
+     */
+    design: text().notNull().default(''),
   },
   (t) => [index('project_items_project').on(t.projectId, t.position)],
 );

@@ -122,16 +122,16 @@ export function listProjects(
   if (!page.length) return { projects: [], nextCursor: null };
   const ids = JSON.stringify(page.map((r) => r.id));
 
-  // 2: their items, the design read from the spec without parsing it here
+  // 2: their items, the design from its own column (the database fills it from the spec: migration 0012)
   const items = stmt(
     db.$client,
-    `SELECT project_id AS projectId, json_extract(spec, '$.design') AS design, quantity
+    `SELECT project_id AS projectId, design, quantity
          FROM project_items WHERE project_id IN (SELECT value FROM json_each(?))
         ORDER BY project_id, position`,
-  ).all(ids) as { projectId: string; design: string | null; quantity: number }[];
+  ).all(ids) as { projectId: string; design: string; quantity: number }[];
   const itemsOf = new Map<string, ProjectSummary['items']>();
   for (const i of items) {
-    const slug = i.design ?? '';
+    const slug = i.design;
     const name = slug in designs ? designs[slug as DesignSlug].name : 'Custom piece';
     const list = itemsOf.get(i.projectId) ?? [];
     list.push({ design: slug, name, quantity: i.quantity });
