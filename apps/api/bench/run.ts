@@ -39,8 +39,8 @@ const dir = mkdtempSync(join(tmpdir(), 'bw-bench-'));
 const [apiPort, stripePort, smtpPort] = [await freePort(), await freePort(), await freePort()];
 const baseUrl = `http://127.0.0.1:${apiPort}`;
 const children: ChildProcess[] = [];
-function start(label: string, script: string, cwd: string, env: Record<string, string>) {
-  const child = spawn(process.execPath, ['--import', 'tsx', script], {
+function start(label: string, script: string, cwd: string, env: Record<string, string>, nodeArgs: string[] = []) {
+  const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', script], {
     cwd,
     env: { ...process.env, ...env, FORCE_COLOR: '0' },
     stdio: ['ignore', 'ignore', 'pipe'],
@@ -49,13 +49,16 @@ function start(label: string, script: string, cwd: string, env: Record<string, s
   children.push(child);
   return child;
 }
-function stop() {
-  for (const c of children) if (c.exitCode === null) c.kill('SIGTERM');
+/** Stops the children and waits (up to 10 s) for them to exit, so a profile they write on exit is complete. */
+async function stop() {
+  const running = children.filter((c) => c.exitCode === null);
+  const exited = running.map((c) => new Promise((ok) => c.once('exit', ok)));
+  for (const c of running) c.kill('SIGTERM');
+  await Promise.race([Promise.all(exited), new Promise((ok) => setTimeout(ok, 10_000))]);
   rmSync(dir, { recursive: true, force: true });
 }
 process.on('SIGINT', () => {
-  stop();
-  process.exit(130);
+  void stop().then(() => process.exit(130));
 });
 
 async function waitFor(url: string, what: string, timeoutMs = 180_000) {
@@ -89,24 +92,32 @@ if (scenario.scale) {
   });
   const code = await new Promise<number | null>((ok) => seed.once('exit', ok));
   if (code !== 0) {
-    stop();
+    await stop();
     throw new Error(`the scale seed failed (${code})`);
   }
 }
-start('api', 'src/index.ts', apiDir, {
-  HOST: '127.0.0.1',
-  PORT: String(apiPort),
-  DATABASE_PATH: join(dir, 'benchwright.db'),
-  PDF_DIR: join(dir, 'estimates'),
-  UPLOADS_DIR: join(dir, 'uploads'),
-  STRIPE_API_BASE: `http://127.0.0.1:${stripePort}`,
-  STRIPE_WEBHOOK_SECRET: secret,
-  SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, // nothing listens: mail waits in the outbox
-  RATE_LIMITS: 'false',
-  LOG_LEVEL: 'warn',
-  SEED_DEMO: 'true',
-  NODE_ENV: 'development',
-});
+// BENCH_API_NODE_ARGS: extra Node flags for the API only, e.g. '--cpu-prof --cpu-prof-dir=/tmp/prof' to profile it
+const apiNodeArgs = process.env.BENCH_API_NODE_ARGS?.split(/\s+/).filter(Boolean) ?? [];
+start(
+  'api',
+  'src/index.ts',
+  apiDir,
+  {
+    HOST: '127.0.0.1',
+    PORT: String(apiPort),
+    DATABASE_PATH: join(dir, 'benchwright.db'),
+    PDF_DIR: join(dir, 'estimates'),
+    UPLOADS_DIR: join(dir, 'uploads'),
+    STRIPE_API_BASE: `http://127.0.0.1:${stripePort}`,
+    STRIPE_WEBHOOK_SECRET: secret,
+    SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, // nothing listens: mail waits in the outbox
+    RATE_LIMITS: 'false',
+    LOG_LEVEL: 'warn',
+    SEED_DEMO: 'true',
+    NODE_ENV: 'development',
+  },
+  apiNodeArgs,
+);
 
 try {
   await waitFor(`http://127.0.0.1:${stripePort}/__fake/events`, 'the Stripe stand-in');
@@ -175,10 +186,10 @@ try {
     );
   }
   for (const line of (await plan.after?.()) ?? []) console.log(line);
-  stop();
+  await stop();
   process.exit(missed || failed ? 1 : 0);
 } catch (err) {
   console.error(String(err));
-  stop();
+  await stop();
   process.exit(1);
 }

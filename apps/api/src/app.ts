@@ -61,6 +61,9 @@ export interface AppDeps {
 export function createApp({ db, env, log, ready, pool: given }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
+  // every answer is `Cache-Control: no-store` (middleware/cache.ts), so no cache ever revalidates with an ETag:
+  // hashing each body for one was wasted work on every request
+  app.set('etag', false);
   // X-Forwarded-For is believed only from the proxies named in TRUST_PROXY (none by default)
   app.set('trust proxy', env.TRUST_PROXY);
   const secure = env.PORTAL_URL.startsWith('https:');

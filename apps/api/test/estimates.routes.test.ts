@@ -108,6 +108,40 @@ describe('GET /api/estimates/:id', () => {
     expect((await c.builder.get(`/api/estimates/${id}`)).status).toBe(403);
     expect((await c.t.agent().get(`/api/estimates/${id}`)).status).toBe(401);
   });
+  it('reads the units it is shown in from the revision’s own column, never loading its whole record', async () => {
+    const row = c.t.db.$client
+      .prepare(
+        `SELECT units, json_extract(record, '$.settings.units') AS recorded FROM revision_records WHERE estimate_id = ?`,
+      )
+      .get(id) as { units: string; recorded: string };
+    expect(row.units).toBe(row.recorded);
+    // the column, not the record, is what the view shows: set apart from the record, the view follows the column
+    const other = row.units === 'in' ? 'mm' : 'in';
+    c.t.db.$client.prepare('UPDATE revision_records SET units = ? WHERE estimate_id = ?').run(other, id);
+    const seen: string[] = [];
+    const proto = Object.getPrototypeOf(c.t.db.$client.prepare('SELECT 1')) as Record<
+      'all' | 'get' | 'iterate',
+      (this: { source: string }, ...args: unknown[]) => unknown
+    >;
+    const originals = { all: proto.all, get: proto.get, iterate: proto.iterate };
+    for (const m of ['all', 'get', 'iterate'] as const) {
+      const original = originals[m];
+      proto[m] = function (this: { source: string }, ...args: unknown[]) {
+        seen.push(this.source);
+        return original.apply(this, args);
+      };
+    }
+    let r;
+    try {
+      r = await c.owner.get(`/api/estimates/${id}`);
+    } finally {
+      Object.assign(proto, originals);
+      c.t.db.$client.prepare('UPDATE revision_records SET units = ? WHERE estimate_id = ?').run(row.units, id);
+    }
+    expect(r.status).toBe(200);
+    expect(r.body.estimate.units).toBe(other);
+    expect(seen.filter((s) => /revision_records/.test(s) && /"record"|\brecord\b/.test(s))).toEqual([]);
+  });
 });
 
 describe('PATCH /api/estimates/:id', () => {

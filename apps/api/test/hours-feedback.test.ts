@@ -190,3 +190,39 @@ describe('POST /api/hours-feedback/:stage/apply', () => {
     },
   );
 });
+
+describe('GET /api/hours-feedback: the sums', () => {
+  it('sums each job’s logged hours per stage in the database (GROUP BY), never reading the time entries one by one', async () => {
+    // a delivered job whose casework was logged in two entries: the sum counts both
+    delivered(10, 4, new Date(Date.now() + 2000));
+    const last = t.db.select().from(timeEntries).all().at(-1)!;
+    t.db
+      .insert(timeEntries)
+      .values({ ...last, id: randomUUID(), hours: 6 })
+      .run();
+    const seen: string[] = [];
+    const proto = Object.getPrototypeOf(t.db.$client.prepare('SELECT 1')) as Record<
+      'all' | 'get' | 'iterate',
+      (this: { source: string }, ...args: unknown[]) => unknown
+    >;
+    const originals = { all: proto.all, get: proto.get, iterate: proto.iterate };
+    for (const m of ['all', 'get', 'iterate'] as const) {
+      const original = originals[m];
+      proto[m] = function (this: { source: string }, ...args: unknown[]) {
+        seen.push(this.source);
+        return original.apply(this, args);
+      };
+    }
+    let stage: Stage;
+    try {
+      stage = await casework();
+    } finally {
+      Object.assign(proto, originals);
+    }
+    const reads = seen.filter((s) => /time_entries/.test(s));
+    expect(reads.length, seen.join('\n')).toBeGreaterThan(0);
+    for (const s of reads) expect(s).toMatch(/sum\([^)]*hours[^)]*\)[\s\S]*group by [^\n]*job_id[^\n]*stage_key/i);
+    // 4 + 6 hours logged against 10 budgeted
+    expect((stage as Stage & { ratios: number[] }).ratios).toContain(1);
+  });
+});

@@ -68,6 +68,36 @@ describe('the PDF worker', () => {
     const settled = await Promise.allSettled(runs);
     const busy = settled.filter((s) => s.status === 'rejected' && (s.reason as { code?: string }).code === 'busy');
     expect(busy.length).toBe(2); // one drawing, one waiting, two refused
+    // in words for the owner or the client who asked for a PDF, not the engine's
+    for (const b of busy) {
+      const message = ((b as PromiseRejectedResult).reason as Error).message;
+      expect(message).toMatch(/PDFs are being made/);
+      expect(message).not.toMatch(/engine/i);
+    }
     expect(settled.filter((s) => s.status === 'fulfilled').length).toBe(2);
   });
+  it('counts a document’s time limit from when the thread picks it up, not while it waits behind others', async () => {
+    const doc = () => ({ kind: 'labels' as const, input: labels(5) });
+    const p = pool(4, 60_000);
+    await p.warm();
+    let t0 = performance.now();
+    await p.render(doc()); // a thread's first drawing also loads the fonts
+    const first = performance.now() - t0;
+    let took = 0;
+    for (let i = 0; i < 2; i++) {
+      t0 = performance.now();
+      await p.render(doc());
+      took = Math.max(took, performance.now() - t0);
+    }
+    // each document alone (the first one on the thread too) is well inside its limit; so many wait that, were the
+    // limit counted from the queue, the last would wait twice the limit
+    const limit = Math.ceil(3 * Math.max(took, first));
+    const n = Math.min(200, Math.ceil((2 * limit) / took) + 1);
+    const limited = pool(n, limit);
+    await limited.warm();
+    const settled = await Promise.allSettled(Array.from({ length: n }, () => limited.render(doc())));
+    expect(settled.map((s) => (s.status === 'fulfilled' ? 'drawn' : (s.reason as { code?: string }).code))).toEqual(
+      Array(n).fill('drawn'),
+    );
+  }, 240_000);
 });

@@ -214,8 +214,12 @@ describe('GET /api/projects: bad input', () => {
 describe('GET /api/projects: statements', () => {
   it('reads a page of 200 in at most 3 SQL statements, the same as a page of 1', async () => {
     const seen: string[] = [];
-    const client = t.db.$client;
-    const prepare = client.prepare.bind(client);
+    // statements are prepared once and reused (lib/statements.ts): count each one run, not each one prepared
+    const proto = Object.getPrototypeOf(t.db.$client.prepare('SELECT 1')) as Record<
+      'all' | 'get' | 'run' | 'iterate',
+      (this: { source: string }, ...args: unknown[]) => unknown
+    >;
+    const originals = { all: proto.all, get: proto.get, run: proto.run, iterate: proto.iterate };
     const count = async (limit: number) => {
       seen.length = 0;
       const r = await owner.get('/api/projects').query({ limit, sort: 'client', dir: 'asc' });
@@ -223,21 +227,44 @@ describe('GET /api/projects: statements', () => {
       // the session's own reads are the same for every route
       return seen.filter((s) => !/\bsessions\b/.test(s));
     };
-    client.prepare = ((source: string) => {
-      seen.push(source);
-      return prepare(source);
-    }) as typeof client.prepare;
+    for (const m of ['all', 'get', 'run', 'iterate'] as const) {
+      const original = originals[m];
+      proto[m] = function (this: { source: string }, ...args: unknown[]) {
+        seen.push(this.source);
+        return original.apply(this, args);
+      };
+    }
     try {
       const big = await count(200);
       const small = await count(1);
+      expect(big.length, big.join('\n')).toBeGreaterThan(0);
       expect(big.length, big.join('\n')).toBeLessThanOrEqual(3);
       expect(big.length).toBe(small.length);
     } finally {
-      client.prepare = prepare;
+      Object.assign(proto, originals);
     }
   });
 });
 
 it('every status has projects in the scale seed', () => {
   expect(new Set(rows().map((r) => r.status))).toEqual(new Set(PROJECT_STATUSES));
+});
+
+it('keeps each item’s design in its own column, from its spec, on insert and when the spec changes', () => {
+  const db = t.db.$client;
+  const { id: projectId } = db.prepare('SELECT id FROM projects LIMIT 1').get() as { id: string };
+  const id = `design-column-${Date.now()}`;
+  db.prepare('INSERT INTO project_items (id, project_id, position, spec, quantity) VALUES (?, ?, 99, ?, 1)').run(
+    id,
+    projectId,
+    JSON.stringify({ design: 'bookcase', widthMm: 800 }),
+  );
+  const design = () =>
+    (db.prepare('SELECT design FROM project_items WHERE id = ?').get(id) as { design: string }).design;
+  expect(design()).toBe('bookcase');
+  db.prepare('UPDATE project_items SET spec = ? WHERE id = ?').run(JSON.stringify({ design: 'wall-cabinet' }), id);
+  expect(design()).toBe('wall-cabinet');
+  db.prepare('UPDATE project_items SET spec = ? WHERE id = ?').run(JSON.stringify({ widthMm: 1 }), id);
+  expect(design()).toBe('');
+  db.prepare('DELETE FROM project_items WHERE id = ?').run(id);
 });

@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { ESTIMATE_STATUSES, PROJECT_STATUSES, STAGE_KEYS } from '@benchwright/contracts';
-import { LINE_GROUPS, type ShopSettings, type StageKey } from '@benchwright/pricing';
+import { LINE_GROUPS, type Choice, type ShopSettings, type StageKey } from '@benchwright/pricing';
 import type { LayoutRecord, RevisionRecord } from '../lib/record';
 
 /**
@@ -193,6 +193,11 @@ export const projectItems = sqliteTable(
     position: integer().notNull(),
     spec: text({ mode: 'json' }).notNull(),
     quantity: integer().notNull(),
+    /**
+     * the spec's design slug, kept by the database itself (triggers in migration 0013 set it from `spec` on every
+     * insert and spec update), so the project list names the items without parsing each spec; never written by code
+     */
+    design: text().notNull().default(''),
   },
   (t) => [index('project_items_project').on(t.projectId, t.position)],
 );
@@ -275,6 +280,18 @@ export const revisionRecords = sqliteTable('revision_records', {
     .primaryKey()
     .references(() => estimates.id, { onDelete: 'cascade' }),
   record: text({ mode: 'json' }).$type<RevisionRecord>().notNull(),
+  /**
+   * the record's `settings.units`, kept apart so the estimate view reads its units without loading the whole
+   * record; written with the record (`recordRow` in lib/record.ts), never changed
+   */
+  units: text({ enum: ['in', 'mm'] })
+    .notNull()
+    .default('in'),
+  /** the record's `choices` (the client's choices per item, in plain words), kept apart for the same reason */
+  choices: text({ mode: 'json' })
+    .$type<Choice[][]>()
+    .notNull()
+    .default(sql`'[]'`),
   createdAt: createdAt(),
 });
 

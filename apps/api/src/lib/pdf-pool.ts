@@ -22,6 +22,11 @@ export interface PdfPoolOptions {
   timeoutMs: number;
 }
 
+/** one thread draws; more would take CPU from the requests and the engine on a small machine */
+const THREADS = 1;
+/** what the owner or the client reads when too many documents wait (503 busy) */
+const BUSY = 'Other PDFs are being made right now. Try again in a few seconds.';
+
 let bundled: Promise<string> | undefined;
 /**
  * The worker's code (pdf-task.ts and the documents under it) as one ES module,
@@ -69,24 +74,41 @@ export function createPdfPool(opts: PdfPoolOptions): PdfPool {
   let outstanding = 0;
   const start = () =>
     (started ??= workerFile().then((filename) => {
-      piscina = new Piscina({ filename, minThreads: 1, maxThreads: 1, idleTimeout: 60_000 });
+      piscina = new Piscina({ filename, minThreads: THREADS, maxThreads: THREADS, idleTimeout: 60_000 });
       if (closed) void piscina.destroy();
       return piscina;
     }));
 
+  // Our own queue in front of the thread: a document is handed to piscina only when a thread is free, so its time
+  // limit counts from when the thread picks it up, never the time it waited behind others.
+  let drawing = 0;
+  const waiting: (() => void)[] = [];
+  const turn = () => (drawing < THREADS ? (drawing++, Promise.resolve()) : new Promise<void>((ok) => waiting.push(ok)));
+  // the next waiting document takes the freed thread over (`drawing` stays counted for it)
+  const done = () => {
+    const next = waiting.shift();
+    if (next) next();
+    else drawing--;
+  };
+
   async function run(task: PdfTask): Promise<Uint8Array> {
-    if (outstanding >= 1 + opts.maxQueue) throw new Busy(5);
+    if (outstanding >= THREADS + opts.maxQueue) throw new Busy(5, BUSY);
     outstanding++;
-    const abort = new AbortController();
-    const timer = setTimeout(() => abort.abort(new Error('time limit')), opts.timeoutMs);
     try {
       const pool = piscina ?? (await start());
-      return (await pool.run(task, { signal: abort.signal })) as Uint8Array;
-    } catch (err) {
-      if (abort.signal.aborted) throw new Unavailable('The document took too long to draw. Try again in a minute.');
-      throw err;
+      await turn();
+      const abort = new AbortController();
+      const timer = setTimeout(() => abort.abort(new Error('time limit')), opts.timeoutMs);
+      try {
+        return (await pool.run(task, { signal: abort.signal })) as Uint8Array;
+      } catch (err) {
+        if (abort.signal.aborted) throw new Unavailable('The document took too long to draw. Try again in a minute.');
+        throw err;
+      } finally {
+        clearTimeout(timer);
+        done();
+      }
     } finally {
-      clearTimeout(timer);
       outstanding--;
     }
   }

@@ -136,6 +136,26 @@ export function latestRelayout(db: Pick<Db, 'select'>, jobId: string) {
 }
 
 /** A revision's stored record, if it has one. */
+/** The row that keeps a revision's record, with the units people read it in beside it. */
+export function recordRow(estimateId: string, record: RevisionRecord) {
+  return { estimateId, record, units: record.settings.units, choices: record.choices ?? [] };
+}
+
+/**
+ * What the estimate view needs of a revision's record, read from its own columns: the units it was priced in
+ * and the client's choices per item. The record itself (layouts, traveller, drawings) stays unread.
+ */
+export function recordView(
+  db: Pick<Db, 'select'>,
+  estimateId: string,
+): { units: 'in' | 'mm'; choices: Choice[][] } | undefined {
+  return db
+    .select({ units: revisionRecords.units, choices: revisionRecords.choices })
+    .from(revisionRecords)
+    .where(eq(revisionRecords.estimateId, estimateId))
+    .get();
+}
+
 export function storedRecord(db: Pick<Db, 'select'>, estimateId: string): RevisionRecord | undefined {
   return db
     .select({ record: revisionRecords.record })
@@ -157,7 +177,7 @@ export async function recordOf(
   // no choices: they would be read from that day's book, not the one the revision was priced with
   const { choices: _today, ...priced } = await priceRecord(pool, items, book, settings);
   const record = { ...priced, backfilled: true };
-  db.insert(revisionRecords).values({ estimateId: row.id, record }).onConflictDoNothing().run();
+  db.insert(revisionRecords).values(recordRow(row.id, record)).onConflictDoNothing().run();
   return storedRecord(db, row.id)!;
 }
 

@@ -31,7 +31,7 @@ import {
 import { forClient, loadPricing, projectSpecs } from '../../lib/engine';
 import { logoPng } from '../../lib/shop-logo';
 import type { EnginePool } from '../../lib/engine-pool';
-import { priceRecord, storedRecord, type RevisionRecord } from '../../lib/record';
+import { priceRecord, recordRow, recordView, storedRecord, type RevisionRecord } from '../../lib/record';
 import { queueMail } from '../../lib/mailer';
 import { estimateMail, withdrawnMail } from '../../lib/mail-templates';
 import type { PdfPool } from '../../lib/pdf-pool';
@@ -124,10 +124,10 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       .all();
     const owner = viewer.role === 'owner';
     const engine = e.engine as EngineRecord | null;
-    const record = storedRecord(db, e.id);
+    const view = recordView(db, e.id);
     return {
       // as the revision was priced (its record): a sent estimate reads the same after the shop changes its units
-      units: record?.settings.units ?? shopUnits(),
+      units: view?.units ?? shopUnits(),
       replacedBy: e.status === 'superseded' ? replacedBy(e) : null,
       id: e.id,
       projectId: e.projectId,
@@ -162,7 +162,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
       hoursByStage: owner ? e.hoursByStage : undefined,
       drawings: engine?.drawings ?? [],
       // each item's choices as they were priced; a revision recorded before they were kept has none
-      choices: record?.choices ?? [],
+      choices: view?.choices ?? [],
       checks: owner ? (engine?.checks ?? []) : forClient(engine?.checks ?? []),
       ...(owner && engine ? { layouts: engine.layouts, costCents: lines.reduce((a, l) => a + l.costCents, 0) } : {}),
     };
@@ -258,7 +258,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
             .run();
           // the same items and the same engine result: the copy keeps the record it was made from
           const record = storedRecord(tx, latest.id);
-          if (record) tx.insert(revisionRecords).values({ estimateId: id, record }).run();
+          if (record) tx.insert(revisionRecords).values(recordRow(id, record)).run();
           writeLines(
             tx,
             id,
@@ -318,7 +318,7 @@ export function createEstimatesService({ db, pdfDir, portalUrl, pool, pdfs }: Es
         tx.insert(estimates)
           .values({ id, projectId, revision, ...e.totals, hoursByStage: hours, engine, priceBookVersion: bookVersion })
           .run();
-        tx.insert(revisionRecords).values({ estimateId: id, record }).run();
+        tx.insert(revisionRecords).values(recordRow(id, record)).run();
         writeLines(
           tx,
           id,

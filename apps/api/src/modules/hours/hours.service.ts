@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { hoursFeedback, scaleStandards, STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { User } from '@benchwright/contracts';
 import type { Db, Tx } from '../../db/client';
@@ -49,7 +49,25 @@ export function createHoursService(db: Db) {
       .orderBy(desc(jobs.updatedAt))
       .limit(200)
       .all();
-    const entries = d.select().from(timeEntries).all();
+    // the hours logged per job and stage, summed in the database for the delivered jobs above only
+    const logged = new Map<string, number>();
+    if (delivered.length)
+      for (const r of d
+        .select({
+          jobId: timeEntries.jobId,
+          stage: timeEntries.stageKey,
+          hours: sql<number>`sum(${timeEntries.hours})`,
+        })
+        .from(timeEntries)
+        .where(
+          inArray(
+            timeEntries.jobId,
+            delivered.map((j) => j.id),
+          ),
+        )
+        .groupBy(timeEntries.jobId, timeEntries.stageKey)
+        .all())
+        logged.set(`${r.jobId} ${r.stage}`, r.hours);
     // the price-book version each delivered job was priced from: its project's accepted revision's
     const pricedWith = new Map(
       delivered.length
@@ -90,7 +108,7 @@ export function createHoursService(db: Db) {
           .map((j) => ({
             budget: j.hoursBudget,
             logged: {
-              [stage]: entries.filter((e) => e.jobId === j.id && e.stageKey === stage).reduce((s, e) => s + e.hours, 0),
+              [stage]: logged.get(`${j.id} ${stage}`) ?? 0,
             } as Partial<Record<StageKey, number>>,
           }));
         const f = hoursFeedback(compared).find((x) => x.stage === stage)!;

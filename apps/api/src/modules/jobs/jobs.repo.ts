@@ -4,6 +4,7 @@ import { STAGE_KEYS, type StageKey } from '@benchwright/pricing';
 import type { ProjectStatus } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
 import { decodeCursor, encodeCursor } from '../../lib/cursor';
+import { stmt } from '../../lib/statements';
 
 type Hours = Partial<Record<StageKey, number>> & { total: number };
 export interface JobView {
@@ -42,12 +43,11 @@ const round2 = (n: number) => Math.round(n * 100) / 100;
 
 function views(db: Db, rows: Row[]): JobView[] {
   if (!rows.length) return [];
-  const logged = db.$client
-    .prepare(
-      `SELECT job_id AS jobId, stage_key AS stage, sum(hours) AS hours FROM time_entries
+  const logged = stmt(
+    db.$client,
+    `SELECT job_id AS jobId, stage_key AS stage, sum(hours) AS hours FROM time_entries
         WHERE job_id IN (SELECT value FROM json_each(?)) GROUP BY job_id, stage_key`,
-    )
-    .all(JSON.stringify(rows.map((r) => r.id))) as { jobId: string; stage: string; hours: number }[];
+  ).all(JSON.stringify(rows.map((r) => r.id))) as { jobId: string; stage: string; hours: number }[];
   const byJob = new Map<string, Map<string, number>>();
   for (const l of logged) byJob.set(l.jobId, (byJob.get(l.jobId) ?? new Map()).set(l.stage, l.hours));
   return rows.map((r) => {
@@ -74,28 +74,28 @@ function views(db: Db, rows: Row[]): JobView[] {
 
 /** One job as the board shows it. */
 export function jobView(db: Db, id: string): JobView | undefined {
-  return views(db, db.$client.prepare(`${SELECT} WHERE j.id = ?`).all(id) as Row[])[0];
+  return views(db, stmt(db.$client, `${SELECT} WHERE j.id = ?`).all(id) as Row[])[0];
 }
 
 /** The jobs still in the shop (every stage but Delivered), in board order. */
 export function openJobs(db: Db): JobView[] {
   return views(
     db,
-    db.$client
-      .prepare(`${SELECT} WHERE j.stage_key <> 'delivered' ORDER BY j.position, j.created_at, j.id`)
-      .all() as Row[],
+    stmt(
+      db.$client,
+      `${SELECT} WHERE j.stage_key <> 'delivered' ORDER BY j.position, j.created_at, j.id`,
+    ).all() as Row[],
   );
 }
 
 /** A page of delivered jobs, the latest moved first (keyset on updated_at, id). */
 export function deliveredJobs(db: Db, limit: number, cursor?: string) {
   const at = cursor ? decodeCursor(cursor, 'delivered', 'desc', 'number') : null;
-  const rows = db.$client
-    .prepare(
-      `${SELECT} WHERE j.stage_key = 'delivered' ${at ? 'AND (j.updated_at, j.id) < (?, ?)' : ''}
+  const rows = stmt(
+    db.$client,
+    `${SELECT} WHERE j.stage_key = 'delivered' ${at ? 'AND (j.updated_at, j.id) < (?, ?)' : ''}
         ORDER BY j.updated_at DESC, j.id DESC LIMIT ?`,
-    )
-    .all(...(at ? [at.key, at.id] : []), limit + 1) as Row[];
+  ).all(...(at ? [at.key, at.id] : []), limit + 1) as Row[];
   const more = rows.length > limit;
   const page = more ? rows.slice(0, limit) : rows;
   const last = page.at(-1);

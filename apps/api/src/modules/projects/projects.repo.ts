@@ -12,6 +12,7 @@ import {
 } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
 import { decodeCursor, encodeCursor } from '../../lib/cursor';
+import { stmt } from '../../lib/statements';
 import { Invalid } from '../../lib/errors';
 
 export interface ProjectListOptions {
@@ -107,32 +108,30 @@ export function listProjects(
       ? 'users u CROSS JOIN projects p ON p.client_id = u.id'
       : 'projects p JOIN users u ON u.id = p.client_id';
   // 1: the page, one row more than asked to know whether another page follows
-  const rows = db.$client
-    .prepare(
-      `SELECT p.id, p.status, p.notes, p.created_at AS createdAt, p.updated_at AS updatedAt,
+  const rows = stmt(
+    db.$client,
+    `SELECT p.id, p.status, p.notes, p.created_at AS createdAt, p.updated_at AS updatedAt,
               p.client_id AS clientId, u.name AS clientName, ${key.sql} AS k
          FROM ${from}
         ${where.length ? `WHERE ${where.join(' AND ')}` : ''}
         ORDER BY ${key.sql} ${dir}, p.id ${dir}
         LIMIT ?`,
-    )
-    .all(...params, opts.limit + 1) as PageRow[];
+  ).all(...params, opts.limit + 1) as PageRow[];
   const more = rows.length > opts.limit;
   const page = more ? rows.slice(0, opts.limit) : rows;
   if (!page.length) return { projects: [], nextCursor: null };
   const ids = JSON.stringify(page.map((r) => r.id));
 
-  // 2: their items, the design read from the spec without parsing it here
-  const items = db.$client
-    .prepare(
-      `SELECT project_id AS projectId, json_extract(spec, '$.design') AS design, quantity
+  // 2: their items, the design from its own column (the database fills it from the spec: migration 0013)
+  const items = stmt(
+    db.$client,
+    `SELECT project_id AS projectId, design, quantity
          FROM project_items WHERE project_id IN (SELECT value FROM json_each(?))
         ORDER BY project_id, position`,
-    )
-    .all(ids) as { projectId: string; design: string | null; quantity: number }[];
+  ).all(ids) as { projectId: string; design: string; quantity: number }[];
   const itemsOf = new Map<string, ProjectSummary['items']>();
   for (const i of items) {
-    const slug = i.design ?? '';
+    const slug = i.design;
     const name = slug in designs ? designs[slug as DesignSlug].name : 'Custom piece';
     const list = itemsOf.get(i.projectId) ?? [];
     list.push({ design: slug, name, quantity: i.quantity });
@@ -143,16 +142,15 @@ export function listProjects(
   const latestOf = new Map<string, ProjectSummary['latestEstimate']>();
   if (viewer.role !== 'builder') {
     const sent = viewer.role === 'client' ? `AND status <> 'draft'` : '';
-    const ests = db.$client
-      .prepare(
-        `SELECT e.project_id AS projectId, e.id, e.revision, e.status, e.subtotal_cents AS subtotalCents,
+    const ests = stmt(
+      db.$client,
+      `SELECT e.project_id AS projectId, e.id, e.revision, e.status, e.subtotal_cents AS subtotalCents,
                 e.discount_cents AS discountCents, e.tax_cents AS taxCents, e.total_cents AS totalCents,
                 e.deposit_cents AS depositCents, e.balance_cents AS balanceCents
            FROM estimates e
           WHERE e.project_id IN (SELECT value FROM json_each(?))
             AND e.revision = (SELECT max(revision) FROM estimates WHERE project_id = e.project_id ${sent})`,
-      )
-      .all(ids) as EstimateRow[];
+    ).all(ids) as EstimateRow[];
     for (const e of ests)
       latestOf.set(e.projectId, {
         id: e.id,

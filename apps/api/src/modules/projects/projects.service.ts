@@ -1,10 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import { asc, desc, eq } from 'drizzle-orm';
+import { asc, desc, eq, sql } from 'drizzle-orm';
 import { isInShop, type Project, type User } from '@benchwright/contracts';
 import type { Db } from '../../db/client';
 import { estimates, projectEvents, projectItems, projects, users } from '../../db/schema';
 import { checkItems, loadPricing, projectSpecs, travellerFor } from '../../lib/engine';
 import { recordOf } from '../../lib/record';
+import { preparedOnce } from '../../lib/statements';
 import type { EnginePool } from '../../lib/engine-pool';
 import { queueMail } from '../../lib/mailer';
 import { clientInvitationMail, commentMail, projectStartedMail } from '../../lib/mail-templates';
@@ -17,35 +18,47 @@ import { listUploads } from '../uploads/uploads.repo';
 import { listProjects, type ProjectListOptions } from './projects.repo';
 
 export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl: string }, pool: EnginePool) {
+  // the queries of one project's page, built and prepared once, at first use (after the migrations): Drizzle
+  // otherwise builds and prepares each query again on every call
+  const byId = sql.placeholder('id');
+  const q = () =>
+    preparedOnce(db, 'project page', () => ({
+      project: db.select().from(projects).where(eq(projects.id, byId)).prepare(),
+      client: db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, byId)).prepare(),
+      items: db
+        .select()
+        .from(projectItems)
+        .where(eq(projectItems.projectId, byId))
+        .orderBy(asc(projectItems.position))
+        .prepare(),
+      estimates: db
+        .select()
+        .from(estimates)
+        .where(eq(estimates.projectId, byId))
+        .orderBy(asc(estimates.revision))
+        .prepare(),
+      events: db
+        .select({
+          id: projectEvents.id,
+          kind: projectEvents.kind,
+          message: projectEvents.message,
+          createdAt: projectEvents.createdAt,
+          by: users.name,
+          stageKey: projectEvents.stageKey,
+          uploadId: projectEvents.uploadId,
+        })
+        .from(projectEvents)
+        .leftJoin(users, eq(users.id, projectEvents.actorId))
+        .where(eq(projectEvents.projectId, byId))
+        .orderBy(asc(projectEvents.createdAt))
+        .prepare(),
+    }));
+
   function toProject(row: typeof projects.$inferSelect, viewer: User): Project {
-    const client = db.select({ id: users.id, name: users.name }).from(users).where(eq(users.id, row.clientId)).get()!;
-    const items = db
-      .select()
-      .from(projectItems)
-      .where(eq(projectItems.projectId, row.id))
-      .orderBy(asc(projectItems.position))
-      .all();
-    const ests = db
-      .select()
-      .from(estimates)
-      .where(eq(estimates.projectId, row.id))
-      .orderBy(asc(estimates.revision))
-      .all();
-    const events = db
-      .select({
-        id: projectEvents.id,
-        kind: projectEvents.kind,
-        message: projectEvents.message,
-        createdAt: projectEvents.createdAt,
-        by: users.name,
-        stageKey: projectEvents.stageKey,
-        uploadId: projectEvents.uploadId,
-      })
-      .from(projectEvents)
-      .leftJoin(users, eq(users.id, projectEvents.actorId))
-      .where(eq(projectEvents.projectId, row.id))
-      .orderBy(asc(projectEvents.createdAt))
-      .all();
+    const client = q().client.get({ id: row.clientId })!;
+    const items = q().items.all({ id: row.id });
+    const ests = q().estimates.all({ id: row.id });
+    const events = q().events.all({ id: row.id });
     return {
       id: row.id,
       status: row.status,
@@ -87,7 +100,7 @@ export function createProjectsService(db: Db, urls: { portalUrl: string; shopUrl
 
     /** A project the viewer may not see answers 404, as if it did not exist. */
     get(viewer: User, id: string): Project {
-      const row = db.select().from(projects).where(eq(projects.id, id)).get();
+      const row = q().project.get({ id });
       if (!row) throw new NotFound('The project');
       if (viewer.role === 'client' && row.clientId !== viewer.id) throw new NotFound('The project');
       if (viewer.role === 'builder' && !isInShop(row.status)) throw new NotFound('The project');
