@@ -85,6 +85,8 @@ const Env = z.object({
   JSON_LIMIT: z.string().default('100kb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: bool.default(true),
+  /** price, in the background after start-up, every revision stored before revisions kept their record */
+  RECORD_BACKFILL: bool.default(true),
   PDF_DIR: z.string().default('data/estimates').transform(fromRoot),
   // Stripe: the local stand-in by default; real Stripe is only a matter of these three
   STRIPE_SECRET_KEY: z

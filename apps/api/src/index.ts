@@ -44,9 +44,10 @@ async function boot() {
   }
   ready = true;
   log.info('migrations and seed done; ready');
-  backfillRecords(db, app.pool, (projectId) => ({ ...loadPricing(db), items: projectSpecs(db, projectId) }))
-    .then((n) => n && log.info(`${n} revision(s) priced before records were kept now have their record`))
-    .catch((err) => log.warn({ err: String(err) }, 'revision records not filled in'));
+  if (env.RECORD_BACKFILL)
+    backfillRecords(db, app.pool, (projectId) => ({ ...loadPricing(db), items: projectSpecs(db, projectId) }))
+      .then((n) => n && log.info(`${n} revision(s) priced before records were kept now have their record`))
+      .catch((err) => log.warn({ err: String(err) }, 'revision records not filled in'));
 }
 boot().catch((err) => {
   log.fatal({ err }, 'start-up failed');

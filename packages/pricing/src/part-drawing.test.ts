@@ -143,7 +143,7 @@ describe('a door', () => {
     expect(dimTexts(d).filter((t) => t.text === '3 15/16"')).toHaveLength(2);
     expect(dimensionAt(d, '7/8"')).toEqual({ axis: 'y', from: door.widthMm - 22.5, to: door.widthMm });
     expect(d.notes).toContain(
-      '2 hinge cups, 35 mm, 13 mm deep, inside face: centres 7/8" from the hinge edge; 3 15/16" from the bottom end and 3 15/16" from the top end.',
+      '2 hinge cups, 35 mm, 13 mm deep, inside face: centers 7/8" from the hinge edge; 3 15/16" from the bottom end and 3 15/16" from the top end.',
     );
   });
   it('reads in millimetres for a metric shop', () => {

@@ -433,7 +433,7 @@ export function partDrawing(
     const lastFromTop = ends ? Math.abs(top.at - xs[xs.length - 1]!) : 0;
     note(
       `${o.centresMm.length} hinge cup${o.centresMm.length === 1 ? '' : 's'}, ${drawingLength(o.diameterMm, 'mm')}, ` +
-        `${o.depthMm} mm deep, ${FACE_WORDS[o.face]}: centres ${len(o.edgeDistanceMm)} from the ${sd.words}; ` +
+        `${o.depthMm} mm deep, ${FACE_WORDS[o.face]}: centers ${len(o.edgeDistanceMm)} from the ${sd.words}; ` +
         (ends
           ? `${len(o.centresMm[0]!)} from the ${bottom.words} and ${len(lastFromTop)} from the ${top.words}` +
             (o.centresMm.length > 2
@@ -504,7 +504,7 @@ export function partDrawing(
       // rows kept for some parts of the line only ("left", "right"): say which, unless one row is for all
       const ones = g.some((x) => !x.only) ? [] : [...new Set(g.map((x) => x.only!))];
       note(
-        `Shelf-pin row, ${faces}: ${r.holes} holes ${drawingLength(r.diameterMm, 'mm')} on ${r.spacingMm} mm centres, ` +
+        `Shelf-pin row, ${faces}: ${r.holes} holes ${drawingLength(r.diameterMm, 'mm')} on ${r.spacingMm} mm centers, ` +
           `${len(r.setbackMm)} from the ${sd.words}, the first ${len(r.firstHoleMm)} from the ${bottom.words}` +
           `${ones.length ? ` (on the ${listWords(ones)} one${ones.length > 1 ? 's' : ''}${ones.length > 1 ? '' : ' only'})` : ''}.`,
         [0.5, 0.3, 0.7, 0.15, 0.85].map((f) => [x0 + (x1 - x0) * f, y + sd.into * s * 0.9] as [number, number]),
