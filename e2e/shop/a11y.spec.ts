@@ -16,11 +16,20 @@ const SIGNED_IN = [
   '/mail',
   '/account',
 ];
+/** the owner's own pages (a builder is shown that they are the owner's) */
+const OWNER = ['/clients', '/clients/:client', '/price-book', '/settings'];
 const PHONE = ['/board', '/jobs/:job'];
 
 /** The path with a job on the board (and its project) in place of `:job` and `:project`. */
 async function resolve(page: Page, path: string) {
   if (!path.includes(':')) return path;
+  if (path.includes(':client')) {
+    const r = await page.request.get('/api/clients');
+    expect(r.status()).toBe(200);
+    const client = ((await r.json()) as { clients: { id: string }[] }).clients[0];
+    expect(client, 'a client').toBeTruthy();
+    return path.replace(':client', client!.id);
+  }
   const r = await page.request.get('/api/jobs');
   expect(r.status()).toBe(200);
   const job = ((await r.json()) as { jobs: { id: string; project: { id: string } }[] }).jobs[0];
@@ -39,6 +48,10 @@ for (const role of ['owner', 'builder'] as const) {
   test.describe(`the shop app, as the ${role}`, () => {
     test.use({ storageState: authFile(role) });
     for (const path of SIGNED_IN)
+      test(`${path}: one h1, no serious or critical axe violation`, async ({ page }) => {
+        await checkPage(page, await resolve(page, path));
+      });
+    for (const path of role === 'owner' ? OWNER : [])
       test(`${path}: one h1, no serious or critical axe violation`, async ({ page }) => {
         await checkPage(page, await resolve(page, path));
       });

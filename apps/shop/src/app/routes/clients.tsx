@@ -12,7 +12,7 @@ export function ClientsRoute() {
   const navigate = useNavigate();
   return (
     <RoleGate allow={canSeeClients}>
-      <Panel title="Clients">
+      <Panel title="Clients" level={1}>
         <ClientsTable linkTo={paths.client.getHref} />
       </Panel>
       <Panel title="Add a client">

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDate, type ClientSort } from '@benchwright/contracts';
-import { Button, Money, Notice } from '@benchwright/ui';
+import { Money, MoreButton, Notice } from '@benchwright/ui';
 import { useClients, type ClientsParams } from '../api/clients';
 
 const COLUMNS: { sort: ClientSort; label: string; numeric?: boolean }[] = [
@@ -47,7 +47,7 @@ export function ClientsTable({ linkTo, pageSize }: { linkTo: (id: string) => str
                 <th
                   key={c.sort}
                   scope="col"
-                  className={`py-2 ${c.numeric ? 'text-right' : ''}`}
+                  className={`py-2 ${c.numeric ? 'pl-4 text-right' : c.sort === 'activity' ? 'pl-6' : ''}`}
                   aria-sort={params.sort === c.sort ? (params.order === 'asc' ? 'ascending' : 'descending') : undefined}
                 >
                   <button type="button" className="font-semibold hover:text-wood" onClick={() => sortBy(c.sort)}>
@@ -77,7 +77,7 @@ export function ClientsTable({ linkTo, pageSize }: { linkTo: (id: string) => str
                 <td className="py-2 text-right">
                   <Money cents={c.paidCents} />
                 </td>
-                <td className="py-2">{formatDate(c.lastActivityAt)}</td>
+                <td className="py-2 pl-6">{formatDate(c.lastActivityAt)}</td>
               </tr>
             ))}
             {clients.data && rows.length === 0 ? (
@@ -90,17 +90,7 @@ export function ClientsTable({ linkTo, pageSize }: { linkTo: (id: string) => str
           </tbody>
         </table>
       )}
-      {clients.hasNextPage ? (
-        <Button
-          type="button"
-          variant="quiet"
-          className="mt-3"
-          disabled={clients.isFetchingNextPage}
-          onClick={() => void clients.fetchNextPage()}
-        >
-          {clients.isFetchingNextPage ? 'Loading…' : 'Load more'}
-        </Button>
-      ) : null}
+      <MoreButton list={clients} />
     </div>
   );
 }

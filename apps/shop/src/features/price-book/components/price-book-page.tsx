@@ -8,15 +8,17 @@ import { VersionHistory } from './version-history';
 /** The owner's price book: a section per kind, each with its table and its CSV. */
 export function PriceBookPage() {
   const q = usePriceBook();
-  if (q.isPending) return <p>Loading…</p>;
+  if (q.isPending) return <p>Loading the price book…</p>;
   if (q.isError) return <Notice tone="error">{q.error.message}</Notice>;
   const book = q.data;
   return (
     <>
-      <p className="mb-4 text-ink-soft">
-        Price book version {book.version}. Every change makes a new version; an estimate keeps the version it was priced
-        with, and a new revision prices from today’s book.
-      </p>
+      <Panel title="Price book" level={1}>
+        <p className="text-ink-soft">
+          Version {book.version}. Every change makes a new version; an estimate keeps the version it was priced with,
+          and a new revision prices from today’s book.
+        </p>
+      </Panel>
       {PRICE_BOOK_KINDS.map((kind) => {
         const info = PRICE_KINDS[kind];
         return (

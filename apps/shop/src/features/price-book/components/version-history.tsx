@@ -1,5 +1,5 @@
 import { formatDateTime } from '@benchwright/contracts';
-import { Button, Notice, Panel, TableHead } from '@benchwright/ui';
+import { MoreButton, Notice, Panel, TableHead } from '@benchwright/ui';
 import { usePriceBookVersions } from '../api/versions';
 
 /** The price book's changes, the latest first: which version, when, who, and what changed; more on demand. */
@@ -27,17 +27,7 @@ export function VersionHistory() {
                 ))}
             </tbody>
           </table>
-          {q.hasNextPage ? (
-            <Button
-              type="button"
-              variant="quiet"
-              className="mt-3"
-              disabled={q.isFetchingNextPage}
-              onClick={() => void q.fetchNextPage()}
-            >
-              {q.isFetchingNextPage ? 'Loading…' : 'Show older changes'}
-            </Button>
-          ) : null}
+          <MoreButton list={q} label="Show older changes" />
         </>
       ) : null}
     </Panel>
