@@ -162,7 +162,20 @@ try {
   );
   let missed = false;
   let failed = false;
+  // each part first runs unmeasured for a few seconds at its rate, so the figures are of a warm server (compiled code,
+  // SQLite's page cache) as a shop's API is after its first minutes, not of its first requests after start-up
+  const warmup = Number(process.env.BENCH_WARMUP_S ?? 3);
+  if (warmup > 0) console.log(`(each part warms up for ${warmup} s first, not counted; BENCH_WARMUP_S=0 to skip)`);
   for (const part of parts) {
+    if (warmup > 0)
+      await autocannon({
+        url: baseUrl,
+        connections: scenario.connections,
+        overallRate: scenario.overallRate,
+        duration: warmup,
+        headers: plan.headers,
+        requests: part.requests,
+      });
     await part.before?.();
     const result = await autocannon({
       url: baseUrl,
