@@ -268,6 +268,8 @@ export const HoursFeedbackResponse = z.strictObject({
   stages: z.array(StageFeedbackSchema),
   /** the price book's version the suggestions were read against: send it back to apply one */
   priceBookVersion: z.number().int().min(1),
+  /** the shop's units, which the standards are shown in */
+  units: z.enum(['in', 'mm']),
 });
 /** `POST /api/hours-feedback/:stage/apply` (owner): the feedback after, and what was applied */
 export const HoursAppliedResponse = HoursFeedbackResponse.extend({

@@ -27,6 +27,7 @@ export {
   LabourOperation,
   LabourOperationFields,
   LABOUR_DRIVER_UNITS,
+  standardIn,
 } from './price-book';
 export { LINE_GROUPS, LINE_GROUP_LABELS } from './line-groups';
 export type { LineGroup } from './line-groups';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { hoursFeedback, scaleStandards } from './hours-feedback';
-import type { LabourOperation } from './price-book';
+import { standardIn, type LabourOperation } from './price-book';
 
 const job = (budget: number, logged: number) => ({ budget: { casework: budget }, logged: { casework: logged } });
 const casework = (jobs: Parameters<typeof hoursFeedback>[0]) =>
@@ -53,5 +53,15 @@ describe('scaleStandards', () => {
   it('refuses a factor that is not a positive number', () => {
     expect(() => scaleStandards(ops, 'casework', 0)).toThrow(RangeError);
     expect(() => scaleStandards(ops, 'casework', Number.NaN)).toThrow(RangeError);
+  });
+});
+
+describe('standardIn: a labour standard in the shop’s units', () => {
+  it('reads minutes per metre as minutes per foot, and per square metre as per square foot, for an imperial shop', () => {
+    // 1 ft = 0.3048 m and 1 ft² = 0.09290304 m² exactly (NIST Handbook 44, Appendix C)
+    expect(standardIn(10, 'banding_metre', 'in')).toEqual({ minutes: 3.048, per: 'foot banded' });
+    expect(standardIn(10, 'finish_m2_coat', 'in').minutes).toBeCloseTo(0.9290304, 9);
+    expect(standardIn(10, 'banding_metre', 'mm')).toEqual({ minutes: 10, per: 'meter banded' });
+    expect(standardIn(60, 'case', 'in')).toEqual({ minutes: 60, per: 'case' });
   });
 });

@@ -38,6 +38,7 @@ export {
   LABOUR_OPERATION_KEYS,
   LABOUR_DRIVERS,
   LABOUR_DRIVER_UNITS,
+  standardIn,
   LabourDriver,
   HardwareKind,
   SheetGood,

@@ -178,9 +178,9 @@ export const LABOUR_DRIVER_UNITS: Record<LabourDriver, string> = {
   sheet: 'sheet',
   part: 'part',
   case: 'case',
-  banding_metre: 'metre banded',
+  banding_metre: 'meter banded',
   pocket_hole: 'pocket hole',
-  dado_metre: 'metre of dado or groove',
+  dado_metre: 'meter of dado or groove',
   shelf_pin_row: 'shelf-pin row',
   hinge_bored: 'hinge bored',
   pull_fitted: 'pull fitted',
@@ -196,6 +196,27 @@ export const LABOUR_DRIVER_UNITS: Record<LabourDriver, string> = {
   trim_piece: 'trim piece',
   caster: 'caster or foot',
 };
+
+/** The drivers counted per metre or per square metre, and what they read per foot or square foot. */
+const IMPERIAL_DRIVER: Partial<Record<LabourDriver, { per: string; factor: number }>> = {
+  banding_metre: { per: 'foot banded', factor: 0.3048 },
+  dado_metre: { per: 'foot of dado or groove', factor: 0.3048 },
+  sanded_m2: { per: 'ft² sanded', factor: 0.09290304 },
+  finish_m2_coat: { per: 'ft² per coat', factor: 0.09290304 },
+  torsion_top_m2: { per: 'ft² of torsion top', factor: 0.09290304 },
+};
+
+/**
+ * A labour standard as the shop reads it: minutes per metre or square metre become minutes per foot or square foot
+ * for an imperial shop (the book keeps the engine's metric drivers).
+ * @example standardIn(10, 'banding_metre', 'in') // { minutes: 3.048, per: 'foot banded' }
+ */
+export function standardIn(minutes: number, driver: string, units: 'in' | 'mm'): { minutes: number; per: string } {
+  const d = driver as LabourDriver;
+  const imperial = units === 'in' ? IMPERIAL_DRIVER[d] : undefined;
+  if (imperial) return { minutes: minutes * imperial.factor, per: imperial.per };
+  return { minutes, per: LABOUR_DRIVER_UNITS[d] ?? driver };
+}
 
 /** The old `per` of a stored operation and the driver that counts the same thing. */
 const DRIVER_OF_OLD_PER: Record<string, LabourDriver> = {

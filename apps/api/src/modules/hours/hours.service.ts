@@ -99,6 +99,7 @@ export function createHoursService(db: Db) {
     const pricing = loadPricing(d);
     return {
       bookVersion: pricing.bookVersion,
+      units: pricing.settings.units,
       labour: pricing.activeBook.labour,
       stages: STAGE_KEYS.map((stage) => {
         const mark = since.get(stage);
@@ -131,7 +132,7 @@ export function createHoursService(db: Db) {
   }
   const view = (d: Pick<Db, 'select'>) => {
     const f = feedback(d);
-    return { stages: f.stages, priceBookVersion: f.bookVersion };
+    return { stages: f.stages, priceBookVersion: f.bookVersion, units: f.units };
   };
 
   return {

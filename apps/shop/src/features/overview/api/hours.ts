@@ -8,6 +8,8 @@ export interface HoursFeedback {
   stages: StageHours[];
   /** the price book's version the suggestions were read against; sent back to apply one */
   priceBookVersion: number;
+  /** the shop's units, which the standards are shown in */
+  units: 'in' | 'mm';
 }
 
 const hoursQueryOptions = () =>
@@ -36,7 +38,11 @@ export function useApplyHours() {
     mutationFn: ({ stage, version }: { stage: StageKey; version: number }) =>
       api<HoursFeedback>(`/hours-feedback/${stage}/apply`, { body: { version } }),
     onSuccess: (r) => {
-      qc.setQueryData(hoursQueryOptions().queryKey, { stages: r.stages, priceBookVersion: r.priceBookVersion });
+      qc.setQueryData(hoursQueryOptions().queryKey, {
+        stages: r.stages,
+        priceBookVersion: r.priceBookVersion,
+        units: r.units,
+      });
       void qc.invalidateQueries({ queryKey: ['price-book'] });
     },
     onError: () => void qc.invalidateQueries({ queryKey: hoursQueryOptions().queryKey }),

@@ -25,12 +25,14 @@ const casework = stage({
   standards: [
     { key: 'case-assembly', name: 'Glue up and square cases', driver: 'case', minutes: 60, newMinutes: 72 },
     { key: 'pocket-holes', name: 'Pocket holes', driver: 'pocket_hole', minutes: 0.5, newMinutes: 0.6 },
+    { key: 'edge-band', name: 'Edge banding', driver: 'banding_metre', minutes: 10, newMinutes: 12 },
   ],
 });
-const feedback = { stages: [stage({}), casework], priceBookVersion: 7 };
+const feedback = { stages: [stage({}), casework], priceBookVersion: 7, units: 'in' };
 const afterApply = {
   stages: [stage({}), { ...casework, jobs: 0, ratios: [], medianRatio: null, suggestedFactor: null, standards: [] }],
   priceBookVersion: 8,
+  units: 'in',
   applied: { stage: 'casework', factor: 1.2, version: 8, changes: casework.standards },
 };
 
@@ -63,6 +65,8 @@ describe('applying an hours suggestion', () => {
     expect(row.textContent).toContain('60 min per case');
     expect(row.textContent).toContain('→ 72 min per case');
     expect(within(dialog).getByText('Pocket holes').closest('tr')!.textContent).toContain('→ 0.6 min per pocket hole');
+    // an imperial shop reads a per-metre standard per foot: 10 min a metre is 3.05 min a foot
+    expect(within(dialog).getByText('Edge banding').closest('tr')!.textContent).toContain('3.05 min per foot banded');
     // nothing is sent until the owner confirms
     expect(calls.filter((c) => c.method === 'POST')).toEqual([]);
 

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { LABOUR_DRIVER_UNITS } from '@benchwright/pricing/geometry';
+import { standardIn } from '@benchwright/pricing/geometry';
 import type { StageKey } from '@benchwright/contracts';
 import { Button, Notice, Panel, TableHead } from '@benchwright/ui';
 import { useApplyHours, useDismissHours, useHoursFeedback, type StageHours } from '../api/hours';
@@ -7,18 +7,24 @@ import { useApplyHours, useDismissHours, useHoursFeedback, type StageHours } fro
 const pct = (r: number) => `${Math.round(r * 100)}%`;
 /** Minutes as a standard reads: "72 min", "0.6 min". */
 const min = (m: number) => `${Number(m.toFixed(2))} min`;
-const unitOf = (driver: string) => LABOUR_DRIVER_UNITS[driver as keyof typeof LABOUR_DRIVER_UNITS] ?? driver;
+/** A standard in the shop's units: "3.05 min per foot banded". */
+const standard = (minutes: number, driver: string, units: 'in' | 'mm') => {
+  const s = standardIn(minutes, driver, units);
+  return `${min(s.minutes)} per ${s.per}`;
+};
 /** A suggestion within 5 % of the standards says they hold: nothing to apply or set aside. */
 const actionable = (s: StageHours) => s.suggestedFactor !== null && Math.abs(s.suggestedFactor - 1) >= 0.05;
 
 /** What applying a stage's suggestion would change, each standard old → new, and the owner's yes or no. */
 function ConfirmApply({
   stage,
+  units,
   pending,
   onConfirm,
   onCancel,
 }: {
   stage: StageHours;
+  units: 'in' | 'mm';
   pending: boolean;
   onConfirm: () => void;
   onCancel: () => void;
@@ -43,12 +49,8 @@ function ConfirmApply({
           {stage.standards.map((c) => (
             <tr key={c.key} className="border-b border-rule/50">
               <td className="py-1">{c.name}</td>
-              <td>
-                {min(c.minutes)} per {unitOf(c.driver)}
-              </td>
-              <td>
-                → {min(c.newMinutes)} per {unitOf(c.driver)}
-              </td>
+              <td>{standard(c.minutes, c.driver, units)}</td>
+              <td>→ {standard(c.newMinutes, c.driver, units)}</td>
             </tr>
           ))}
         </tbody>
@@ -141,6 +143,7 @@ export function HoursFeedback() {
       {open ? (
         <ConfirmApply
           stage={open}
+          units={q.data.units}
           pending={apply.isPending}
           onCancel={() => setConfirming(null)}
           onConfirm={() =>
