@@ -38,7 +38,7 @@ describe('the traveller’s machining drawings', () => {
   it('writes millimetres for a metric shop', () => {
     render(<MachiningPanel pieces={t.pieces} units="mm" />);
     const door = screen.getByRole('figure', { name: 'Machining: door' });
-    expect(door.textContent).toContain('centres 22.5 mm from the hinge edge; 100 mm from the bottom end');
+    expect(door.textContent).toContain('centers 22.5 mm from the hinge edge; 100 mm from the bottom end');
     expect([...door.querySelectorAll('svg text')].map((x) => x.textContent)).toContain('22.5 mm');
   });
   it('draws nothing for a job without machined or banded parts', () => {
