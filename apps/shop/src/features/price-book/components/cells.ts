@@ -1,10 +1,12 @@
 import type { PriceColumn } from '@benchwright/contracts';
 
-/** A field's value as the table shows and edits it: prices in dollars, as the CSV writes them. */
+/** A field's value as the table shows and edits it: prices in dollars, as the CSV writes them; numbers without float noise. */
 export function showValue(c: PriceColumn, v: unknown): string {
   if (v === undefined || v === null) return '';
   if (c.type === 'money') return (Number(v) / 100).toFixed(2);
   if (c.type === 'json') return JSON.stringify(v);
+  // a number as a person wrote it: 0.67, not the float 0.6699999999999999 that arithmetic left behind
+  if (c.type === 'number' && typeof v === 'number') return String(Number(v.toPrecision(12)));
   return String(v);
 }
 
