@@ -1,29 +1,14 @@
-import { execFileSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
-import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { EstimateResponse } from '@benchwright/contracts';
 import { designs } from '@benchwright/pricing';
 import { estimates, jobs, revisionRecords } from '../src/db/schema';
 import { storedRecord } from '../src/lib/record';
-import { contract, testApp, type TestApp } from './helpers';
-
-function binary(req: request.Test) {
-  return req.buffer(true).parse((res, cb) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
-}
-function pdfText(buf: Buffer): string {
-  const f = join(mkdtempSync(join(tmpdir(), 'bw-choices-pdf-')), 'e.pdf');
-  writeFileSync(f, buf);
-  return execFileSync('pdftotext', ['-layout', f, '-']).toString();
-}
+import { binary, contract, pdfText, testApp, type TestApp } from './helpers';
 
 const walnutBench = {
   ...designs['assembly-bench'].defaults,

@@ -1,6 +1,5 @@
-import { execFileSync } from 'node:child_process';
 import { createServer, type Server } from 'node:http';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { AddressInfo } from 'node:net';
@@ -16,7 +15,7 @@ import { DEMO_PASSWORD, seedDemo } from '../src/db/seed';
 import { jobs, outbox, payments, projects } from '../src/db/schema';
 import { loadEnv } from '../src/env';
 import { createMailWorker, type MailWorker } from '../src/lib/mailer';
-import { freePort } from './helpers';
+import { binary, freePort, pdfText } from './helpers';
 
 const SMTP = await freePort();
 const WEB = await freePort();
@@ -116,18 +115,6 @@ async function pay(url: string, card: string) {
   });
 }
 /** a response body as bytes (supertest would otherwise try to parse the PDF) */
-function binary(req: request.Test) {
-  return req.buffer(true).parse((res, cb) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
-}
-function pdfText(buf: Buffer): string {
-  const f = join(mkdtempSync(join(tmpdir(), 'bw-pdf-')), 'e.pdf');
-  writeFileSync(f, buf);
-  return execFileSync('pdftotext', ['-layout', f, '-']).toString();
-}
 
 describe('an estimate travels: send, accept, pay the deposit, onto the board', () => {
   let projectId: string;

@@ -1,3 +1,7 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import * as z from 'zod';
 import { pino } from 'pino';
 import request from 'supertest';
@@ -136,4 +140,20 @@ export function checkContracts(app: ReturnType<typeof createApp>): void {
     }
     return json.call(this, body);
   };
+}
+
+/** A supertest request whose body is read as raw bytes (a PDF, an image, a CSV). */
+export function binary(req: request.Test) {
+  return req.buffer(true).parse((res, cb) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => cb(null, Buffer.concat(chunks)));
+  });
+}
+
+/** A PDF's text as pdftotext lays it out (poppler-utils, which the test command installs). */
+export function pdfText(buf: Buffer): string {
+  const f = join(mkdtempSync(join(tmpdir(), 'bw-pdf-')), 'doc.pdf');
+  writeFileSync(f, buf);
+  return execFileSync('pdftotext', ['-layout', f, '-']).toString();
 }

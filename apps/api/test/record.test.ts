@@ -1,30 +1,15 @@
-import { execFileSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
-import type request from 'supertest';
 import { ShopSettings, type LabourOperation, type SheetGood } from '@benchwright/pricing';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { estimates, jobs, revisionRecords, shopSettings } from '../src/db/schema';
 import { readRows, saveChange } from '../src/lib/price-book';
 import { loadPricing, projectSpecs } from '../src/lib/engine';
 import { backfillRecords } from '../src/lib/record';
-import { testApp, type TestApp } from './helpers';
-
-function binary(req: request.Test) {
-  return req.buffer(true).parse((res, cb) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
-}
-function pdfText(buf: Buffer): string {
-  const f = join(mkdtempSync(join(tmpdir(), 'bw-record-pdf-')), 't.pdf');
-  writeFileSync(f, buf);
-  return execFileSync('pdftotext', ['-layout', f, '-']).toString();
-}
+import { binary, pdfText, testApp, type TestApp } from './helpers';
 
 /** Today's price book and settings change: dearer sheets of another size, renamed, other labour rates, metric units. */
 function changeThePriceBook(t: TestApp) {
