@@ -155,6 +155,32 @@ export const FOOT_MIN_CLEARANCE_MM = toMm(1 / 8);
 const CONNECTOR_SPACING_MM = toMm(12);
 const RAIL_WIDTH_MM = toMm(3);
 
+/** A 3 in rail of carcass stock pocket-screwed between the sides at both ends (a hanging rail, a back rail). */
+function railPart(
+  id: string,
+  name: string,
+  materialId: string,
+  thicknessMm: number,
+  lengthMm: number,
+  quantity: number,
+): Parameters<PartList['add']>[0] {
+  return {
+    id,
+    name,
+    materialId,
+    quantity,
+    lengthMm,
+    widthMm: RAIL_WIDTH_MM,
+    thicknessMm,
+    grain: 'free',
+    bandedEdges: { long: 0, short: 0 },
+    pocketHoles: 4,
+    dados: 0,
+    finishFaces: 0,
+    machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
+  };
+}
+
 export interface DrawerBox {
   boxWidthMm: number;
   boxHeightMm: number;
@@ -680,21 +706,7 @@ function buildCase(
     });
   }
   if (cs.hangingRail) {
-    list.add({
-      id: `${k}-hanging-rail`,
-      name: 'hanging rail',
-      materialId: m.carcass.id,
-      quantity: 1,
-      lengthMm: insideWidth,
-      widthMm: RAIL_WIDTH_MM,
-      thicknessMm: t,
-      grain: 'free',
-      bandedEdges: { long: 0, short: 0 },
-      pocketHoles: 4,
-      dados: 0,
-      finishFaces: 0,
-      machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
-    });
+    list.add(railPart(`${k}-hanging-rail`, 'hanging rail', m.carcass.id, t, insideWidth, 1));
     geo.hangingRailWidthMm = cs.widthMm;
   }
   // The back, as a shop handles one larger than its sheet (common practice): a back with grain runs it up the case
@@ -758,21 +770,7 @@ function buildCase(
     }
     if (rows > 1)
       covered.forEach((bw, i) =>
-        list.add({
-          id: `${k}-back-rail-${piece}-${i + 1}`,
-          name: 'back rail',
-          materialId: m.carcass.id,
-          quantity: rows - 1,
-          lengthMm: bw,
-          widthMm: RAIL_WIDTH_MM,
-          thicknessMm: t,
-          grain: 'free',
-          bandedEdges: { long: 0, short: 0 },
-          pocketHoles: 4,
-          dados: 0,
-          finishFaces: 0,
-          machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
-        }),
+        list.add(railPart(`${k}-back-rail-${piece}-${i + 1}`, 'back rail', m.carcass.id, t, bw, rows - 1)),
       );
   });
   if (bays.length > 1) {
