@@ -220,4 +220,39 @@ describe("the demo book's panel and lumber properties, as their sources give the
     // specific gravity 0.63, modulus 12,600 MPa
     expect(lumber('hard-maple-4-4')).toMatchObject({ modulusMPa: 12600, densityKgM3: Math.round(0.63 * 1.12 * 1000) });
   });
+  it("takes birch plywood's density by thickness from a maker's datasheet, and hardboard's from its sinking in water", () => {
+    // "Birch Plywood Datasheet" (all-birch plywood, average kg/m3): 685 at 18 mm, 695 at 12 mm, 670 at 6.5 mm
+    expect([sheet('birch-ply-18'), sheet('birch-ply-12'), sheet('birch-ply-6')].map((m) => m?.densityKgM3)).toEqual([
+      685, 695, 670,
+    ]);
+    // Granum and Eustis (1999): many hardboards sink or barely float, about water's 1000 kg/m3; the usual
+    // 800 to 1040 kg/m3 (50 to 65 lb/ft3) of the encyclopedia article, above ANSI A135.4's 31 lb/ft3 (497 kg/m3)
+    const hb = sheet('hardboard-6')?.densityKgM3 ?? 0;
+    expect(hb).toBeGreaterThanOrEqual(800);
+    expect(hb).toBeLessThanOrEqual(1040);
+  });
+});
+
+describe('leveling feet under a bench on casters', () => {
+  const footOf = (heightIn: number) => ({
+    ...demoPriceBook,
+    hardware: demoPriceBook.hardware.map((h) => (h.id === 'leveling-foot' ? { ...h, heightMm: toMm(heightIn) } : h)),
+  });
+  const feetCheck = (heightIn: number, units: 'in' | 'mm') => {
+    const book = footOf(heightIn);
+    const settings = { ...demoSettings, units };
+    const spec = { ...designs['assembly-bench'].defaults, mobility: 'casters-and-feet' as const };
+    return pieceChecks(cutList(spec, book, settings), book, settings).checks.find((c) => c.code === 'feet_reach');
+  };
+  it('passes the demo bench: its 2 in feet on blocks reach the floor under 5 3/4 in casters', () => {
+    expect(feetCheck(2, 'in')).toBeUndefined();
+  });
+  it("says, in the shop's units, that feet taller than the casters keep the bench from rolling", () => {
+    const imperial = feetCheck(7, 'in');
+    expect(imperial?.level).toBe('error');
+    expect(imperial?.message).toMatch(/^Raised, the leveling feet still reach 1\.3 in below the casters/);
+    expect(imperial?.message).toMatch(/the feet adjust about 1 in\)/);
+    expect(imperial?.message).not.toMatch(/mm|from memory/);
+    expect(feetCheck(7, 'mm')?.message).toMatch(/31\.8 mm below the casters.*about 25\.4 mm/);
+  });
 });

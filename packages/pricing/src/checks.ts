@@ -244,14 +244,14 @@ export function pieceChecks(
         code: 'feet_reach',
         level: 'error',
         path: 'footId',
-        message: `Lowered, the leveling feet stop ${Math.abs(g.feetLiftMm).toFixed(0)} mm above the floor, so the bench stays on its casters: choose taller feet or casters with less height.`,
+        message: `Lowered, the leveling feet stop ${formatMeasure(Math.abs(g.feetLiftMm), settings.units)} above the floor, so the bench stays on its casters: choose taller feet or casters with less height.`,
       });
     else if (g.feetClearanceMm < FOOT_MIN_CLEARANCE_MM)
       checks.push({
         code: 'feet_reach',
         level: 'error',
         path: 'footId',
-        message: `Raised, the leveling feet clear the floor by only ${g.feetClearanceMm.toFixed(0)} mm, so the bench will not roll: choose shorter feet or taller casters (the feet adjust about ${FOOT_TRAVEL_MM.toFixed(0)} mm, from memory).`,
+        message: `Raised, the leveling feet ${g.feetClearanceMm > 0 ? `clear the floor by only ${formatMeasure(g.feetClearanceMm, settings.units)}` : `still reach ${formatMeasure(-g.feetClearanceMm, settings.units)} below the casters`}, so the bench will not roll: choose shorter feet or taller casters (the feet adjust about ${formatMeasure(FOOT_TRAVEL_MM, settings.units)}).`,
       });
   }
   checks.push(...insetFrontChecks(list, book, settings));

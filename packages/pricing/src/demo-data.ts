@@ -17,9 +17,12 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
   sheetGoods: [
     // Birch plywood (all three thicknesses): modulus 1,800,000 psi (12,410 MPa), the value the Architectural
     // Woodwork Standards, 1st ed. (2009), 4.4.14.10 shelf-span table uses for veneer-core plywood with hardwood
-    // veneer both faces (test/fixtures/shelf-spans.md, a copy of that table). Density 680 kg/m3: from memory (no
-    // published plywood density table was found; the Wood Handbook's clear yellow birch, specific gravity 0.62 at
-    // 12 %, would give 694 kg/m3 for an all-birch panel).
+    // veneer both faces (test/fixtures/shelf-spans.md, a copy of that table). Density by thickness from a maker's
+    // "Birch Plywood Datasheet" (all-birch plywood of 1.4 mm veneers, sanded; average kg/m3 per thickness: 685 at
+    // 18 mm, 695 at 12 mm, 670 at 6.5 mm), read in a secondary copy at
+    // https://vdocuments.site/birch-plywood-datasheet-l-birch-plywood-datasheetl-average-lower-limit-upper.html.
+    // A birch-faced panel over a lighter core weighs less, so the weight errs heavy, the safe side for the caster
+    // and tip-over checks. (The Wood Handbook's clear yellow birch, specific gravity 0.62 at 12 %, gives 694 kg/m3.)
     {
       id: 'birch-ply-18',
       name: '3/4 in birch plywood',
@@ -29,7 +32,7 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       sheetLengthMm: 2438.4,
       sheetWidthMm: 1219.2,
       grain: 'lengthwise',
-      densityKgM3: 680,
+      densityKgM3: 685,
       modulusMPa: 12410,
       priceCents: 8900,
     },
@@ -42,7 +45,7 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       sheetLengthMm: 2438.4,
       sheetWidthMm: 1219.2,
       grain: 'lengthwise',
-      densityKgM3: 680,
+      densityKgM3: 695,
       modulusMPa: 12410,
       priceCents: 6900,
     },
@@ -55,7 +58,7 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       sheetLengthMm: 2438.4,
       sheetWidthMm: 1219.2,
       grain: 'lengthwise',
-      densityKgM3: 680,
+      densityKgM3: 670,
       modulusMPa: 12410,
       priceCents: 4200,
     },
@@ -94,9 +97,15 @@ export const demoPriceBook: PriceBook = PriceBook.parse({
       modulusMPa: 2800,
       priceCents: 3800,
     },
-    // Tempered hardboard, for backs that need no grain: density 1000 kg/m3 and modulus 5500 MPa, from memory (no
-    // published table of hardboard stiffness or density was found; the copy of ANSI A135.4-2012, Basic Hardboard,
-    // found stores only its front matter). Used for backs, never for a shelf.
+    // Tempered hardboard, for backs and drawer bottoms that need no grain. Density 1000 kg/m3: R. M. Granum and
+    // O. B. Eustis, "Hardboard (Masonite): What is it?" (Panel Processing, 1999): "placed in water many hardboard
+    // products will sink or barely float", that is about 1000 kg/m3; read in a secondary copy at
+    // https://tr.scribd.com/document/217232302/Hardboard. The encyclopedia article "Hardboard" (citing Frane, 1994,
+    // p. 156) gives usually 50-65 lb/ft3 (800-1040 kg/m3), tempered board at the dense end (copy at
+    // https://en-academic.com/dic.nsf/enwiki/756984); ANSI A135.4 (as the Architectural Woodwork Standards, 1st ed.
+    // 2009, 4.2h quote it) asks at least 31 lb/ft3. Modulus 5500 MPa: from memory, and it enters no check: the
+    // modulus is read only by the shelf-sag check, and hardboard is refused for a carcass, so never makes a shelf
+    // (validate.ts); no published hardboard stiffness was found (ANSI A135.4 sets strength minimums, not stiffness).
     {
       id: 'hardboard-6',
       name: '1/4 in tempered hardboard',
