@@ -39,6 +39,29 @@ test('the owner changes the price of 3/4 in plywood and a new revision is priced
   await expect.poll(() => unitPriceOf(page, '3/4 in birch plywood'), { timeout: patient(15_000) }).toBe('135.00');
 });
 
+test('the demo shop, being imperial, reads its price book in inches, feet and pounds', async ({ page }) => {
+  await page.goto('/price-book');
+  // the demo's 3/4 in birch plywood is 18.26 mm thick (demo-data.ts): 23/32 in to the nearest 1/32
+  const sheets = page.getByRole('table', { name: 'Sheet goods' });
+  await expect(sheets.getByRole('columnheader', { name: 'Thickness (in)', exact: true })).toBeVisible({
+    timeout: patient(15_000),
+  });
+  await expect(sheets.getByRole('row', { name: /birch-ply-18/ })).toContainText('23/32');
+  await expect(sheets.getByRole('row', { name: /birch-ply-18/ })).not.toContainText('18.26');
+  // banding bought by the lineal foot: $0.80 a metre is $0.244 a foot
+  const banding = page.getByRole('table', { name: 'Edge banding' });
+  await expect(banding.getByRole('columnheader', { name: 'Price per ft ($)' })).toBeVisible();
+  await expect(banding.getByRole('row', { name: /walnut-banding-22/ })).toContainText('0.244');
+  // a 100 kg caster rating reads 220 lb
+  const hardware = page.getByRole('table', { name: 'Hardware' });
+  await expect(hardware.getByRole('columnheader', { name: 'Rated load (lb)' })).toBeVisible();
+  await expect(hardware.getByRole('row', { name: /caster-locking-5in/ })).toContainText('220');
+  // labour standards by what they count, per foot of banding
+  const labour = page.getByRole('table', { name: 'Labour operations' });
+  await expect(labour.getByText('foot banded').first()).toBeVisible();
+  await expect(labour.getByText('banding_metre')).toHaveCount(0);
+});
+
 test('the owner imports a CSV with one bad row and is shown the row; nothing can be confirmed', async ({ page }) => {
   const csv = await (await page.request.get('/api/price-book/lumber.csv')).text();
   const lines = csv.split('\r\n');

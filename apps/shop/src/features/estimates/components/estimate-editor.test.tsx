@@ -101,6 +101,14 @@ describe('the estimate editor’s quantities', () => {
     expect(screen.getByLabelText('Line 3 quantity').textContent).toBe('2 sheets');
   });
 
+  it('shows a sent revision’s prices and reasons as text, with no fields to type in', () => {
+    mount(estimate('in', 'sent'));
+    expect(within(screen.getByRole('table', { name: 'Line items' })).queryAllByRole('textbox')).toEqual([]);
+    expect(screen.getByLabelText('Line 1 unit price').textContent).toBe('$0.46/ft'); // $1.50 a metre
+    expect(screen.getByLabelText('Line 3 unit price').textContent).toBe('$95.00');
+    expect(screen.getByLabelText('Line 3 reason').textContent).toBe('—');
+  });
+
   it('saves a quantity left alone exactly as stored, and one typed in feet back in metres', async () => {
     const bodies = mount(estimate('in'));
     fireEvent.change(screen.getByLabelText('Line 1 quantity'), { target: { value: '100' } });

@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
 import { LINE_GROUP_LABELS, type LineGroup } from '@benchwright/contracts';
 import { displayUnit, formatQuantity, unitPriceFactor, type LengthUnit } from '@benchwright/pricing/geometry';
-import { ApiRequestError, Button, ChoicesList, Money, Notice, Panel } from '@benchwright/ui';
+import { ApiRequestError, Button, ChoicesList, formatMoney, Money, Notice, Panel } from '@benchwright/ui';
 import { useSendEstimate, useUpdateEstimate, type OwnerEstimate } from '../api/estimates';
 import { WithdrawAcceptance } from './withdraw-acceptance';
 import { toCents, toDollars } from '../../../lib/money';
@@ -113,6 +113,9 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
     }
   });
 
+  /** "/ft" after a unit price shown per another unit than the line's stored one, as the quantity reads. */
+  const per = (unit: string) =>
+    unitPriceFactor(unit, estimate.units) !== 1 ? `/${displayUnit(unit, estimate.units)}` : '';
   const margin = estimate.totals.subtotalCents - estimate.totals.discountCents - estimate.costCents;
   const input = 'w-full rounded border border-rule bg-white px-2 py-1 text-right';
   return (
@@ -137,7 +140,7 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
             <tr className="border-b-2 border-rule">
               <th className="py-1">Item</th>
               <th className="w-36 py-1 text-right">Quantity</th>
-              <th className="w-36 py-1 text-right">Unit price ($)</th>
+              <th className="w-36 py-1 text-right">{draft ? 'Unit price ($)' : 'Unit price'}</th>
               <th className="w-28 py-1 text-right">Amount</th>
               <th className="w-64 py-1 pl-4">Reason for a change</th>
             </tr>
@@ -178,29 +181,37 @@ export function EstimateEditor({ estimate }: { estimate: OwnerEstimate }) {
                     )}
                   </td>
                   <td className="py-1">
-                    <span className="flex items-center gap-1">
-                      <input
-                        aria-label={`Line ${i + 1} unit price`}
-                        className={input}
-                        disabled={!draft}
-                        {...form.register(`lines.${i}.unitPrice`)}
-                      />
-                      <span className="w-10 text-sm text-ink-soft">
-                        {unitPriceFactor(f.unit, estimate.units) !== 1 ? `/${displayUnit(f.unit, estimate.units)}` : ''}
+                    {draft ? (
+                      <span className="flex items-center gap-1">
+                        <input
+                          aria-label={`Line ${i + 1} unit price`}
+                          className={input}
+                          {...form.register(`lines.${i}.unitPrice`)}
+                        />
+                        <span className="w-10 text-sm text-ink-soft">{per(f.unit)}</span>
                       </span>
-                    </span>
+                    ) : (
+                      <span className="block text-right tabular-nums" aria-label={`Line ${i + 1} unit price`}>
+                        {estimate.lines[i]
+                          ? `${formatMoney(Math.round(estimate.lines[i].unitPriceCents * unitPriceFactor(f.unit, estimate.units)))}${per(f.unit)}`
+                          : f.unitPrice}
+                      </span>
+                    )}
                   </td>
                   <td className="py-1 text-right">
                     {estimate.lines[i] ? <Money cents={estimate.lines[i].amountCents} /> : '—'}
                   </td>
                   <td className="py-1 pl-4">
-                    <input
-                      aria-label={`Line ${i + 1} reason`}
-                      aria-invalid={err?.overrideReason ? true : undefined}
-                      className="w-full rounded border border-rule bg-white px-2 py-1"
-                      disabled={!draft}
-                      {...form.register(`lines.${i}.overrideReason`)}
-                    />
+                    {draft ? (
+                      <input
+                        aria-label={`Line ${i + 1} reason`}
+                        aria-invalid={err?.overrideReason ? true : undefined}
+                        className="w-full rounded border border-rule bg-white px-2 py-1"
+                        {...form.register(`lines.${i}.overrideReason`)}
+                      />
+                    ) : (
+                      <span aria-label={`Line ${i + 1} reason`}>{estimate.lines[i]?.overrideReason ?? '—'}</span>
+                    )}
                     {err?.overrideReason ? (
                       <p role="alert" className="text-sm text-alert">
                         {err.overrideReason.message}

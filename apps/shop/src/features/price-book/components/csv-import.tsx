@@ -3,9 +3,10 @@ import type { ImportPreview as Preview, PriceBookKind } from '@benchwright/contr
 import { ApiRequestError, Notice } from '@benchwright/ui';
 import { csvHref, useConfirmImport, usePreviewImport } from '../api/price-book';
 import { ImportPreview } from './import-preview';
+import type { CellUnits } from './cells';
 
 /** A kind's CSV: the export link, and an import that always shows the API's preview before the owner confirms. */
-export function CsvImport({ kind, label }: { kind: PriceBookKind; label: string }) {
+export function CsvImport({ kind, label, cu }: { kind: PriceBookKind; label: string; cu: CellUnits }) {
   const [text, setText] = useState<string | null>(null);
   const [preview, setPreview] = useState<Preview | null>(null);
   const [done, setDone] = useState<string | null>(null);
@@ -51,6 +52,7 @@ export function CsvImport({ kind, label }: { kind: PriceBookKind; label: string 
       {preview && text !== null ? (
         <ImportPreview
           kind={kind}
+          cu={cu}
           preview={preview}
           saving={confirm.isPending}
           onCancel={reset}

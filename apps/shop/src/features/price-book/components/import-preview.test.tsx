@@ -25,15 +25,25 @@ const changed: Preview = {
   ],
   errors: [],
 };
+const imperial = { units: 'in' as const };
 afterEach(() => vi.unstubAllGlobals());
 
 describe('the import preview', () => {
   it('shows the rows to add and each changed field with its old and new value, and confirms', () => {
     const onConfirm = vi.fn();
-    render(<ImportPreview kind="sheet-goods" preview={changed} onConfirm={onConfirm} onCancel={() => {}} />);
+    render(
+      <ImportPreview kind="sheet-goods" cu={imperial} preview={changed} onConfirm={onConfirm} onCancel={() => {}} />,
+    );
     const add = screen.getByRole('table', { name: 'Rows to add' });
     expect(within(add).getByText('oak-ply-18')).toBeTruthy();
     expect(within(add).getByText('91.50')).toBeTruthy();
+    // in the shop's units, as the table reads: an 18 mm sheet is 23/32 in, a 2440 mm one 96 1/16 in long
+    expect(within(add).getByRole('columnheader', { name: 'Thickness (in)' })).toBeTruthy();
+    expect(
+      within(add)
+        .getAllByRole('cell')
+        .map((c) => c.textContent),
+    ).toEqual(expect.arrayContaining(['23/32', '96 1/16', '3/4']));
     const change = screen.getByRole('table', { name: 'Rows to change' });
     const rows = within(change).getAllByRole('row');
     // the header and one row: only the price differs
@@ -50,7 +60,9 @@ describe('the import preview', () => {
       ...changed,
       errors: [{ row: 4, column: 'price_usd', message: 'Too small: expected number to be >=0' }],
     };
-    render(<ImportPreview kind="sheet-goods" preview={preview} onConfirm={() => {}} onCancel={() => {}} />);
+    render(
+      <ImportPreview kind="sheet-goods" cu={imperial} preview={preview} onConfirm={() => {}} onCancel={() => {}} />,
+    );
     const errors = screen.getByRole('table', { name: 'Errors' });
     expect(within(errors).getByRole('row', { name: /4 price_usd Too small/ })).toBeTruthy();
     expect((screen.getByRole('button', { name: 'Confirm the import' }) as HTMLButtonElement).disabled).toBe(true);
@@ -68,7 +80,7 @@ describe('the import preview', () => {
     );
     render(
       <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
-        <CsvImport kind="sheet-goods" label="Sheet goods" />
+        <CsvImport kind="sheet-goods" cu={imperial} label="Sheet goods" />
       </QueryClientProvider>,
     );
     const file = new File(['id,name\n'], 'sheet-goods.csv', { type: 'text/csv' });

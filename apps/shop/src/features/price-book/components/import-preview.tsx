@@ -1,21 +1,23 @@
 import { Fragment } from 'react';
 import { priceColumns, type ImportPreview as Preview, type PriceBookKind } from '@benchwright/contracts';
 import { Button, Notice } from '@benchwright/ui';
-import { heading, showValue } from './cells';
+import { heading, showValue, type CellUnits } from './cells';
 
 /**
  * What a CSV import would do, before anything is saved: the rows it adds, the rows it changes (each changed field
- * with its old and new value) and its errors by row and column. Confirm is enabled only when there are no errors
+ * with its old and new value, in the shop's units like the table) and its errors by row and the file's column. Confirm is enabled only when there are no errors
  * and something to save.
  */
 export function ImportPreview({
   kind,
+  cu,
   preview,
   onConfirm,
   onCancel,
   saving = false,
 }: {
   kind: PriceBookKind;
+  cu: CellUnits;
   preview: Preview;
   onConfirm: () => void;
   onCancel: () => void;
@@ -62,7 +64,7 @@ export function ImportPreview({
               <tr className="border-b border-rule">
                 {cols.map((c) => (
                   <th key={c.field} className="py-1">
-                    {heading(c)}
+                    {heading(c, cu)}
                   </th>
                 ))}
               </tr>
@@ -72,7 +74,7 @@ export function ImportPreview({
                 <tr key={i} className="border-b border-rule">
                   {cols.map((c) => (
                     <td key={c.field} className="py-1">
-                      {showValue(c, item[c.field])}
+                      {showValue(c, item[c.field], cu, item)}
                     </td>
                   ))}
                 </tr>
@@ -87,7 +89,7 @@ export function ImportPreview({
           <table aria-label="Rows to change" className="w-full text-left text-sm">
             <thead>
               <tr className="border-b border-rule">
-                <th className="py-1">{heading(idCol)}</th>
+                <th className="py-1">{heading(idCol, cu)}</th>
                 <th>Column</th>
                 <th>Now</th>
                 <th>After the import</th>
@@ -103,9 +105,9 @@ export function ImportPreview({
                     {diffs.map(({ c, key }, i) => (
                       <tr key={key} className="border-b border-rule">
                         <td className="py-1">{i === 0 ? ch.id : ''}</td>
-                        <td>{c ? heading(c) : 'Retired'}</td>
-                        <td>{c ? showValue(c, ch.before[key]) : ch.before[key] ? 'yes' : 'no'}</td>
-                        <td>{c ? showValue(c, ch.after[key]) : ch.after[key] ? 'yes' : 'no'}</td>
+                        <td>{c ? heading(c, cu) : 'Retired'}</td>
+                        <td>{c ? showValue(c, ch.before[key], cu, ch.before) : ch.before[key] ? 'yes' : 'no'}</td>
+                        <td>{c ? showValue(c, ch.after[key], cu, ch.after) : ch.after[key] ? 'yes' : 'no'}</td>
                       </tr>
                     ))}
                   </Fragment>

@@ -17,17 +17,19 @@ import {
 } from '@benchwright/contracts';
 import { ApiRequestError, Button, Notice } from '@benchwright/ui';
 import { useAddItem, useEditItem } from '../api/price-book';
-import { fieldErrors, heading, readValue, showValue } from './cells';
+import { choiceLabel, fieldErrors, heading, itemOf, showValue, type CellUnits } from './cells';
 
 /** One field's input while a row is edited or added: a choice where the engine's schema has one. */
 function Input({
   c,
+  cu,
   value,
   onChange,
   error,
   label,
 }: {
   c: PriceColumn;
+  cu: CellUnits;
   value: string;
   onChange: (v: string) => void;
   error?: string;
@@ -40,7 +42,9 @@ function Input({
         <select aria-label={label} className={cls} value={value} onChange={(e) => onChange(e.target.value)}>
           {c.optional || value === '' ? <option value="" /> : null}
           {c.options.map((o) => (
-            <option key={o}>{o}</option>
+            <option key={o} value={o}>
+              {choiceLabel(c, o, cu)}
+            </option>
           ))}
         </select>
       ) : (
@@ -62,20 +66,20 @@ function Input({
   );
 }
 
-const draftOf = (cols: PriceColumn[], item: Record<string, unknown>) =>
-  Object.fromEntries(cols.map((c) => [c.field, showValue(c, item[c.field])]));
-const itemOf = (cols: PriceColumn[], draft: Record<string, string>) =>
+/** A row's fields as the inputs start: in the shop's units, a choice by its key (the select shows its label). */
+const draftOf = (cols: PriceColumn[], item: Record<string, unknown>, cu: CellUnits) =>
   Object.fromEntries(
-    cols.map((c) => [c.field, readValue(c, draft[c.field] ?? '')]).filter(([, v]) => v !== undefined),
-  ) as Record<string, unknown>;
+    cols.map((c) => [c.field, c.options ? String(item[c.field] ?? '') : showValue(c, item[c.field], cu, item)]),
+  );
 
 const issuesOf = (e: unknown) => (e instanceof ApiRequestError ? e.issues : []);
 
 /**
- * A kind's items: sortable by any column, filtered by a search, edited in place (the API's field errors beside
- * each field), added at the foot, retired or restored (there is no delete: estimates keep naming an item).
+ * A kind's items in the shop's units (`cells.ts` converts from and to the stored ones): sortable by any column,
+ * filtered by a search, edited in place (the API's field errors beside each field), added at the foot, retired or
+ * restored (there is no delete: estimates keep naming an item).
  */
-export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: PriceBookEntry[] }) {
+export function PriceTable({ kind, entries, cu }: { kind: PriceBookKind; entries: PriceBookEntry[]; cu: CellUnits }) {
   const cols = useMemo(() => priceColumns(kind), [kind]);
   const label = PRICE_KINDS[kind].label;
   const [sorting, setSorting] = useState<SortingState>([]);
@@ -83,24 +87,30 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
   const [showRetired, setShowRetired] = useState(false);
   const [editing, setEditing] = useState<string | null>(null);
   const [draft, setDraft] = useState<Record<string, string>>({});
+  const [shown, setShown] = useState<Record<string, string>>({});
   const [adding, setAdding] = useState<Record<string, string> | null>(null);
+  // fields that could not be read in the shop's units, before anything is sent
+  const [unread, setUnread] = useState<{ edit: Record<string, string>; add: Record<string, string> }>({
+    edit: {},
+    add: {},
+  });
   const edit = useEditItem(kind);
   const add = useAddItem(kind);
-  const editErrors = fieldErrors(issuesOf(edit.error));
-  const addErrors = fieldErrors(issuesOf(add.error));
+  const editErrors = { ...fieldErrors(issuesOf(edit.error)), ...unread.edit };
+  const addErrors = { ...fieldErrors(issuesOf(add.error)), ...unread.add };
 
   const data = useMemo(() => entries.filter((e) => showRetired || !e.retiredAt), [entries, showRetired]);
   const columns = useMemo<ColumnDef<PriceBookEntry>[]>(
     () =>
       cols.map((c) => ({
         id: c.field,
-        header: heading(c),
+        header: heading(c, cu),
         accessorFn: (e) =>
-          c.type === 'money' || c.type === 'number' ? e.item[c.field] : showValue(c, e.item[c.field]),
+          c.type === 'money' || c.type === 'number' ? e.item[c.field] : showValue(c, e.item[c.field], cu, e.item),
         sortUndefined: 'last',
         sortDescFirst: false,
       })),
-    [cols],
+    [cols, cu],
   );
   const table = useReactTable({
     data,
@@ -110,14 +120,30 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
     onGlobalFilterChange: setFilter,
     getRowId: (e) => e.id,
     globalFilterFn: (row, _col, q: string) =>
-      cols.some((c) => showValue(c, row.original.item[c.field]).toLowerCase().includes(q.toLowerCase())),
+      cols.some((c) =>
+        showValue(c, row.original.item[c.field], cu, row.original.item).toLowerCase().includes(q.toLowerCase()),
+      ),
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
     getFilteredRowModel: getFilteredRowModel(),
   });
 
-  const save = (id: string) =>
-    edit.mutate({ id, body: { item: itemOf(cols, draft) } }, { onSuccess: () => setEditing(null) });
+  const save = (id: string) => {
+    edit.reset();
+    const { item, errors } = itemOf(cols, draft, cu, shown);
+    setUnread((u) => ({ ...u, edit: errors }));
+    if (Object.keys(errors).length) return;
+    if (!Object.keys(item).length) return setEditing(null); // nothing changed: no new version
+    edit.mutate({ id, body: { item } }, { onSuccess: () => setEditing(null) });
+  };
+  const create = (draft: Record<string, string>) => {
+    add.reset();
+    const { item, errors } = itemOf(cols, draft, cu);
+    setUnread((u) => ({ ...u, add: errors }));
+    if (Object.keys(errors).length) return;
+    add.mutate({ item }, { onSuccess: () => setAdding(null) });
+  };
+  const stopEditing = () => (setEditing(null), edit.reset(), setUnread((u) => ({ ...u, edit: {} })));
 
   return (
     <div>
@@ -174,13 +200,14 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
                       {isEditing && i > 0 ? (
                         <Input
                           c={c}
-                          label={`${heading(c)} of ${e.id}`}
+                          cu={cu}
+                          label={`${heading(c, cu)} of ${e.id}`}
                           value={draft[c.field] ?? ''}
                           onChange={(v) => setDraft((d) => ({ ...d, [c.field]: v }))}
                           error={editErrors[c.field]}
                         />
                       ) : (
-                        showValue(c, e.item[c.field])
+                        showValue(c, e.item[c.field], cu, e.item)
                       )}
                       {i === 0 && e.retiredAt ? <span className="ml-1 text-xs">(retired)</span> : null}
                     </td>
@@ -196,7 +223,7 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
                         >
                           Save
                         </Button>
-                        <Button type="button" variant="quiet" onClick={() => (setEditing(null), edit.reset())}>
+                        <Button type="button" variant="quiet" onClick={stopEditing}>
                           Cancel
                         </Button>
                       </>
@@ -206,7 +233,13 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
                           type="button"
                           variant="quiet"
                           aria-label={`Edit ${e.id}`}
-                          onClick={() => (edit.reset(), setDraft(draftOf(cols, e.item)), setEditing(e.id))}
+                          onClick={() => {
+                            stopEditing();
+                            const d = draftOf(cols, e.item, cu);
+                            setDraft(d);
+                            setShown(d);
+                            setEditing(e.id);
+                          }}
                         >
                           Edit
                         </Button>
@@ -230,7 +263,8 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
                   <td key={c.field} className="py-1 pr-2">
                     <Input
                       c={c}
-                      label={`New ${heading(c).toLowerCase()}`}
+                      cu={cu}
+                      label={`New ${heading(c, cu).toLowerCase()}`}
                       value={adding[c.field] ?? ''}
                       onChange={(v) => setAdding((d) => ({ ...d, [c.field]: v }))}
                       error={addErrors[c.field]}
@@ -238,15 +272,14 @@ export function PriceTable({ kind, entries }: { kind: PriceBookKind; entries: Pr
                   </td>
                 ))}
                 <td className="whitespace-nowrap py-1">
-                  <Button
-                    type="button"
-                    className="px-2 py-0.5"
-                    disabled={add.isPending}
-                    onClick={() => add.mutate({ item: itemOf(cols, adding) }, { onSuccess: () => setAdding(null) })}
-                  >
+                  <Button type="button" className="px-2 py-0.5" disabled={add.isPending} onClick={() => create(adding)}>
                     Add
                   </Button>
-                  <Button type="button" variant="quiet" onClick={() => (setAdding(null), add.reset())}>
+                  <Button
+                    type="button"
+                    variant="quiet"
+                    onClick={() => (setAdding(null), add.reset(), setUnread((u) => ({ ...u, add: {} })))}
+                  >
                     Cancel
                   </Button>
                 </td>
