@@ -9,9 +9,13 @@ import {
   hingeCups,
   PIN_SETBACK_MM,
   pinRows,
+  pocketHoleCount,
+  pocketHoles,
   TOE_KICK_SETBACK_MM,
   type DadoOp,
   type Machining,
+  type PartEdge,
+  type PartFace,
 } from './machining';
 import { len, where } from './messages';
 import { toMm } from './units';
@@ -164,6 +168,7 @@ function railPart(
   lengthMm: number,
   quantity: number,
 ): Parameters<PartList['add']>[0] {
+  const holes = pocketHoles({ face: 'inside', at: ['left', 'right'], fromEdge: 'bottom', jointMm: RAIL_WIDTH_MM });
   return {
     id,
     name,
@@ -174,10 +179,10 @@ function railPart(
     thicknessMm,
     grain: 'free',
     bandedEdges: { long: 0, short: 0 },
-    pocketHoles: 4,
+    pocketHoles: holes.count,
     dados: 0,
     finishFaces: 0,
-    machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
+    machining: [holes],
   };
 }
 
@@ -599,8 +604,9 @@ function buildCase(
   const setback = cs.hangingRail && grooved ? Math.max(BACK_SETBACK_MM, t) : BACK_SETBACK_MM;
   const panelDepth = grooved ? cs.depthMm : cs.depthMm - bt; // sides, bottom, top
   const insideDepth = grooved ? cs.depthMm - setback - bt : cs.depthMm - bt;
-  // pocket screws along a butt joint: one every 8 in, at least two (common practice)
-  const screwsPerJoint = (depthMm: number) => (butt ? Math.max(2, Math.ceil(depthMm / toMm(8))) : 0);
+  // a butt-jointed panel's pocket holes at the ends `at` along a joint as deep as the panel, marked from its front edge
+  const buttHoles = (face: PartFace, jointMm: number, at: PartEdge[] = ['left', 'right']): Machining[] =>
+    butt ? [pocketHoles({ face, at, fromEdge: 'front', jointMm })] : [];
   const insideWidth = cs.widthMm - 2 * t;
   const insideHeight = cs.heightMm - cs.toeKickMm - 2 * t;
   if (insideWidth <= 0 || insideHeight <= 0 || insideDepth <= 0)
@@ -768,10 +774,14 @@ function buildCase(
     grain: carcassGrain(true),
     bandedEdges: { long: faceBand as 0 | 1, short: 0 },
     bandingId: band,
-    pocketHoles: 2 * screwsPerJoint(panelDepth),
+    pocketHoles: pocketHoleCount(buttHoles('underside', panelDepth)),
     dados: (butt ? 0 : bays.length - 1) + (grooved ? 1 : 0),
     finishFaces: 1,
-    machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
+    machining: [
+      ...bandOps(...(faceBand ? (['front'] as const) : [])),
+      ...horizontalCuts('inside'),
+      ...buttHoles('underside', panelDepth),
+    ],
   });
   if (cs.topKind === 'panel') {
     list.add({
@@ -785,12 +795,17 @@ function buildCase(
       grain: carcassGrain(true),
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
-      pocketHoles: 2 * screwsPerJoint(panelDepth),
+      pocketHoles: pocketHoleCount(buttHoles('top', panelDepth)),
       dados: (butt ? 0 : bays.length - 1) + (grooved ? 1 : 0),
       finishFaces: 2,
-      machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
+      machining: [
+        ...bandOps(...(faceBand ? (['front'] as const) : [])),
+        ...horizontalCuts('inside'),
+        ...buttHoles('top', panelDepth),
+      ],
     });
   } else {
+    const holes = pocketHoles({ face: 'top', at: ['left', 'right'], fromEdge: 'front', jointMm: STRETCHER_WIDTH_MM });
     list.add({
       id: `${k}-stretcher`,
       name: 'stretcher',
@@ -801,10 +816,10 @@ function buildCase(
       thicknessMm: t,
       grain: 'free',
       bandedEdges: { long: 0, short: 0 },
-      pocketHoles: 4,
+      pocketHoles: holes.count,
       dados: 0,
       finishFaces: 0,
-      machining: [{ kind: 'pocket_holes', face: 'top', count: 4, at: ['left', 'right'] }],
+      machining: [holes],
     });
   }
   if (cs.toeKickMm > 0) {
@@ -942,9 +957,10 @@ function buildCase(
       grain: carcassGrain(true),
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
-      pocketHoles: 2 * screwsPerJoint(insideDepth),
+      pocketHoles: pocketHoleCount(buttHoles('left', insideDepth, ['bottom', 'top'])),
       dados: (butt ? 0 : Math.max(...dividersPerBay)) + (backOverPartitions ? 1 : 0),
       finishFaces: 2,
+      machining: buttHoles('left', insideDepth, ['bottom', 'top']),
     });
   }
 
@@ -1008,7 +1024,7 @@ function buildCase(
       grain: carcassGrain(true),
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
-      pocketHoles: 2 * screwsPerJoint(widthMm),
+      pocketHoles: pocketHoleCount(buttHoles('underside', widthMm)),
       dados: 2,
       finishFaces: 2,
       machining: [
@@ -1025,6 +1041,7 @@ function buildCase(
             lengthMm,
           }),
         ),
+        ...buttHoles('underside', widthMm),
       ],
     });
   bays.forEach((bay, b) => {
@@ -1073,10 +1090,10 @@ function buildCase(
         grain: carcassGrain(true),
         bandedEdges: { long: faceBand as 0 | 1, short: 0 },
         bandingId: band,
-        pocketHoles: 2 * screwsPerJoint(insideDepth),
+        pocketHoles: pocketHoleCount(buttHoles('underside', insideDepth)),
         dados: 0,
         finishFaces: 2,
-        machining: bandOps(...(faceBand ? (['front'] as const) : [])),
+        machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...buttHoles('underside', insideDepth)],
       });
     }
     // the face boundaries of this bay (overlay: centre of partitions, case edge less the overlay; inset: the
@@ -1168,10 +1185,13 @@ function buildCase(
             grain: carcassGrain(true),
             bandedEdges: { long: faceBand as 0 | 1, short: 0 },
             bandingId: band,
-            pocketHoles: 2 * screwsPerJoint(insideDepth),
+            pocketHoles: pocketHoleCount(buttHoles('underside', insideDepth - doorDepth)),
             dados: 0,
             finishFaces: 2,
-            machining: bandOps(...(faceBand ? (['front'] as const) : [])),
+            machining: [
+              ...bandOps(...(faceBand ? (['front'] as const) : [])),
+              ...buttHoles('underside', insideDepth - doorDepth),
+            ],
           });
           for (let i = 1; i <= c.fixedShelves; i++) {
             const lower = y + fixedShelfAt(h, c.fixedShelves, i, t);
@@ -1289,6 +1309,16 @@ function buildCase(
             }),
           ],
         });
+        // the box front and back screwed into the sides through pocket holes on their outside faces, along the box's
+        // height above the bottom's groove (kept clear of it: common practice)
+        const overGroove = DRAWER_BOTTOM_UP_MM + m.drawerBottom.thicknessMm;
+        const endHoles = pocketHoles({
+          face: 'outside',
+          at: ['left', 'right'],
+          fromEdge: 'bottom',
+          jointMm: box.boxHeightMm - overGroove,
+          startMm: overGroove,
+        });
         list.add({
           id: `${ck}-drawer-end`,
           name: 'drawer box front and back',
@@ -1300,7 +1330,7 @@ function buildCase(
           grain: 'free',
           bandedEdges: { long: 1, short: 0 },
           bandingId: band,
-          pocketHoles: 4,
+          pocketHoles: endHoles.count,
           dados: 1,
           finishFaces: 0,
           machining: [
@@ -1315,7 +1345,7 @@ function buildCase(
               depthMm: DRAWER_BOTTOM_DADO_MM,
               lengthMm: box.boxWidthMm - 2 * st,
             }),
-            { kind: 'pocket_holes', face: 'outside', count: 4, at: ['left', 'right'] },
+            endHoles,
           ],
         });
         list.add({
