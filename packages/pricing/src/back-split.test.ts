@@ -73,26 +73,112 @@ describe('a back larger than its sheet, split as a shop splits it', () => {
     backMaterialId: 'birch-ply-6',
   } as BuildSpec;
 
-  it.each(['grooved', 'applied'] as const)(
-    'splits a tall wide bookcase %s back across over a back rail, and prices it',
-    (backConstruction) => {
-      const spec = { ...tallWide, backConstruction } as BuildSpec;
+  // the bookcase's one section, with no fixed shelf (or one low down, outside the range the split must fall in)
+  const open = (fixedShelves: number, heightMm: number | null = null) => ({
+    kind: 'open' as const,
+    heightMm,
+    doors: 1 as const,
+    adjustableShelves: 2,
+    fixedShelves,
+  });
+  const noShelf = { ...tallWide, bays: [{ widthMm: null, compartments: [open(0)] }] } as BuildSpec;
+  const lowShelf = {
+    ...tallWide,
+    bays: [{ widthMm: null, compartments: [open(0, toMm(12)), open(0)] }],
+  } as BuildSpec;
+  const t = demoPriceBook.sheetGoods.find((m) => m.id === tallWide.carcassMaterialId)!.thicknessMm;
+  const dado = toMm(0.25);
+  const toe = designs.bookcase.defaults.toeKickMm;
+
+  it.each([
+    ['grooved', 'no fixed shelf', noShelf],
+    ['applied', 'no fixed shelf', noShelf],
+    ['grooved', 'a divider only 12 in up', lowShelf],
+    ['applied', 'a divider only 12 in up', lowShelf],
+  ] as const)(
+    'splits a tall wide bookcase %s back with %s across over a back rail, and prices it',
+    (construction, _, s) => {
+      const spec = { ...s, backConstruction: construction } as BuildSpec;
       expect(validateSpec(spec, fiveByFive, demoSettings)).toMatchObject({ ok: true });
       const pieces = backs(spec, fiveByFive);
       expect(pieces).toHaveLength(2);
       const list = cutList(spec, fiveByFive, demoSettings).parts;
       const rails = list.filter((p) => p.name === 'back rail');
-      expect(rails.reduce((s, p) => s + p.quantity, 0)).toBe(designs.bookcase.defaults.bays.length);
-      // the pieces meet on the rail: together they are the whole back's height
+      expect(rails.reduce((sum, p) => sum + p.quantity, 0)).toBe(1);
+      expect(list.some((p) => p.name === 'fixed shelf, grooved for the back')).toBe(false);
+      // the pieces meet on the rail's centre line, halfway up: together they are the whole back's height
       const whole = cutList(spec, demoPriceBook, demoSettings).parts.find((p) => p.id === 'c1-back')!;
+      expect(pieces[0]!.lengthMm).toBeCloseTo(whole.lengthMm / 2, 6);
       expect(pieces[0]!.lengthMm + pieces[1]!.lengthMm).toBeCloseTo(whole.lengthMm, 6);
       placesEverything(spec, fiveByFive, 'quick');
       placesEverything(spec, fiveByFive, 'thorough');
     },
   );
 
+  // the bookcase's own fixed shelf, halfway up its section: where a shop splits the back, with no rail
+  it.each(['grooved', 'applied'] as const)(
+    'splits a tall wide bookcase %s back at its fixed shelf, with no back rail, and prices it',
+    (backConstruction) => {
+      const spec = { ...tallWide, backConstruction } as BuildSpec;
+      expect(validateSpec(spec, fiveByFive, demoSettings)).toMatchObject({ ok: true });
+      const list = cutList(spec, fiveByFive, demoSettings);
+      const pieces = backs(spec, fiveByFive);
+      expect(pieces).toHaveLength(2);
+      expect(list.parts.some((p) => p.name === 'back rail')).toBe(false);
+      // the shelf's lower face from the floor, and the case's inside floor
+      const [, shelfY] = list.geometry.cases[0]!.shelvesMm[0]!;
+      const floor = toe + t;
+      const whole = cutList(spec, demoPriceBook, demoSettings).parts.find((p) => p.id === 'c1-back')!;
+      const side = list.parts.find((p) => p.id === 'c1-side')!;
+      const shelfDado = side.machining.find((o) => o.kind === 'dado' && o.for === 'fixed shelf');
+      if (backConstruction === 'grooved') {
+        // each piece stands 1/4 in into a groove at either end: the lower in the bottom's and the shelf's underside
+        expect(pieces[0]!.lengthMm).toBeCloseTo(shelfY - floor + 2 * dado, 6);
+        expect(pieces[0]!.lengthMm + pieces[1]!.lengthMm).toBeCloseTo(whole.lengthMm - t + 2 * dado, 6);
+        // the shelf runs the case's full depth, as the bottom does, grooved on both faces where the sides are
+        const shelf = list.parts.find((p) => p.name === 'fixed shelf, grooved for the back')!;
+        expect(shelf).toMatchObject({ quantity: 1, widthMm: side.widthMm, dados: 2 });
+        expect(list.parts.some((p) => p.name === 'fixed shelf')).toBe(false);
+        const sideGroove = side.machining.find((o) => o.kind === 'groove' && o.for === 'back');
+        const grooves = shelf.machining.filter((o) => o.kind === 'groove' && o.for === 'back');
+        expect(grooves.map((g) => g.kind === 'groove' && g.face)).toEqual(['top', 'underside']);
+        for (const g of grooves)
+          expect(g).toMatchObject({
+            fromEdge: 'back',
+            distanceMm: sideGroove?.kind === 'groove' ? sideGroove.distanceMm : NaN,
+            lengthMm: expect.closeTo(shelf.lengthMm, 1),
+          });
+        // its dado in each side runs through to the back edge
+        expect(shelfDado).toMatchObject({ lengthMm: expect.closeTo(side.widthMm, 1) });
+      } else {
+        // the pieces meet on the shelf's centre line, nailed to its back edge; the shelf is as it was
+        expect(pieces[0]!.lengthMm).toBeCloseTo(shelfY + t / 2 - toe, 6);
+        expect(pieces[0]!.lengthMm + pieces[1]!.lengthMm).toBeCloseTo(whole.lengthMm, 6);
+        expect(list.parts.find((p) => p.name === 'fixed shelf')).toMatchObject({ quantity: 1 });
+        expect(shelfDado).toMatchObject({ lengthMm: expect.closeTo(side.widthMm, 1) });
+      }
+      placesEverything(spec, fiveByFive, 'quick');
+      placesEverything(spec, fiveByFive, 'thorough');
+    },
+  );
+
+  it('takes the split at the fixed shelf nearest halfway when several lie where it may fall', () => {
+    // three shelves about a quarter, half and three quarters up: the pieces may be at most 59 in of an 86 in back,
+    // so the lowest and the highest lie outside the range the split must fall in, and the middle one takes it
+    const spec = { ...tallWide, bays: [{ widthMm: null, compartments: [open(3)] }] } as BuildSpec;
+    const list = cutList(spec, fiveByFive, demoSettings);
+    expect(list.parts.some((p) => p.name === 'back rail')).toBe(false);
+    const shelves = list.geometry.cases[0]!.shelvesMm.map(([, y]) => y);
+    expect(list.parts.find((p) => p.name === 'fixed shelf, grooved for the back')?.quantity).toBe(1);
+    const pieces = backs(spec, fiveByFive);
+    expect(pieces[0]!.lengthMm).toBeCloseTo(shelves[1]! - (toe + t) + 2 * dado, 6);
+  });
+
   it('gives a drawer whose opening a back rail crosses a box short enough to clear the rail', () => {
-    // 13 1/2 in deep: a 12 in slide without the rail; the 3/4 in rail leaves room for a 10 in one
+    // 13 1/2 in deep: a 12 in slide without the rail; the 3/4 in rail leaves room for a 10 in one. Four drawers
+    // 250 mm high from 600 mm up: the dividers under and over them lie outside the range the split must fall in,
+    // so the back is split on a rail halfway up, across the second and third drawers
+    const drawer = { kind: 'drawer', heightMm: 250, doors: 1, adjustableShelves: 0, fixedShelves: 0 };
     const drawerAtRail = {
       ...tallWide,
       widthMm: toMm(34),
@@ -101,8 +187,11 @@ describe('a back larger than its sheet, split as a shop splits it', () => {
         {
           widthMm: null,
           compartments: [
-            { kind: 'open', heightMm: 1000, doors: 1, adjustableShelves: 2, fixedShelves: 0 },
-            { kind: 'drawer', heightMm: 200, doors: 1, adjustableShelves: 0, fixedShelves: 0 },
+            { kind: 'open', heightMm: 600, doors: 1, adjustableShelves: 2, fixedShelves: 0 },
+            drawer,
+            drawer,
+            drawer,
+            drawer,
             { kind: 'open', heightMm: null, doors: 1, adjustableShelves: 2, fixedShelves: 0 },
           ],
         },
@@ -110,8 +199,10 @@ describe('a back larger than its sheet, split as a shop splits it', () => {
     } as BuildSpec;
     const slide = (book: PriceBook) =>
       cutList(drawerAtRail, book, demoSettings).geometry.drawers.map((d) => d.slideLengthIn);
-    expect(slide(demoPriceBook)).toEqual([12]);
-    expect(slide(fiveByFive)).toEqual([10]);
+    expect(slide(demoPriceBook)).toEqual([12, 12, 12, 12]);
+    expect(slide(fiveByFive)).toEqual([12, 10, 10, 12]);
+    const rails = cutList(drawerAtRail, fiveByFive, demoSettings).parts.filter((p) => p.name === 'back rail');
+    expect(rails.map((p) => p.quantity)).toEqual([1]);
     const v = validateSpec(drawerAtRail, fiveByFive, demoSettings);
     expect(v.ok ? [] : v.issues).toEqual([]);
     placesEverything(drawerAtRail, fiveByFive, 'quick');

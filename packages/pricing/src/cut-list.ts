@@ -9,9 +9,13 @@ import {
   hingeCups,
   PIN_SETBACK_MM,
   pinRows,
+  pocketHoleCount,
+  pocketHoles,
   TOE_KICK_SETBACK_MM,
   type DadoOp,
   type Machining,
+  type PartEdge,
+  type PartFace,
 } from './machining';
 import { len, where } from './messages';
 import { toMm } from './units';
@@ -164,6 +168,7 @@ function railPart(
   lengthMm: number,
   quantity: number,
 ): Parameters<PartList['add']>[0] {
+  const holes = pocketHoles({ face: 'inside', at: ['left', 'right'], fromEdge: 'bottom', jointMm: RAIL_WIDTH_MM });
   return {
     id,
     name,
@@ -174,10 +179,10 @@ function railPart(
     thicknessMm,
     grain: 'free',
     bandedEdges: { long: 0, short: 0 },
-    pocketHoles: 4,
+    pocketHoles: holes.count,
     dados: 0,
     finishFaces: 0,
-    machining: [{ kind: 'pocket_holes', face: 'inside', count: 4, at: ['left', 'right'] }],
+    machining: [holes],
   };
 }
 
@@ -487,6 +492,97 @@ interface Mats {
   drawerBottom: SheetGood;
 }
 
+/** A fixed member across a bay: its key within the bay, and its lower face from the floor. */
+interface Member {
+  key: string;
+  lowerMm: number;
+}
+
+/** The lower face of the i-th of n fixed shelves spaced evenly up a section h high, from the section's floor. */
+function fixedShelfAt(h: number, n: number, i: number, t: number): number {
+  return (i * (h - n * t)) / (n + 1) + (i - 1) * t;
+}
+
+/** A level a back may be split at: a member's centre line, where its pieces end below and start above, and the bays holding it (bay -> member key). */
+interface BackLevel {
+  centreMm: number;
+  lowMm: number;
+  highMm: number;
+  held: Map<number, string>;
+}
+
+/**
+ * Where a back too large for its sheet is split across, into the fewest pieces that fit (`pieces`, found by the
+ * caller): at members' levels wherever one lies in the range the split must fall in, so that a bay held by a member
+ * needs no rail, and elsewhere on rails, spaced evenly between the ends and the members used. Of the ways with the
+ * fewest rails (one for each bay a split crosses without a member), the one whose pieces are nearest equal.
+ * Deterministic: levels in height order, the first best kept.
+ */
+function splitBack(o: {
+  footMm: number;
+  heightMm: number;
+  pieces: number;
+  /** bays the back's run covers */
+  bays: number;
+  levels: readonly BackLevel[];
+  /** whether a piece this high fits a sheet */
+  fits: (heightMm: number) => boolean;
+}): { splits: { centreMm: number; level: BackLevel | null }[]; pieces: number[] } {
+  const end = o.footMm + o.heightMm;
+  const even = o.heightMm / o.pieces;
+  const k = o.pieces - 1;
+  type Split = { centreMm: number; lowMm: number; highMm: number; level: BackLevel | null };
+  let best: { splits: Split[]; pieces: number[]; cost: number; spread: number } | null = null;
+  // at most 16 levels, those nearest an even split (a case has seldom more than a few)
+  const near = (l: BackLevel) =>
+    Math.min(...Array.from({ length: k }, (_, r) => Math.abs(l.centreMm - o.footMm - (r + 1) * even)));
+  const levels = [...o.levels]
+    .sort((a, b) => near(a) - near(b) || a.centreMm - b.centreMm)
+    .slice(0, 16)
+    .sort((a, b) => a.centreMm - b.centreMm);
+  const consider = (chosen: BackLevel[], free: number[]) => {
+    // free[g] rails spaced evenly in the g-th gap between the ends and the chosen levels
+    const splits: Split[] = [];
+    for (let g = 0; g <= chosen.length; g++) {
+      const from = g === 0 ? o.footMm : at(chosen, g - 1).highMm;
+      const to = g === chosen.length ? end : at(chosen, g).lowMm;
+      const n = at(free, g);
+      for (let r = 1; r <= n; r++) {
+        const c = from + ((to - from) * r) / (n + 1);
+        splits.push({ centreMm: c, lowMm: c, highMm: c, level: null });
+      }
+      const l = chosen[g];
+      if (l) splits.push({ centreMm: l.centreMm, lowMm: l.lowMm, highMm: l.highMm, level: l });
+    }
+    const pieces: number[] = [];
+    let from = o.footMm;
+    for (const s of splits) {
+      pieces.push(s.lowMm - from);
+      from = s.highMm;
+    }
+    pieces.push(end - from);
+    if (!pieces.every((h) => h > 0 && o.fits(h))) return;
+    const cost = splits.reduce((sum, s) => sum + (s.level ? o.bays - s.level.held.size : o.bays), 0);
+    const spread = pieces.reduce((sum, h) => sum + (h - even) ** 2, 0);
+    if (!best || cost < best.cost || (cost === best.cost && spread < best.spread - 1e-6))
+      best = { splits, pieces, cost, spread };
+  };
+  const choose = (start: number, chosen: BackLevel[]) => {
+    // every way to share the rails left among the gaps
+    const share = (g: number, left: number, free: number[]) => {
+      if (g === chosen.length) consider(chosen, [...free, left]);
+      else for (let n = 0; n <= left; n++) share(g + 1, left - n, [...free, n]);
+    };
+    share(0, k - chosen.length, []);
+    if (chosen.length < k) for (let i = start; i < levels.length; i++) choose(i + 1, [...chosen, at(levels, i)]);
+  };
+  choose(0, []);
+  // the caller found `pieces` even pieces that fit, so the rails alone always do
+  const found = best as { splits: Split[]; pieces: number[] } | null;
+  if (!found) throw new RangeError('no split of the back fits its sheet');
+  return { splits: found.splits.map(({ centreMm, level }) => ({ centreMm, level })), pieces: found.pieces };
+}
+
 function buildCase(
   cs: CaseInput,
   spec: BuildSpec,
@@ -508,8 +604,9 @@ function buildCase(
   const setback = cs.hangingRail && grooved ? Math.max(BACK_SETBACK_MM, t) : BACK_SETBACK_MM;
   const panelDepth = grooved ? cs.depthMm : cs.depthMm - bt; // sides, bottom, top
   const insideDepth = grooved ? cs.depthMm - setback - bt : cs.depthMm - bt;
-  // pocket screws along a butt joint: one every 8 in, at least two (common practice)
-  const screwsPerJoint = (depthMm: number) => (butt ? Math.max(2, Math.ceil(depthMm / toMm(8))) : 0);
+  // a butt-jointed panel's pocket holes at the ends `at` along a joint as deep as the panel, marked from its front edge
+  const buttHoles = (face: PartFace, jointMm: number, at: PartEdge[] = ['left', 'right']): Machining[] =>
+    butt ? [pocketHoles({ face, at, fromEdge: 'front', jointMm })] : [];
   const insideWidth = cs.widthMm - 2 * t;
   const insideHeight = cs.heightMm - cs.toeKickMm - 2 * t;
   if (insideWidth <= 0 || insideHeight <= 0 || insideDepth <= 0)
@@ -532,6 +629,33 @@ function buildCase(
   );
   if (bayWidths.some((w) => w < 100))
     throw new BuildError('The bays do not fit the case: make them narrower or the case wider.', 'bays');
+  const insideFloor = cs.yMm + cs.toeKickMm + t; // from the floor
+  // each bay's fixed members (dividers between its sections, fixed shelves within them), by their lower faces from
+  // the floor, keyed as the sections' loop below names them: where a back too large for its sheet may be split
+  const members: Member[][] = bays.map((bay, b) => {
+    const heights = share(
+      bay.compartments.map((c) => c.heightMm),
+      insideHeight - dividerCount(bay.compartments) * t,
+    );
+    if (heights.some((h) => h < 50))
+      throw new BuildError(
+        `The sections of ${where(b)} do not fit the case: make them shorter or the case taller.`,
+        `bays[${b}].compartments`,
+      );
+    const out: Member[] = [];
+    let y = insideFloor;
+    bay.compartments.forEach((c, j) => {
+      const h = at(heights, j);
+      const next = bay.compartments[j + 1];
+      const divider = !!next && !(next.kind === 'drawer' && c.kind === 'drawer');
+      if (c.kind !== 'drawer')
+        for (let i = 1; i <= c.fixedShelves; i++)
+          out.push({ key: `k${j + 1}-shelf-${i}`, lowerMm: y + fixedShelfAt(h, c.fixedShelves, i, t) });
+      if (divider) out.push({ key: `k${j + 1}-divider`, lowerMm: y + h });
+      y += h + (divider ? t : 0);
+    });
+    return out;
+  });
 
   // the bottom's and top panel's partition dados (from the left end, which sits in the left side's dado) and back groove
   const horizontalCuts = (face: 'inside'): DadoOp[] => {
@@ -650,10 +774,14 @@ function buildCase(
     grain: carcassGrain(true),
     bandedEdges: { long: faceBand as 0 | 1, short: 0 },
     bandingId: band,
-    pocketHoles: 2 * screwsPerJoint(panelDepth),
+    pocketHoles: pocketHoleCount(buttHoles('underside', panelDepth)),
     dados: (butt ? 0 : bays.length - 1) + (grooved ? 1 : 0),
     finishFaces: 1,
-    machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
+    machining: [
+      ...bandOps(...(faceBand ? (['front'] as const) : [])),
+      ...horizontalCuts('inside'),
+      ...buttHoles('underside', panelDepth),
+    ],
   });
   if (cs.topKind === 'panel') {
     list.add({
@@ -667,12 +795,17 @@ function buildCase(
       grain: carcassGrain(true),
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
-      pocketHoles: 2 * screwsPerJoint(panelDepth),
+      pocketHoles: pocketHoleCount(buttHoles('top', panelDepth)),
       dados: (butt ? 0 : bays.length - 1) + (grooved ? 1 : 0),
       finishFaces: 2,
-      machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...horizontalCuts('inside')],
+      machining: [
+        ...bandOps(...(faceBand ? (['front'] as const) : [])),
+        ...horizontalCuts('inside'),
+        ...buttHoles('top', panelDepth),
+      ],
     });
   } else {
+    const holes = pocketHoles({ face: 'top', at: ['left', 'right'], fromEdge: 'front', jointMm: STRETCHER_WIDTH_MM });
     list.add({
       id: `${k}-stretcher`,
       name: 'stretcher',
@@ -683,10 +816,10 @@ function buildCase(
       thicknessMm: t,
       grain: 'free',
       bandedEdges: { long: 0, short: 0 },
-      pocketHoles: 4,
+      pocketHoles: holes.count,
       dados: 0,
       finishFaces: 0,
-      machining: [{ kind: 'pocket_holes', face: 'top', count: 4, at: ['left', 'right'] }],
+      machining: [holes],
     });
   }
   if (cs.toeKickMm > 0) {
@@ -711,9 +844,14 @@ function buildCase(
   }
   // The back, as a shop handles one larger than its sheet (common practice): a back with grain runs it up the case
   // as the sides do, so it is split over partitions into pieces that each fit with their grain up; a piece that
-  // still does not fit is turned with its grain across, and one too large either way is split across over back
-  // rails, one in each bay it covers, the pieces meeting on the rail's centre line.
+  // still does not fit is turned with its grain across, and one too large either way is split across. A shop splits
+  // it where there is already something to fasten both edges to: a fixed shelf or a divider lying where the split
+  // may fall (see splitBack). An applied back's pieces meet on its centre line, nailed to its back edge; a grooved
+  // back's pieces stand in grooves in its top face and underside, the shelf then running the case's full depth as
+  // the bottom does. Where no such member lies across a bay, the split rests on a back rail across that bay, the
+  // pieces meeting on the rail's centre line.
   const backHeight = grooved ? insideHeight + 2 * DADO_MM : cs.heightMm - cs.toeKickMm;
+  const backFoot = grooved ? insideFloor - DADO_MM : cs.yMm + cs.toeKickMm;
   const backGrain = grainOf(m.back, true);
   const fitsUp = (w: number, h = backHeight) => sheetFits(m.back, sheetTrimMm, h, w, backGrain);
   const fitsAny = (w: number, h = backHeight) => sheetFits(m.back, sheetTrimMm, h, w, 'free');
@@ -735,24 +873,59 @@ function buildCase(
   } else runs.push([0, bays.length - 1]);
   const backOverPartitions = grooved && runs.length > 1;
   const railsInBay: number[][] = bays.map(() => []);
-  const backParts: { w: number; h: number; rows: number; bays: number[] }[] = runs.map(([a, z]) => {
+  /** members a grooved back is split at, as `bay:key` (see `members`) */
+  const backMembers = new Set<string>();
+  const backParts: { w: number; heights: number[]; rails: number[]; bays: number[] }[] = runs.map(([a, z]) => {
     const w = spanOf(a, z);
     let rows = 1;
     while (!fitsAny(w, backHeight / rows) && rows < 4) rows++;
     if (!fitsAny(w, backHeight / rows)) rows = 1; // too wide for any sheet: validation names it
-    // the rails' centre lines, from the floor, in each bay the piece covers
-    const backFoot = grooved ? cs.yMm + cs.toeKickMm + t - DADO_MM : cs.yMm + cs.toeKickMm;
-    for (let bay = a; bay <= z; bay++)
-      for (let r = 1; r < rows; r++) at(railsInBay, bay).push(backFoot + (r * backHeight) / rows);
-    return { w, h: backHeight / rows, rows, bays: bayWidths.slice(a, z + 1) };
+    const covered = bays.map((_, b) => b).slice(a, z + 1);
+    const rails = covered.map(() => 0);
+    if (rows === 1) return { w, heights: [backHeight], rails, bays: bayWidths.slice(a, z + 1) };
+    // the members' levels across the run: where one lies in every bay at the same height, or (an applied back, whose
+    // pieces meet on a centre line as they do on a rail) in some of them, the others taking a rail there
+    const levels = new Map<number, BackLevel>();
+    for (const b of covered)
+      for (const mb of at(members, b)) {
+        const key = Math.round(mb.lowerMm * 10);
+        const level = levels.get(key) ?? {
+          centreMm: mb.lowerMm + t / 2,
+          lowMm: grooved ? mb.lowerMm + DADO_MM : mb.lowerMm + t / 2,
+          highMm: grooved ? mb.lowerMm + t - DADO_MM : mb.lowerMm + t / 2,
+          held: new Map<number, string>(),
+        };
+        level.held.set(b, mb.key);
+        levels.set(key, level);
+      }
+    const usable = [...levels.values()].filter((l) => !grooved || l.held.size === covered.length);
+    const plan = splitBack({
+      footMm: backFoot,
+      heightMm: backHeight,
+      pieces: rows,
+      bays: covered.length,
+      levels: usable,
+      fits: (h) => fitsAny(w, h),
+    });
+    for (const s of plan.splits)
+      covered.forEach((b, i) => {
+        const held = s.level?.held.get(b);
+        if (held !== undefined) {
+          if (grooved) backMembers.add(`${b}:${held}`);
+        } else {
+          at(railsInBay, b).push(s.centreMm);
+          rails[i] = at(rails, i) + 1;
+        }
+      });
+    return { w, heights: plan.pieces, rails, bays: bayWidths.slice(a, z + 1) };
   });
-  const backCount = backParts.reduce((sum, p) => sum + p.rows, 0);
+  const backCount = backParts.reduce((sum, p) => sum + p.heights.length, 0);
   let piece = 0;
-  backParts.forEach(({ w, h, rows, bays: covered }) => {
-    // grain up the case where the sheet allows (a grainless back too, as it has always been laid out)
-    const upright = sheetFits(m.back, sheetTrimMm, h, w, 'fixed');
-    for (let r = 0; r < rows; r++) {
+  backParts.forEach(({ w, heights, rails, bays: covered }) => {
+    for (const h of heights) {
       piece++;
+      // grain up the case where the sheet allows (a grainless back too, as it has always been laid out)
+      const upright = sheetFits(m.back, sheetTrimMm, h, w, 'fixed');
       list.add({
         id: backCount > 1 ? `${k}-back-${piece}` : `${k}-back`,
         name: backCount > 1 ? `back, piece ${piece}` : 'back',
@@ -768,10 +941,9 @@ function buildCase(
         finishFaces: 1,
       });
     }
-    if (rows > 1)
-      covered.forEach((bw, i) =>
-        list.add(railPart(`${k}-back-rail-${piece}-${i + 1}`, 'back rail', m.carcass.id, t, bw, rows - 1)),
-      );
+    covered.forEach((bw, i) =>
+      list.add(railPart(`${k}-back-rail-${piece}-${i + 1}`, 'back rail', m.carcass.id, t, bw, at(rails, i))),
+    );
   });
   if (bays.length > 1) {
     list.add({
@@ -785,9 +957,10 @@ function buildCase(
       grain: carcassGrain(true),
       bandedEdges: { long: faceBand as 0 | 1, short: 0 },
       bandingId: band,
-      pocketHoles: 2 * screwsPerJoint(insideDepth),
+      pocketHoles: pocketHoleCount(buttHoles('left', insideDepth, ['bottom', 'top'])),
       dados: (butt ? 0 : Math.max(...dividersPerBay)) + (backOverPartitions ? 1 : 0),
       finishFaces: 2,
+      machining: buttHoles('left', insideDepth, ['bottom', 'top']),
     });
   }
 
@@ -821,7 +994,8 @@ function buildCase(
     if (b < bays.length - 1) at(partitionOps, b).push(...make(partitionFoot, 'left'));
   };
   const backRowSetback = (panelDepthMm: number) => panelDepthMm - insideDepth + PIN_SETBACK_MM;
-  const dividerDado = (b: number, lowerFaceMm: number, what: string) =>
+  // a member a grooved back is split at runs the case's full depth: its dado in a side runs through
+  const dividerDado = (b: number, lowerFaceMm: number, what: string, through = false) =>
     mark(b, (foot, face) =>
       butt
         ? []
@@ -833,10 +1007,43 @@ function buildCase(
               distanceMm: lowerFaceMm - foot,
               widthMm: t,
               depthMm: DADO_MM,
-              lengthMm: insideDepth,
+              lengthMm: through && face === 'inside' ? panelDepth : insideDepth,
             }),
           ],
     );
+  /** a fixed shelf or divider whose faces a grooved back's pieces stand in: full depth, grooved top and underside */
+  const backShelf = (id: string, quantity: number, lengthMm: number, widthMm: number) =>
+    list.add({
+      id,
+      name: 'fixed shelf, grooved for the back',
+      materialId: m.carcass.id,
+      quantity,
+      lengthMm,
+      widthMm,
+      thicknessMm: t,
+      grain: carcassGrain(true),
+      bandedEdges: { long: faceBand as 0 | 1, short: 0 },
+      bandingId: band,
+      pocketHoles: pocketHoleCount(buttHoles('underside', widthMm)),
+      dados: 2,
+      finishFaces: 2,
+      machining: [
+        ...bandOps(...(faceBand ? (['front'] as const) : [])),
+        ...(['top', 'underside'] as const).map((face) =>
+          cut({
+            kind: 'groove',
+            for: 'back',
+            face,
+            fromEdge: 'back',
+            distanceMm: BACK_SETBACK_MM,
+            widthMm: bt,
+            depthMm: DADO_MM,
+            lengthMm,
+          }),
+        ),
+        ...buttHoles('underside', widthMm),
+      ],
+    });
   bays.forEach((bay, b) => {
     const bw = at(bayWidths, b);
     const bk = `${k}-b${b + 1}`;
@@ -845,11 +1052,6 @@ function buildCase(
       bay.compartments.map((c) => c.heightMm),
       insideHeight - dividers * t,
     );
-    if (heights.some((h) => h < 50))
-      throw new BuildError(
-        `The sections of ${where(b)} do not fit the case: make them shorter or the case taller.`,
-        `bays[${b}].compartments`,
-      );
     // a stack of drawers sharing the height: fronts of equal height, or graduated (each a step taller than the one above)
     const edgeExt = (j: number, side: -1 | 1): number => {
       const c = at(bay.compartments, j);
@@ -873,22 +1075,25 @@ function buildCase(
       }
       j = e + 1;
     }
+    const isBackMember = (key: string) => backMembers.has(`${b}:${key}`);
+    const backDividers = bay.compartments.filter((_, j) => isBackMember(`k${j + 1}-divider`)).length;
+    if (backDividers > 0) backShelf(`${bk}-divider-grooved`, backDividers, bw + 2 * dado, panelDepth);
     if (dividers > 0) {
       list.add({
         id: `${bk}-divider`,
         name: 'fixed shelf',
         materialId: m.carcass.id,
-        quantity: dividers,
+        quantity: dividers - backDividers,
         lengthMm: bw + 2 * dado,
         widthMm: insideDepth,
         thicknessMm: t,
         grain: carcassGrain(true),
         bandedEdges: { long: faceBand as 0 | 1, short: 0 },
         bandingId: band,
-        pocketHoles: 2 * screwsPerJoint(insideDepth),
+        pocketHoles: pocketHoleCount(buttHoles('underside', insideDepth)),
         dados: 0,
         finishFaces: 2,
-        machining: bandOps(...(faceBand ? (['front'] as const) : [])),
+        machining: [...bandOps(...(faceBand ? (['front'] as const) : [])), ...buttHoles('underside', insideDepth)],
       });
     }
     // the face boundaries of this bay (overlay: centre of partitions, case edge less the overlay; inset: the
@@ -927,7 +1132,7 @@ function buildCase(
       const doorDepth = c.kind === 'door' ? frontDepth : 0;
       if (above === 'divider') {
         outline.shelvesMm.push([x, y + h, bw]);
-        dividerDado(b, y + h, 'fixed shelf');
+        dividerDado(b, y + h, 'fixed shelf', isBackMember(`k${j + 1}-divider`));
       }
       if (c.kind !== 'drawer' && c.adjustableShelves > 0) {
         const floor = y;
@@ -964,26 +1169,34 @@ function buildCase(
           geo.shelfSpans.push({ spanMm: bw, depthMm: shelfDepth, materialId: m.carcass.id, thicknessMm: t });
         }
         if (c.fixedShelves > 0) {
+          const backShelves = [...Array(c.fixedShelves).keys()].filter((i) =>
+            isBackMember(`k${j + 1}-shelf-${i + 1}`),
+          ).length;
+          if (backShelves > 0)
+            backShelf(`${ck}-fixed-shelf-grooved`, backShelves, bw + 2 * dado, panelDepth - doorDepth);
           list.add({
             id: `${ck}-fixed-shelf`,
             name: 'fixed shelf',
             materialId: m.carcass.id,
-            quantity: c.fixedShelves,
+            quantity: c.fixedShelves - backShelves,
             lengthMm: bw + 2 * dado,
             widthMm: insideDepth - doorDepth,
             thicknessMm: t,
             grain: carcassGrain(true),
             bandedEdges: { long: faceBand as 0 | 1, short: 0 },
             bandingId: band,
-            pocketHoles: 2 * screwsPerJoint(insideDepth),
+            pocketHoles: pocketHoleCount(buttHoles('underside', insideDepth - doorDepth)),
             dados: 0,
             finishFaces: 2,
-            machining: bandOps(...(faceBand ? (['front'] as const) : [])),
+            machining: [
+              ...bandOps(...(faceBand ? (['front'] as const) : [])),
+              ...buttHoles('underside', insideDepth - doorDepth),
+            ],
           });
-          const gap = (h - c.fixedShelves * t) / (c.fixedShelves + 1);
           for (let i = 1; i <= c.fixedShelves; i++) {
-            outline.shelvesMm.push([x, y + i * gap + (i - 1) * t, bw]);
-            dividerDado(b, y + i * gap + (i - 1) * t, 'fixed shelf');
+            const lower = y + fixedShelfAt(h, c.fixedShelves, i, t);
+            outline.shelvesMm.push([x, lower, bw]);
+            dividerDado(b, lower, 'fixed shelf', isBackMember(`k${j + 1}-shelf-${i}`));
           }
         }
         if (c.adjustableShelves > 0 || c.fixedShelves > 0 || dividers > 0)
@@ -1096,6 +1309,16 @@ function buildCase(
             }),
           ],
         });
+        // the box front and back screwed into the sides through pocket holes on their outside faces, along the box's
+        // height above the bottom's groove (kept clear of it: common practice)
+        const overGroove = DRAWER_BOTTOM_UP_MM + m.drawerBottom.thicknessMm;
+        const endHoles = pocketHoles({
+          face: 'outside',
+          at: ['left', 'right'],
+          fromEdge: 'bottom',
+          jointMm: box.boxHeightMm - overGroove,
+          startMm: overGroove,
+        });
         list.add({
           id: `${ck}-drawer-end`,
           name: 'drawer box front and back',
@@ -1107,7 +1330,7 @@ function buildCase(
           grain: 'free',
           bandedEdges: { long: 1, short: 0 },
           bandingId: band,
-          pocketHoles: 4,
+          pocketHoles: endHoles.count,
           dados: 1,
           finishFaces: 0,
           machining: [
@@ -1122,7 +1345,7 @@ function buildCase(
               depthMm: DRAWER_BOTTOM_DADO_MM,
               lengthMm: box.boxWidthMm - 2 * st,
             }),
-            { kind: 'pocket_holes', face: 'outside', count: 4, at: ['left', 'right'] },
+            endHoles,
           ],
         });
         list.add({

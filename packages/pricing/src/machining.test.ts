@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { cutList, type CutPart } from './cut-list';
 import { demoPriceBook, demoSettings } from './demo-data';
 import { designs } from './designs';
-import { hingeCups, pinRows } from './machining';
+import { hingeCups, pinRows, pocketHoleCentres, POCKET_MAX_SPACING_MM } from './machining';
+import { labourCounts } from './labour';
 import { toMm } from './units';
 
 const ops = (parts: CutPart[], id: string) => {
@@ -64,14 +65,28 @@ describe('machining positions on the base cabinet', () => {
     expect(ops(parts, 'c1-b1-k2-drawer-side')).toContainEqual(
       expect.objectContaining({ kind: 'groove', for: 'drawer bottom', distanceMm: 12.7, widthMm: 5.6, depthMm: 6.4 }),
     );
-    expect(ops(parts, 'c1-b1-k2-drawer-end')).toContainEqual({
+    // the box is 5 in high (a 6 in opening less 1 in); the holes keep to the 108.7 mm above the bottom's groove
+    // (1/2 in up, 5.56 mm wide): two an end, a quarter of that in from its ends, 18.26 + 27.2 and 18.26 + 81.6 mm up
+    const end = parts.find((p) => p.id === 'c1-b1-k2-drawer-end')!;
+    expect(end.widthMm).toBeCloseTo(127, 0);
+    expect(end.machining).toContainEqual({
       kind: 'pocket_holes',
       face: 'outside',
       count: 4,
       at: ['left', 'right'],
+      fromEdge: 'bottom',
+      centresMm: [45.4, 99.8],
     });
+    // the 4 in stretcher: holes 1 in from its front and back edges
     expect(ops(parts, 'c1-stretcher')).toEqual([
-      { kind: 'pocket_holes', face: 'top', count: 4, at: ['left', 'right'] },
+      {
+        kind: 'pocket_holes',
+        face: 'top',
+        count: 4,
+        at: ['left', 'right'],
+        fromEdge: 'front',
+        centresMm: [25.4, 76.2],
+      },
     ]);
   });
   it('gives every part with banded edges a band entry, and none to parts without', () => {
@@ -127,5 +142,62 @@ describe('pinRows and hingeCups', () => {
   });
   it('space three cups evenly between the end cups', () => {
     expect(hingeCups(1000, 3).centresMm).toEqual([100, 500, 900]);
+  });
+});
+
+describe('pocket holes', () => {
+  it('puts a hole 2 in from each end of a joint and the rest evenly between, at most 8 in apart', () => {
+    // a 24 in joint: 20 in between the end holes takes three spaces of 6 2/3 in
+    expect(pocketHoleCentres(toMm(24))).toEqual([50.8, 220.1, 389.5, 558.8]);
+    // 8 in between the end holes is one space; a hair more takes two
+    expect(pocketHoleCentres(toMm(12))).toEqual([50.8, 254]);
+    expect(pocketHoleCentres(toMm(12) + 1)).toHaveLength(3);
+    for (const joint of [toMm(8), 300, 457.2, 600, 900, 1200]) {
+      const c = pocketHoleCentres(joint);
+      expect(c[0]).toBeCloseTo(50.8, 1);
+      expect(joint - c.at(-1)!).toBeCloseTo(50.8, 1);
+      for (let i = 1; i < c.length; i++) expect(c[i]! - c[i - 1]!).toBeLessThanOrEqual(POCKET_MAX_SPACING_MM + 0.1);
+      // no fewer holes than the spacing needs
+      expect(c.length).toBe(Math.ceil((joint - 2 * 50.8) / POCKET_MAX_SPACING_MM) + 1);
+    }
+  });
+  it('brings the two holes in on a short joint, and takes one hole on a narrow one', () => {
+    expect(pocketHoleCentres(150)).toEqual([37.5, 112.5]);
+    expect(pocketHoleCentres(toMm(3))).toEqual([19, 57.1]);
+    expect(pocketHoleCentres(toMm(1.25))).toEqual([15.9]);
+  });
+  it('gives a butt-jointed case its pocket holes with positions, and counts them as drilled', () => {
+    const spec = { ...designs['base-cabinet'].defaults, joinery: 'butt' as const };
+    const parts = cutList(spec, demoPriceBook, demoSettings).parts;
+    const bottom = parts.find((p) => p.id === 'c1-bottom')!;
+    // the 24 in deep bottom, screwed up into the sides from its underside: four holes an end
+    expect(bottom.machining).toContainEqual({
+      kind: 'pocket_holes',
+      face: 'underside',
+      count: 8,
+      at: ['left', 'right'],
+      fromEdge: 'front',
+      centresMm: [50.8, 220.1, 389.5, 558.8],
+    });
+    // every part's count is the holes its machining places, and the labour prices those
+    const placed = (p: CutPart) =>
+      p.machining
+        .filter((o) => o.kind === 'pocket_holes')
+        .reduce((sum, o) => sum + (o.centresMm?.length ?? 0) * o.at.length, 0);
+    for (const p of parts) expect(p.pocketHoles, p.id).toBe(placed(p));
+    const list = cutList(spec, demoPriceBook, demoSettings);
+    const counts = labourCounts({
+      pieces: [{ parts: list.parts, geometry: list.geometry, hardware: [], quantity: 1 }],
+      sheets: 0,
+      finishM2Coats: 0,
+      boardFeetMilled: 0,
+    });
+    expect(counts.pocket_hole).toBe(parts.reduce((sum, p) => sum + p.quantity * placed(p), 0));
+    // by hand: the stretchers 2 x 4 and the drawer box ends 2 x 4, as with dadoes, and now the bottom's 8 and the
+    // divider's 8 (23 1/4 in deep: four an end)
+    expect(counts.pocket_hole).toBe(32);
+    expect(parts.filter((p) => p.pocketHoles > 0).map((p) => p.name)).toEqual(
+      expect.arrayContaining(['bottom', 'stretcher', 'fixed shelf', 'drawer box front and back']),
+    );
   });
 });

@@ -67,12 +67,21 @@ export interface HingeCupOp {
   centresMm: number[];
 }
 
+/**
+ * Pocket holes drilled at one or more ends of a part, to fasten it into the neighbouring part: at each end a row of
+ * holes along the joint, each centred `centresMm` from `fromEdge` (the same at every end).
+ */
 export interface PocketHoleOp {
   kind: 'pocket_holes';
   face: PartFace;
+  /** every hole of the op: the holes at an end times the ends */
   count: number;
-  /** the ends the holes are drilled at, to fasten into the neighbouring part */
+  /** the ends the holes are drilled at */
   at: PartEdge[];
+  /** the edge the centres are measured from (absent, with `centresMm`, in travellers recorded before they were given) */
+  fromEdge?: PartEdge;
+  /** each hole's centre from `fromEdge`, along the joint */
+  centresMm?: number[];
 }
 
 /** A notch cut out of the front bottom corner of a side for the toe kick. */
@@ -165,6 +174,59 @@ export function hingeCups(heightMm: number, hinges: number): HingeCupOp {
     fromEnd: 'bottom',
     centresMm,
   };
+}
+
+// Pocket holes along a joint (common practice): a hole 2 in (about 50 mm) in from each end of the joint, the rest
+// evenly between at no more than 8 in (the trade's rule of thumb is 6 to 8 in, 150 to 200 mm). On a joint shorter
+// than 8 in, where 2 in would crowd them, the two end holes sit a quarter of its length in from its ends (a 3 in rail
+// takes two, 3/4 in from its edges); one under 1 1/2 in takes a single hole at its middle.
+export const POCKET_END_INSET_MM = 50.8;
+export const POCKET_MAX_SPACING_MM = 203.2;
+const POCKET_SINGLE_UNDER_MM = 38.1;
+
+/**
+ * The centres of the pocket holes along a joint `jointMm` long, from one of its ends (or from a point `startMm` before
+ * it): the count follows from the spacing.
+ *
+ * @example pocketHoleCentres(609.6) // [50.8, 220.1, 389.5, 558.8]
+ * @example pocketHoleCentres(76.2) // [19.1, 57.2]
+ */
+export function pocketHoleCentres(jointMm: number, startMm = 0): number[] {
+  if (jointMm < POCKET_SINGLE_UNDER_MM) return [r1(startMm + jointMm / 2)];
+  const inset = Math.min(POCKET_END_INSET_MM, jointMm / 4);
+  const span = jointMm - 2 * inset;
+  const gaps = Math.max(1, Math.ceil(span / POCKET_MAX_SPACING_MM - 1e-9));
+  return Array.from({ length: gaps + 1 }, (_, i) => r1(startMm + inset + (span * i) / gaps));
+}
+
+/**
+ * Pocket holes at each of the ends `at`, along a joint `jointMm` long (the part's width there, or what of it lies
+ * `startMm` and more from `fromEdge`), centres measured from `fromEdge`; `count` is every hole of the op, the same
+ * count a part's `pocketHoles` and the labour take.
+ *
+ * @example pocketHoles({ face: 'top', at: ['left', 'right'], fromEdge: 'front', jointMm: 101.6 }).count // 4
+ */
+export function pocketHoles(o: {
+  face: PartFace;
+  at: PartEdge[];
+  fromEdge: PartEdge;
+  jointMm: number;
+  startMm?: number;
+}): PocketHoleOp {
+  const centresMm = pocketHoleCentres(o.jointMm, o.startMm);
+  return {
+    kind: 'pocket_holes',
+    face: o.face,
+    count: centresMm.length * o.at.length,
+    at: o.at,
+    fromEdge: o.fromEdge,
+    centresMm,
+  };
+}
+
+/** Every pocket hole among a part's machining. */
+export function pocketHoleCount(ops: readonly Machining[]): number {
+  return ops.reduce((s, o) => s + (o.kind === 'pocket_holes' ? o.count : 0), 0);
 }
 
 /** A dado, rabbet or groove with its sizes rounded to 0.1 mm; a cut at distance 0 is a rabbet. */

@@ -154,6 +154,62 @@ describe('a door', () => {
   });
 });
 
+describe('pocket holes', () => {
+  const centreY = (s: PartShape) => (s.type === 'pocket' ? s.y + s.height / 2 : NaN);
+  it('draws each hole at the position the machining gives, measured from the edge it names', () => {
+    // the 4 in stretcher: holes 1 in from its front and back edges, at both ends
+    const stretcher = part('stretcher');
+    const d = partDrawing(stretcher, 'in');
+    const slots = d.shapes.filter((s) => s.type === 'pocket');
+    expect(slots).toHaveLength(4);
+    // the front edge is the lower one (y = width)
+    for (const y of [stretcher.widthMm - 25.4, stretcher.widthMm - 76.2])
+      expect(slots.filter((s) => Math.abs(centreY(s) - y) < 1e-6)).toHaveLength(2);
+    // a slot at each end, running out at it
+    expect(new Set(slots.map((s) => (s.type === 'pocket' && s.x === 0 ? 'left' : 'right')))).toEqual(
+      new Set(['left', 'right']),
+    );
+    expect(dimensionAt(d, '1"')).toEqual({ axis: 'y', from: stretcher.widthMm - 25.4, to: stretcher.widthMm });
+    expect(dimensionAt(d, '2"')).toEqual({
+      axis: 'y',
+      from: stretcher.widthMm - 76.2,
+      to: stretcher.widthMm - 25.4,
+    });
+    expect(d.notes).toContain(
+      '4 pocket holes on the top face, 2 at the left end and right end each: centers 1" and 3" from the front edge.',
+    );
+  });
+  it('places as many holes as the depth of a butt joint calls for, 2 in from its ends', () => {
+    const parts = pieceOf({ ...base, joinery: 'butt' } as BuildSpec).parts;
+    const bottom = part('bottom', parts);
+    const d = partDrawing(bottom, 'in');
+    const slots = d.shapes.filter((s) => s.type === 'pocket');
+    expect(slots).toHaveLength(8);
+    // measured from the front edge, the lower one (y = width)
+    const ys = [...new Set(slots.map((s) => Math.round(centreY(s) * 10) / 10))].sort((a, b) => a - b);
+    expect(ys).toEqual([558.8, 389.5, 220.1, 50.8].map((c) => Math.round((bottom.widthMm - c) * 10) / 10));
+    expect(d.notes).toContain(
+      '8 pocket holes on the underside, 4 at the left end and right end each: centers 2", 8 21/32", 15 11/32" and 22" from the front edge.',
+    );
+    expect(overlaps(d)).toEqual([]);
+  });
+  it('spreads the holes evenly, as before, for a traveller recorded before they had positions', () => {
+    const stretcher = part('stretcher');
+    const old = {
+      ...stretcher,
+      machining: [{ kind: 'pocket_holes' as const, face: 'top' as const, count: 4, at: ['left', 'right'] as const }],
+    } as unknown as TravellerPart;
+    const d = partDrawing(old, 'in');
+    const ys = d.shapes.filter((s) => s.type === 'pocket').map(centreY);
+    expect(ys.map((y) => Math.round(y * 100) / 100)).toEqual(
+      [0.25, 0.75, 0.25, 0.75].map((f) => Math.round(stretcher.widthMm * f * 100) / 100),
+    );
+    expect(d.notes).toContain(
+      '4 pocket holes on the top face, 2 at the left end and right end each, spaced evenly across it.',
+    );
+  });
+});
+
 describe('partDrawings', () => {
   it('draws identical parts once with their count and the pieces they belong to, and leaves plain parts out', () => {
     const ds = partDrawings({ pieces: [pieceOf(base, 2), pieceOf(base, 1)] }, 'in');
@@ -195,6 +251,15 @@ describe('no two texts of a drawing overlap', () => {
   it.each(['in', 'mm'] as LengthUnit[])('on every demo design, in %s', (unit) => {
     check(partDrawings({ pieces: DESIGN_SLUGS.map((slug) => pieceOf(designs[slug].defaults)) }, unit));
   });
+  it.each(['in', 'mm'] as LengthUnit[])(
+    'on every demo design butt-jointed (pocket holes on its panels), in %s',
+    (unit) => {
+      const pieces = DESIGN_SLUGS.map((slug) => pieceOf({ ...designs[slug].defaults, joinery: 'butt' } as BuildSpec));
+      const ds = partDrawings({ pieces }, unit);
+      expect(ds.some((d) => d.name === 'partition' && d.notes.some((n) => /pocket holes/.test(n)))).toBe(true);
+      check(ds);
+    },
+  );
   it('on random sizes of every demo design inside its limits (fixed seed)', () => {
     const spec = fc
       .record({

@@ -135,8 +135,10 @@ function edgesNamed(ops: readonly Machining[]): Set<PartEdge> {
   for (const o of ops) {
     if (o.kind === 'band') o.edges.forEach((e) => s.add(e));
     else if (o.kind === 'dado' || o.kind === 'rabbet' || o.kind === 'groove') s.add(o.fromEdge);
-    else if (o.kind === 'pocket_holes') o.at.forEach((e) => s.add(e));
-    else if (o.kind === 'shelf_pin_row') s.add(o.fromEdge);
+    else if (o.kind === 'pocket_holes') {
+      o.at.forEach((e) => s.add(e));
+      if (o.fromEdge && o.centresMm) s.add(o.fromEdge);
+    } else if (o.kind === 'shelf_pin_row') s.add(o.fromEdge);
     else if (o.kind === 'hinge_cup') s.add('hinge');
   }
   return s;
@@ -156,6 +158,8 @@ function topBottomAreEdges(ops: readonly Machining[]): boolean {
     if (o.kind === 'groove' && (o.fromEdge === 'top' || o.fromEdge === 'bottom')) return true;
     if ((o.kind === 'dado' || o.kind === 'rabbet') && (o.fromEdge === 'top' || o.fromEdge === 'bottom')) return false;
     if (o.kind === 'shelf_pin_row' || o.kind === 'hinge_cup' || o.kind === 'toe_kick_notch') return false;
+    // pocket holes at the top and bottom: they are ends (a partition's)
+    if (o.kind === 'pocket_holes' && (o.at.includes('top') || o.at.includes('bottom'))) return false;
   }
   return !(named.has('front') || named.has('back') || named.has('hinge') || named.has('opening'));
 }
@@ -450,28 +454,52 @@ export function partDrawing(
 
   function pockets(o: PocketHoleOp) {
     const ends = o.at.map(side);
-    const per = Math.ceil(o.count / Math.max(1, ends.length));
+    const from = o.fromEdge && o.centresMm ? side(o.fromEdge) : null;
+    // the centres along each end from the edge they are measured from; a traveller recorded before the engine gave
+    // positions has a count only, spread evenly across the end
+    const per = o.centresMm && from ? o.centresMm.length : Math.ceil(o.count / Math.max(1, ends.length));
+    const along = (e: Side, k: number): number => {
+      const c = o.centresMm?.[k];
+      if (from && c !== undefined && from.axis !== e.axis) return from.at + from.into * c;
+      return ((e.axis === 'x' ? W : L) * (k + 0.5)) / per;
+    };
     const slotL = Math.min(s * 1.1, L / 4);
-    const slotW = Math.min(s * 0.4, W / (per * 2 + 1));
+    const across = (e: Side) => (e.axis === 'x' ? W : L);
     const spots: [number, number][] = [];
     for (const e of ends) {
+      const gaps = Array.from({ length: per - 1 }, (_, k) => Math.abs(along(e, k + 1) - along(e, k)));
+      const slotW = Math.min(s * 0.4, ...gaps.map((g) => g * 0.6), across(e) / 3);
       for (let k = 0; k < per; k++) {
+        const p = along(e, k);
         if (e.axis === 'x') {
-          const y = (W * (k + 0.5)) / per;
           const x = e.into > 0 ? e.at : e.at - slotL;
-          marks.push({ type: 'pocket', x, y: y - slotW / 2, width: slotL, height: slotW });
-          spots.push([e.at + e.into * (slotL + s * 0.9), y]);
+          marks.push({ type: 'pocket', x, y: p - slotW / 2, width: slotL, height: slotW });
+          spots.push([e.at + e.into * (slotL + s * 0.9), p]);
         } else {
-          const x = (L * (k + 0.5)) / per;
           const y = e.into > 0 ? e.at : e.at - slotL;
-          marks.push({ type: 'pocket', x: x - slotW / 2, y, width: slotW, height: slotL });
-          spots.push([x, e.at + e.into * (slotL + s * 0.9)]);
+          marks.push({ type: 'pocket', x: p - slotW / 2, y, width: slotW, height: slotL });
+          spots.push([p, e.at + e.into * (slotL + s * 0.9)]);
         }
       }
     }
+    const each = ends.length > 1 ? ' each' : '';
+    const at = `${per} at the ${listWords(ends.map((e) => e.words))}${each}`;
+    if (!from || !o.centresMm) {
+      note(`${o.count} pocket holes on the ${FACE_WORDS[o.face]}, ${at}, spaced evenly across it.`, spots);
+      return;
+    }
+    // dimensioned at one end, the one nearest the tiers of dimensions (the right or top end, or the lower edge): from
+    // the edge to the first centre, then centre to centre
+    const shown = ends.reduce((a, e) => (e.at > a.at ? e : a));
+    let prev = from.at;
+    for (let k = 0; k < per; k++) {
+      const p = along(shown, k);
+      dims.push({ axis: from.axis, from: prev, to: p, foot: shown.at, text: len(Math.abs(p - prev)) });
+      prev = p;
+    }
     note(
-      `${o.count} pocket holes on the ${FACE_WORDS[o.face]}, ${per} at the ${listWords(ends.map((e) => e.words))}` +
-        `${ends.length > 1 ? ' each' : ''}, spaced evenly across it (common practice).`,
+      `${o.count} pocket hole${o.count === 1 ? '' : 's'} on the ${FACE_WORDS[o.face]}, ${at}: ` +
+        `${per === 1 ? 'center' : 'centers'} ${listWords(o.centresMm.map((c) => len(c)))} from the ${from.words}.`,
       spots,
     );
   }
