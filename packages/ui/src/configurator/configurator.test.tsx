@@ -4,6 +4,7 @@ import { act, fireEvent, render, screen, waitFor, within } from '@testing-librar
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { designs, parseSpec, toMm, type BuildSpec, type DesignSlug } from '@benchwright/pricing/geometry';
 import { Configurator, defaultsOf } from './configurator';
+import { plainPath } from './issues';
 
 const OPTIONS = {
   carcassMaterialId: [
@@ -181,7 +182,9 @@ describe('the configurator’s choices', { timeout: 20_000 }, () => {
     expect(side.value).toBe('left');
     fireEvent.change(side, { target: { value: 'right' } });
     expect(bench(latest()).cases[1]!.bays[0]!.compartments[0]!.hingeSide).toBe('right');
-    await waitFor(() => expect(bench(sent()).cases[1]!.bays[0]!.compartments[0]!.hingeSide).toBe('right'));
+    await waitFor(() => expect(bench(sent()).cases[1]!.bays[0]!.compartments[0]!.hingeSide).toBe('right'), {
+      timeout: 3000,
+    });
     // the main case's pair of doors hinges on both sides: no choice, until it is one door
     expect(screen.queryByLabelText('Case 1, Bay 2, Section 1 Hinged on')).toBeNull();
     fireEvent.change(screen.getByLabelText('Case 1, Bay 2, Section 1 Doors'), { target: { value: '1' } });
@@ -205,7 +208,7 @@ describe('the configurator’s choices', { timeout: 20_000 }, () => {
     );
     fireEvent.change(load, { target: { value: '500' } });
     expect(bench(latest()).workingLoadKg).toBeCloseTo(500 * 0.45359237, 6);
-    await waitFor(() => expect(bench(sent()).workingLoadKg).toBeCloseTo(226.8, 1));
+    await waitFor(() => expect(bench(sent()).workingLoadKg).toBeCloseTo(226.8, 1), { timeout: 3000 });
     // past what the engine takes: said beside the field, and the piece keeps its load
     fireEvent.change(load, { target: { value: '3000' } });
     expect(screen.getByText('Enter a weight from 0 lb to 2,205 lb.')).toBeTruthy();
@@ -242,7 +245,7 @@ describe('the configurator’s choices', { timeout: 20_000 }, () => {
     expect(at).toHaveProperty('value', '31"');
     fireEvent.change(at, { target: { value: '30 1/2' } });
     expect(bench(latest()).cases[2]!.xMm).toBeCloseTo(toMm(30.5), 6);
-    await waitFor(() => expect(bench(sent()).cases[2]!.xMm).toBeCloseTo(toMm(30.5), 6));
+    await waitFor(() => expect(bench(sent()).cases[2]!.xMm).toBeCloseTo(toMm(30.5), 6), { timeout: 3000 });
     // too far along for the top: the engine's words, beside the field
     fireEvent.change(at, { target: { value: '40' } });
     const case3 = screen.getByRole('group', { name: /^Case 3:/ });
@@ -264,7 +267,9 @@ describe('the configurator’s choices', { timeout: 20_000 }, () => {
     expect(latest().joinery).toBe('butt');
     fireEvent.change(within(group).getByLabelText('Drawer fronts'), { target: { value: 'graduated' } });
     expect(latest().drawerFronts).toBe('graduated');
-    await waitFor(() => expect(sent()).toMatchObject({ joinery: 'butt', drawerFronts: 'graduated' }));
+    await waitFor(() => expect(sent()).toMatchObject({ joinery: 'butt', drawerFronts: 'graduated' }), {
+      timeout: 3000,
+    });
     fireEvent.change(joints, { target: { value: 'shop' } });
     expect('joinery' in latest()).toBe(false);
     // the torsion top's grid, in inches
@@ -293,5 +298,21 @@ describe('the configurator’s choices', { timeout: 20_000 }, () => {
     expect(latest().joinery).toBe('dado');
     fireEvent.change(screen.getByLabelText('Bay 1, Section 1 Kind'), { target: { value: 'drawer' } });
     expect(screen.getByLabelText('Drawer fronts')).toBeTruthy();
+  });
+});
+
+describe('plainPath', () => {
+  it('names a field of the piece in the words on the screen', () => {
+    expect(plainPath('items[0].spec.cases[1].bays[0].compartments[2].heightMm')).toBe(
+      'Case 2, Bay 1, Section 3, height',
+    );
+    expect(plainPath('items[0].spec.cases[2].xMm')).toBe('Case 3, place along the bench');
+    expect(plainPath('cases[1].bays[0].compartments[0].hingeSide')).toBe('Case 2, Bay 1, Section 1, hinged on');
+    expect(plainPath('workingLoadKg')).toBe('working load');
+    expect(plainPath('casterId')).toBe('casters');
+    expect(plainPath('top.gridSpacingMm')).toBe('top, grid spacing');
+    expect(plainPath('joinery')).toBe('case joints');
+    expect(plainPath('bays[0].compartments')).toBe('Bay 1, sections');
+    expect(plainPath('items[0].spec')).toBe('');
   });
 });
