@@ -9,7 +9,7 @@ const PHOTO = Buffer.from(
 
 test.use({ storageState: authFile('priya') });
 
-test('a client sets a bench with walnut trim, a rear case and a finish, attaches a photo and asks for an estimate; the owner sees the photo and the choices', async ({
+test('a client sets a bench with walnut trim, a rear case, a finish, a door hinged on the right and a working load in pounds, attaches a photo and asks for an estimate; the owner sees the photo and the choices', async ({
   page,
   browser,
 }) => {
@@ -31,6 +31,30 @@ test('a client sets a bench with walnut trim, a rear case and a finish, attaches
   await page.getByLabel('Coats').selectOption('2');
   await expect(page.getByText('This cannot be built as set:')).toHaveCount(0);
   await expect(budget).toHaveText(/^\$[\d,]+\.\d\d to \$[\d,]+\.\d\d$/, { timeout: patient(20_000) });
+
+  // the first rear cabinet's door hinged on the right: the drawing's door swings the other way
+  const drawing = page.getByRole('figure', { name: 'Drawing of the rolling assembly bench' });
+  await expect(drawing).not.toHaveClass(/opacity-60/, { timeout: patient(20_000) });
+  const drawn = await drawing.innerHTML();
+  const hinge = page.getByLabel('Case 2, Bay 1, Section 1 Hinged on');
+  await expect(hinge).toHaveValue('left');
+  await hinge.selectOption('right');
+  await expect.poll(() => drawing.innerHTML(), { timeout: patient(20_000) }).not.toBe(drawn);
+
+  // the working load in pounds, with its caution; the casters' check follows it, in pounds
+  const load = page.getByLabel(/^Working load/);
+  await expect(load).toHaveValue('441 lb');
+  await expect(page.getByText(/the shop’s estimate, not a rating: the casters’ own rated load governs/)).toBeVisible();
+  const casters = page.getByText(/^Each caster carries up to [\d,.]+ lb \(one assumed off the floor\)/);
+  await expect(casters).toBeVisible({ timeout: patient(20_000) });
+  const perCaster = (text: string | null) => Number(/up to ([\d,.]+) lb/.exec(text ?? '')?.[1]?.replace(',', ''));
+  const heavier = perCaster(await casters.textContent());
+  await load.fill('300');
+  await expect
+    .poll(async () => perCaster(await casters.textContent()), { timeout: patient(20_000) })
+    .toBeLessThan(heavier);
+  await expect(page.getByText('This cannot be built as set:')).toHaveCount(0);
+  await expect(budget).toHaveText(/^\$[\d,]+\.\d\d to \$[\d,]+\.\d\d$/);
 
   await page.getByLabel('Anything the shop should know').fill('For the garage; a rear case for clamps.');
   await page.getByRole('button', { name: 'Request an estimate' }).click();
@@ -56,6 +80,7 @@ test('a client sets a bench with walnut trim, a rear case and a finish, attaches
   });
   await expect(owner.getByText(/Black walnut, 4\/4/).first()).toBeVisible();
   await expect(owner.getByText(/Hardwax oil/).first()).toBeVisible();
+  await expect(owner.getByText(/door hinged on the right/).first()).toBeVisible();
   // four cases under the top: the cut list names them
   await owner.getByRole('button', { name: 'Show the cut list and sheet layouts' }).click();
   await expect(owner.getByRole('table', { name: /Cut list: Rolling assembly bench/ })).toBeVisible({

@@ -79,6 +79,21 @@ describe('GET /api/designs: the choices a client may make', () => {
     }
   });
 
+  it('gives the shop’s units, which the configurator starts in, and follows a change of them', async () => {
+    const t = await testApp();
+    const anon = t.agent();
+    expect(contract(contracts.DesignResponse, await anon.get('/api/designs/assembly-bench')).design.units).toBe('in');
+    const owner = await t.signIn('maren@fernhill.example');
+    const version = (await owner.get('/api/settings')).body.settings.version as number;
+    expect((await owner.patch('/api/settings').send({ version, values: { units: 'mm' } })).status).toBe(200);
+    const { design } = contract(contracts.DesignResponse, await anon.get('/api/designs/assembly-bench'));
+    expect(design.units).toBe('mm');
+    // the caster's note speaks the same units
+    expect(design.options.casterId!.every((o) => / kg each$/.test(o.note ?? ''))).toBe(true);
+    const list = contract(contracts.DesignsResponse, await anon.get('/api/designs'));
+    expect(list.designs.map((d) => d.units)).toEqual(DESIGN_SLUGS.map(() => 'mm'));
+  });
+
   it('leaves a retired item out of the choices', async () => {
     const t = await testApp();
     const owner = await t.signIn('maren@fernhill.example');

@@ -252,6 +252,8 @@ export interface Design {
   limits: Record<string, [number, number]>;
   /** the choices for each field, keyed by the spec field's dotted path (`carcassMaterialId`, `top.skinMaterialId`) */
   options: Record<string, DesignOption[]>;
+  /** the shop's units: the configurator starts in them (lengths, and a load in lb or kg) */
+  units: 'in' | 'mm';
 }
 /** One thing a client may pick for a field: a price-book item by its plain name, with a short note; no cost. */
 export interface DesignOption {

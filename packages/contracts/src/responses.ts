@@ -188,6 +188,8 @@ const DesignSchema = z.strictObject({
       }),
     ),
   ),
+  /** the shop's units: the configurator starts in them */
+  units: z.enum(['in', 'mm']),
 });
 export const DesignsResponse = z.strictObject({ designs: z.array(DesignSchema) });
 export const DesignResponse = z.strictObject({ design: DesignSchema });

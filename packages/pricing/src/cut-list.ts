@@ -420,16 +420,25 @@ export function cutList(spec: BuildSpec, book: PriceBook, settings: ShopSettings
   const places = spec.design === 'assembly-bench' ? benchLayout(spec) : [];
   cases.forEach((cs, i) => {
     const fronts = geo.fronts.length;
-    buildCase(
-      cs,
-      spec,
-      { carcass, back, front, drawerMat, drawerBottom },
-      settings,
-      list,
-      geo,
-      band,
-      settings.sheetTrimMm,
-    );
+    try {
+      buildCase(
+        cs,
+        spec,
+        { carcass, back, front, drawerMat, drawerBottom },
+        settings,
+        list,
+        geo,
+        band,
+        settings.sheetTrimMm,
+      );
+    } catch (err) {
+      // a bench's case: the issue is at that case, and says which
+      if (!(err instanceof BuildError) || spec.design !== 'assembly-bench') throw err;
+      throw new BuildError(
+        err.message.replace(/\bBay (\d+)/, `Case ${i + 1}, Bay $1`),
+        err.path ? `cases[${i}].${err.path}` : `cases[${i}]`,
+      );
+    }
     const place = places[i];
     if (spec.design === 'assembly-bench' && place) {
       const facing = at(spec.cases, i).facing;

@@ -12,7 +12,9 @@ import {
   formatVolume,
   formatWeight,
   LengthParseError,
+  WeightParseError,
   parseLength,
+  parseWeight,
   toInches,
   toMm,
   unitPriceFactor,
@@ -111,6 +113,32 @@ describe('formatWeight', () => {
   });
   it('returns one decimal under ten', () => {
     expect(formatWeight(2, 'in')).toBe('4.4 lb');
+  });
+});
+
+describe('parseWeight', () => {
+  it('returns kilograms from pounds for an imperial shop and from kilograms for a metric one', () => {
+    // 1 lb is exactly 0.45359237 kg (the international pound, 1959)
+    expect(parseWeight('500', 'in')).toBeCloseTo(226.796185, 6);
+    expect(parseWeight('500 lb', 'in')).toBeCloseTo(226.796185, 6);
+    expect(parseWeight('200', 'mm')).toBe(200);
+  });
+  it('takes the unit written over the default one', () => {
+    expect(parseWeight('100 kg', 'in')).toBe(100);
+    expect(parseWeight('10 lbs', 'mm')).toBeCloseTo(4.5359237, 9);
+    expect(parseWeight('12.5 kilograms', 'in')).toBe(12.5);
+  });
+  it('reads back what formatWeight writes', () => {
+    for (const kg of [2, 54.4311, 200, 680])
+      for (const unit of ['in', 'mm'] as const)
+        expect(formatWeight(parseWeight(formatWeight(kg, unit), unit), unit)).toBe(formatWeight(kg, unit));
+    expect(parseWeight('1,102 lb', 'in')).toBeCloseTo(1102 * 0.45359237, 9);
+  });
+  describe('invalid input', () => {
+    it.each(['', '  ', '-5', 'heavy', '5 stone', '1,10 lb', '3/4'])('throws for %j', (text) => {
+      expect(() => parseWeight(text, 'in')).toThrow(WeightParseError);
+      expect(() => parseWeight(text, 'in')).toThrow(/is not a weight/);
+    });
   });
 });
 

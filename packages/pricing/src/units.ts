@@ -198,6 +198,39 @@ export function formatWeight(kg: number, unit: LengthUnit): string {
   return `${v < 10 ? oneDecimal(v) : grouped(v)} ${unit === 'in' ? 'lb' : 'kg'}`;
 }
 
+export class WeightParseError extends Error {
+  constructor(
+    readonly input: string,
+    reason: string,
+  ) {
+    super(`"${input}" is not a weight: ${reason}`);
+    this.name = 'WeightParseError';
+  }
+}
+
+const WEIGHT = /^((?:\d{1,3}(?:,\d{3})+|\d+)(?:\.\d+)?|\.\d+)\s*(lbs?|pounds?|#|kgs?|kilos?|kilograms?)?\.?$/i;
+
+/**
+ * Reads a weight as people type it (and as `formatWeight` writes it) and returns kilograms. A bare number is taken
+ * in the unit's weight: pounds for 'in', kilograms for 'mm'; `lb`, `lbs`, `pounds`, `kg` or `kilograms` say which.
+ * @example parseWeight('441 lb', 'in') // 200.03
+ * @example parseWeight('1,102', 'in') // 499.86
+ * @example parseWeight('200', 'mm') // 200
+ * @throws WeightParseError saying what was wrong
+ */
+export function parseWeight(text: string, defaultUnit: LengthUnit): number {
+  const input = String(text ?? '');
+  const t = input.trim();
+  if (!t) throw new WeightParseError(input, 'it is empty');
+  if (t.startsWith('-')) throw new WeightParseError(input, 'a weight cannot be negative');
+  const m = WEIGHT.exec(t);
+  if (!m) throw new WeightParseError(input, 'write a number with an optional unit, e.g. 300 lb or 140 kg');
+  const value = Number(at(m, 1).replace(/,/g, ''));
+  const word = (m[2] ?? '').toLowerCase();
+  const pounds = word === '' ? defaultUnit === 'in' : !word.startsWith('k');
+  return pounds ? value / LB_PER_KG : value;
+}
+
 /**
  * An area: square feet or square metres, one decimal.
  * @example formatArea(2.9729, 'in') // '32 ft²'

@@ -140,6 +140,34 @@ describe('validateSpec: a valid piece always prices', () => {
     estimate([{ spec, quantity: 1 }], book, demoSettings);
   });
 
+  it('names a bench’s case in the path and the words of a section it cannot build', () => {
+    // graduated fronts on the standard bench leave its top drawer too shallow an opening for a box
+    const graduated = validateSpec({ ...bench, drawerFronts: 'graduated' }, demoPriceBook, demoSettings);
+    expect(graduated.ok).toBe(false);
+    if (!graduated.ok)
+      expect(graduated.issues).toEqual([
+        {
+          path: 'cases[0].bays[0].compartments[4]',
+          message: expect.stringMatching(/^Case 1, Bay 1, Section 5: a .* high opening .* takes no drawer box/),
+        },
+      ]);
+    // a door too short for its hinges in the second rear cabinet
+    const short = structuredClone(bench);
+    short.cases[2]!.bays[1]!.compartments = [
+      { kind: 'door', heightMm: 100, doors: 1, adjustableShelves: 0, fixedShelves: 0 },
+      { kind: 'open', heightMm: null, doors: 1, adjustableShelves: 0, fixedShelves: 0 },
+    ];
+    const door = validateSpec(short, demoPriceBook, demoSettings);
+    expect(door.ok).toBe(false);
+    if (!door.ok)
+      expect(door.issues).toEqual([
+        {
+          path: 'cases[2].bays[1].compartments[0].heightMm',
+          message: expect.stringMatching(/^Case 3, Bay 2, Section 1: the door would be .* tall/),
+        },
+      ]);
+  });
+
   it('refuses a material of the wrong kind and unknown hardware with the field path', () => {
     const v = validateSpec(
       { ...designs['base-cabinet'].defaults, carcassMaterialId: 'birch-ply-6', pullId: 'hinge-concealed' },

@@ -50,7 +50,8 @@ function buildIssues(spec: BuildSpec, book: PriceBook, settings: ShopSettings): 
     if (err instanceof RangeError) return [{ path: '', message: sentence(err.message) }];
     throw err;
   }
-  const issues = [...partsOnSheets(list, book, settings), ...frontSizes(list, settings)];
+  const bench = spec.design === 'assembly-bench';
+  const issues = [...partsOnSheets(list, book, settings, bench), ...frontSizes(list, settings, bench)];
   if (issues.length) return issues;
   return pieceChecks(list, book, { ...settings, units: messageUnits() })
     .checks.filter((c) => c.level === 'error')
@@ -187,9 +188,15 @@ function references(spec: BuildSpec, book: PriceBook): SpecIssue[] {
 }
 
 /** The field to change for a part too large for its sheet, from the part's id. */
-function partPath(p: CutPart): string {
+/** A bench's part names its case (`c2-b1-k1-door`): the issue's path and words start at that case. */
+function caseOf(p: CutPart, bench: boolean): { path: string; words: string } {
+  const m = bench ? /^c(\d+)-/.exec(p.id) : null;
+  return m ? { path: `cases[${Number(m[1]) - 1}].`, words: `Case ${m[1]}, ` } : { path: '', words: '' };
+}
+
+function partPath(p: CutPart, bench: boolean): string {
   const m = /-b(\d+)-k(\d+)-/.exec(p.id);
-  if (m) return `bays[${Number(m[1]) - 1}].compartments[${Number(m[2]) - 1}]`;
+  if (m) return `${caseOf(p, bench).path}bays[${Number(m[1]) - 1}].compartments[${Number(m[2]) - 1}]`;
   if (/-back(-\d+)?$/.test(p.id)) return 'backMaterialId';
   if (/-side$|-partition$/.test(p.id)) return 'heightMm';
   if (p.id.startsWith('top-skin')) return 'top.skinMaterialId';
@@ -207,19 +214,19 @@ function advice(p: CutPart): string {
 }
 
 /** Every sheet part fits one stock sheet of its material, inside the edge trim, with its grain rule. */
-function partsOnSheets(list: CutList, book: PriceBook, settings: ShopSettings): SpecIssue[] {
+function partsOnSheets(list: CutList, book: PriceBook, settings: ShopSettings, bench: boolean): SpecIssue[] {
   const issues: SpecIssue[] = [];
   for (const p of list.parts) {
     if (p.stock !== 'sheet') continue;
     const m = book.sheetGoods.find((x) => x.id === p.materialId);
     if (!m) {
-      issues.push({ path: partPath(p), message: `The ${p.name} is of a material the shop does not stock.` });
+      issues.push({ path: partPath(p, bench), message: `The ${p.name} is of a material the shop does not stock.` });
       continue;
     }
     if (sheetFits(m, settings.sheetTrimMm, p.lengthMm, p.widthMm, p.grain)) continue;
     const turned = p.grain === 'fixed' && sheetFits(m, settings.sheetTrimMm, p.lengthMm, p.widthMm, 'free');
     issues.push({
-      path: partPath(p),
+      path: partPath(p, bench),
       message: `The ${p.name} (${len(p.lengthMm)} x ${len(p.widthMm)}) is larger than a ${len(m.sheetLengthMm)} x ${len(m.sheetWidthMm)} sheet of ${m.name}${turned ? ' with its grain running the length of the part' : ''}: ${advice(p)}.`,
     });
   }
@@ -227,15 +234,16 @@ function partsOnSheets(list: CutList, book: PriceBook, settings: ShopSettings): 
 }
 
 /** Doors and drawer fronts of sizes a shop builds (limits above, common practice). */
-function frontSizes(list: CutList, settings: ShopSettings): SpecIssue[] {
+function frontSizes(list: CutList, settings: ShopSettings, bench: boolean): SpecIssue[] {
   const issues: SpecIssue[] = [];
   for (const p of list.parts) {
     const m = /-b(\d+)-k(\d+)-(door|drawer-front)$/.exec(p.id);
     if (!m) continue;
     const b = Number(m[1]) - 1;
     const k = Number(m[2]) - 1;
-    const path = `bays[${b}].compartments[${k}]`;
-    const at = where(b, k);
+    const own = caseOf(p, bench);
+    const path = `${own.path}bays[${b}].compartments[${k}]`;
+    const at = `${own.words}${where(b, k)}`;
     if (m[3] === 'door') {
       const w = p.widthMm;
       if (p.lengthMm < MIN_DOOR_HEIGHT_MM - 1e-6)
@@ -269,7 +277,7 @@ function frontSizes(list: CutList, settings: ShopSettings): SpecIssue[] {
         });
       if (w > MAX_DRAWER_WIDTH_MM + 1e-6)
         issues.push({
-          path: `bays[${b}].widthMm`,
+          path: `${own.path}bays[${b}].widthMm`,
           message: `${at}: the drawer would be ${len(w)} wide, more than the ${len(MAX_DRAWER_WIDTH_MM)} a pair of slides carries square: add a bay to divide it.`,
         });
     }

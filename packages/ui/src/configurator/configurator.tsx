@@ -51,8 +51,10 @@ export interface ConfiguratorProps {
  */
 export function Configurator({ slug, spec, setSpec, quantity, setQuantity, leadTime, children }: ConfiguratorProps) {
   const design = designs[slug];
-  const [unit, setUnit] = useState<LengthUnit>('in');
   const choices = useDesign(slug);
+  // the shop's units until the client chooses others
+  const [chosenUnit, setUnit] = useState<LengthUnit | null>(null);
+  const unit = chosenUnit ?? choices.data?.units ?? 'in';
   const live = useDebounced(spec, 300);
   const preview = usePreview(live, quantity);
   const issues = preview.error instanceof ApiRequestError ? preview.error.issues : [];

@@ -1,6 +1,6 @@
 import { useId, useState, type ReactNode } from 'react';
 import type { DesignOption } from '@benchwright/contracts';
-import { formatLength, parseLength, type LengthUnit } from '@benchwright/pricing/geometry';
+import { formatLength, formatWeight, parseLength, parseWeight, type LengthUnit } from '@benchwright/pricing/geometry';
 import { FieldIssues } from './issues';
 
 const input = 'w-full rounded border bg-white px-2 py-1 text-ink focus:outline-2 focus:outline-sage';
@@ -111,6 +111,89 @@ export function LengthField({
         </p>
       ) : null}
       <FieldIssues id={errId} messages={messages} />
+    </div>
+  );
+}
+
+/**
+ * A weight typed in the view's weight (pounds with inches, kilograms with millimeters; "300 kg" is read as said),
+ * kept as typed and stored in kilograms. A slip, or a weight past the limits, is said beside the field and changes
+ * nothing; a weight that reads the same as a limit is the limit. `note` is shown under it.
+ */
+export function WeightField({
+  id,
+  label,
+  context,
+  kg,
+  unit,
+  limits,
+  issues = [],
+  note,
+  onChange,
+}: {
+  id: string;
+  label: string;
+  context?: string;
+  kg: number;
+  unit: LengthUnit;
+  limits: readonly [number, number];
+  issues?: readonly string[];
+  note?: ReactNode;
+  onChange: (kg: number) => void;
+}) {
+  const [text, setText] = useState(() => formatWeight(kg, unit));
+  const [seen, setSeen] = useState({ kg, unit });
+  const [slip, setSlip] = useState<string | undefined>();
+  if (seen.kg !== kg || seen.unit !== unit) {
+    // the piece or the units changed under the field: show it
+    setSeen({ kg, unit });
+    setText(formatWeight(kg, unit));
+    setSlip(undefined);
+  }
+  const [least, most] = limits;
+  const errId = `${id}-error`;
+  const hintId = `${id}-hint`;
+  const messages = slip ? [slip] : issues;
+  return (
+    <div className="mb-3 min-w-0">
+      <Label htmlFor={id} label={label} context={context} />
+      <input
+        id={id}
+        className={`${input} max-w-40 ${messages.length ? 'border-alert' : 'border-rule'}`}
+        value={text}
+        inputMode="decimal"
+        aria-invalid={messages.length ? true : undefined}
+        aria-describedby={`${messages.length ? errId : hintId}${note ? ` ${id}-note` : ''}`}
+        onChange={(e) => {
+          setText(e.target.value);
+          try {
+            let v = parseWeight(e.target.value, unit);
+            const reads = formatWeight(v, unit);
+            if (reads === formatWeight(most, unit)) v = Math.min(v, most);
+            if (reads === formatWeight(least, unit)) v = Math.max(v, least);
+            if (v > most || v < least) {
+              setSlip(`Enter a weight from ${formatWeight(least, unit)} to ${formatWeight(most, unit)}.`);
+              return;
+            }
+            setSlip(undefined);
+            setSeen({ kg: v, unit });
+            onChange(v);
+          } catch (err) {
+            setSlip((err as Error).message);
+          }
+        }}
+      />
+      {!messages.length ? (
+        <p id={hintId} className="mt-1 text-sm text-ink-soft">
+          {formatWeight(least, unit)} to {formatWeight(most, unit)}
+        </p>
+      ) : null}
+      <FieldIssues id={errId} messages={messages} />
+      {note ? (
+        <p id={`${id}-note`} className="mt-1 text-sm text-ink-soft">
+          {note}
+        </p>
+      ) : null}
     </div>
   );
 }

@@ -25,15 +25,30 @@ export function useIssueLookup(): (...paths: string[]) => string[] {
   return (...paths) => paths.flatMap((p) => m.get(p) ?? []);
 }
 
+/** A field's words on the screen, where its name in the piece differs. */
+const FIELD_WORDS: Record<string, string> = {
+  widthMm: 'width',
+  heightMm: 'height',
+  depthMm: 'depth',
+  xMm: 'place along the bench',
+  hingeSide: 'hinged on',
+  workingLoadKg: 'working load',
+  casterId: 'casters',
+  footId: 'feet',
+  joinery: 'case joints',
+  drawerFronts: 'drawer fronts',
+  gridSpacingMm: 'grid spacing',
+  thicknessMm: 'thickness',
+  compartments: 'sections',
+};
+
 /** "cases[0].bays[1].compartments[2].heightMm" -> "Case 1, Bay 2, Section 3, height" (the words on the screen) */
 export function plainPath(path: string): string {
   return specPath(path)
     .replace(/cases\[(\d+)\]/g, (_m, i) => `Case ${Number(i) + 1}`)
     .replace(/bays\[(\d+)\]/g, (_m, i) => `Bay ${Number(i) + 1}`)
     .replace(/compartments\[(\d+)\]/g, (_m, i) => `Section ${Number(i) + 1}`)
-    .replace(/\.?widthMm/, ', width')
-    .replace(/\.?heightMm/, ', height')
-    .replace(/\.?depthMm/, ', depth')
+    .replace(/\b[a-z]\w*$/, (f) => FIELD_WORDS[f] ?? f)
     .replace(/\./g, ', ')
     .replace(/^, /, '');
 }

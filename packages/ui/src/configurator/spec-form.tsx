@@ -1,10 +1,12 @@
-import { useRef, type Dispatch, type ReactNode, type SetStateAction } from 'react';
+import { useRef, useState, type Dispatch, type ReactNode, type SetStateAction } from 'react';
 import type { Design, DesignOption } from '@benchwright/contracts';
 import {
   addRearCase,
   addSideCase,
+  benchLayout,
   designs,
   resizeBench,
+  specBays,
   toMm,
   type AssemblyBenchSpec,
   type Bay,
@@ -15,7 +17,7 @@ import {
   type LengthUnit,
 } from '@benchwright/pricing/geometry';
 import { Button } from '../components';
-import { CountField, LengthField, OptionField, SelectField } from './fields';
+import { CountField, LengthField, OptionField, SelectField, WeightField } from './fields';
 import { FieldIssues, useIssueLookup } from './issues';
 
 type SetSpec = Dispatch<SetStateAction<BuildSpec>>;
@@ -37,6 +39,18 @@ const FACINGS = [
   ['left', 'the left end'],
   ['right', 'the right end'],
 ] as const;
+const HINGE_SIDES = [
+  ['left', 'The left, as you face the door'],
+  ['right', 'The right, as you face the door'],
+] as const;
+const PLACES = [
+  ['next', 'Against the previous case in its row (the left end if none)'],
+  ['set', 'At a distance from the left end'],
+] as const;
+/** what the bench may be set to carry, in kilograms (the engine's limits) */
+const WORKING_LOAD_KG = [0, 1000] as const;
+/** the torsion box's rib spacing, in millimeters (the engine's limits) */
+const GRID_SPACING_MM = [100, 400] as const;
 const MOBILITY: Record<string, string> = {
   'casters-and-feet': 'Locking casters, and leveling feet to stand it firm',
   'locking-casters': 'Locking casters',
@@ -51,10 +65,18 @@ const MATERIALS = [
   ['drawerBottomMaterialId', 'Drawer bottoms'],
 ] as const;
 
-/** The spec with its own front style, or none (the shop's default, from its settings). */
-function withFrontStyle(s: BuildSpec, style: 'overlay' | 'inset' | undefined): BuildSpec {
-  const { frontStyle: _old, ...rest } = s;
-  return (style ? { ...rest, frontStyle: style } : rest) as BuildSpec;
+/** Construction choices a piece may make for itself over the shop's settings; absent, the shop's default holds. */
+type Override = 'frontStyle' | 'joinery' | 'drawerFronts';
+
+/** The spec with its own choice for `key`, or none (the shop's default, from its settings). */
+function withOverride<K extends Override>(s: BuildSpec, key: K, value: BuildSpec[K] | undefined): BuildSpec {
+  const { [key]: _old, ...rest } = s;
+  return (value ? { ...rest, [key]: value } : rest) as BuildSpec;
+}
+
+/** A section without a hinge side: a pair of doors hinges on both sides, and only a door has hinges. */
+function withoutHinge({ hingeSide: _side, ...rest }: Compartment): Compartment {
+  return rest;
 }
 
 const newSection = (): Compartment => ({
@@ -109,7 +131,11 @@ function SectionEditor({
           choices={KINDS}
           issues={issuesAt(`${path}.kind`, path)}
           onChange={(kind) =>
-            onChange({ ...c, kind, ...(kind === 'drawer' ? { adjustableShelves: 0, fixedShelves: 0 } : {}) })
+            onChange({
+              ...(kind === 'door' ? c : withoutHinge(c)),
+              kind,
+              ...(kind === 'drawer' ? { adjustableShelves: 0, fixedShelves: 0 } : {}),
+            })
           }
         />
         <LengthField
@@ -132,7 +158,17 @@ function SectionEditor({
               [2, 'A pair of doors'],
             ]}
             issues={issuesAt(`${path}.doors`)}
-            onChange={(doors) => onChange({ ...c, doors })}
+            onChange={(doors) => onChange(doors === 2 ? { ...withoutHinge(c), doors } : { ...c, doors })}
+          />
+        ) : null}
+        {c.kind === 'door' && c.doors === 1 ? (
+          <SelectField
+            label="Hinged on"
+            context={here}
+            value={c.hingeSide ?? 'left'}
+            choices={HINGE_SIDES}
+            issues={issuesAt(`${path}.hingeSide`)}
+            onChange={(hingeSide) => onChange({ ...c, hingeSide })}
           />
         ) : null}
         {c.kind !== 'drawer' ? (
@@ -290,6 +326,7 @@ function BaysEditor({
 function CaseEditor({
   c,
   index,
+  placedAtMm,
   unit,
   count,
   onChange,
@@ -297,6 +334,8 @@ function CaseEditor({
 }: {
   c: BenchCase;
   index: number;
+  /** where the case stands now, from the left overhang line: a set distance starts there, so nothing moves */
+  placedAtMm: number;
   unit: LengthUnit;
   count: number;
   onChange: (c: BenchCase) => void;
@@ -317,7 +356,7 @@ function CaseEditor({
           context={here}
           mm={c.widthMm}
           unit={unit}
-          issues={issuesAt(`${path}.widthMm`, `${path}.xMm`)}
+          issues={issuesAt(`${path}.widthMm`)}
           onChange={(widthMm) => widthMm !== null && onChange({ ...c, widthMm })}
         />
         <LengthField
@@ -345,6 +384,24 @@ function CaseEditor({
           issues={issuesAt(`${path}.facing`)}
           onChange={(facing) => onChange({ ...c, facing })}
         />
+        <SelectField
+          label="Placed along the bench"
+          context={here}
+          value={c.xMm === null ? 'next' : 'set'}
+          choices={PLACES}
+          onChange={(v) => onChange({ ...c, xMm: v === 'next' ? null : Math.max(0, Math.round(placedAtMm * 10) / 10) })}
+        />
+        {c.xMm !== null ? (
+          <LengthField
+            id={`case-${index}-x`}
+            label="Distance from the left end, inside the overhang"
+            context={here}
+            mm={c.xMm}
+            unit={unit}
+            issues={issuesAt(`${path}.xMm`)}
+            onChange={(xMm) => xMm !== null && onChange({ ...c, xMm })}
+          />
+        ) : null}
       </div>
       <BaysEditor
         bays={c.bays}
@@ -379,6 +436,7 @@ function BenchFields({
   const set = (f: (s: AssemblyBenchSpec) => AssemblyBenchSpec) =>
     setSpec((s) => (s.design === 'assembly-bench' ? f(s) : s));
   const top = spec.top;
+  const places = benchLayout(spec);
   const setTop = (t: Partial<AssemblyBenchSpec['top']>) => set((s) => ({ ...s, top: { ...s.top, ...t } }));
   const trim = spec.trim ?? {
     lumberId: options['trim.lumberId']?.[0]?.id ?? '',
@@ -511,6 +569,18 @@ function BenchFields({
             />
           ) : null}
         </div>
+        {spec.mobility !== 'leveling-feet' ? (
+          <WeightField
+            id="working-load"
+            label="Working load on the bench"
+            kg={spec.workingLoadKg}
+            unit={unit}
+            limits={WORKING_LOAD_KG}
+            issues={issuesAt('workingLoadKg')}
+            note="What it carries in use, beyond its own weight; the casters are checked against it. That check is the shop’s estimate, not a rating: the casters’ own rated load governs."
+            onChange={(workingLoadKg) => set((s) => ({ ...s, workingLoadKg }))}
+          />
+        ) : null}
       </Group>
       <div className="mb-2">
         <h3 className="mb-2 text-lg font-semibold">The cases under the top</h3>
@@ -520,6 +590,7 @@ function BenchFields({
             key={i}
             c={c}
             index={i}
+            placedAtMm={(places[i]?.xMm ?? spec.overhangLeftMm) - spec.overhangLeftMm}
             unit={unit}
             count={spec.cases.length}
             onChange={(nc) => set((s) => ({ ...s, cases: s.cases.map((x, j) => (j === i ? nc : x)) }))}
@@ -538,6 +609,77 @@ function BenchFields({
         ) : null}
       </div>
     </>
+  );
+}
+
+/**
+ * How the shop builds the piece, where a client may ask otherwise: case joints, drawer fronts and a torsion top's
+ * grid. Folded away until opened (the shop's usual is right for most pieces), and opened by a message of its own.
+ */
+function ConstructionFields({ spec, setSpec, unit }: { spec: BuildSpec; setSpec: SetSpec; unit: LengthUnit }) {
+  const issuesAt = useIssueLookup();
+  const mine = issuesAt('joinery', 'drawerFronts', 'top.gridSpacingMm').length > 0;
+  const [open, setOpen] = useState(mine);
+  const [seen, setSeen] = useState(mine);
+  if (seen !== mine) {
+    // a message appears inside: show it
+    setSeen(mine);
+    if (mine) setOpen(true);
+  }
+  const drawers = specBays(spec).some((b) => b.compartments.some((c) => c.kind === 'drawer'));
+  const top = spec.design === 'assembly-bench' && spec.top.kind === 'torsion-box' ? spec.top : null;
+  return (
+    <details
+      className="mb-4 min-w-0 rounded border border-rule p-3"
+      open={open}
+      onToggle={(e) => setOpen(e.currentTarget.open)}
+    >
+      <summary className="cursor-pointer font-semibold">Construction</summary>
+      <p className="mb-3 mt-1 text-sm text-ink-soft">
+        How the shop joins the case{drawers ? ', sizes the drawer fronts' : ''}
+        {top ? ' and grids the top' : ''}; left as the shop usually builds unless you choose.
+      </p>
+      <div className="grid gap-x-3 sm:grid-cols-2">
+        <SelectField
+          label="Case joints"
+          value={spec.joinery ?? 'shop'}
+          choices={[
+            ['shop', 'As the shop usually builds'],
+            ['dado', 'Dadoes: panels set into grooves in the sides'],
+            ['butt', 'Butt joints, pocket-screwed'],
+          ]}
+          issues={issuesAt('joinery')}
+          onChange={(v) => setSpec((s) => withOverride(s, 'joinery', v === 'shop' ? undefined : v))}
+        />
+        {drawers ? (
+          <SelectField
+            label="Drawer fronts"
+            value={spec.drawerFronts ?? 'shop'}
+            choices={[
+              ['shop', 'As the shop usually builds'],
+              ['equal', 'Equal: all the same height'],
+              ['graduated', 'Graduated: each a step taller than the one above'],
+            ]}
+            issues={issuesAt('drawerFronts')}
+            onChange={(v) => setSpec((s) => withOverride(s, 'drawerFronts', v === 'shop' ? undefined : v))}
+          />
+        ) : null}
+        {top ? (
+          <LengthField
+            id="top-grid"
+            label="Top grid, rib centers"
+            mm={top.gridSpacingMm}
+            unit={unit}
+            limits={GRID_SPACING_MM}
+            issues={issuesAt('top.gridSpacingMm')}
+            onChange={(v) =>
+              v !== null &&
+              setSpec((s) => (s.design === 'assembly-bench' ? { ...s, top: { ...s.top, gridSpacingMm: v } } : s))
+            }
+          />
+        ) : null}
+      </div>
+    </details>
   );
 }
 
@@ -687,7 +829,7 @@ export function SpecForm({
               ['inset', 'Inside the openings (inset)'],
             ]}
             {...field('frontStyle')}
-            onChange={(v) => setSpec((s) => withFrontStyle(s, v === 'shop' ? undefined : v))}
+            onChange={(v) => setSpec((s) => withOverride(s, 'frontStyle', v === 'shop' ? undefined : v))}
           />
         </div>
       </Group>
@@ -759,6 +901,7 @@ export function SpecForm({
           />
         </>
       )}
+      <ConstructionFields spec={spec} setSpec={setSpec} unit={unit} />
     </div>
   );
 }

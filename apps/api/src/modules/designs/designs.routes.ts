@@ -14,6 +14,7 @@ function view(slug: DesignSlug, book: PriceBook, units: LengthUnit) {
     defaults: d.defaults,
     limits: d.limits,
     options: designOptions(slug, book, units),
+    units,
   };
 }
 
