@@ -1,11 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { cutList, DRAWER_BOTTOM_CLEARANCE_MM } from './cut-list';
+import { cutList, DRAWER_BOTTOM_CLEARANCE_MM, MIN_GRADUATED_FRONT_MM } from './cut-list';
 import { demoPriceBook, demoSettings } from './demo-data';
 import { designs, type BuildSpec } from './designs';
 import { pieceChecks } from './checks';
 import { hardwareFor } from './hardware';
 import { ShopSettings } from './price-book';
 import { toMm } from './units';
+import { validateSpec } from './validate';
 
 const standard = designs['assembly-bench'].defaults;
 /** The standard bench with its main case as two bays of three drawers each. */
@@ -44,6 +45,18 @@ describe('construction choices', () => {
     const sum = (xs: number[]) => xs.reduce((s, x) => s + x, 0);
     expect(sum([low!, mid!, top!])).toBeCloseTo(sum(fronts(bench)), 6);
     expect(fronts({ ...bench, drawerFronts: 'graduated' } as BuildSpec)).toEqual([low, mid, top]);
+  });
+
+  it('eases the step on a tall stack so its top front stays 4 in tall, and the standard bench takes graduated fronts', () => {
+    const spec = { ...standard, drawerFronts: 'graduated' } as BuildSpec;
+    expect(validateSpec(spec, demoPriceBook, demoSettings).ok).toBe(true);
+    const column = fronts(spec);
+    expect(column).toHaveLength(5);
+    const steps = column.slice(1).map((h, i) => column[i]! - h);
+    for (const s of steps) expect(s).toBeCloseTo(steps[0]!, 6);
+    expect(steps[0]!).toBeGreaterThan(0);
+    expect(steps[0]!).toBeLessThan(25.4);
+    expect(Math.min(...column)).toBeCloseTo(MIN_GRADUATED_FRONT_MM, 6);
   });
 
   it('sets a wall cabinet back in by the hanging rail thickness, so the rail fits behind it', () => {

@@ -148,6 +148,8 @@ const BACK_SETBACK_MM = toMm(0.5);
 const SHELF_SIDE_CLEARANCE_MM = toMm(1 / 16);
 const SHELF_FRONT_SETBACK_MM = toMm(1 / 4);
 const STRETCHER_WIDTH_MM = toMm(4);
+/** graduated drawer fronts: the top (shallowest) front is kept at least 4 in tall (common practice) */
+export const MIN_GRADUATED_FRONT_MM = toMm(4);
 /** bench casters: at most 48 in apart along a row (common practice, from memory) */
 const CASTER_SPACING_MM = toMm(48);
 /** leveling feet adjust about 1 in (from memory); a foot's mounting block is 4 in square */
@@ -1079,8 +1081,10 @@ function buildCase(
         const n = run.length;
         const ext = run.map((_, i) => edgeExt(j + i, -1) + edgeExt(j + i, 1));
         const total = run.reduce((sum, _, i) => sum + at(heights, j + i), 0) + ext.reduce((sum, v) => sum + v, 0);
-        const topFront = (total - (step * n * (n - 1)) / 2) / n;
-        run.forEach((_, i) => (heights[j + i] = topFront + (n - 1 - i) * step - at(ext, i)));
+        // the step eases where a full one would leave the top front under MIN_GRADUATED_FRONT_MM (never below equal)
+        const eased = Math.min(step, Math.max(0, ((total / n - MIN_GRADUATED_FRONT_MM) * 2) / (n - 1)));
+        const topFront = (total - (eased * n * (n - 1)) / 2) / n;
+        run.forEach((_, i) => (heights[j + i] = topFront + (n - 1 - i) * eased - at(ext, i)));
       }
       j = e + 1;
     }

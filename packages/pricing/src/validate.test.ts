@@ -141,8 +141,10 @@ describe('validateSpec: a valid piece always prices', () => {
   });
 
   it('names a bench’s case in the path and the words of a section it cannot build', () => {
-    // graduated fronts on the standard bench leave its top drawer too shallow an opening for a box
-    const graduated = validateSpec({ ...bench, drawerFronts: 'graduated' }, demoPriceBook, demoSettings);
+    // a drawer too short for a box in the main case's drawer column
+    const shallow = structuredClone(bench);
+    shallow.cases[0]!.bays[0]!.compartments[4]!.heightMm = toMm(2.4);
+    const graduated = validateSpec(shallow, demoPriceBook, demoSettings);
     expect(graduated.ok).toBe(false);
     if (!graduated.ok)
       expect(graduated.issues).toEqual([
