@@ -302,6 +302,14 @@ describe('the configurator’s choices', { timeout: 20_000 }, () => {
 });
 
 describe('plainPath', () => {
+  it('keeps the budget at the foot of the form, with a link to the drawing, for a phone', async () => {
+    mount('wall-cabinet');
+    const link = await screen.findByRole('link', { name: 'See the drawing' });
+    expect(link.getAttribute('href')).toBe('#piece-preview');
+    expect(document.getElementById('piece-preview')).not.toBeNull();
+    await waitFor(() => expect(link.parentElement?.textContent).toMatch(/^\$1,000\.00 to \$1,200\.00/));
+  });
+
   it('names a field of the piece in the words on the screen', () => {
     expect(plainPath('items[0].spec.cases[1].bays[0].compartments[2].heightMm')).toBe(
       'Case 2, Bay 1, Section 3, height',

@@ -86,9 +86,26 @@ export function Configurator({ slug, spec, setSpec, quantity, setQuantity, leadT
         <Button type="button" variant="quiet" className="px-0" onClick={() => setSpec(defaultsOf(slug))}>
           Back to our standard piece
         </Button>
+        {/* on a phone the drawing comes after the form: the budget stays in view at the foot of the screen */}
+        <div className="sticky bottom-0 -mx-6 mt-3 flex flex-wrap items-baseline justify-between gap-2 border-t border-rule bg-paper px-6 py-2 lg:hidden">
+          <span className="font-semibold">
+            {issues.length
+              ? 'Cannot be built as set'
+              : q
+                ? `${formatMoney(q.budget.lowCents)} to ${formatMoney(q.budget.highCents)}`
+                : 'Working out the budget…'}
+          </span>
+          <a href="#piece-preview" className="text-sm underline">
+            See the drawing
+          </a>
+        </div>
       </Panel>
 
-      <div className="min-w-0">
+      {/* a wide screen keeps the drawing and budget in view beside the long form; a phone has the bar above */}
+      <div
+        id="piece-preview"
+        className="min-w-0 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:self-start lg:overflow-y-auto"
+      >
         <Panel title={design.name}>
           {q?.items[0] ? (
             <figure
