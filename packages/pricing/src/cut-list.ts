@@ -627,6 +627,18 @@ function buildCase(
     );
   const faceBand = cs.trimmed ? 0 : 1;
   const carcassGrain = (visible: boolean) => grainOf(m.carcass, visible);
+  /** the groove a grooved back sits in, on one face of a part, `lengthMm` long */
+  const backGroove = (face: PartFace, lengthMm: number) =>
+    cut({
+      kind: 'groove',
+      for: 'back',
+      face,
+      fromEdge: 'back',
+      distanceMm: BACK_SETBACK_MM,
+      widthMm: bt,
+      depthMm: DADO_MM,
+      lengthMm,
+    });
   const horizontals = cs.topKind === 'panel' ? 2 : 1; // bottom and a top panel dadoed into the sides
 
   const bays = cs.bays;
@@ -687,19 +699,7 @@ function buildCase(
         }),
       );
     }
-    if (grooved)
-      out.push(
-        cut({
-          kind: 'groove',
-          for: 'back',
-          face,
-          fromEdge: 'back',
-          distanceMm: BACK_SETBACK_MM,
-          widthMm: bt,
-          depthMm: DADO_MM,
-          lengthMm: insideWidth + 2 * dado,
-        }),
-      );
+    if (grooved) out.push(backGroove(face, insideWidth + 2 * dado));
     return out;
   };
   // sides: full height (notched for the toe kick), dadoes for bottom, top panel and the outer bays' dividers, and the back groove
@@ -758,20 +758,7 @@ function buildCase(
             }),
           ]
         : []),
-      ...(grooved
-        ? [
-            cut({
-              kind: 'groove',
-              for: 'back',
-              face: 'inside',
-              fromEdge: 'back',
-              distanceMm: BACK_SETBACK_MM,
-              widthMm: bt,
-              depthMm: DADO_MM,
-              lengthMm: cs.heightMm,
-            }),
-          ]
-        : []),
+      ...(grooved ? [backGroove('inside', cs.heightMm)] : []),
     ],
   });
   list.add({
@@ -1040,18 +1027,7 @@ function buildCase(
       finishFaces: 2,
       machining: [
         ...bandOps(...(faceBand ? (['front'] as const) : [])),
-        ...(['top', 'underside'] as const).map((face) =>
-          cut({
-            kind: 'groove',
-            for: 'back',
-            face,
-            fromEdge: 'back',
-            distanceMm: BACK_SETBACK_MM,
-            widthMm: bt,
-            depthMm: DADO_MM,
-            lengthMm,
-          }),
-        ),
+        ...(['top', 'underside'] as const).map((face) => backGroove(face, lengthMm)),
         ...buttHoles('underside', widthMm),
       ],
     });
