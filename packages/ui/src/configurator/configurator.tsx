@@ -59,6 +59,7 @@ export function Configurator({ slug, spec, setSpec, quantity, setQuantity, leadT
   const preview = usePreview(live, quantity);
   const issues = preview.error instanceof ApiRequestError ? preview.error.issues : [];
   const q = preview.data;
+  const budget = q ? `${formatMoney(q.budget.lowCents)} to ${formatMoney(q.budget.highCents)}` : null;
   return (
     <div className="grid min-w-0 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.2fr)]">
       <Panel title="Your piece">
@@ -89,11 +90,7 @@ export function Configurator({ slug, spec, setSpec, quantity, setQuantity, leadT
         {/* on a phone the drawing comes after the form: the budget stays in view at the foot of the screen */}
         <div className="sticky bottom-0 -mx-6 mt-3 flex flex-wrap items-baseline justify-between gap-2 border-t border-rule bg-paper px-6 py-2 lg:hidden">
           <span className="font-semibold">
-            {issues.length
-              ? 'Cannot be built as set'
-              : q
-                ? `${formatMoney(q.budget.lowCents)} to ${formatMoney(q.budget.highCents)}`
-                : 'Working out the budget…'}
+            {issues.length ? 'Cannot be built as set' : (budget ?? 'Working out the budget…')}
           </span>
           <a href="#piece-preview" className="text-sm underline">
             See the drawing
@@ -132,7 +129,7 @@ export function Configurator({ slug, spec, setSpec, quantity, setQuantity, leadT
           {q && !issues.length ? (
             <>
               <p className="text-xl font-semibold" aria-label="Budget range">
-                {formatMoney(q.budget.lowCents)} to {formatMoney(q.budget.highCents)}
+                {budget}
                 {quantity > 1 ? ` for ${quantity}` : ''}
               </p>
               <p className="mb-3 text-sm text-ink-soft">
